@@ -1,0 +1,25 @@
+// Public API of Sheaf's trial statistics (the one barrel in shared/).
+export { analyzeSite } from './analyze-site';
+export { analyzePooled } from './analyze-pooled';
+export { analyzeTrial } from './analyze-trial';
+export { combineSites } from './combine-sites';
+export { groupBySite } from './group-by-site';
+export { fitRcbd } from './fit-rcbd';
+export type { RcbdFit } from './fit-rcbd';
+export { fitQuadraticResponse } from './fit-quadratic-response';
+export { bartlettTest } from './bartlett-test';
+export { compactLetterDisplay } from './compact-letter-display';
+export { missingPlotEstimate } from './missing-plot-estimate';
+export { chooseReferenceRate } from './choose-reference-rate';
+export { sortRateLevels } from './sort-rate-levels';
+export { blocksNeeded } from './blocks-needed';
+export type { BlocksNeededInput } from './blocks-needed';
+export { sitesNeeded } from './sites-needed';
+export type { SitesNeededInput } from './sites-needed';
+export { studentTQuantile } from './student-t-quantile';
+export { studentTTwoSidedP } from './student-t-two-sided-p';
+export { fUpperTailP } from './f-upper-tail-p';
+export { chiSquareUpperTailP } from './chi-square-upper-tail-p';
+export { studentizedRangeQuantile } from './studentized-range-quantile';
+export { studentizedRangeUpperTailP } from './studentized-range-upper-tail-p';
+export type * from './types';

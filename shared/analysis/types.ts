@@ -1,0 +1,163 @@
+// Input and result shapes of the trial analysis (plain TypeScript types, no zod).
+
+/** One strip of a trial: the measured response (null when the strip is missing). */
+export type StripObservation = {
+  site: string;
+  block: string;
+  rate: string | number;
+  value: number | null;
+};
+
+/** One strip of a single site. */
+export type SiteStrip = { block: string; rate: string | number; value: number | null };
+
+export type AnovaEffectRow = { source: string; df: number; ss: number; ms: number; f: number; p: number };
+export type AnovaErrorRow = { source: string; df: number; ss: number; ms: number };
+export type AnovaTotalRow = { source: 'total'; df: number; ss: number };
+export type AnovaRow = AnovaEffectRow | AnovaErrorRow | AnovaTotalRow;
+
+export type RateMean = {
+  rate: string;
+  n: number;
+  mean: number;
+  se: number;
+  ciLow: number;
+  ciHigh: number;
+  group: string;
+};
+
+export type RateDifference = {
+  rate: string;
+  diff: number;
+  se: number;
+  ciLow: number;
+  ciHigh: number;
+  p: number;
+};
+
+export type MissingEstimate = {
+  block: string;
+  rate: string;
+  /** Least-squares fitted value for the missing strip (= the iterative Yates estimate). */
+  estimate: number;
+  /** (rB + tT − G)/((r − 1)(t − 1)); only when exactly one strip is missing. */
+  classicEstimate?: number;
+};
+
+export type StripResidual = {
+  block: string;
+  rate: string;
+  value: number;
+  fitted: number;
+  residual: number;
+  /** Externally studentized residual (R's `rstudent`); null when it is undefined. */
+  studentized: number | null;
+};
+
+export type OutlierFlag = { block: string; rate: string; value: number; studentized: number };
+
+export type SiteAnalysis = {
+  site?: string;
+  blocks: number;
+  rates: number;
+  missing: number;
+  method: 'balanced' | 'least-squares';
+  anova: AnovaRow[];
+  errorMeanSquare: number;
+  errorDf: number;
+  grandMean: number;
+  cvPercent: number;
+  /** Standard error of a difference (average over pairs when strips are missing). */
+  sed: number;
+  lsd: number;
+  hsd: number;
+  alpha: number;
+  reference: string;
+  means: RateMean[];
+  differences: RateDifference[];
+  missingEstimates: MissingEstimate[];
+  outliers: OutlierFlag[];
+  residuals: StripResidual[];
+  notes: string[];
+};
+
+export type Prices = {
+  seedPricePerRateUnit: number;
+  grainPricePerYieldUnit: number;
+  rateUnit: string;
+  yieldUnit: string;
+};
+
+export type OptimumFlag = 'beyond the tested rates' | 'curve not concave';
+
+export type ResponseCurve = {
+  model: 'quadratic';
+  intercept: number;
+  linear: number;
+  quadratic: number;
+  standardErrors: { intercept: number; linear: number; quadratic: number };
+  rSquared: number;
+  residualDf: number;
+  points: number;
+  testedRange: { low: number; high: number };
+  /** Rate of maximum yield, −b1/(2·b2); null when outside the tested rates or not concave. */
+  agronomicOptimum: number | null;
+  agronomicOptimumFlag?: OptimumFlag;
+  /** Rate where marginal yield value equals marginal seed cost; null as above. */
+  economicOptimum?: number | null;
+  economicOptimumFlag?: OptimumFlag;
+  economics?: {
+    seedPricePerRateUnit: number;
+    grainPricePerYieldUnit: number;
+    rateUnit: string;
+    yieldUnit: string;
+    /** Seed price ÷ grain price: yield units that pay for one rate unit of seed. */
+    priceRatio: number;
+    explanation: string;
+  };
+};
+
+export type PooledMean = { rate: string; n: number; mean: number; se: number; ciLow: number; ciHigh: number };
+
+export type SiteDifference = {
+  site: string;
+  rate: string;
+  diff: number;
+  se: number;
+  ciLow: number;
+  ciHigh: number;
+  p: number;
+};
+
+export type PooledAnalysis = {
+  sites: number;
+  method: 'combined' | 'site-means';
+  anova: AnovaRow[];
+  rateTest: { f: number; df1: number; df2: number; p: number; errorTerm: 'site:rate' };
+  grandMean: number;
+  reference: string;
+  alpha: number;
+  means: PooledMean[];
+  /** Difference of each rate's pooled mean from the reference, tested against site:rate. */
+  differences: RateDifference[];
+  bartlett?: { chiSquare: number; df: number; p: number };
+  siteDifferences: SiteDifference[];
+  curve?: ResponseCurve;
+  notes: string[];
+};
+
+export type AnalysisOptions = { reference?: string; alpha?: number };
+
+export type PooledOptions = AnalysisOptions & {
+  ratesNumeric?: Record<string, number>;
+  prices?: Prices;
+};
+
+export type TrialOptions = PooledOptions & { response?: string };
+
+export type TrialAnalysis = {
+  response: string;
+  reference: string;
+  sites: (SiteAnalysis & { site: string })[];
+  pooled?: PooledAnalysis;
+};
