@@ -1,0 +1,103 @@
+// createApp(deps): the Express app serving the API and the built web app; no listen() here.
+import path from 'node:path';
+import fs from 'node:fs';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import type pg from 'pg';
+import type { DataSource } from 'typeorm';
+import type { AppConfig } from './config/env';
+import { createAdminRouter } from './admin/admin.router';
+import { createAuthRouter } from './auth/auth.router';
+import { createAuthService } from './auth/auth.service';
+import { createHealthRouter } from './health/health.router';
+import { createHomeRouter } from './home/home.router';
+import { createInvitationsRouter } from './invitations/invitations.router';
+import { createInvitationsService } from './invitations/invitations.service';
+import type { RouteEntry } from './lib/route-table';
+import type { RouterContext } from './lib/router-context';
+import type { MailCatcher } from './mail/mail-catcher';
+import type { Mailer } from './mail/mailer';
+import { createPolicies } from './middleware/access';
+import { requireCsrf } from './middleware/csrf';
+import { errorHandler, notFoundApi } from './middleware/error-handler';
+import { createPassport, createSessionMiddleware } from './middleware/session';
+
+export interface AppDeps {
+  config: AppConfig;
+  dataSource: DataSource;
+  /** pg pool for the session store. */
+  sessionPool: pg.Pool;
+  mailer: Mailer;
+  mailCatcher: MailCatcher | null;
+}
+
+/** Feature routers, mounted under /api in this order. */
+const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [];
+
+export function createApp(deps: AppDeps): Express {
+  const { config, dataSource } = deps;
+  const app = express();
+  const table: RouteEntry[] = [];
+  app.locals.routeTable = table;
+  app.disable('x-powered-by');
+  if (config.TRUST_PROXY === 'on') app.set('trust proxy', 1);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // vega-embed and React set styles at run time; scripts stay strictly same-origin.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+        },
+      },
+      strictTransportSecurity: config.NODE_ENV === 'production',
+    }),
+  );
+
+  const policies = createPolicies(dataSource);
+  const auth = createAuthService({ dataSource, mailer: deps.mailer, publicUrl: config.PUBLIC_URL });
+  const invitations = createInvitationsService({ dataSource, mailer: deps.mailer, publicUrl: config.PUBLIC_URL });
+  const ctx: RouterContext = { config, dataSource, policies, table, mailer: deps.mailer, mailCatcher: deps.mailCatcher, auth, invitations };
+
+  // Health answers before sessions so it works with the database down.
+  app.use('/api', createHealthRouter(ctx));
+
+  const passport = createPassport(auth);
+  app.use('/api', express.json({ limit: '1mb' }));
+  app.use('/api', createSessionMiddleware(config, deps.sessionPool));
+  app.use('/api', passport.initialize());
+  app.use('/api', passport.session());
+  app.use('/api', requireCsrf);
+
+  app.use('/api/auth', createAuthRouter({ auth, policies, table, loginLimit: config.RATE_LIMIT_LOGIN }));
+  app.use('/api', createInvitationsRouter(ctx));
+  app.use('/api', createHomeRouter(ctx));
+  app.use('/api/admin', createAdminRouter({ mailCatcher: deps.mailCatcher, production: config.NODE_ENV === 'production', policies, table }));
+  for (const build of FEATURE_ROUTERS) app.use('/api', build(ctx));
+  app.use('/api', notFoundApi);
+
+  const webRoot = path.resolve(config.WEB_DIST);
+  if (fs.existsSync(path.join(webRoot, 'index.html'))) {
+    app.use(express.static(webRoot, { index: false, maxAge: '1h', setHeaders: cacheImmutableAssets }));
+    app.get('/{*splat}', (_req, res) => {
+      res.set('Cache-Control', 'no-cache');
+      res.sendFile(path.join(webRoot, 'index.html'));
+    });
+  }
+  app.use(errorHandler);
+  return app;
+}
+
+function cacheImmutableAssets(res: express.Response, filePath: string) {
+  if (filePath.includes(`${path.sep}assets${path.sep}`)) res.set('Cache-Control', 'public, max-age=31536000, immutable');
+}

@@ -1,0 +1,38 @@
+// Invitation routes: create (coordinators), preview and accept (the invited person).
+import { Router } from 'express';
+import { z } from 'zod';
+import { InvitationAcceptSchema, InvitationCreateSchema } from '../../shared/schemas/auth';
+import type { AuthService } from '../auth/auth.service';
+import { logIn } from '../auth/auth.router';
+import type { Policies } from '../middleware/access';
+import { secureRouter, type RouteEntry } from '../lib/route-table';
+import type { InvitationsService } from './invitations.service';
+
+export function createInvitationsRouter(deps: { invitations: InvitationsService; auth: AuthService; policies: Policies; table: RouteEntry[] }) {
+  const router = Router();
+  const routes = secureRouter(router, deps.table, '/api');
+  const { invitations, auth, policies } = deps;
+
+  routes.post('/networks/:networkId/invitations', policies.networkCoordinator(), async (req, res) => {
+    const input = InvitationCreateSchema.parse(req.body);
+    const networkId = String(req.params.networkId);
+    const inviterRole = req.access!.roles.get(networkId)!;
+    const created = await invitations.invite({ ...input, networkId, invitedBy: req.user!.id, inviterRole });
+    res.status(201).json({ id: created.id, email: created.email, role: created.role, expiresAt: created.expiresAt });
+  });
+
+  routes.get('/invitations/:token', policies.public, async (req, res) => {
+    const token = z.string().min(10).max(200).parse(req.params.token);
+    res.json(await invitations.preview(token));
+  });
+
+  routes.post('/invitations/accept', policies.public, async (req, res) => {
+    const input = InvitationAcceptSchema.parse(req.body);
+    const userId = await invitations.accept(input);
+    const user = await auth.findSessionUser(userId);
+    await logIn(req, user!);
+    res.json(await auth.describeUser(userId));
+  });
+
+  return router;
+}

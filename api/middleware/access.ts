@@ -1,0 +1,175 @@
+// Access policies: who may call a route, decided from the session user and their memberships.
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
+import type { DataSource } from 'typeorm';
+import type { Role } from '../../shared/schemas/common';
+import { Forbidden, NotFound, Unauthenticated } from '../errors';
+
+export type PolicyKind =
+  | 'public'
+  | 'signed-in'
+  | 'admin'
+  | 'network-coordinator'
+  | 'trial-coordinator'
+  | 'trial-reader'
+  | 'site-coordinator'
+  | 'site-grower'
+  | 'site-reader'
+  | 'strip-grower'
+  | 'attachment-reader';
+
+export interface Policy {
+  kind: PolicyKind;
+  /** Which route parameter names the resource the policy guards. */
+  param?: string;
+  middleware: RequestHandler;
+}
+
+export interface AccessContext {
+  userId: string;
+  roles: Map<string, Role>;
+}
+
+const COORDINATING: Role[] = ['admin', 'coordinator'];
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    access?: AccessContext;
+  }
+}
+
+export function isCoordinating(role: Role | undefined): boolean {
+  return role !== undefined && COORDINATING.includes(role);
+}
+
+/** Builds the policies against one DataSource. */
+export function createPolicies(dataSource: DataSource) {
+  async function context(req: Request): Promise<AccessContext> {
+    const userId = req.user?.id;
+    if (!userId) throw new Unauthenticated();
+    if (req.access) return req.access;
+    const rows: { network_id: string; role: Role }[] = await dataSource.query(
+      'SELECT network_id, role FROM memberships WHERE user_id = $1',
+      [userId],
+    );
+    req.access = { userId, roles: new Map(rows.map((r) => [r.network_id, r.role])) };
+    return req.access;
+  }
+
+  function uuidParam(req: Request, name: string, what: string): string {
+    const value = req.params[name];
+    if (typeof value !== 'string' || !/^[0-9a-f-]{36}$/i.test(value)) throw new NotFound(what);
+    return value;
+  }
+
+  async function trialNetwork(trialId: string): Promise<string> {
+    const rows: { network_id: string }[] = await dataSource.query('SELECT network_id FROM trials WHERE id = $1', [trialId]);
+    if (!rows[0]) throw new NotFound('Trial');
+    return rows[0].network_id;
+  }
+
+  interface SiteFacts { network_id: string; grower_user_id: string | null; published: boolean; trial_id: string }
+  async function siteFacts(siteId: string): Promise<SiteFacts> {
+    const rows: SiteFacts[] = await dataSource.query(
+      `SELECT t.network_id, s.grower_user_id, s.published_at IS NOT NULL AS published, s.trial_id
+         FROM sites s JOIN trials t ON t.id = s.trial_id WHERE s.id = $1`,
+      [siteId],
+    );
+    if (!rows[0]) throw new NotFound('Site');
+    return rows[0];
+  }
+
+  async function stripSite(stripId: string): Promise<string> {
+    const rows: { site_id: string }[] = await dataSource.query('SELECT site_id FROM strips WHERE id = $1', [stripId]);
+    if (!rows[0]) throw new NotFound('Strip');
+    return rows[0].site_id;
+  }
+
+  async function trialHasPublished(trialId: string): Promise<boolean> {
+    const rows = await dataSource.query(
+      `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND withdrawn_at IS NULL LIMIT 1`,
+      [trialId],
+    );
+    return rows.length > 0;
+  }
+
+  function policy(kind: PolicyKind, check: (req: Request) => Promise<void>, param?: string): Policy {
+    const middleware = (req: Request, _res: Response, next: NextFunction) => {
+      check(req).then(() => next(), next);
+    };
+    return { kind, param, middleware };
+  }
+
+  async function checkSite(req: Request, siteId: string, allowGrower: boolean, allowMemberWhenPublished: boolean) {
+    const ctx = await context(req);
+    const site = await siteFacts(siteId);
+    const role = ctx.roles.get(site.network_id);
+    if (isCoordinating(role)) return;
+    if (allowGrower && role && site.grower_user_id === ctx.userId) return;
+    if (allowMemberWhenPublished && role && site.published) return;
+    if (!role) throw new NotFound('Site');
+    throw new Forbidden();
+  }
+
+  return {
+    public: policy('public', async () => {}),
+    signedIn: policy('signed-in', async (req) => {
+      await context(req);
+    }),
+    admin: policy('admin', async (req) => {
+      const ctx = await context(req);
+      if (![...ctx.roles.values()].includes('admin')) throw new Forbidden('Only an admin can do this');
+    }),
+    networkCoordinator: (param = 'networkId') =>
+      policy('network-coordinator', async (req) => {
+        const ctx = await context(req);
+        const networkId = uuidParam(req, param, 'Network');
+        const role = ctx.roles.get(networkId);
+        if (!role) throw new NotFound('Network');
+        if (!isCoordinating(role)) throw new Forbidden('Only a coordinator of this network can do this');
+      }, param),
+    trialCoordinator: (param = 'trialId') =>
+      policy('trial-coordinator', async (req) => {
+        const ctx = await context(req);
+        const networkId = await trialNetwork(uuidParam(req, param, 'Trial'));
+        const role = ctx.roles.get(networkId);
+        if (!role) throw new NotFound('Trial');
+        if (!isCoordinating(role)) throw new Forbidden('Only a coordinator of this trial can do this');
+      }, param),
+    /** Coordinators read everything; growers read trials they have a site in; members only once something is published. */
+    trialReader: (param = 'trialId') =>
+      policy('trial-reader', async (req) => {
+        const ctx = await context(req);
+        const trialId = uuidParam(req, param, 'Trial');
+        const networkId = await trialNetwork(trialId);
+        const role = ctx.roles.get(networkId);
+        if (!role) throw new NotFound('Trial');
+        if (isCoordinating(role)) return;
+        if (role === 'grower') {
+          const own = await dataSource.query('SELECT 1 FROM sites WHERE trial_id = $1 AND grower_user_id = $2 LIMIT 1', [trialId, ctx.userId]);
+          if (own.length > 0) return;
+        }
+        if (await trialHasPublished(trialId)) return;
+        throw new Forbidden('This trial has nothing published yet');
+      }, param),
+    siteCoordinator: (param = 'siteId') =>
+      policy('site-coordinator', (req) => checkSite(req, uuidParam(req, param, 'Site'), false, false), param),
+    siteGrower: (param = 'siteId') =>
+      policy('site-grower', (req) => checkSite(req, uuidParam(req, param, 'Site'), true, false), param),
+    siteReader: (param = 'siteId') =>
+      policy('site-reader', (req) => checkSite(req, uuidParam(req, param, 'Site'), true, true), param),
+    stripGrower: (param = 'stripId') =>
+      policy('strip-grower', async (req) => {
+        const siteId = await stripSite(uuidParam(req, param, 'Strip'));
+        await checkSite(req, siteId, true, false);
+      }, param),
+    attachmentReader: (param = 'attachmentId') =>
+      policy('attachment-reader', async (req) => {
+        const id = uuidParam(req, param, 'Photo');
+        const rows: { site_id: string }[] = await dataSource.query('SELECT site_id FROM attachments WHERE id = $1', [id]);
+        if (!rows[0]) throw new NotFound('Photo');
+        await checkSite(req, rows[0].site_id, true, true);
+      }, param),
+  };
+}
+
+export type Policies = ReturnType<typeof createPolicies>;

@@ -1,0 +1,65 @@
+// Reads the environment, connects to PostgreSQL, starts the mail catcher and listens;
+// on SIGTERM/SIGINT it finishes in-flight requests and closes everything.
+import 'reflect-metadata';
+import http from 'node:http';
+import pg from 'pg';
+import { createDataSource } from '../db/data-source';
+import { createApp } from './app';
+import { readConfig } from './config/env';
+import { startMailCatcher, type MailCatcher } from './mail/mail-catcher';
+import { createSmtpMailer } from './mail/mailer';
+
+async function connectWithRetry(init: () => Promise<unknown>, attempts = 30): Promise<void> {
+  for (let i = 1; ; i += 1) {
+    try {
+      await init();
+      return;
+    } catch (error) {
+      if (i >= attempts) throw error;
+      console.log(`[sheaf] waiting for PostgreSQL (${(error as Error).message})`);
+      await new Promise((r) => setTimeout(r, 1000));
+    }
+  }
+}
+
+async function main() {
+  const config = readConfig();
+  const dataSource = createDataSource(config.DATABASE_URL);
+  await connectWithRetry(() => dataSource.initialize());
+  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5, connectionTimeoutMillis: 2000 });
+  sessionPool.on('error', () => {});
+  let mailCatcher: MailCatcher | null = null;
+  if (config.MAIL_CATCHER === 'on' && config.NODE_ENV !== 'production') {
+    mailCatcher = await startMailCatcher({ host: config.SMTP_HOST, port: config.SMTP_PORT });
+  }
+  const mailer = createSmtpMailer({ host: config.SMTP_HOST, port: mailCatcher?.port ?? config.SMTP_PORT, from: config.MAIL_FROM });
+  const app = createApp({ config, dataSource, sessionPool, mailer, mailCatcher });
+  const server = http.createServer(app);
+  server.keepAliveTimeout = 5000;
+  await new Promise<void>((resolve) => server.listen(config.PORT, config.HOST, resolve));
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.PORT;
+  console.log(`[sheaf] listening on http://${config.HOST}:${port}`);
+  if (mailCatcher) console.log(`[sheaf] catching e-mail on smtp://${config.SMTP_HOST}:${mailCatcher.port}`);
+
+  let stopping = false;
+  const shutdown = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`[sheaf] ${signal}: finishing requests and shutting down`);
+    const force = setTimeout(() => process.exit(1), 10_000);
+    force.unref();
+    server.close(async () => {
+      await Promise.allSettled([dataSource.destroy(), sessionPool.end(), mailCatcher?.close()]);
+      process.exit(0);
+    });
+    server.closeIdleConnections();
+  };
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+  process.on('SIGINT', () => shutdown('SIGINT'));
+}
+
+main().catch((error) => {
+  console.error(error instanceof Error ? error.message : error);
+  process.exit(1);
+});

@@ -1,0 +1,25 @@
+// TypeORM DataSource for PostgreSQL; schema changes only through migrations.
+import 'reflect-metadata';
+import { DataSource } from 'typeorm';
+import { ENTITIES } from './entities/index';
+import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
+
+export function createDataSource(databaseUrl: string, options: { poolSize?: number } = {}): DataSource {
+  return new DataSource({
+    type: 'postgres',
+    url: databaseUrl,
+    entities: ENTITIES,
+    migrations: [InitialSchema1764633600000],
+    synchronize: false,
+    migrationsRun: false,
+    uuidExtension: 'pgcrypto',
+    logging: ['error'],
+    extra: {
+      max: options.poolSize ?? 10,
+      // Fail fast when PostgreSQL is down instead of queueing requests forever.
+      connectionTimeoutMillis: 2000,
+      idleTimeoutMillis: 10_000,
+      statement_timeout: 30_000,
+    },
+  });
+}

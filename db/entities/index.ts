@@ -1,0 +1,19 @@
+// The entity list handed to the DataSource (not a barrel for app code).
+import { Attachment } from './attachment.entity';
+import { AuditEvent } from './audit-event.entity';
+import { Invitation } from './invitation.entity';
+import { Membership } from './membership.entity';
+import { Network } from './network.entity';
+import { Observation } from './observation.entity';
+import { PasswordResetToken } from './password-reset-token.entity';
+import { RateLevelRow } from './rate-level.entity';
+import { ReportSnapshot } from './report-snapshot.entity';
+import { Site } from './site.entity';
+import { Strip } from './strip.entity';
+import { Trial } from './trial.entity';
+import { User } from './user.entity';
+
+export const ENTITIES = [
+  User, Network, Membership, Trial, RateLevelRow, Site, Strip, Observation, Attachment,
+  Invitation, PasswordResetToken, AuditEvent, ReportSnapshot,
+];

@@ -1,0 +1,36 @@
+// Settings shared by the start, test and db scripts.
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { spawn, spawnSync } from 'node:child_process';
+
+export const DATA_DIR = path.resolve('.data');
+
+/** A session secret kept in .data so sessions survive restarts of npm start. */
+export function sessionSecret() {
+  if (process.env.SESSION_SECRET) return process.env.SESSION_SECRET;
+  const file = path.join(DATA_DIR, 'session-secret');
+  fs.mkdirSync(DATA_DIR, { recursive: true });
+  if (!fs.existsSync(file)) fs.writeFileSync(file, crypto.randomBytes(32).toString('hex'), { mode: 0o600 });
+  return fs.readFileSync(file, 'utf8').trim();
+}
+
+/** Runs a node script with tsx in this process's environment plus extra; throws on failure. */
+export function runTs(script, args, env) {
+  const result = spawnSync(process.execPath, ['--import', 'tsx', script, ...args], { stdio: 'inherit', env: { ...process.env, ...env } });
+  if (result.status !== 0) throw new Error(`${script} ${args.join(' ')} failed`);
+}
+
+export function buildWeb() {
+  console.log('[sheaf] building the web app…');
+  const result = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
+  if (result.status !== 0) throw new Error('vite build failed');
+}
+
+/** Spawns a child and resolves with its exit code. */
+export function runChild(cmd, args, env) {
+  return new Promise((resolve) => {
+    const child = spawn(cmd, args, { stdio: 'inherit', env: { ...process.env, ...env } });
+    child.on('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));
+  });
+}

@@ -1,0 +1,56 @@
+// npm test: install what is missing (npm deps, PostgreSQL, Chromium), build the web app,
+// start a throw-away PostgreSQL cluster on 127.0.0.1, migrate and load the demo, run every
+// test with vitest, then stop and delete the cluster. Exits non-zero on any failure.
+import fs from 'node:fs';
+import path from 'node:path';
+import { ensureDebianPackage, ensureNodeModules } from './lib/deps.mjs';
+import { DATA_DIR, buildWeb, runChild, runTs } from './lib/env.mjs';
+import { freePort, startCluster } from './lib/postgres.mjs';
+
+const extraArgs = process.argv.slice(2);
+ensureNodeModules();
+if (!ensureDebianPackage('/usr/bin/chromium', 'chromium')) process.exit(1);
+ensureDebianPackage('/usr/bin/pdfinfo', 'poppler-utils');
+buildWeb();
+
+const dataDir = path.join(DATA_DIR, `test-pg-${process.pid}`);
+const cluster = await startCluster({ dataDir, port: await freePort(), database: 'sheaf_test', throwAway: true });
+let cleaned = false;
+function cleanup() {
+  if (cleaned) return;
+  cleaned = true;
+  cluster.stop();
+  fs.rmSync(dataDir, { recursive: true, force: true });
+  fs.rmSync(`${dataDir}.secrets.json`, { force: true });
+}
+process.on('SIGINT', () => { cleanup(); process.exit(130); });
+process.on('SIGTERM', () => { cleanup(); process.exit(143); });
+
+let code = 1;
+try {
+  const env = {
+    NODE_ENV: 'test',
+    DATABASE_URL: cluster.databaseUrl,
+    SHEAF_TEST_PG_BIN: cluster.bin,
+    SHEAF_TEST_PG_DATA: cluster.dataDir,
+    SHEAF_TEST_PG_PORT: String(cluster.port),
+    SHEAF_TEST_PG_SUPER_URL: cluster.superUrl,
+  };
+  runTs('db/cli.ts', ['migrate'], env);
+  runTs('db/cli.ts', ['seed'], env);
+  const vitest = 'node_modules/vitest/vitest.mjs';
+  if (extraArgs.length > 0) {
+    code = await runChild(process.execPath, [vitest, 'run', ...extraArgs], env);
+  } else {
+    // Fault tests stop and start PostgreSQL, so they run after everything else.
+    code = await runChild(process.execPath, [vitest, 'run', '--exclude', 'tests/faults/**'], env);
+    const faults = fs.existsSync('tests/faults') ? await runChild(process.execPath, [vitest, 'run', 'tests/faults'], env) : 0;
+    code = code || faults;
+  }
+} catch (error) {
+  console.error(`[sheaf] ${error.message}`);
+  code = 1;
+} finally {
+  cleanup();
+}
+process.exit(code);

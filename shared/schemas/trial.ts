@@ -1,0 +1,112 @@
+// Trial design contract: crop, reference rate, rate levels, strip layout, seed lot and prices.
+import { z } from 'zod';
+
+export const CROP_KEYS = ['wheat', 'spring-wheat', 'oats', 'hulless-oats', 'barley', 'rye', 'custom'] as const;
+export const CropKeySchema = z.enum(CROP_KEYS);
+export type CropKey = z.infer<typeof CropKeySchema>;
+
+export const RATE_UNITS = ['lb/acre', 'kg/ha', 'seeds/ft2', 'seeds/m2', 'seeds/ft-row'] as const;
+export const RateUnitSchema = z.enum(RATE_UNITS);
+export type RateUnit = z.infer<typeof RateUnitSchema>;
+
+export const UNIT_SYSTEMS = ['imperial', 'metric'] as const;
+export const UnitSystemSchema = z.enum(UNIT_SYSTEMS);
+export type UnitSystem = z.infer<typeof UnitSystemSchema>;
+
+export const TRIAL_STATUSES = ['draft', 'active', 'closed'] as const;
+export const TrialStatusSchema = z.enum(TRIAL_STATUSES);
+export type TrialStatus = z.infer<typeof TrialStatusSchema>;
+
+export const CustomCropSchema = z.object({
+  name: z.string().trim().min(1, 'Name the crop').max(60),
+  thousandKernelWeightG: z.number().positive('Must be above 0').max(100, 'At most 100 g'),
+  bushelWeightLb: z.number().positive('Must be above 0').max(80, 'At most 80 lb'),
+  standardMoisturePct: z.number().min(0).max(30, 'At most 30 %'),
+});
+export type CustomCrop = z.infer<typeof CustomCropSchema>;
+
+export const RateLevelSchema = z.object({
+  id: z.uuid().optional(),
+  multiplier: z.number().positive('Must be above 0').max(10, 'At most 10× the reference'),
+  label: z.string().trim().min(1, 'Give the level a label').max(40),
+});
+export type RateLevel = z.infer<typeof RateLevelSchema>;
+
+export const DEFAULT_RATE_LEVELS: RateLevel[] = [
+  { multiplier: 0.25, label: 'quarter' },
+  { multiplier: 0.5, label: 'half' },
+  { multiplier: 1, label: 'full' },
+  { multiplier: 2, label: 'double' },
+];
+
+const rateLevelsSchema = z
+  .array(RateLevelSchema)
+  .min(2, 'Use at least 2 rate levels')
+  .max(8, 'Use at most 8 rate levels')
+  .refine((levels) => new Set(levels.map((l) => l.multiplier)).size === levels.length, {
+    message: 'Each rate level needs a different multiplier',
+  });
+
+/** Every field a coordinator fills in the wizard; a draft may leave most of them empty. */
+export const TrialDesignSchema = z.object({
+  name: z.string().trim().min(1, 'Name the trial').max(120),
+  question: z.string().trim().max(500).default(''),
+  crop: CropKeySchema,
+  customCrop: CustomCropSchema.nullable().default(null),
+  season: z.string().trim().min(4, 'Give the season, e.g. 2027').max(20),
+  unitSystem: UnitSystemSchema.default('imperial'),
+  referenceRate: z.number().positive('Must be above 0').max(100000),
+  referenceUnit: RateUnitSchema,
+  rateLevels: rateLevelsSchema.default(DEFAULT_RATE_LEVELS),
+  blocksPerSite: z.number().int().min(2, 'Use at least 2 blocks').max(12, 'At most 12 blocks'),
+  rowsPerStrip: z.number().int().min(1, 'At least 1 row').max(48, 'At most 48 rows'),
+  rowSpacingIn: z.number().positive('Must be above 0').max(40, 'At most 40 in'),
+  stripLengthFt: z.number().positive('Must be above 0').max(5000, 'At most 5,000 ft'),
+  borderRows: z.number().int().min(0).max(12),
+  thousandKernelWeightG: z.number().positive('Must be above 0').max(100, 'At most 100 g'),
+  germinationPct: z.number().min(1, 'At least 1 %').max(100, 'At most 100 %'),
+  emergencePct: z.number().min(1, 'At least 1 %').max(100, 'At most 100 %'),
+  seedPricePerLb: z.number().min(0).max(1000).default(0),
+  grainPricePerBu: z.number().min(0).max(1000).default(0),
+});
+export type TrialDesign = z.infer<typeof TrialDesignSchema>;
+
+export const CreateTrialInputSchema = TrialDesignSchema.partial()
+  .extend({ name: z.string().trim().min(1, 'Name the trial').max(120), networkId: z.uuid() })
+  .refine((t) => t.crop !== 'custom' || t.customCrop, {
+    message: 'A custom crop needs its kernel weight, bushel weight and moisture',
+    path: ['customCrop'],
+  });
+export type CreateTrialInput = z.infer<typeof CreateTrialInputSchema>;
+
+export const UpdateTrialInputSchema = TrialDesignSchema.partial().extend({
+  status: TrialStatusSchema.optional(),
+});
+export type UpdateTrialInput = z.infer<typeof UpdateTrialInputSchema>;
+
+export const TrialSchema = TrialDesignSchema.partial().extend({
+  id: z.uuid(),
+  networkId: z.uuid(),
+  networkName: z.string(),
+  name: z.string(),
+  status: TrialStatusSchema,
+  rateLevels: z.array(RateLevelSchema.extend({ id: z.uuid() })),
+  siteCount: z.number(),
+  pooledPublishedAt: z.string().nullable(),
+  publicLinkToken: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Trial = z.infer<typeof TrialSchema>;
+
+export const TrialSummarySchema = z.object({
+  id: z.uuid(),
+  networkId: z.uuid(),
+  networkName: z.string(),
+  name: z.string(),
+  crop: CropKeySchema.nullable(),
+  season: z.string().nullable(),
+  status: TrialStatusSchema,
+  siteCount: z.number(),
+});
+export type TrialSummary = z.infer<typeof TrialSummarySchema>;
