@@ -1,0 +1,8 @@
+// App-wide providers: the shared QueryClient around everything the router renders.
+import { QueryClientProvider } from '@tanstack/react-query';
+import type { ReactNode } from 'react';
+import { queryClient } from '../lib/query-client';
+
+export function AppProvider({ children }: { children: ReactNode }) {
+  return <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
+}

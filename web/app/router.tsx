@@ -1,0 +1,73 @@
+// Feature routes are added below by each feature folder: append a lazy route module to
+// `appRoutes` (signed-in pages inside the app shell), e.g.
+//   { path: 'trials/:trialId', lazy: routeModule(() => import('./routes/trials/trial')) },
+// A route module exports a default component, and optionally `clientLoader(queryClient)`
+// (prefetch with queryClient.ensureQueryData) and an `ErrorBoundary` (404 here, re-throw the rest).
+import type { QueryClient } from '@tanstack/react-query';
+import type { ComponentType } from 'react';
+import {
+  createBrowserRouter,
+  RouterProvider,
+  type LoaderFunction,
+  type RouteObject,
+} from 'react-router-dom';
+import { queryClient } from '../lib/query-client';
+import { RootErrorBoundary, RootHydrateFallback, RootLayout } from './routes/root';
+
+export interface RouteModule {
+  default: ComponentType;
+  clientLoader?: (queryClient: QueryClient) => LoaderFunction;
+  ErrorBoundary?: ComponentType;
+}
+
+/** Turns a route module import into React Router's `lazy`, so each page is its own chunk. */
+export function routeModule(load: () => Promise<RouteModule>) {
+  return async () => {
+    const module = await load();
+    return {
+      Component: module.default,
+      loader: module.clientLoader?.(queryClient),
+      ErrorBoundary: module.ErrorBoundary,
+    };
+  };
+}
+
+/** Signed-in pages, rendered inside the app shell. */
+export const appRoutes: RouteObject[] = [
+  { index: true, lazy: routeModule(() => import('./routes/app/home')) },
+  { path: 'admin/mail', lazy: routeModule(() => import('./routes/admin/mail')) },
+  { path: '*', lazy: routeModule(() => import('./routes/app/not-found')) },
+];
+
+/** Pages for signed-out people: sign in, password reset, invitations. */
+const authRoutes: RouteObject[] = [
+  { path: 'sign-in', lazy: routeModule(() => import('./routes/auth/sign-in')) },
+  { path: 'reset', lazy: routeModule(() => import('./routes/auth/request-reset')) },
+  { path: 'reset/:token', lazy: routeModule(() => import('./routes/auth/new-password')) },
+  { path: 'invite/:token', lazy: routeModule(() => import('./routes/auth/accept-invitation')) },
+];
+
+/** Pages anyone may read, signed in or not. */
+const openRoutes: RouteObject[] = [
+  { path: 'cautions', lazy: routeModule(() => import('./routes/public/cautions')) },
+];
+
+export const routes: RouteObject[] = [
+  {
+    id: 'root',
+    Component: RootLayout,
+    ErrorBoundary: RootErrorBoundary,
+    HydrateFallback: RootHydrateFallback,
+    children: [
+      { lazy: routeModule(() => import('./routes/auth/layout')), children: authRoutes },
+      { lazy: routeModule(() => import('./routes/public/layout')), children: openRoutes },
+      { id: 'app', lazy: routeModule(() => import('./routes/app/layout')), children: appRoutes },
+    ],
+  },
+];
+
+const router = createBrowserRouter(routes);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,124 @@
+// `/`: the signed-in home. Coordinators see their trials, growers their sites, members reports.
+import type { QueryClient } from '@tanstack/react-query';
+import type { ReactNode } from 'react';
+import { useRouteError } from 'react-router-dom';
+import type { SessionUser } from '../../../../shared/schemas/auth';
+import { Alert } from '../../../components/ui/alert';
+import { Button, ButtonLink } from '../../../components/ui/button';
+import { PageHeader } from '../../../components/ui/page-header';
+import { LoadingBlock } from '../../../components/ui/spinner';
+import { meQueryOptions, useMe } from '../../../features/auth/api/get-me';
+import { ReportList } from '../../../features/home/components/report-list';
+import { SiteCardList } from '../../../features/home/components/site-card-list';
+import { TrialCardList } from '../../../features/home/components/trial-card-list';
+import { mySitesQueryOptions, useMySites } from '../../../features/sites/api/get-my-sites';
+import { trialsQueryOptions, useTrials } from '../../../features/trials/api/get-trials';
+import { errorSummary } from '../../../lib/form-errors';
+import { firstName, homeKind } from '../../../lib/session';
+import { isNotFound, NotFoundPanel } from '../../route-errors';
+
+export const clientLoader = (queryClient: QueryClient) => async () => {
+  const user = await queryClient.ensureQueryData(meQueryOptions());
+  if (!user) return null;
+  if (homeKind(user) === 'grower') await queryClient.ensureQueryData(mySitesQueryOptions());
+  else await queryClient.ensureQueryData(trialsQueryOptions());
+  return null;
+};
+
+function networkLine(user: SessionUser): string {
+  const names = [...new Set(user.memberships.map((m) => m.networkName))];
+  return names.join(' · ');
+}
+
+/** Loading and error states for one list, so each home variant reads the same way. */
+function QueryState<T>({
+  query,
+  loadingLabel,
+  children,
+}: {
+  query: { data: T | undefined; isError: boolean; error: unknown; refetch: () => unknown; isRefetching: boolean };
+  loadingLabel: string;
+  children: (data: T) => ReactNode;
+}) {
+  if (query.data !== undefined) return <>{children(query.data)}</>;
+  if (query.isError) {
+    return (
+      <Alert
+        tone="danger"
+        title="Could not load this list"
+        action={
+          <Button variant="secondary" onClick={() => query.refetch()} busy={query.isRefetching}>
+            Try again
+          </Button>
+        }
+      >
+        {errorSummary(query.error)}
+      </Alert>
+    );
+  }
+  return <LoadingBlock label={loadingLabel} />;
+}
+
+function CoordinatorHome({ user }: { user: SessionUser }) {
+  const trials = useTrials();
+  return (
+    <>
+      <PageHeader
+        eyebrow={networkLine(user)}
+        title="Trials"
+        description="Each trial compares seeding rates across growers’ fields. Open one to enrol sites, randomize strips and check the numbers coming in."
+        actions={<ButtonLink to="/trials/new">New trial</ButtonLink>}
+      />
+      <QueryState query={trials} loadingLabel="Loading trials…">
+        {(data) => <TrialCardList trials={data} />}
+      </QueryState>
+    </>
+  );
+}
+
+function GrowerHome({ user }: { user: SessionUser }) {
+  const sites = useMySites();
+  return (
+    <>
+      <PageHeader
+        eyebrow={networkLine(user)}
+        title={`Hello, ${firstName(user)}`}
+        description="Your fields in this season’s trials. Open a site for its strip map, seed weights per strip and the forms for counts and yields."
+      />
+      <QueryState query={sites} loadingLabel="Loading your sites…">
+        {(data) => <SiteCardList sites={data} />}
+      </QueryState>
+    </>
+  );
+}
+
+function MemberHome({ user }: { user: SessionUser }) {
+  const trials = useTrials();
+  return (
+    <>
+      <PageHeader
+        eyebrow={networkLine(user)}
+        title="Reports"
+        description="What the network’s rate strips showed, site by site and pooled across farms."
+      />
+      <QueryState query={trials} loadingLabel="Loading reports…">
+        {(data) => <ReportList trials={data} />}
+      </QueryState>
+    </>
+  );
+}
+
+export default function HomePage() {
+  const { data: user } = useMe();
+  if (!user) return <LoadingBlock />;
+  const kind = homeKind(user);
+  if (kind === 'coordinator') return <CoordinatorHome user={user} />;
+  if (kind === 'grower') return <GrowerHome user={user} />;
+  return <MemberHome user={user} />;
+}
+
+export function ErrorBoundary() {
+  const error = useRouteError();
+  if (!isNotFound(error)) throw error;
+  return <NotFoundPanel />;
+}

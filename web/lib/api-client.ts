@@ -1,0 +1,165 @@
+/**
+ * The one way the web app talks to the Sheaf API: JSON in and out, same-origin cookies,
+ * a CSRF token on every state-changing request, and typed `ApiError`s for non-2xx answers.
+ */
+import { CsrfTokenSchema } from '../../shared/schemas/auth';
+import type { ApiErrorBody } from '../../shared/schemas/common';
+
+export type RowError = NonNullable<ApiErrorBody['error']['rows']>[number];
+
+/** A failed API call: the HTTP status plus the stable `code` and details from the error body. */
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly fields: Record<string, string>;
+  readonly rows: RowError[];
+  /** The server's current version of a resource, sent with some `conflict` answers. */
+  readonly current: unknown;
+
+  constructor(
+    status: number,
+    code: string,
+    message: string,
+    details: { fields?: Record<string, string>; rows?: RowError[]; current?: unknown } = {},
+  ) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.code = code;
+    this.fields = details.fields ?? {};
+    this.rows = details.rows ?? [];
+    this.current = details.current;
+  }
+}
+
+export function isApiError(error: unknown, status?: number): error is ApiError {
+  return error instanceof ApiError && (status === undefined || error.status === status);
+}
+
+type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+const UNSAFE_METHODS = new Set<Method>(['POST', 'PATCH', 'PUT', 'DELETE']);
+
+export interface RequestOptions {
+  /** A JSON-serialisable value, or FormData for uploads (sent as multipart). */
+  body?: unknown;
+  signal?: AbortSignal;
+  headers?: Record<string, string>;
+}
+
+let csrfToken: Promise<string> | null = null;
+
+async function fetchCsrfToken(): Promise<string> {
+  const response = await send('GET', '/api/auth/csrf', {});
+  return CsrfTokenSchema.parse(await readBody(response)).csrfToken;
+}
+
+/** The session's CSRF token, fetched once and shared by every request. */
+function getCsrfToken(): Promise<string> {
+  if (!csrfToken) {
+    csrfToken = fetchCsrfToken().catch((error: unknown) => {
+      csrfToken = null;
+      throw error;
+    });
+  }
+  return csrfToken;
+}
+
+/** Forgets the CSRF token; the server issues a new one after sign-out. */
+export function resetCsrfToken(): void {
+  csrfToken = null;
+}
+
+async function send(method: Method, path: string, options: RequestOptions, token?: string) {
+  const headers: Record<string, string> = { Accept: 'application/json', ...options.headers };
+  let body: BodyInit | undefined;
+  if (options.body instanceof FormData) {
+    body = options.body;
+  } else if (options.body !== undefined) {
+    headers['Content-Type'] = 'application/json';
+    body = JSON.stringify(options.body);
+  }
+  if (token) headers['X-CSRF-Token'] = token;
+
+  let response: Response;
+  try {
+    response = await fetch(path, {
+      method,
+      headers,
+      body,
+      credentials: 'same-origin',
+      signal: options.signal,
+    });
+  } catch (error) {
+    if (error instanceof DOMException && error.name === 'AbortError') throw error;
+    throw new ApiError(
+      0,
+      'network_error',
+      'Sheaf could not reach the server. Check the connection and try again.',
+    );
+  }
+  if (!response.ok) throw await toApiError(response);
+  return response;
+}
+
+async function readBody(response: Response): Promise<unknown> {
+  if (response.status === 204 || response.status === 205) return undefined;
+  const text = await response.text();
+  if (!text) return undefined;
+  const type = response.headers.get('Content-Type') ?? '';
+  return type.includes('json') ? JSON.parse(text) : text;
+}
+
+async function toApiError(response: Response): Promise<ApiError> {
+  let body: unknown;
+  try {
+    body = await readBody(response);
+  } catch {
+    body = undefined;
+  }
+  const error =
+    body && typeof body === 'object' && 'error' in body && body.error && typeof body.error === 'object'
+      ? (body.error as Partial<ApiErrorBody['error']>)
+      : undefined;
+  return new ApiError(
+    response.status,
+    typeof error?.code === 'string' ? error.code : fallbackCode(response.status),
+    typeof error?.message === 'string' ? error.message : `The server answered ${response.status}.`,
+    { fields: error?.fields, rows: error?.rows, current: error?.current },
+  );
+}
+
+function fallbackCode(status: number): string {
+  if (status === 401) return 'unauthenticated';
+  if (status === 403) return 'forbidden';
+  if (status === 404) return 'not_found';
+  if (status === 429) return 'rate_limited';
+  return status >= 500 ? 'internal_error' : 'request_failed';
+}
+
+/** Sends one request and parses the JSON answer (`undefined` for 204). */
+export async function request<T>(method: Method, path: string, options: RequestOptions = {}): Promise<T> {
+  if (!UNSAFE_METHODS.has(method)) {
+    return (await readBody(await send(method, path, options))) as T;
+  }
+  try {
+    return (await readBody(await send(method, path, options, await getCsrfToken()))) as T;
+  } catch (error) {
+    // The token expires with the session: fetch a fresh one and try exactly once more.
+    if (isApiError(error, 403) && error.code === 'csrf_invalid') {
+      resetCsrfToken();
+      return (await readBody(await send(method, path, options, await getCsrfToken()))) as T;
+    }
+    throw error;
+  }
+}
+
+export const api = {
+  get: <T>(path: string, options?: Omit<RequestOptions, 'body'>) => request<T>('GET', path, options),
+  post: <T>(path: string, body?: unknown, options?: RequestOptions) =>
+    request<T>('POST', path, { ...options, body }),
+  patch: <T>(path: string, body?: unknown, options?: RequestOptions) =>
+    request<T>('PATCH', path, { ...options, body }),
+  put: <T>(path: string, body?: unknown, options?: RequestOptions) =>
+    request<T>('PUT', path, { ...options, body }),
+  delete: <T>(path: string, options?: RequestOptions) => request<T>('DELETE', path, options),
+};
