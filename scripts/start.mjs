@@ -37,7 +37,7 @@ try {
   const env = { DATABASE_URL: cluster.databaseUrl };
   runTs('db/cli.ts', ['migrate'], env);
   runTs('db/cli.ts', ['seed'], env);
-  if (!process.env.SKIP_BUILD) buildWeb();
+  buildWeb('dist/web');
 } catch (error) {
   console.error(`[sheaf] ${error.message}`);
   stopAll(1);

@@ -11,7 +11,7 @@ const extraArgs = process.argv.slice(2);
 ensureNodeModules();
 if (!ensureDebianPackage('/usr/bin/chromium', 'chromium')) process.exit(1);
 ensureDebianPackage('/usr/bin/pdfinfo', 'poppler-utils');
-buildWeb();
+const webDist = buildWeb();
 
 const dataDir = path.join(DATA_DIR, `test-pg-${process.pid}`);
 const cluster = await startCluster({ dataDir, port: await freePort(), database: 'sheaf_test', throwAway: true });
@@ -30,6 +30,7 @@ let code = 1;
 try {
   const env = {
     NODE_ENV: 'test',
+    WEB_DIST: webDist,
     DATABASE_URL: cluster.databaseUrl,
     SHEAF_TEST_PG_BIN: cluster.bin,
     SHEAF_TEST_PG_DATA: cluster.dataDir,

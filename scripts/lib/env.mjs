@@ -21,10 +21,13 @@ export function runTs(script, args, env) {
   if (result.status !== 0) throw new Error(`${script} ${args.join(' ')} failed`);
 }
 
-export function buildWeb() {
+/** Builds the web app into outDir (default dist/web); WEB_DIST_DIR lets parallel runs use their own folder. */
+export function buildWeb(outDir = process.env.WEB_DIST_DIR ?? 'dist/web') {
+  if (process.env.SKIP_BUILD) return outDir;
   console.log('[sheaf] building the web app…');
-  const result = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
+  const result = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn', '--outDir', outDir, '--emptyOutDir'], { stdio: 'inherit' });
   if (result.status !== 0) throw new Error('vite build failed');
+  return outDir;
 }
 
 /** Spawns a child and resolves with its exit code. */

@@ -1,7 +1,7 @@
 // Trial design contract: crop, reference rate, rate levels, strip layout, seed lot and prices.
 import { z } from 'zod';
 
-export const CROP_KEYS = ['wheat', 'spring-wheat', 'oats', 'hulless-oats', 'barley', 'rye', 'custom'] as const;
+export const CROP_KEYS = ['wheat', 'springWheat', 'oats', 'hullessOats', 'barley', 'rye', 'custom'] as const;
 export const CropKeySchema = z.enum(CROP_KEYS);
 export type CropKey = z.infer<typeof CropKeySchema>;
 
