@@ -1,0 +1,65 @@
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+
+const root = fileURLToPath(new URL('../../', import.meta.url));
+const run = (...args: string[]) =>
+  spawnSync(process.execPath, ['--import', 'tsx', 'api/cli/analyze.ts', ...args], { cwd: root, encoding: 'utf8' });
+
+describe('analyze CLI', () => {
+  it('prints the Gomez & Gomez site analysis as JSON', () => {
+    const result = run('fixtures/analysis/gomez-seeding-rate.csv', '--reference', '100');
+    expect(result.status).toBe(0);
+    const document = JSON.parse(result.stdout);
+    expect(document.response).toBe('yield');
+    expect(document.reference).toBe('100');
+    expect(document.pooled).toBeUndefined();
+    const rate = document.sites[0].anova.find((r: { source: string }) => r.source === 'rate');
+    // Source: Gomez & Gomez (1984), Table 2.6, p. 28: treatment SS 1,198,331, F 2.17
+    expect(Math.round(rate.ss)).toBe(1198331);
+    expect(rate.f.toFixed(2)).toBe('2.17');
+  });
+
+  it('pools two seasons with rate tested against site:rate', () => {
+    const result = run('fixtures/analysis/gomez-two-seasons.csv', '--reference=0');
+    expect(result.status).toBe(0);
+    const { pooled, sites } = JSON.parse(result.stdout);
+    expect(sites.map((s: { site: string }) => s.site)).toEqual(['dry', 'wet']);
+    expect(pooled.anova.map((r: { source: string }) => r.source)).toEqual(['site', 'block(site)', 'rate', 'site:rate', 'error', 'total']);
+    // Source: R 4.2.2 on Gomez & Gomez (1984) p. 318 data: F = 1.9416 on 4 and 4 df
+    expect(pooled.rateTest).toMatchObject({ df1: 4, df2: 4, errorTerm: 'site:rate' });
+    expect(pooled.rateTest.f).toBeCloseTo(1.94157, 4);
+    expect(pooled.means.map((m: { rate: string }) => m.rate)).toEqual(['0', '60', '90', '120', '150']);
+  });
+
+  it('analyses another response column and pools unbalanced sites by site means', () => {
+    const result = run('fixtures/analysis/demo-network.csv', '--response', 'stand');
+    expect(result.status).toBe(0);
+    const document = JSON.parse(result.stdout);
+    expect(document.response).toBe('stand');
+    expect(document.reference).toBe('1');
+    expect(document.pooled.method).toBe('site-means');
+    const yieldRun = JSON.parse(run('fixtures/analysis/demo-network.csv').stdout);
+    expect(yieldRun.response).toBe('yield');
+    expect(yieldRun.sites[2].missing).toBe(1);
+    expect(yieldRun.sites[2].missingEstimates).toHaveLength(1);
+  });
+
+  it.each([
+    ['bad-missing-column.csv', /row 1 \(header\), column "block": missing/],
+    ['bad-non-numeric.csv', /row 3, column "yield": "abc" is not a number/],
+    ['bad-one-block.csv', /row 6, column "block": site "B" has only one block/],
+  ])('exits 2 with a one-line message for %s', (file, message) => {
+    const result = run(`fixtures/analysis/${file}`);
+    expect(result.status).toBe(2);
+    expect(result.stdout).toBe('');
+    expect(result.stderr.trim().split('\n')).toHaveLength(1);
+    expect(result.stderr).toMatch(message);
+  });
+
+  it('exits 2 for an unknown reference rate', () => {
+    const result = run('fixtures/analysis/gomez-seeding-rate.csv', '--reference', '7');
+    expect(result.status).toBe(2);
+    expect(result.stderr).toMatch(/reference rate "7"/);
+  });
+});
