@@ -17,7 +17,12 @@ function normal(random: () => number): number {
   return Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
 }
 
-function inventNetwork(sites: number, blocks: number, rates: readonly number[], seed: number): StripObservation[] {
+function inventNetwork(
+  sites: number,
+  blocks: number,
+  rates: readonly number[],
+  seed: number,
+): StripObservation[] {
   const random = generator(seed);
   const rows: StripObservation[] = [];
   for (let s = 0; s < sites; s++) {
@@ -36,7 +41,9 @@ function inventNetwork(sites: number, blocks: number, rates: readonly number[], 
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
   const middle = Math.floor(sorted.length / 2);
-  return sorted.length % 2 ? (sorted[middle] as number) : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
+  return sorted.length % 2
+    ? (sorted[middle] as number)
+    : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
 }
 
 function time(run: () => unknown, repeats: number): { first: number; median: number } {
@@ -51,8 +58,16 @@ function time(run: () => unknown, repeats: number): { first: number; median: num
 
 const rates = [0.25, 0.5, 1, 2];
 const network = inventNetwork(200, 6, rates, 20_270_401);
-const site = inventNetwork(1, 4, rates, 7).map(({ block, rate, value }) => ({ block, rate, value }));
+const site = inventNetwork(1, 4, rates, 7).map(({ block, rate, value }) => ({
+  block,
+  rate,
+  value,
+}));
 const pooled = time(() => analyzePooled(network), 40);
 const single = time(() => analyzeSite(site), 2000);
-console.log(`pooled, 200 sites × 4 rates × 6 blocks (${network.length} strips): median ${pooled.median.toFixed(2)} ms (first run ${pooled.first.toFixed(1)} ms; target ≤ 20 ms)`);
-console.log(`one site, 4 rates × 4 blocks: median ${single.median.toFixed(4)} ms (first run ${single.first.toFixed(2)} ms, includes the Tukey quantile before it is memoised; target ≤ 0.2 ms)`);
+console.log(
+  `pooled, 200 sites × 4 rates × 6 blocks (${network.length} strips): median ${pooled.median.toFixed(2)} ms (first run ${pooled.first.toFixed(1)} ms; target ≤ 20 ms)`,
+);
+console.log(
+  `one site, 4 rates × 4 blocks: median ${single.median.toFixed(4)} ms (first run ${single.first.toFixed(2)} ms, includes the Tukey quantile before it is memoised; target ≤ 0.2 ms)`,
+);

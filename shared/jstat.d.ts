@@ -18,7 +18,10 @@ declare module 'jstat' {
       cdf(q: number, nmeans: number, df: number): number;
       inv(p: number, nmeans: number, df: number): number;
     };
-    noncentralt: { cdf(x: number, dof: number, ncp: number): number; pdf(x: number, dof: number, ncp: number): number };
+    noncentralt: {
+      cdf(x: number, dof: number, ncp: number): number;
+      pdf(x: number, dof: number, ncp: number): number;
+    };
     jStat: JStatStatic;
   }
   const jStat: JStatStatic;

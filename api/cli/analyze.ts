@@ -7,12 +7,19 @@ class InputError extends Error {}
 
 const USAGE = 'usage: analyze FILE.csv [--response yield] [--reference 1] [--alpha 0.05]';
 
-function parseArguments(argv: readonly string[]): { file: string; response?: string; reference?: string; alpha?: number } {
+function parseArguments(argv: readonly string[]): {
+  file: string;
+  response?: string;
+  reference?: string;
+  alpha?: number;
+} {
   let file: string | undefined;
   const options: { response?: string; reference?: string; alpha?: number } = {};
   for (let i = 0; i < argv.length; i++) {
     const argument = argv[i] as string;
-    const [flag, inline] = argument.startsWith('--') ? argument.split('=', 2) : [argument, undefined];
+    const [flag, inline] = argument.startsWith('--')
+      ? argument.split('=', 2)
+      : [argument, undefined];
     if (flag === '--response' || flag === '--reference' || flag === '--alpha') {
       const value = inline ?? argv[++i];
       if (value === undefined) throw new InputError(`${flag} needs a value`);
@@ -20,10 +27,12 @@ function parseArguments(argv: readonly string[]): { file: string; response?: str
       else if (flag === '--reference') options.reference = value;
       else {
         const alpha = Number(value);
-        if (!(alpha > 0 && alpha < 1)) throw new InputError(`--alpha must be between 0 and 1 (got ${value})`);
+        if (!(alpha > 0 && alpha < 1))
+          throw new InputError(`--alpha must be between 0 and 1 (got ${value})`);
         options.alpha = alpha;
       }
-    } else if (argument.startsWith('--')) throw new InputError(`unknown option ${argument}; ${USAGE}`);
+    } else if (argument.startsWith('--'))
+      throw new InputError(`unknown option ${argument}; ${USAGE}`);
     else if (file === undefined) file = argument;
     else throw new InputError(`unexpected argument ${argument}; ${USAGE}`);
   }
@@ -41,17 +50,21 @@ function readRows(text: string, wanted?: string): { response: string; rows: Stri
   if (badRow) throw new InputError(`row ${(badRow.row ?? 0) + 2}: ${badRow.message}`);
   const columns = parsed.meta.fields ?? [];
   for (const required of ['site', 'block', 'rate']) {
-    if (!columns.includes(required)) throw new InputError(`row 1 (header), column "${required}": missing`);
+    if (!columns.includes(required))
+      throw new InputError(`row 1 (header), column "${required}": missing`);
   }
   const candidates = columns.filter((column) => !['site', 'block', 'rate'].includes(column));
   let response: string;
   if (wanted !== undefined) {
-    if (!columns.includes(wanted)) throw new InputError(`row 1 (header), column "${wanted}": missing`);
+    if (!columns.includes(wanted))
+      throw new InputError(`row 1 (header), column "${wanted}": missing`);
     response = wanted;
   } else if (candidates.includes('yield')) response = 'yield';
   else {
     const numeric = candidates.find((column) =>
-      parsed.data.some((row) => (row[column] ?? '').trim() !== '' && Number.isFinite(Number(row[column]))),
+      parsed.data.some(
+        (row) => (row[column] ?? '').trim() !== '' && Number.isFinite(Number(row[column])),
+      ),
     );
     if (numeric === undefined) throw new InputError('row 1 (header): no numeric response column');
     response = numeric;
@@ -77,7 +90,9 @@ function readRows(text: string, wanted?: string): { response: string; rows: Stri
   if (rows.length === 0) throw new InputError('row 2: the file has no data rows');
   for (const [site, { blocks, firstRow }] of blocksBySite) {
     if (blocks.size < 2) {
-      throw new InputError(`row ${firstRow}, column "block": site "${site}" has only one block; a site needs at least 2`);
+      throw new InputError(
+        `row ${firstRow}, column "block": site "${site}" has only one block; a site needs at least 2`,
+      );
     }
   }
   return { response, rows };

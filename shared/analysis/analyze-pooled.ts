@@ -19,9 +19,13 @@ import type { PooledAnalysis, PooledOptions, StripObservation } from './types';
  * @throws Error when there are fewer than two sites or any site cannot be analysed
  * @example analyzePooled(gomezWetDryRows).rateTest.f // 1.9416 (R 4.2.2, Gomez & Gomez 1984 Table 8.4 data)
  */
-export function analyzePooled(rows: readonly StripObservation[], options: PooledOptions = {}): PooledAnalysis {
+export function analyzePooled(
+  rows: readonly StripObservation[],
+  options: PooledOptions = {},
+): PooledAnalysis {
   const { sites, rateLevels, reference } = groupBySite(rows, options.reference);
-  if (sites.length < 2) throw new Error(`analyzePooled needs at least 2 sites (got ${sites.length})`);
+  if (sites.length < 2)
+    throw new Error(`analyzePooled needs at least 2 sites (got ${sites.length})`);
   const analyses = sites.map(({ site, rows: siteRows }) => ({
     site,
     analysis: withSite(site, () => analyzeSite(siteRows, { reference, alpha: options.alpha })),

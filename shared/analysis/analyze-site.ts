@@ -48,7 +48,10 @@ const OUTLIER_LIMIT = 3;
  *   left, a strip appears twice, a value is not finite, or the residual variance is zero
  * @example analyzeSite(gomezSeedRateRows).anova[1].f // 2.1678 (Gomez & Gomez 1984, Table 2.6)
  */
-export function analyzeSite(rows: readonly SiteStrip[], options: AnalysisOptions = {}): SiteAnalysis {
+export function analyzeSite(
+  rows: readonly SiteStrip[],
+  options: AnalysisOptions = {},
+): SiteAnalysis {
   const alpha = options.alpha ?? 0.05;
   if (!(alpha > 0 && alpha < 1)) throw new Error(`analyzeSite needs 0 < alpha < 1 (got ${alpha})`);
   const blockIndex = new Map<string, number>();
@@ -60,16 +63,20 @@ export function analyzeSite(rows: readonly SiteStrip[], options: AnalysisOptions
     if (block === '') throw new Error(`analyzeSite: strip ${index + 1} has no block`);
     if (rate === '') throw new Error(`analyzeSite: strip ${index + 1} has no rate`);
     if (row.value !== null && !Number.isFinite(row.value)) {
-      throw new Error(`analyzeSite: strip ${index + 1} (block ${block}, rate ${rate}) has a value that is not a finite number`);
+      throw new Error(
+        `analyzeSite: strip ${index + 1} (block ${block}, rate ${rate}) has a value that is not a finite number`,
+      );
     }
     if (!blockIndex.has(block)) blockIndex.set(block, blockIndex.size);
     if (!rateSeen.has(rate)) rateSeen.set(rate, rateSeen.size);
     const key = `${block}\u0000${rate}`;
-    if (cells.has(key)) throw new Error(`analyzeSite: block ${block} has rate ${rate} more than once`);
+    if (cells.has(key))
+      throw new Error(`analyzeSite: block ${block} has rate ${rate} more than once`);
     cells.set(key, row.value);
   });
   const rateLevels = sortRateLevels([...rateSeen.keys()]);
-  if (rateLevels.length < 2) throw new Error(`analyzeSite needs at least 2 rates (got ${rateLevels.length})`);
+  if (rateLevels.length < 2)
+    throw new Error(`analyzeSite needs at least 2 rates (got ${rateLevels.length})`);
   const notes: string[] = [];
   const allBlocks = [...blockIndex.keys()];
   const blockNames = allBlocks.filter((block) =>
@@ -81,7 +88,9 @@ export function analyzeSite(rows: readonly SiteStrip[], options: AnalysisOptions
   const dropped = allBlocks.filter((block) => !blockNames.includes(block));
   if (dropped.length > 0) notes.push(`Block ${dropped.join(', ')} has no data and was left out.`);
   if (blockNames.length < 2) {
-    throw new Error(`analyzeSite: fewer than two blocks have data (${blockNames.length}); a site needs at least 2 blocks`);
+    throw new Error(
+      `analyzeSite: fewer than two blocks have data (${blockNames.length}); a site needs at least 2 blocks`,
+    );
   }
   const table = blockNames.map((block) =>
     rateLevels.map((rate) => {
@@ -90,11 +99,13 @@ export function analyzeSite(rows: readonly SiteStrip[], options: AnalysisOptions
     }),
   );
   rateLevels.forEach((rate, i) => {
-    if (table.every((row) => Number.isNaN(row[i] as number))) throw new Error(`analyzeSite: rate ${rate} has no data`);
+    if (table.every((row) => Number.isNaN(row[i] as number)))
+      throw new Error(`analyzeSite: rate ${rate} has no data`);
   });
   const blocks = blockNames.length;
   const rates = rateLevels.length;
-  const missing = blocks * rates - table.reduce((n, row) => n + row.filter((y) => !Number.isNaN(y)).length, 0);
+  const missing =
+    blocks * rates - table.reduce((n, row) => n + row.filter((y) => !Number.isNaN(y)).length, 0);
   if (blocks * rates - missing - blocks - rates + 1 < 1) {
     throw new Error(
       `analyzeSite: no error degrees of freedom left (${blocks} blocks × ${rates} rates with ${missing} missing strips)`,
@@ -104,7 +115,9 @@ export function analyzeSite(rows: readonly SiteStrip[], options: AnalysisOptions
   const errorDf = fit.dfError;
   const errorMeanSquare = fit.ssError / errorDf;
   if (!(errorMeanSquare > 0)) {
-    throw new Error('analyzeSite: the error mean square is zero (blocks and rates fit the data exactly)');
+    throw new Error(
+      'analyzeSite: the error mean square is zero (blocks and rates fit the data exactly)',
+    );
   }
   const reference = chooseReferenceRate(rateLevels, fit.counts, options.reference);
   const referenceIndex = rateLevels.indexOf(reference);
@@ -126,7 +139,10 @@ export function analyzeSite(rows: readonly SiteStrip[], options: AnalysisOptions
   const sed = sedSum / pairs;
   const letters = compactLetterDisplay(fit.means, (i, k) => {
     const sedPair = Math.sqrt(errorMeanSquare * fit.differenceVariance(i, k));
-    return Math.abs((fit.means[i] as number) - (fit.means[k] as number)) > (qCritical * sedPair) / Math.SQRT2;
+    return (
+      Math.abs((fit.means[i] as number) - (fit.means[k] as number)) >
+      (qCritical * sedPair) / Math.SQRT2
+    );
   });
   const means: RateMean[] = rateLevels.map((rate, i) => {
     const mean = fit.means[i] as number;
@@ -175,8 +191,15 @@ export function analyzeSite(rows: readonly SiteStrip[], options: AnalysisOptions
           let blockTotal = 0;
           for (const value of row) if (!Number.isNaN(value)) blockTotal += value;
           let rateTotal = 0;
-          for (const other of table) if (!Number.isNaN(other[i] as number)) rateTotal += other[i] as number;
-          estimate.classicEstimate = missingPlotEstimate(blockTotal, rateTotal, grandTotal, blocks, rates);
+          for (const other of table)
+            if (!Number.isNaN(other[i] as number)) rateTotal += other[i] as number;
+          estimate.classicEstimate = missingPlotEstimate(
+            blockTotal,
+            rateTotal,
+            grandTotal,
+            blocks,
+            rates,
+          );
         }
         missingEstimates.push(estimate);
         continue;
@@ -201,15 +224,31 @@ export function analyzeSite(rows: readonly SiteStrip[], options: AnalysisOptions
     );
   }
   if (outliers.length > 0) {
-    notes.push(`${outliers.length} strip${outliers.length === 1 ? '' : 's'} with |studentized residual| > ${OUTLIER_LIMIT}: check the field notes.`);
+    notes.push(
+      `${outliers.length} strip${outliers.length === 1 ? '' : 's'} with |studentized residual| > ${OUTLIER_LIMIT}: check the field notes.`,
+    );
   }
   return {
     blocks,
     rates,
     missing,
     anova: [
-      { source: 'block', df: fit.dfBlock, ss: fit.ssBlock, ms: msBlock, f: fBlock, p: fUpperTailP(fBlock, fit.dfBlock, errorDf) },
-      { source: 'rate', df: fit.dfRate, ss: fit.ssRate, ms: msRate, f: fRate, p: fUpperTailP(fRate, fit.dfRate, errorDf) },
+      {
+        source: 'block',
+        df: fit.dfBlock,
+        ss: fit.ssBlock,
+        ms: msBlock,
+        f: fBlock,
+        p: fUpperTailP(fBlock, fit.dfBlock, errorDf),
+      },
+      {
+        source: 'rate',
+        df: fit.dfRate,
+        ss: fit.ssRate,
+        ms: msRate,
+        f: fRate,
+        p: fUpperTailP(fRate, fit.dfRate, errorDf),
+      },
       { source: 'error', df: errorDf, ss: fit.ssError, ms: errorMeanSquare },
       { source: 'total', df: fit.observed - 1, ss: fit.ssTotal },
     ],

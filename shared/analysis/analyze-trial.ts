@@ -18,7 +18,10 @@ import type { StripObservation, TrialAnalysis, TrialOptions } from './types';
  * @throws Error naming the site when a site cannot be analysed
  * @example analyzeTrial(rows, { response: 'yield' }).sites[0].anova[1].source // 'rate'
  */
-export function analyzeTrial(rows: readonly StripObservation[], options: TrialOptions = {}): TrialAnalysis {
+export function analyzeTrial(
+  rows: readonly StripObservation[],
+  options: TrialOptions = {},
+): TrialAnalysis {
   const { sites, rateLevels, reference } = groupBySite(rows, options.reference);
   const analyses = sites.map(({ site, rows: siteRows }) => {
     try {
@@ -32,6 +35,7 @@ export function analyzeTrial(rows: readonly StripObservation[], options: TrialOp
     reference,
     sites: analyses.map(({ site, analysis }) => ({ site, ...analysis })),
   };
-  if (analyses.length >= 2) result.pooled = combineSites(analyses, rateLevels, { ...options, reference });
+  if (analyses.length >= 2)
+    result.pooled = combineSites(analyses, rateLevels, { ...options, reference });
   return result;
 }

@@ -20,7 +20,8 @@ export function bartlettTest(
   dfs: readonly number[],
 ): { chiSquare: number; df: number; p: number } {
   const k = variances.length;
-  if (k < 2 || dfs.length !== k) throw new Error('bartlettTest needs two or more variances, each with its df');
+  if (k < 2 || dfs.length !== k)
+    throw new Error('bartlettTest needs two or more variances, each with its df');
   let totalDf = 0;
   let pooledSum = 0;
   let logSum = 0;
@@ -29,7 +30,9 @@ export function bartlettTest(
     const variance = variances[i] as number;
     const df = dfs[i] as number;
     if (!(variance > 0) || !(df > 0)) {
-      throw new Error(`bartlettTest needs positive variances and df (item ${i + 1}: ${variance}, ${df})`);
+      throw new Error(
+        `bartlettTest needs positive variances and df (item ${i + 1}: ${variance}, ${df})`,
+      );
     }
     totalDf += df;
     pooledSum += df * variance;

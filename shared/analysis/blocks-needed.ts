@@ -42,23 +42,43 @@ export function blocksNeeded(input: BlocksNeededInput): {
   const maxBlocks = input.maxBlocks ?? 200;
   if (!(input.cvPercent > 0)) throw new Error('blocksNeeded needs cvPercent > 0');
   if (!(input.rates >= 2)) throw new Error('blocksNeeded needs at least 2 rates');
-  if (!(alpha > 0 && alpha < 1) || !(power > 0 && power < 1)) throw new Error('blocksNeeded needs 0 < alpha, power < 1');
-  const percent = differencePercent(input.difference, input.differenceIsPercent ?? input.mean === undefined, input.mean, 'blocksNeeded');
+  if (!(alpha > 0 && alpha < 1) || !(power > 0 && power < 1))
+    throw new Error('blocksNeeded needs 0 < alpha, power < 1');
+  const percent = differencePercent(
+    input.difference,
+    input.differenceIsPercent ?? input.mean === undefined,
+    input.mean,
+    'blocksNeeded',
+  );
   for (let blocks = 2; blocks <= maxBlocks; blocks++) {
     const errorDf = (blocks - 1) * (input.rates - 1);
     const tAlpha = studentTQuantile(1 - alpha / 2, errorDf);
     const tBeta = studentTQuantile(power, errorDf);
     const required = (2 * (tAlpha + tBeta) ** 2 * input.cvPercent ** 2) / percent ** 2;
     if (blocks >= required) {
-      return { blocks, errorDf, tAlpha, tBeta, detectablePercent: (tAlpha + tBeta) * input.cvPercent * Math.sqrt(2 / blocks) };
+      return {
+        blocks,
+        errorDf,
+        tAlpha,
+        tBeta,
+        detectablePercent: (tAlpha + tBeta) * input.cvPercent * Math.sqrt(2 / blocks),
+      };
     }
   }
-  throw new Error(`blocksNeeded: more than ${maxBlocks} blocks would be needed; aim for a larger difference or lower CV`);
+  throw new Error(
+    `blocksNeeded: more than ${maxBlocks} blocks would be needed; aim for a larger difference or lower CV`,
+  );
 }
 
-function differencePercent(difference: number, isPercent: boolean, mean: number | undefined, name: string): number {
+function differencePercent(
+  difference: number,
+  isPercent: boolean,
+  mean: number | undefined,
+  name: string,
+): number {
   if (!(difference > 0)) throw new Error(`${name} needs a difference > 0`);
   if (isPercent) return difference;
-  if (!(mean !== undefined && mean > 0)) throw new Error(`${name} needs the expected mean for an absolute difference`);
+  if (!(mean !== undefined && mean > 0))
+    throw new Error(`${name} needs the expected mean for an absolute difference`);
   return (100 * difference) / mean;
 }

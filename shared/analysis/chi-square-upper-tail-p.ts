@@ -14,7 +14,8 @@ import jStat from 'jstat';
  * @example chiSquareUpperTailP(3.84145882069412, 1) // 0.05 (R 4.2.2)
  */
 export function chiSquareUpperTailP(x: number, df: number): number {
-  if (!(x >= 0) || !Number.isFinite(x)) throw new Error(`chiSquareUpperTailP needs a finite x ≥ 0 (got ${x})`);
+  if (!(x >= 0) || !Number.isFinite(x))
+    throw new Error(`chiSquareUpperTailP needs a finite x ≥ 0 (got ${x})`);
   if (!(df > 0)) throw new Error(`chiSquareUpperTailP needs df > 0 (got ${df})`);
   return Math.max(0, 1 - jStat.chisquare.cdf(x, df));
 }

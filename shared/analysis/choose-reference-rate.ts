@@ -19,13 +19,20 @@ export function chooseReferenceRate(
 ): string {
   if (levels.length === 0) throw new Error('chooseReferenceRate needs at least one rate level');
   if (requested !== undefined) {
-    const match = levels.find((level) => level === requested || (Number(level) === Number(requested) && requested.trim() !== ''));
+    const match = levels.find(
+      (level) =>
+        level === requested || (Number(level) === Number(requested) && requested.trim() !== ''),
+    );
     if (match === undefined) {
-      throw new Error(`chooseReferenceRate: reference rate "${requested}" is not one of ${levels.join(', ')}`);
+      throw new Error(
+        `chooseReferenceRate: reference rate "${requested}" is not one of ${levels.join(', ')}`,
+      );
     }
     return match;
   }
-  const full = levels.find((level) => level === '1' || (level.trim() !== '' && Number(level) === 1));
+  const full = levels.find(
+    (level) => level === '1' || (level.trim() !== '' && Number(level) === 1),
+  );
   if (full !== undefined) return full;
   const middle = (levels.length - 1) / 2;
   let best = 0;

@@ -4,7 +4,15 @@ import { fUpperTailP } from './f-upper-tail-p';
 import { fitQuadraticResponse } from './fit-quadratic-response';
 import { studentTQuantile } from './student-t-quantile';
 import { studentTTwoSidedP } from './student-t-two-sided-p';
-import type { AnovaRow, PooledAnalysis, PooledMean, PooledOptions, RateDifference, SiteAnalysis, SiteDifference } from './types';
+import type {
+  AnovaRow,
+  PooledAnalysis,
+  PooledMean,
+  PooledOptions,
+  RateDifference,
+  SiteAnalysis,
+  SiteDifference,
+} from './types';
 
 const anovaSs = (analysis: SiteAnalysis, source: string): number =>
   analysis.anova.find((row) => row.source === source)?.ss ?? Number.NaN;
@@ -41,7 +49,8 @@ export function combineSites(
   const first = sites[0]!.analysis;
   const reference = first.reference;
   const table: number[][] = sites.map(({ site, analysis }) => {
-    if (analysis.reference !== reference) throw new Error('combineSites needs one reference rate for every site');
+    if (analysis.reference !== reference)
+      throw new Error('combineSites needs one reference rate for every site');
     return rateLevels.map((rate) => {
       const mean = analysis.means.find((m) => m.rate === rate);
       if (!mean) throw new Error(`combineSites: site ${site} has no strips of rate ${rate}`);
@@ -51,11 +60,17 @@ export function combineSites(
   if (sites.some(({ analysis }) => analysis.means.length !== rates)) {
     throw new Error('combineSites: every site must have the same rates');
   }
-  const notes: string[] = ['Sites are taken as random: rate is tested against the site × rate interaction.'];
-  const balanced = sites.every(({ analysis }) => analysis.missing === 0 && analysis.blocks === first.blocks);
+  const notes: string[] = [
+    'Sites are taken as random: rate is tested against the site × rate interaction.',
+  ];
+  const balanced = sites.every(
+    ({ analysis }) => analysis.missing === 0 && analysis.blocks === first.blocks,
+  );
   const blocks = balanced ? first.blocks : 1;
   const siteMeans = table.map((row) => row.reduce((a, b) => a + b, 0) / rates);
-  const rateMeans = rateLevels.map((_, i) => table.reduce((sum, row) => sum + (row[i] as number), 0) / count);
+  const rateMeans = rateLevels.map(
+    (_, i) => table.reduce((sum, row) => sum + (row[i] as number), 0) / count,
+  );
   const grandMean = siteMeans.reduce((a, b) => a + b, 0) / count;
   let ssSite = 0;
   for (const mean of siteMeans) ssSite += rates * blocks * (mean - grandMean) ** 2;
@@ -81,12 +96,44 @@ export function combineSites(
     const fInteraction = msInteraction / msError;
     const fRate = ssRate / dfRate / msInteraction;
     anova = [
-      { source: 'site', df: dfSite, ss: ssSite, ms: ssSite / dfSite, f: fSite, p: fUpperTailP(fSite, dfSite, dfBlocks) },
-      { source: 'block(site)', df: dfBlocks, ss: ssBlocks, ms: msBlocks, f: fBlocks, p: fUpperTailP(fBlocks, dfBlocks, dfError) },
-      { source: 'rate', df: dfRate, ss: ssRate, ms: ssRate / dfRate, f: fRate, p: safeP(fRate, dfRate, dfInteraction) },
-      { source: 'site:rate', df: dfInteraction, ss: ssInteraction, ms: msInteraction, f: fInteraction, p: fUpperTailP(fInteraction, dfInteraction, dfError) },
+      {
+        source: 'site',
+        df: dfSite,
+        ss: ssSite,
+        ms: ssSite / dfSite,
+        f: fSite,
+        p: fUpperTailP(fSite, dfSite, dfBlocks),
+      },
+      {
+        source: 'block(site)',
+        df: dfBlocks,
+        ss: ssBlocks,
+        ms: msBlocks,
+        f: fBlocks,
+        p: fUpperTailP(fBlocks, dfBlocks, dfError),
+      },
+      {
+        source: 'rate',
+        df: dfRate,
+        ss: ssRate,
+        ms: ssRate / dfRate,
+        f: fRate,
+        p: safeP(fRate, dfRate, dfInteraction),
+      },
+      {
+        source: 'site:rate',
+        df: dfInteraction,
+        ss: ssInteraction,
+        ms: msInteraction,
+        f: fInteraction,
+        p: fUpperTailP(fInteraction, dfInteraction, dfError),
+      },
       { source: 'error', df: dfError, ss: ssError, ms: msError },
-      { source: 'total', df: count * blocks * rates - 1, ss: ssSite + ssBlocks + ssRate + ssInteraction + ssError },
+      {
+        source: 'total',
+        df: count * blocks * rates - 1,
+        ss: ssSite + ssBlocks + ssRate + ssInteraction + ssError,
+      },
     ];
   } else {
     let ssTotal = 0;
@@ -96,8 +143,22 @@ export function combineSites(
     const fSite = ssSite / dfSite / msInteraction;
     const fRate = ssRate / dfRate / msInteraction;
     anova = [
-      { source: 'site', df: dfSite, ss: ssSite, ms: ssSite / dfSite, f: fSite, p: safeP(fSite, dfSite, dfInteraction) },
-      { source: 'rate', df: dfRate, ss: ssRate, ms: ssRate / dfRate, f: fRate, p: safeP(fRate, dfRate, dfInteraction) },
+      {
+        source: 'site',
+        df: dfSite,
+        ss: ssSite,
+        ms: ssSite / dfSite,
+        f: fSite,
+        p: safeP(fSite, dfSite, dfInteraction),
+      },
+      {
+        source: 'rate',
+        df: dfRate,
+        ss: ssRate,
+        ms: ssRate / dfRate,
+        f: fRate,
+        p: safeP(fRate, dfRate, dfInteraction),
+      },
       { source: 'site:rate', df: dfInteraction, ss: ssInteraction, ms: msInteraction },
       { source: 'total', df: count * rates - 1, ss: ssTotal },
     ];
@@ -106,14 +167,22 @@ export function combineSites(
     );
   }
   const msInteraction = ssInteraction / dfInteraction;
-  if (!(msInteraction > 0)) throw new Error('combineSites: the site × rate mean square is zero; rates cannot be tested');
+  if (!(msInteraction > 0))
+    throw new Error('combineSites: the site × rate mean square is zero; rates cannot be tested');
   const rateRow = anova.find((row) => row.source === 'rate') as { f: number; p: number };
   const tCritical = studentTQuantile(1 - alpha / 2, dfInteraction);
   const seMean = Math.sqrt(msInteraction / (count * blocks));
   const means: PooledMean[] = rateLevels.map((rate, i) => {
     const mean = rateMeans[i] as number;
     const n = sites.reduce((sum, { analysis }) => sum + (analysis.means[i]?.n ?? 0), 0);
-    return { rate, n, mean, se: seMean, ciLow: mean - tCritical * seMean, ciHigh: mean + tCritical * seMean };
+    return {
+      rate,
+      n,
+      mean,
+      se: seMean,
+      ciLow: mean - tCritical * seMean,
+      ciHigh: mean + tCritical * seMean,
+    };
   });
   const referenceIndex = rateLevels.indexOf(reference);
   const seDifference = Math.SQRT2 * seMean;
@@ -138,7 +207,13 @@ export function combineSites(
     sites: count,
     method: balanced ? 'combined' : 'site-means',
     anova,
-    rateTest: { f: rateRow.f, df1: dfRate, df2: dfInteraction, p: rateRow.p, errorTerm: 'site:rate' },
+    rateTest: {
+      f: rateRow.f,
+      df1: dfRate,
+      df2: dfInteraction,
+      p: rateRow.p,
+      errorTerm: 'site:rate',
+    },
     grandMean,
     reference,
     alpha,
@@ -155,9 +230,13 @@ export function combineSites(
   } catch (error) {
     notes.push(`Bartlett's test not computed: ${(error as Error).message}`);
   }
-  const numeric = rateLevels.map((rate) => options.ratesNumeric?.[rate] ?? (rate.trim() === '' ? Number.NaN : Number(rate)));
+  const numeric = rateLevels.map(
+    (rate) => options.ratesNumeric?.[rate] ?? (rate.trim() === '' ? Number.NaN : Number(rate)),
+  );
   if (numeric.every((x) => Number.isFinite(x))) {
-    const points = table.flatMap((row) => row.map((value, i) => ({ rate: numeric[i] as number, value })));
+    const points = table.flatMap((row) =>
+      row.map((value, i) => ({ rate: numeric[i] as number, value })),
+    );
     try {
       pooled.curve = fitQuadraticResponse(points, options.prices);
       notes.push('Response curve fitted to the site × rate means.');

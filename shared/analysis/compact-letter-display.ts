@@ -48,11 +48,15 @@ export function compactLetterDisplay(
   }
   const order = means.map((_, i) => i).sort((a, b) => (means[b] as number) - (means[a] as number));
   const rank = new Map(order.map((treatment, position) => [treatment, position]));
-  const firstRank = (column: Set<number>) => Math.min(...[...column].map((m) => rank.get(m) as number));
+  const firstRank = (column: Set<number>) =>
+    Math.min(...[...column].map((m) => rank.get(m) as number));
   columns.sort((a, b) => firstRank(a) - firstRank(b));
   const letters = means.map(() => '');
   columns.forEach((column, index) => {
-    const letter = index < 26 ? String.fromCharCode(97 + index) : `${String.fromCharCode(97 + (index % 26))}${Math.floor(index / 26)}`;
+    const letter =
+      index < 26
+        ? String.fromCharCode(97 + index)
+        : `${String.fromCharCode(97 + (index % 26))}${Math.floor(index / 26)}`;
     for (const member of column) letters[member] += letter;
   });
   return letters;

@@ -16,8 +16,10 @@ import jStat from 'jstat';
  * @example fUpperTailP(2.16777868149536, 5, 15) // 0.1128094 (R 4.2.2: pf(..., lower.tail = FALSE))
  */
 export function fUpperTailP(f: number, df1: number, df2: number): number {
-  if (!(f >= 0) || !Number.isFinite(f)) throw new Error(`fUpperTailP needs a finite f ≥ 0 (got ${f})`);
-  if (!(df1 > 0 && df2 > 0)) throw new Error(`fUpperTailP needs positive degrees of freedom (got ${df1}, ${df2})`);
+  if (!(f >= 0) || !Number.isFinite(f))
+    throw new Error(`fUpperTailP needs a finite f ≥ 0 (got ${f})`);
+  if (!(df1 > 0 && df2 > 0))
+    throw new Error(`fUpperTailP needs positive degrees of freedom (got ${df1}, ${df2})`);
   if (f === 0) return 1;
   return jStat.centralF.cdf(1 / f, df2, df1);
 }

@@ -32,9 +32,14 @@ export function fitQuadraticResponse(
   }
   const distinct = new Set(points.map((point) => point.rate)).size;
   if (n < 4 || distinct < 3) {
-    throw new Error(`fitQuadraticResponse needs at least 4 points at 3 or more rates (got ${n} points, ${distinct} rates)`);
+    throw new Error(
+      `fitQuadraticResponse needs at least 4 points at 3 or more rates (got ${n} points, ${distinct} rates)`,
+    );
   }
-  if (prices !== undefined && !(prices.seedPricePerRateUnit >= 0 && prices.grainPricePerYieldUnit > 0)) {
+  if (
+    prices !== undefined &&
+    !(prices.seedPricePerRateUnit >= 0 && prices.grainPricePerYieldUnit > 0)
+  ) {
     throw new Error('fitQuadraticResponse needs a seed price ≥ 0 and a grain price > 0');
   }
   // Centre and scale the rate so the normal equations stay well conditioned, then map back.
@@ -57,11 +62,14 @@ export function fitQuadraticResponse(
     const row = [1, z, z * z];
     for (let a = 0; a < 3; a++) {
       xty[a]! += (row[a] as number) * point.value;
-      for (let b = 0; b < 3; b++) crossProducts.set(a, b, crossProducts.get(a, b) + (row[a] as number) * (row[b] as number));
+      for (let b = 0; b < 3; b++)
+        crossProducts.set(a, b, crossProducts.get(a, b) + (row[a] as number) * (row[b] as number));
     }
   }
   const covariance = inverse(crossProducts);
-  const c = [0, 1, 2].map((a) => [0, 1, 2].reduce((s, b) => s + covariance.get(a, b) * (xty[b] as number), 0));
+  const c = [0, 1, 2].map((a) =>
+    [0, 1, 2].reduce((s, b) => s + covariance.get(a, b) * (xty[b] as number), 0),
+  );
   const [c0, c1, c2] = c as [number, number, number];
   let residualSs = 0;
   let totalSs = 0;
@@ -81,9 +89,14 @@ export function fitQuadraticResponse(
     [0, 1 / s, (-2 * m) / (s * s)],
     [0, 0, 1 / (s * s)],
   ];
-  const coefficients = transform.map((row) => row.reduce((sum, t, k) => sum + t * (c[k] as number), 0));
+  const coefficients = transform.map((row) =>
+    row.reduce((sum, t, k) => sum + t * (c[k] as number), 0),
+  );
   const variance = (row: number[]) =>
-    row.reduce((sum, ta, a) => sum + row.reduce((inner, tb, b) => inner + ta * covariance.get(a, b) * tb, 0), 0) * sigma2;
+    row.reduce(
+      (sum, ta, a) => sum + row.reduce((inner, tb, b) => inner + ta * covariance.get(a, b) * tb, 0),
+      0,
+    ) * sigma2;
   const [b0, b1, b2] = coefficients as [number, number, number];
   const curve: ResponseCurve = {
     model: 'quadratic',

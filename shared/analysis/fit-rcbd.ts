@@ -63,8 +63,10 @@ export function fitRcbd(table: readonly (readonly number[])[]): RcbdFit {
       observed += 1;
     }
   }
-  for (let i = 0; i < rates; i++) if (counts[i] === 0) throw new Error(`fitRcbd: rate ${i + 1} has no data`);
-  for (let j = 0; j < blocks; j++) if (blockCount[j] === 0) throw new Error(`fitRcbd: block ${j + 1} has no data`);
+  for (let i = 0; i < rates; i++)
+    if (counts[i] === 0) throw new Error(`fitRcbd: rate ${i + 1} has no data`);
+  for (let j = 0; j < blocks; j++)
+    if (blockCount[j] === 0) throw new Error(`fitRcbd: block ${j + 1} has no data`);
   const grandMean = sum / observed;
   let ssTotal = 0;
   let ssWithinBlocks = 0;
@@ -167,7 +169,8 @@ export function fitRcbd(table: readonly (readonly number[])[]): RcbdFit {
     for (let a = 0; a < parameters; a++) {
       const va = vector[a] as number;
       if (va === 0) continue;
-      for (let b = 0; b < parameters; b++) total += va * covariance.get(a, b) * (vector[b] as number);
+      for (let b = 0; b < parameters; b++)
+        total += va * covariance.get(a, b) * (vector[b] as number);
     }
     return total;
   };
@@ -176,7 +179,8 @@ export function fitRcbd(table: readonly (readonly number[])[]): RcbdFit {
   for (let i = 0; i < rates; i++) {
     const vector = meanVector(i);
     let mean = 0;
-    for (let a = 0; a < parameters; a++) mean += (vector[a] as number) * (coefficients[a] as number);
+    for (let a = 0; a < parameters; a++)
+      mean += (vector[a] as number) * (coefficients[a] as number);
     means.push(mean);
     meanVariances.push(quadratic(vector));
   }
@@ -209,7 +213,11 @@ export function fitRcbd(table: readonly (readonly number[])[]): RcbdFit {
   };
 }
 
-function assertConnected(table: readonly (readonly number[])[], blocks: number, rates: number): void {
+function assertConnected(
+  table: readonly (readonly number[])[],
+  blocks: number,
+  rates: number,
+): void {
   // Blocks are nodes 0..b−1, rates b..b+t−1; an observed strip joins its block and rate.
   const parent = Array.from({ length: blocks + rates }, (_, i) => i);
   const find = (x: number): number => {
@@ -218,13 +226,16 @@ function assertConnected(table: readonly (readonly number[])[], blocks: number, 
   };
   for (let j = 0; j < blocks; j++) {
     for (let i = 0; i < rates; i++) {
-      if (!Number.isNaN((table[j] as readonly number[])[i] as number)) parent[find(j)] = find(blocks + i);
+      if (!Number.isNaN((table[j] as readonly number[])[i] as number))
+        parent[find(j)] = find(blocks + i);
     }
   }
   const root = find(0);
   for (let node = 1; node < blocks + rates; node++) {
     if (find(node) !== root) {
-      throw new Error('fitRcbd: the missing strips split the blocks into unconnected groups; rates cannot be compared');
+      throw new Error(
+        'fitRcbd: the missing strips split the blocks into unconnected groups; rates cannot be compared',
+      );
     }
   }
 }

@@ -36,5 +36,9 @@ export function groupBySite(
     rateLevels.map((rate) => counts.get(rate) ?? 0),
     requestedReference,
   );
-  return { sites: [...bySite].map(([site, list]) => ({ site, rows: list })), rateLevels, reference };
+  return {
+    sites: [...bySite].map(([site, list]) => ({ site, rows: list })),
+    rateLevels,
+    reference,
+  };
 }

@@ -24,7 +24,9 @@ export function missingPlotEstimate(
   rates: number,
 ): number {
   if (!(blocks >= 2) || !(rates >= 2)) {
-    throw new Error(`missingPlotEstimate needs at least 2 blocks and 2 rates (got ${blocks}, ${rates})`);
+    throw new Error(
+      `missingPlotEstimate needs at least 2 blocks and 2 rates (got ${blocks}, ${rates})`,
+    );
   }
   return (blocks * blockTotal + rates * rateTotal - grandTotal) / ((blocks - 1) * (rates - 1));
 }

@@ -32,14 +32,22 @@ export type SitesNeededInput = {
  * @throws Error for non-positive inputs or more than maxSites needed
  * @example sitesNeeded({ cvPercent: 10, blocksPerSite: 4, difference: 10, rates: 4 }).sites // 9 (df 24)
  */
-export function sitesNeeded(input: SitesNeededInput): { sites: number; df: number; tAlpha: number; tBeta: number } {
+export function sitesNeeded(input: SitesNeededInput): {
+  sites: number;
+  df: number;
+  tAlpha: number;
+  tBeta: number;
+} {
   const alpha = input.alpha ?? 0.05;
   const power = input.power ?? 0.8;
   const interactionCv = input.siteByRateCvPercent ?? 5;
   const maxSites = input.maxSites ?? 500;
-  if (!(input.cvPercent > 0) || !(interactionCv >= 0)) throw new Error('sitesNeeded needs cvPercent > 0 and siteByRateCvPercent ≥ 0');
-  if (!(input.blocksPerSite >= 1) || !(input.rates >= 2)) throw new Error('sitesNeeded needs blocksPerSite ≥ 1 and rates ≥ 2');
-  if (!(alpha > 0 && alpha < 1) || !(power > 0 && power < 1)) throw new Error('sitesNeeded needs 0 < alpha, power < 1');
+  if (!(input.cvPercent > 0) || !(interactionCv >= 0))
+    throw new Error('sitesNeeded needs cvPercent > 0 and siteByRateCvPercent ≥ 0');
+  if (!(input.blocksPerSite >= 1) || !(input.rates >= 2))
+    throw new Error('sitesNeeded needs blocksPerSite ≥ 1 and rates ≥ 2');
+  if (!(alpha > 0 && alpha < 1) || !(power > 0 && power < 1))
+    throw new Error('sitesNeeded needs 0 < alpha, power < 1');
   if (!(input.difference > 0)) throw new Error('sitesNeeded needs a difference > 0');
   const isPercent = input.differenceIsPercent ?? input.mean === undefined;
   if (!isPercent && !(input.mean !== undefined && input.mean > 0)) {
@@ -51,7 +59,8 @@ export function sitesNeeded(input: SitesNeededInput): { sites: number; df: numbe
     const df = (sites - 1) * (input.rates - 1);
     const tAlpha = studentTQuantile(1 - alpha / 2, df);
     const tBeta = studentTQuantile(power, df);
-    if (sites >= (2 * (tAlpha + tBeta) ** 2 * varianceUnit) / percent ** 2) return { sites, df, tAlpha, tBeta };
+    if (sites >= (2 * (tAlpha + tBeta) ** 2 * varianceUnit) / percent ** 2)
+      return { sites, df, tAlpha, tBeta };
   }
   throw new Error(`sitesNeeded: more than ${maxSites} sites would be needed`);
 }

@@ -32,7 +32,9 @@ export function studentizedRangeQuantile(p: number, means: number, df: number): 
   const known = cache.get(key);
   if (known !== undefined) return known;
   const q =
-    means === 2 ? Math.SQRT2 * studentTQuantile(1 - (1 - p) / 2, df) : jStat.tukey.inv(p, means, df);
+    means === 2
+      ? Math.SQRT2 * studentTQuantile(1 - (1 - p) / 2, df)
+      : jStat.tukey.inv(p, means, df);
   if (!Number.isFinite(q)) {
     throw new Error(`studentizedRangeQuantile could not converge for p=${p}, k=${means}, df=${df}`);
   }

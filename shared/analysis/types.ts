@@ -11,7 +11,14 @@ export type StripObservation = {
 /** One strip of a single site. */
 export type SiteStrip = { block: string; rate: string | number; value: number | null };
 
-export type AnovaEffectRow = { source: string; df: number; ss: number; ms: number; f: number; p: number };
+export type AnovaEffectRow = {
+  source: string;
+  df: number;
+  ss: number;
+  ms: number;
+  f: number;
+  p: number;
+};
 export type AnovaErrorRow = { source: string; df: number; ss: number; ms: number };
 export type AnovaTotalRow = { source: 'total'; df: number; ss: number };
 export type AnovaRow = AnovaEffectRow | AnovaErrorRow | AnovaTotalRow;
@@ -117,7 +124,14 @@ export type ResponseCurve = {
   };
 };
 
-export type PooledMean = { rate: string; n: number; mean: number; se: number; ciLow: number; ciHigh: number };
+export type PooledMean = {
+  rate: string;
+  n: number;
+  mean: number;
+  se: number;
+  ciLow: number;
+  ciHigh: number;
+};
 
 export type SiteDifference = {
   site: string;

@@ -7,7 +7,8 @@ import { seedsPerSquareFootFromRow } from './seeding-rate';
  * @example seedsPerWheelTurn(10, 3) // 30
  */
 export function seedsPerWheelTurn(seedsPerFootOfRow: number, circumferenceFeet: number): number {
-  if (!(circumferenceFeet > 0)) throw new Error('seedsPerWheelTurn needs a wheel circumference > 0');
+  if (!(circumferenceFeet > 0))
+    throw new Error('seedsPerWheelTurn needs a wheel circumference > 0');
   if (!(seedsPerFootOfRow >= 0)) throw new Error('seedsPerWheelTurn needs seeds per foot ≥ 0');
   return seedsPerFootOfRow * circumferenceFeet;
 }
@@ -39,7 +40,10 @@ export function calibrateSeeder(input: {
   if (!(input.wheelTurns > 0)) throw new Error('calibrateSeeder needs wheel turns > 0');
   if (!(input.seedsCounted >= 0)) throw new Error('calibrateSeeder needs seeds counted ≥ 0');
   if (!(input.targetSeedsPerFootOfRow > 0)) throw new Error('calibrateSeeder needs a target > 0');
-  const targetSeedsPerTurn = seedsPerWheelTurn(input.targetSeedsPerFootOfRow, input.circumferenceFeet);
+  const targetSeedsPerTurn = seedsPerWheelTurn(
+    input.targetSeedsPerFootOfRow,
+    input.circumferenceFeet,
+  );
   const delivered = input.seedsCounted / (input.wheelTurns * input.circumferenceFeet);
   const ratio = delivered / input.targetSeedsPerFootOfRow;
   return {
@@ -54,7 +58,8 @@ export function calibrateSeeder(input: {
 function calibrationAdvice(ratio: number): string {
   const percent = Math.round(100 * ratio);
   if (Math.abs(ratio - 1) <= 0.05) return `On target (${percent} % of target): no change needed.`;
-  if (ratio === 0) return 'No seed came out: check the hopper, the drive and for blocked cups or tubes; re-check.';
+  if (ratio === 0)
+    return 'No seed came out: check the hopper, the drive and for blocked cups or tubes; re-check.';
   if (ratio >= 1.8 && ratio <= 2.2) {
     return `About double the target (${percent} %): close about half the cups/openings or pick the next smaller plate; re-check.`;
   }

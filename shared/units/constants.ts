@@ -11,6 +11,7 @@ export const INCHES_PER_FOOT = 12;
 /** 10.7639… ft² per m² (derived from the exact foot). */
 export const SQUARE_FEET_PER_SQUARE_METRE = 1 / (METRES_PER_FOOT * METRES_PER_FOOT);
 /** 2.47105… acres per hectare (derived). */
-export const ACRES_PER_HECTARE = (SQUARE_METRES_PER_HECTARE * SQUARE_FEET_PER_SQUARE_METRE) / SQUARE_FEET_PER_ACRE;
+export const ACRES_PER_HECTARE =
+  (SQUARE_METRES_PER_HECTARE * SQUARE_FEET_PER_SQUARE_METRE) / SQUARE_FEET_PER_ACRE;
 /** 1.12085 kg/ha per lb/ac (derived; USU rounds to 1.12). */
 export const KG_PER_HA_PER_LB_PER_ACRE = (GRAMS_PER_POUND / 1000) * ACRES_PER_HECTARE;

@@ -29,15 +29,23 @@ export interface RateInAllUnits {
  * @throws Error when the value, seed size or spacing is not positive
  * @example convertRate(15, 'seeds/ft2', { size: { thousandKernelWeightGrams: 40 }, rowSpacingInches: 8 }).seedsPerFootOfRow // 10
  */
-export function convertRate(value: number, unit: RateUnit, context: { size: SeedSize; rowSpacingInches: number }): RateInAllUnits {
-  if (!(value > 0) || !Number.isFinite(value)) throw new Error(`convertRate needs a rate > 0 (got ${value})`);
+export function convertRate(
+  value: number,
+  unit: RateUnit,
+  context: { size: SeedSize; rowSpacingInches: number },
+): RateInAllUnits {
+  if (!(value > 0) || !Number.isFinite(value))
+    throw new Error(`convertRate needs a rate > 0 (got ${value})`);
   let seedsPerSquareFoot: number;
   switch (unit) {
     case 'lb/acre':
       seedsPerSquareFoot = seedsPerSquareFootFromPoundsPerAcre(value, context.size);
       break;
     case 'kg/ha':
-      seedsPerSquareFoot = seedsPerSquareFootFromPoundsPerAcre(value / KG_PER_HA_PER_LB_PER_ACRE, context.size);
+      seedsPerSquareFoot = seedsPerSquareFootFromPoundsPerAcre(
+        value / KG_PER_HA_PER_LB_PER_ACRE,
+        context.size,
+      );
       break;
     case 'seeds/ft2':
       seedsPerSquareFoot = value;

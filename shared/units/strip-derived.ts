@@ -2,7 +2,14 @@
 // the one place where the trial's imperial or metric entries are converted.
 import type { DerivedValues, ObservationValues } from '../schemas/observation';
 import type { CustomCrop, CropKey, RateUnit, UnitSystem } from '../schemas/trial';
-import { INCHES_PER_FOOT, METRES_PER_FOOT, SQUARE_FEET_PER_ACRE, SQUARE_FEET_PER_SQUARE_METRE, GRAMS_PER_POUND, KG_PER_HA_PER_LB_PER_ACRE } from './constants';
+import {
+  INCHES_PER_FOOT,
+  METRES_PER_FOOT,
+  SQUARE_FEET_PER_ACRE,
+  SQUARE_FEET_PER_SQUARE_METRE,
+  GRAMS_PER_POUND,
+  KG_PER_HA_PER_LB_PER_ACRE,
+} from './constants';
 import { CROPS } from './crops';
 import { convertRate } from './rate-units';
 import { weightAtStandardMoisture } from './yield';
@@ -15,15 +22,28 @@ export interface CropFacts {
 }
 
 /** Crop facts for a trial's crop, including a custom crop's own values. */
-export function cropFacts(crop: CropKey | null | undefined, custom: CustomCrop | null | undefined): CropFacts | null {
+export function cropFacts(
+  crop: CropKey | null | undefined,
+  custom: CustomCrop | null | undefined,
+): CropFacts | null {
   if (crop === 'custom') {
     if (!custom) return null;
-    return { name: custom.name, bushelPounds: custom.bushelWeightLb, standardMoisturePercent: custom.standardMoisturePct, usualYieldBushelsPerAcre: null };
+    return {
+      name: custom.name,
+      bushelPounds: custom.bushelWeightLb,
+      standardMoisturePercent: custom.standardMoisturePct,
+      usualYieldBushelsPerAcre: null,
+    };
   }
   if (!crop) return null;
   const entry = CROPS[crop];
   return entry
-    ? { name: entry.name, bushelPounds: entry.bushelPounds, standardMoisturePercent: entry.standardMoisturePercent, usualYieldBushelsPerAcre: entry.usualYieldBushelsPerAcre }
+    ? {
+        name: entry.name,
+        bushelPounds: entry.bushelPounds,
+        standardMoisturePercent: entry.standardMoisturePercent,
+        usualYieldBushelsPerAcre: entry.usualYieldBushelsPerAcre,
+      }
     : null;
 }
 
@@ -40,14 +60,24 @@ export interface StripContext {
   grainPricePerBu: number | null;
 }
 
-const lengthToFeet = (value: number, system: UnitSystem) => (system === 'metric' ? value / METRES_PER_FOOT : value);
-const areaToSquareFeet = (value: number, system: UnitSystem) => (system === 'metric' ? value * SQUARE_FEET_PER_SQUARE_METRE : value);
-const weightToPounds = (value: number, system: UnitSystem) => (system === 'metric' ? (value * 1000) / GRAMS_PER_POUND : value);
+const lengthToFeet = (value: number, system: UnitSystem) =>
+  system === 'metric' ? value / METRES_PER_FOOT : value;
+const areaToSquareFeet = (value: number, system: UnitSystem) =>
+  system === 'metric' ? value * SQUARE_FEET_PER_SQUARE_METRE : value;
+const weightToPounds = (value: number, system: UnitSystem) =>
+  system === 'metric' ? (value * 1000) / GRAMS_PER_POUND : value;
 
-function perSquareFoot(counts: readonly number[], rowLength: number | null, context: StripContext): number | null {
+function perSquareFoot(
+  counts: readonly number[],
+  rowLength: number | null,
+  context: StripContext,
+): number | null {
   if (counts.length === 0 || !rowLength || !context.rowSpacingIn) return null;
   const total = counts.reduce((a, b) => a + b, 0);
-  const area = counts.length * lengthToFeet(rowLength, context.unitSystem) * (context.rowSpacingIn / INCHES_PER_FOOT);
+  const area =
+    counts.length *
+    lengthToFeet(rowLength, context.unitSystem) *
+    (context.rowSpacingIn / INCHES_PER_FOOT);
   return total / area;
 }
 
@@ -60,7 +90,12 @@ function perSquareFoot(counts: readonly number[], rowLength: number | null, cont
 export function deriveStripValues(obs: ObservationValues, context: StripContext): DerivedValues {
   let targetSeedsPerSquareFoot: number | null = null;
   let seedPoundsPerAcre: number | null = null;
-  if (context.referenceRate && context.referenceUnit && context.thousandKernelWeightG && context.rowSpacingIn) {
+  if (
+    context.referenceRate &&
+    context.referenceUnit &&
+    context.thousandKernelWeightG &&
+    context.rowSpacingIn
+  ) {
     const rate = convertRate(context.referenceRate * context.multiplier, context.referenceUnit, {
       size: { thousandKernelWeightGrams: context.thousandKernelWeightG },
       rowSpacingInches: context.rowSpacingIn,
@@ -70,38 +105,66 @@ export function deriveStripValues(obs: ObservationValues, context: StripContext)
   }
   const plantsPerSquareFoot = perSquareFoot(obs.standCounts, obs.standRowLength, context);
   const headsPerSquareFoot = perSquareFoot(obs.headCounts, obs.headRowLength, context);
-  const tillersPerPlant = obs.tillerPlants && obs.tillerCount !== null ? obs.tillerCount / obs.tillerPlants : null;
+  const tillersPerPlant =
+    obs.tillerPlants && obs.tillerCount !== null ? obs.tillerCount / obs.tillerPlants : null;
 
   let harvestedAreaSquareFeet: number | null = null;
-  if (obs.harvestArea) harvestedAreaSquareFeet = areaToSquareFeet(obs.harvestArea, context.unitSystem);
+  if (obs.harvestArea)
+    harvestedAreaSquareFeet = areaToSquareFeet(obs.harvestArea, context.unitSystem);
   else if (obs.harvestRows && obs.harvestLength && context.rowSpacingIn) {
-    harvestedAreaSquareFeet = obs.harvestRows * (context.rowSpacingIn / INCHES_PER_FOOT) * lengthToFeet(obs.harvestLength, context.unitSystem);
+    harvestedAreaSquareFeet =
+      obs.harvestRows *
+      (context.rowSpacingIn / INCHES_PER_FOOT) *
+      lengthToFeet(obs.harvestLength, context.unitSystem);
   }
 
   let yieldBushelsPerAcre: number | null = null;
   let yieldKilogramsPerHectare: number | null = null;
   let seedReturn: number | null = null;
   let returnOverSeedCostPerAcre: number | null = null;
-  if (obs.grainWeight !== null && harvestedAreaSquareFeet && context.crop && obs.moisturePct !== null && obs.moisturePct < 100) {
-    const pounds = weightAtStandardMoisture(weightToPounds(obs.grainWeight, context.unitSystem), obs.moisturePct, context.crop.standardMoisturePercent);
+  if (
+    obs.grainWeight !== null &&
+    harvestedAreaSquareFeet &&
+    context.crop &&
+    obs.moisturePct !== null &&
+    obs.moisturePct < 100
+  ) {
+    const pounds = weightAtStandardMoisture(
+      weightToPounds(obs.grainWeight, context.unitSystem),
+      obs.moisturePct,
+      context.crop.standardMoisturePercent,
+    );
     const poundsPerAcre = (pounds * SQUARE_FEET_PER_ACRE) / harvestedAreaSquareFeet;
     yieldBushelsPerAcre = poundsPerAcre / context.crop.bushelPounds;
     yieldKilogramsPerHectare = poundsPerAcre * KG_PER_HA_PER_LB_PER_ACRE;
     if (seedPoundsPerAcre) seedReturn = poundsPerAcre / seedPoundsPerAcre;
-    if (seedPoundsPerAcre !== null && context.grainPricePerBu !== null && context.seedPricePerLb !== null) {
-      returnOverSeedCostPerAcre = yieldBushelsPerAcre * context.grainPricePerBu - seedPoundsPerAcre * context.seedPricePerLb;
+    if (
+      seedPoundsPerAcre !== null &&
+      context.grainPricePerBu !== null &&
+      context.seedPricePerLb !== null
+    ) {
+      returnOverSeedCostPerAcre =
+        yieldBushelsPerAcre * context.grainPricePerBu - seedPoundsPerAcre * context.seedPricePerLb;
     }
   }
 
   return {
     targetSeedsPerSquareFoot,
     plantsPerSquareFoot,
-    plantsPerSquareMetre: plantsPerSquareFoot === null ? null : plantsPerSquareFoot * SQUARE_FEET_PER_SQUARE_METRE,
-    establishmentPercent: plantsPerSquareFoot !== null && targetSeedsPerSquareFoot ? (100 * plantsPerSquareFoot) / targetSeedsPerSquareFoot : null,
+    plantsPerSquareMetre:
+      plantsPerSquareFoot === null ? null : plantsPerSquareFoot * SQUARE_FEET_PER_SQUARE_METRE,
+    establishmentPercent:
+      plantsPerSquareFoot !== null && targetSeedsPerSquareFoot
+        ? (100 * plantsPerSquareFoot) / targetSeedsPerSquareFoot
+        : null,
     tillersPerPlant,
     headsPerSquareFoot,
-    headsPerSquareMetre: headsPerSquareFoot === null ? null : headsPerSquareFoot * SQUARE_FEET_PER_SQUARE_METRE,
-    headsPerPlant: headsPerSquareFoot !== null && plantsPerSquareFoot ? headsPerSquareFoot / plantsPerSquareFoot : null,
+    headsPerSquareMetre:
+      headsPerSquareFoot === null ? null : headsPerSquareFoot * SQUARE_FEET_PER_SQUARE_METRE,
+    headsPerPlant:
+      headsPerSquareFoot !== null && plantsPerSquareFoot
+        ? headsPerSquareFoot / plantsPerSquareFoot
+        : null,
     harvestedAreaSquareFeet,
     yieldBushelsPerAcre,
     yieldKilogramsPerHectare,
@@ -112,20 +175,41 @@ export function deriveStripValues(obs: ObservationValues, context: StripContext)
 }
 
 /** Plausibility warnings for a strip (they never block saving). */
-export function plausibilityWarnings(obs: ObservationValues, derived: DerivedValues, crop: CropFacts | null): string[] {
+export function plausibilityWarnings(
+  obs: ObservationValues,
+  derived: DerivedValues,
+  crop: CropFacts | null,
+): string[] {
   const warnings: string[] = [];
   if (derived.establishmentPercent !== null && derived.establishmentPercent > 100) {
-    warnings.push(`Establishment is ${derived.establishmentPercent.toFixed(0)} %: more plants than seeds sown. Check the count, the row length or the seed lot.`);
+    warnings.push(
+      `Establishment is ${derived.establishmentPercent.toFixed(0)} %: more plants than seeds sown. Check the count, the row length or the seed lot.`,
+    );
   }
-  if (derived.headsPerSquareFoot !== null && derived.plantsPerSquareFoot !== null && derived.headsPerSquareFoot < derived.plantsPerSquareFoot) {
-    warnings.push('Fewer heads than plants: every plant normally carries at least one head. Check both counts.');
+  if (
+    derived.headsPerSquareFoot !== null &&
+    derived.plantsPerSquareFoot !== null &&
+    derived.headsPerSquareFoot < derived.plantsPerSquareFoot
+  ) {
+    warnings.push(
+      'Fewer heads than plants: every plant normally carries at least one head. Check both counts.',
+    );
   }
   if (obs.moisturePct !== null && (obs.moisturePct < 8 || obs.moisturePct > 35)) {
-    warnings.push(`Grain moisture ${obs.moisturePct} % is outside 8–35 %: check the meter reading.`);
+    warnings.push(
+      `Grain moisture ${obs.moisturePct} % is outside 8–35 %: check the meter reading.`,
+    );
   }
   const range = crop?.usualYieldBushelsPerAcre;
-  if (range && derived.yieldBushelsPerAcre !== null && (derived.yieldBushelsPerAcre < range.low * 0.5 || derived.yieldBushelsPerAcre > range.high * 1.2)) {
-    warnings.push(`Yield of ${derived.yieldBushelsPerAcre.toFixed(1)} bu/acre is far outside the usual ${range.low}–${range.high} bu/acre for ${crop!.name.toLowerCase()}: check the weight and the harvested area.`);
+  if (
+    range &&
+    derived.yieldBushelsPerAcre !== null &&
+    (derived.yieldBushelsPerAcre < range.low * 0.5 ||
+      derived.yieldBushelsPerAcre > range.high * 1.2)
+  ) {
+    warnings.push(
+      `Yield of ${derived.yieldBushelsPerAcre.toFixed(1)} bu/acre is far outside the usual ${range.low}–${range.high} bu/acre for ${crop!.name.toLowerCase()}: check the weight and the harvested area.`,
+    );
   }
   return warnings;
 }

@@ -13,9 +13,16 @@ import { CROPS, type CropKey } from './crops';
  * Grain weight at a standard moisture: weight × (100 − measured %) ÷ (100 − standard %) [EDIS].
  * @example weightAtStandardMoisture(1000, 18, 13.5) // 947.98
  */
-export function weightAtStandardMoisture(weight: number, measuredPercent: number, standardPercent: number): number {
+export function weightAtStandardMoisture(
+  weight: number,
+  measuredPercent: number,
+  standardPercent: number,
+): number {
   if (!(weight >= 0)) throw new Error('weightAtStandardMoisture needs a weight ≥ 0');
-  if (!(measuredPercent >= 0 && measuredPercent < 100) || !(standardPercent >= 0 && standardPercent < 100)) {
+  if (
+    !(measuredPercent >= 0 && measuredPercent < 100) ||
+    !(standardPercent >= 0 && standardPercent < 100)
+  ) {
     throw new Error('weightAtStandardMoisture needs moisture percentages in [0, 100)');
   }
   return (weight * (100 - measuredPercent)) / (100 - standardPercent);
@@ -34,15 +41,30 @@ export function stripYield(input: {
   areaSquareFeet: number;
   moisturePercent: number;
   crop: CropKey;
-}): { bushelsPerAcre: number; kilogramsPerHectare: number; gramsAtStandardMoisture: number; warning?: string } {
+}): {
+  bushelsPerAcre: number;
+  kilogramsPerHectare: number;
+  gramsAtStandardMoisture: number;
+  warning?: string;
+} {
   const crop = CROPS[input.crop];
   if (!crop) throw new Error(`stripYield: unknown crop "${input.crop}"`);
   if (!(input.areaSquareFeet > 0)) throw new Error('stripYield needs a harvested area > 0');
-  const grams = weightAtStandardMoisture(input.grainGrams, input.moisturePercent, crop.standardMoisturePercent);
+  const grams = weightAtStandardMoisture(
+    input.grainGrams,
+    input.moisturePercent,
+    crop.standardMoisturePercent,
+  );
   const poundsPerAcre = (grams / GRAMS_PER_POUND) * (SQUARE_FEET_PER_ACRE / input.areaSquareFeet);
   const bushelsPerAcre = poundsPerAcre / crop.bushelPounds;
-  const kilogramsPerHectare = (grams / 1000) * ((10_000 * SQUARE_FEET_PER_SQUARE_METRE) / input.areaSquareFeet);
-  const result: { bushelsPerAcre: number; kilogramsPerHectare: number; gramsAtStandardMoisture: number; warning?: string } = {
+  const kilogramsPerHectare =
+    (grams / 1000) * ((10_000 * SQUARE_FEET_PER_SQUARE_METRE) / input.areaSquareFeet);
+  const result: {
+    bushelsPerAcre: number;
+    kilogramsPerHectare: number;
+    gramsAtStandardMoisture: number;
+    warning?: string;
+  } = {
     bushelsPerAcre,
     kilogramsPerHectare,
     gramsAtStandardMoisture: grams,
@@ -63,14 +85,20 @@ export function stripYield(input: {
  * @throws Error for empty counts or non-positive length or spacing
  * @example countPerArea({ counts: [45], rowLengthFeet: 3, rowSpacingInches: 7.5 }).perSquareFoot // 24
  */
-export function countPerArea(input: { counts: readonly number[]; rowLengthFeet: number; rowSpacingInches: number }): {
+export function countPerArea(input: {
+  counts: readonly number[];
+  rowLengthFeet: number;
+  rowSpacingInches: number;
+}): {
   perSquareFoot: number;
   perSquareMetre: number;
 } {
   if (input.counts.length === 0) throw new Error('countPerArea needs at least one count');
-  if (!(input.rowLengthFeet > 0) || !(input.rowSpacingInches > 0)) throw new Error('countPerArea needs row length and spacing > 0');
+  if (!(input.rowLengthFeet > 0) || !(input.rowSpacingInches > 0))
+    throw new Error('countPerArea needs row length and spacing > 0');
   const total = input.counts.reduce((a, b) => a + b, 0);
-  const areaSquareFeet = input.counts.length * input.rowLengthFeet * (input.rowSpacingInches / INCHES_PER_FOOT);
+  const areaSquareFeet =
+    input.counts.length * input.rowLengthFeet * (input.rowSpacingInches / INCHES_PER_FOOT);
   const perSquareFoot = total / areaSquareFeet;
   return { perSquareFoot, perSquareMetre: perSquareFoot * SQUARE_FEET_PER_SQUARE_METRE };
 }

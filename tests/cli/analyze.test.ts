@@ -4,7 +4,10 @@ import { describe, expect, it } from 'vitest';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const run = (...args: string[]) =>
-  spawnSync(process.execPath, ['--import', 'tsx', 'api/cli/analyze.ts', ...args], { cwd: root, encoding: 'utf8' });
+  spawnSync(process.execPath, ['--import', 'tsx', 'api/cli/analyze.ts', ...args], {
+    cwd: root,
+    encoding: 'utf8',
+  });
 
 describe('analyze CLI', () => {
   it('prints the Gomez & Gomez site analysis as JSON', () => {
@@ -25,11 +28,24 @@ describe('analyze CLI', () => {
     expect(result.status).toBe(0);
     const { pooled, sites } = JSON.parse(result.stdout);
     expect(sites.map((s: { site: string }) => s.site)).toEqual(['dry', 'wet']);
-    expect(pooled.anova.map((r: { source: string }) => r.source)).toEqual(['site', 'block(site)', 'rate', 'site:rate', 'error', 'total']);
+    expect(pooled.anova.map((r: { source: string }) => r.source)).toEqual([
+      'site',
+      'block(site)',
+      'rate',
+      'site:rate',
+      'error',
+      'total',
+    ]);
     // Source: R 4.2.2 on Gomez & Gomez (1984) p. 318 data: F = 1.9416 on 4 and 4 df
     expect(pooled.rateTest).toMatchObject({ df1: 4, df2: 4, errorTerm: 'site:rate' });
     expect(pooled.rateTest.f).toBeCloseTo(1.94157, 4);
-    expect(pooled.means.map((m: { rate: string }) => m.rate)).toEqual(['0', '60', '90', '120', '150']);
+    expect(pooled.means.map((m: { rate: string }) => m.rate)).toEqual([
+      '0',
+      '60',
+      '90',
+      '120',
+      '150',
+    ]);
   });
 
   it('analyses another response column and pools unbalanced sites by site means', () => {

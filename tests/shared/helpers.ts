@@ -14,7 +14,14 @@ export function readFixture<T>(name: string): T {
   return JSON.parse(readFileSync(path, 'utf8')) as T;
 }
 
-export type AnovaReference = { source: string; df: number; ss: number; ms?: number; F?: number | null; p?: number | null };
+export type AnovaReference = {
+  source: string;
+  df: number;
+  ss: number;
+  ms?: number;
+  F?: number | null;
+  p?: number | null;
+};
 
 export type GomezSeedRate = {
   data: { block: string; rate: string; value: number }[];
@@ -29,7 +36,14 @@ export type GomezSeedRate = {
     lsd: number;
     qCritical: number;
     hsd: number;
-    means: { treatment: string; n: number; mean: number; se_mean_pooled: number; ci95_lower_pooled: number; ci95_upper_pooled: number }[];
+    means: {
+      treatment: string;
+      n: number;
+      mean: number;
+      se_mean_pooled: number;
+      ci95_lower_pooled: number;
+      ci95_upper_pooled: number;
+    }[];
     pairwise: {
       level_a: string;
       level_b: string;
@@ -43,7 +57,11 @@ export type GomezSeedRate = {
     coefficients: { term: string; estimate: number; se: number }[];
     rSquared: number;
     rateMaxYield: number;
-    economic: { seed_price_usd_per_kg_seed: number; grain_price_usd_per_kg_grain: number; rate_economic_optimum: number };
+    economic: {
+      seed_price_usd_per_kg_seed: number;
+      grain_price_usd_per_kg_grain: number;
+      rate_economic_optimum: number;
+    };
   };
 };
 
@@ -56,7 +74,13 @@ export type GomezSeasons = {
     means: { treatment: string; mean: number; lower: number; upper: number }[];
     bartlett: { chi_square: number; df: number; p: number };
     perSiteErrorMs: Record<string, number>;
-    perSiteDryPairwise: { level_a: string; level_b: string; diff_a_minus_b: number; sed: number; p_lsd_unadjusted: number }[];
+    perSiteDryPairwise: {
+      level_a: string;
+      level_b: string;
+      diff_a_minus_b: number;
+      sed: number;
+      p_lsd_unadjusted: number;
+    }[];
   };
   publishedTable8_4Variant: {
     changedCell: { site: string; rate: string; block: string; value: number };

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { analyzePooled, analyzeTrial, type AnovaRow, type PooledAnalysis } from '../../../shared/analysis/index';
+import {
+  analyzePooled,
+  analyzeTrial,
+  type AnovaRow,
+  type PooledAnalysis,
+} from '../../../shared/analysis/index';
 import { expectFigures, readFixture, type GomezSeasons } from '../helpers';
 
 const seasons = readFixture<GomezSeasons>('gomez-combined-two-seasons.json');
@@ -12,7 +17,11 @@ const names: Record<string, string> = {
   total: 'total',
 };
 const row = (pooled: PooledAnalysis, source: string) =>
-  pooled.anova.find((entry) => entry.source === source) as AnovaRow & { ms: number; f: number; p: number };
+  pooled.anova.find((entry) => entry.source === source) as AnovaRow & {
+    ms: number;
+    f: number;
+    p: number;
+  };
 
 describe('analyzePooled on the Gomez & Gomez two-season example', () => {
   const pooled = analyzePooled(seasons.data, { reference: '0' });
@@ -55,7 +64,9 @@ describe('analyzePooled on the Gomez & Gomez two-season example', () => {
     const dry = pooled.siteDifferences.filter((d) => d.site === 'dry');
     expect(dry.map((d) => d.rate)).toEqual(['60', '90', '120', '150']);
     for (const difference of dry) {
-      const pair = seasons.r.perSiteDryPairwise.find((p) => p.level_a === difference.rate && p.level_b === '0')!;
+      const pair = seasons.r.perSiteDryPairwise.find(
+        (p) => p.level_a === difference.rate && p.level_b === '0',
+      )!;
       // Source: R 4.2.2 per-season RCBD pairwise comparisons (dry season)
       expectFigures(difference.diff, pair.diff_a_minus_b, 10);
       expectFigures(difference.se, pair.sed, 8);
@@ -66,7 +77,9 @@ describe('analyzePooled on the Gomez & Gomez two-season example', () => {
   it('reproduces the published Table 8.4 sums of squares with the book’s 6.636', () => {
     const variant = seasons.publishedTable8_4Variant;
     const { site, rate, block, value } = variant.changedCell;
-    const data = seasons.data.map((d) => (d.site === site && d.rate === rate && d.block === block ? { ...d, value } : d));
+    const data = seasons.data.map((d) =>
+      d.site === site && d.rate === rate && d.block === block ? { ...d, value } : d,
+    );
     const result = analyzePooled(data);
     // Source: Gomez & Gomez (1984), Table 8.4 (6 decimals as printed)
     expect(row(result, 'site').ss).toBeCloseTo(variant.seasonSs, 5);
@@ -76,11 +89,15 @@ describe('analyzePooled on the Gomez & Gomez two-season example', () => {
     expect(row(result, 'error').ss).toBeCloseTo(variant.pooledErrorSs, 5);
     expect(Number(row(result, 'site:rate').f.toFixed(2))).toBe(variant.seasonByNitrogenF);
     // The book treats seasons as fixed: nitrogen MS over pooled error MS
-    expect(Number((row(result, 'rate').ms / row(result, 'error').ms).toFixed(2))).toBe(variant.nitrogenFvsPooledError);
+    expect(Number((row(result, 'rate').ms / row(result, 'error').ms).toFixed(2))).toBe(
+      variant.nitrogenFvsPooledError,
+    );
   });
 
   it('falls back to site means when a strip is missing, and says so', () => {
-    const data = seasons.data.map((d) => (d.site === 'wet' && d.rate === '90' && d.block === 'R2' ? { ...d, value: null } : d));
+    const data = seasons.data.map((d) =>
+      d.site === 'wet' && d.rate === '90' && d.block === 'R2' ? { ...d, value: null } : d,
+    );
     const result = analyzeTrial(data, { reference: '0' });
     const pooled = result.pooled!;
     expect(pooled.method).toBe('site-means');
@@ -109,7 +126,10 @@ describe('analyzePooled on the Gomez & Gomez two-season example', () => {
   it('fits the quadratic to site × rate means and flags a non-concave curve', () => {
     expect(pooled.curve?.model).toBe('quadratic');
     expect(pooled.curve?.points).toBe(10);
-    const convex = seasons.data.map((d) => ({ ...d, value: d.value + 0.001 * Number(d.rate) ** 2 }));
+    const convex = seasons.data.map((d) => ({
+      ...d,
+      value: d.value + 0.001 * Number(d.rate) ** 2,
+    }));
     const curve = analyzePooled(convex).curve!;
     expect(curve.quadratic).toBeGreaterThan(0);
     expect(curve.agronomicOptimum).toBeNull();
@@ -117,6 +137,8 @@ describe('analyzePooled on the Gomez & Gomez two-season example', () => {
   });
 
   it('refuses a single site', () => {
-    expect(() => analyzePooled(seasons.data.filter((d) => d.site === 'dry'))).toThrow(/at least 2 sites/);
+    expect(() => analyzePooled(seasons.data.filter((d) => d.site === 'dry'))).toThrow(
+      /at least 2 sites/,
+    );
   });
 });

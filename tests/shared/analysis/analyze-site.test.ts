@@ -4,7 +4,11 @@ import { expectFigures, readFixture, type GomezSeedRate } from '../helpers';
 
 const gomez = readFixture<GomezSeedRate>('gomez-rcbd-seeding-rate.json');
 const row = (analysis: SiteAnalysis, source: string) =>
-  analysis.anova.find((entry) => entry.source === source) as AnovaRow & { ms: number; f: number; p: number };
+  analysis.anova.find((entry) => entry.source === source) as AnovaRow & {
+    ms: number;
+    f: number;
+    p: number;
+  };
 
 describe('analyzeSite on the Gomez & Gomez seeding-rate RCBD', () => {
   const analysis = analyzeSite(gomez.data, { reference: '100' });
@@ -61,7 +65,9 @@ describe('analyzeSite on the Gomez & Gomez seeding-rate RCBD', () => {
   it('matches R’s unadjusted t-test p for each difference from the reference', () => {
     for (const difference of analysis.differences) {
       const pair = gomez.r.pairwise.find(
-        (p) => (p.level_a === difference.rate && p.level_b === '100') || (p.level_b === difference.rate && p.level_a === '100'),
+        (p) =>
+          (p.level_a === difference.rate && p.level_b === '100') ||
+          (p.level_b === difference.rate && p.level_a === '100'),
       )!;
       const sign = pair.level_a === difference.rate ? 1 : -1;
       // Source: R 4.2.2 pairwise t on the RCBD error (p_lsd_unadjusted)
@@ -79,10 +85,12 @@ describe('analyzeSite on the Gomez & Gomez seeding-rate RCBD', () => {
 
   it('uses "1" as reference when present, else the most-observed middle rate', () => {
     expect(analyzeSite(gomez.data).reference).toBe('75');
-    const multipliers = gomez.data.filter((d) => ['25', '50', '100', '150'].includes(d.rate)).map((d) => ({
-      ...d,
-      rate: { '25': 0.25, '50': 0.5, '100': 1, '150': 2 }[d.rate] as number,
-    }));
+    const multipliers = gomez.data
+      .filter((d) => ['25', '50', '100', '150'].includes(d.rate))
+      .map((d) => ({
+        ...d,
+        rate: { '25': 0.25, '50': 0.5, '100': 1, '150': 2 }[d.rate] as number,
+      }));
     const result = analyzeSite(multipliers);
     expect(result.reference).toBe('1');
     expect(result.means.map((m) => m.rate)).toEqual(['0.25', '0.5', '1', '2']);
@@ -92,7 +100,9 @@ describe('analyzeSite on the Gomez & Gomez seeding-rate RCBD', () => {
 describe('analyzeSite with a missing strip', () => {
   const blocks = ['R1', 'R2', 'R3', 'R4'];
   const rates = ['25', '50', '75', '100', '125', '150'];
-  const rows = gomez.data.map((d) => (d.block === 'R2' && d.rate === '75' ? { ...d, value: null } : d));
+  const rows = gomez.data.map((d) =>
+    d.block === 'R2' && d.rate === '75' ? { ...d, value: null } : d,
+  );
   const analysis = analyzeSite(rows, { reference: '100' });
   const observed = gomez.data.filter((d) => !(d.block === 'R2' && d.rate === '75'));
   const blockTotal = observed.filter((d) => d.block === 'R2').reduce((s, d) => s + d.value, 0);
@@ -100,7 +110,9 @@ describe('analyzeSite with a missing strip', () => {
   const grandTotal = observed.reduce((s, d) => s + d.value, 0);
   // Classic missing-plot estimate by hand: (rB + tT − G)/((r − 1)(t − 1)), Gomez & Gomez (1984) sec. 7.1.2.1
   const classic = (4 * blockTotal + 6 * rateTotal - grandTotal) / (3 * 5);
-  const filled = gomez.data.map((d) => (d.block === 'R2' && d.rate === '75' ? { ...d, value: classic } : d));
+  const filled = gomez.data.map((d) =>
+    d.block === 'R2' && d.rate === '75' ? { ...d, value: classic } : d,
+  );
   const mean = (values: number[]) => values.reduce((a, b) => a + b, 0) / values.length;
 
   it('reports the classic estimate and the equal least-squares fitted value', () => {
@@ -120,8 +132,16 @@ describe('analyzeSite with a missing strip', () => {
 
   it('adjusts the rate SS as the missing-plot method with the bias correction, and drops one error df', () => {
     const grand = mean(filled.map((d) => d.value));
-    const rateSsFilled = rates.reduce((s, rate) => s + 4 * (mean(filled.filter((d) => d.rate === rate).map((d) => d.value)) - grand) ** 2, 0);
-    const blockSsFilled = blocks.reduce((s, block) => s + 6 * (mean(filled.filter((d) => d.block === block).map((d) => d.value)) - grand) ** 2, 0);
+    const rateSsFilled = rates.reduce(
+      (s, rate) =>
+        s + 4 * (mean(filled.filter((d) => d.rate === rate).map((d) => d.value)) - grand) ** 2,
+      0,
+    );
+    const blockSsFilled = blocks.reduce(
+      (s, block) =>
+        s + 6 * (mean(filled.filter((d) => d.block === block).map((d) => d.value)) - grand) ** 2,
+      0,
+    );
     const totalSsFilled = filled.reduce((s, d) => s + (d.value - grand) ** 2, 0);
     // Bias = [B − (t − 1)·ŷ]² / [t(t − 1)], Gomez & Gomez (1984) sec. 7.1.2.1 (Yates 1933)
     const bias = (blockTotal - 5 * classic) ** 2 / (6 * 5);
@@ -132,7 +152,9 @@ describe('analyzeSite with a missing strip', () => {
   });
 
   it('flags a strip whose studentized residual exceeds 3', () => {
-    const spiked = gomez.data.map((d) => (d.block === 'R3' && d.rate === '50' ? { ...d, value: 9000 } : d));
+    const spiked = gomez.data.map((d) =>
+      d.block === 'R3' && d.rate === '50' ? { ...d, value: 9000 } : d,
+    );
     const result = analyzeSite(spiked);
     expect(result.outliers.map((o) => `${o.block}/${o.rate}`)).toEqual(['R3/50']);
     expect(Math.abs(result.outliers[0]!.studentized)).toBeGreaterThan(3);

@@ -42,20 +42,28 @@ describe('distribution functions against R 4.2.2', () => {
 
   it('matches pf, pt and pchisq upper tails', () => {
     // Source: R 4.2.2 pf(F, df1, df2, lower.tail = FALSE)
-    for (const row of reference.pf_upper) expectFigures(fUpperTailP(row.F, row.df1, row.df2), row.p_upper, 6);
+    for (const row of reference.pf_upper)
+      expectFigures(fUpperTailP(row.F, row.df1, row.df2), row.p_upper, 6);
     // Source: R 4.2.2 2 * pt(-abs(t), df)
-    for (const row of reference.pt) expectFigures(studentTTwoSidedP(row.t, row.df), row.p_two_sided, 6);
+    for (const row of reference.pt)
+      expectFigures(studentTTwoSidedP(row.t, row.df), row.p_two_sided, 6);
     // Source: R 4.2.2 pchisq(x, df, lower.tail = FALSE)
-    for (const row of reference.pchisq_upper) expectFigures(chiSquareUpperTailP(row.x, row.df), row.p_upper, 6);
+    for (const row of reference.pchisq_upper)
+      expectFigures(chiSquareUpperTailP(row.x, row.df), row.p_upper, 6);
     // Source: R 4.2.2 qchisq(0.95, df)
-    for (const row of reference.qchisq) expectFigures(chiSquareUpperTailP(row['qchisq_0.95'], row.df), 0.05, 6);
+    for (const row of reference.qchisq)
+      expectFigures(chiSquareUpperTailP(row['qchisq_0.95'], row.df), 0.05, 6);
   });
 
   it('matches qtukey within R’s documented 4-decimal accuracy', () => {
     for (const row of reference.qtukey.filter((r) => r.k > 2)) {
       // Source: R 4.2.2 qtukey(0.95 / 0.99, k, df)
-      expect(Math.abs(studentizedRangeQuantile(0.95, row.k, row.df) - row['qtukey_0.95'])).toBeLessThan(1e-4);
-      expect(Math.abs(studentizedRangeQuantile(0.99, row.k, row.df) - row['qtukey_0.99'])).toBeLessThan(1e-4);
+      expect(
+        Math.abs(studentizedRangeQuantile(0.95, row.k, row.df) - row['qtukey_0.95']),
+      ).toBeLessThan(1e-4);
+      expect(
+        Math.abs(studentizedRangeQuantile(0.99, row.k, row.df) - row['qtukey_0.99']),
+      ).toBeLessThan(1e-4);
     }
   });
 
@@ -76,7 +84,9 @@ describe('distribution functions against R 4.2.2', () => {
   it('matches ptukey upper tails', () => {
     // Source: R 4.2.2 ptukey(q, k, df, lower.tail = FALSE)
     for (const row of reference.ptukey_upper) {
-      expect(Math.abs(studentizedRangeUpperTailP(row.q, row.k, row.df) - row.p_upper)).toBeLessThan(1e-5);
+      expect(Math.abs(studentizedRangeUpperTailP(row.q, row.k, row.df) - row.p_upper)).toBeLessThan(
+        1e-5,
+      );
     }
   });
 

@@ -43,20 +43,31 @@ describe('fitQuadraticResponse', () => {
 
   it('finds an economic optimum below the agronomic one on a concave curve', () => {
     // y = 40 + 20x − 5x² exactly: agronomic optimum 2; with price ratio 4, (4 − 20)/(−10) = 1.6
-    const exact = [0.5, 1, 1.5, 2, 2.5, 3].map((x) => ({ rate: x, value: 40 + 20 * x - 5 * x * x }));
-    const fitted = fitQuadraticResponse([...exact, { rate: 1, value: 55.1 }, { rate: 1, value: 54.9 }], {
-      seedPricePerRateUnit: 8,
-      grainPricePerYieldUnit: 2,
-      rateUnit: 'x',
-      yieldUnit: 'bu/ac',
-    });
+    const exact = [0.5, 1, 1.5, 2, 2.5, 3].map((x) => ({
+      rate: x,
+      value: 40 + 20 * x - 5 * x * x,
+    }));
+    const fitted = fitQuadraticResponse(
+      [...exact, { rate: 1, value: 55.1 }, { rate: 1, value: 54.9 }],
+      {
+        seedPricePerRateUnit: 8,
+        grainPricePerYieldUnit: 2,
+        rateUnit: 'x',
+        yieldUnit: 'bu/ac',
+      },
+    );
     expectFigures(fitted.agronomicOptimum!, 2, 9);
     expectFigures(fitted.economicOptimum!, 1.6, 9);
   });
 
   it('refuses fewer than three rates', () => {
-    expect(() => fitQuadraticResponse([{ rate: 1, value: 2 }, { rate: 2, value: 3 }, { rate: 1, value: 2.5 }, { rate: 2, value: 3.2 }])).toThrow(
-      /fitQuadraticResponse needs at least 4 points at 3 or more rates/,
-    );
+    expect(() =>
+      fitQuadraticResponse([
+        { rate: 1, value: 2 },
+        { rate: 2, value: 3 },
+        { rate: 1, value: 2.5 },
+        { rate: 2, value: 3.2 },
+      ]),
+    ).toThrow(/fitQuadraticResponse needs at least 4 points at 3 or more rates/);
   });
 });

@@ -9,12 +9,17 @@ describe('blocksNeeded (Cochran & Cox 1957, sec. 2.13)', () => {
   it('returns the smallest r satisfying r ≥ 2(tα/2 + tβ)²CV²/d² on the actual error df', () => {
     const result = blocksNeeded({ cvPercent: 10, difference: 15, rates: 4 });
     expect(result.errorDf).toBe((result.blocks - 1) * 3);
-    expect(result.blocks).toBeGreaterThanOrEqual((2 * (result.tAlpha + result.tBeta) ** 2 * 100) / 225);
+    expect(result.blocks).toBeGreaterThanOrEqual(
+      (2 * (result.tAlpha + result.tBeta) ** 2 * 100) / 225,
+    );
     // One block fewer does not satisfy the criterion at its own (smaller) df
     const dfFewer = (result.blocks - 2) * 3;
-    const required = (2 * (studentTQuantile(0.975, dfFewer) + studentTQuantile(0.8, dfFewer)) ** 2 * 100) / 225;
+    const required =
+      (2 * (studentTQuantile(0.975, dfFewer) + studentTQuantile(0.8, dfFewer)) ** 2 * 100) / 225;
     expect(result.blocks - 1).toBeLessThan(required);
-    expect(() => blocksNeeded({ cvPercent: 10, difference: 15, rates: 4, maxBlocks: result.blocks - 1 })).toThrow(/blocksNeeded/);
+    expect(() =>
+      blocksNeeded({ cvPercent: 10, difference: 15, rates: 4, maxBlocks: result.blocks - 1 }),
+    ).toThrow(/blocksNeeded/);
   });
 
   it('uses R’s t quantile on the error df', () => {
@@ -37,8 +42,20 @@ describe('blocksNeeded (Cochran & Cox 1957, sec. 2.13)', () => {
 
 describe('sitesNeeded', () => {
   it('needs more sites when rate effects vary more among sites', () => {
-    const calm = sitesNeeded({ cvPercent: 10, blocksPerSite: 4, difference: 10, rates: 4, siteByRateCvPercent: 2 });
-    const noisy = sitesNeeded({ cvPercent: 10, blocksPerSite: 4, difference: 10, rates: 4, siteByRateCvPercent: 8 });
+    const calm = sitesNeeded({
+      cvPercent: 10,
+      blocksPerSite: 4,
+      difference: 10,
+      rates: 4,
+      siteByRateCvPercent: 2,
+    });
+    const noisy = sitesNeeded({
+      cvPercent: 10,
+      blocksPerSite: 4,
+      difference: 10,
+      rates: 4,
+      siteByRateCvPercent: 8,
+    });
     expect(noisy.sites).toBeGreaterThan(calm.sites);
     const { sites, tAlpha, tBeta } = noisy;
     expect(sites).toBeGreaterThanOrEqual((2 * (tAlpha + tBeta) ** 2 * (64 + 100 / 4)) / 100);

@@ -31,7 +31,9 @@ describe('seeding-rate conversions', () => {
   it('reproduces the NDSU barley example: (1.1 M ÷ 0.85) ÷ (12,500 × 0.95) ≈ 109 lb/ac', () => {
     // Source: NDSU barley seeding rates, per TRADE_FACTS NDSU-B (published ≈ 110, recomputed 109.0)
     const seedsPerAcre = seedsToSow(1_100_000, 95, 85);
-    const pounds = poundsPerAcreFromSeedsPerSquareFoot(seedsPerAcre / SQUARE_FEET_PER_ACRE, { seedsPerPound: 12_500 });
+    const pounds = poundsPerAcreFromSeedsPerSquareFoot(seedsPerAcre / SQUARE_FEET_PER_ACRE, {
+      seedsPerPound: 12_500,
+    });
     expect(pounds).toBeCloseTo(108.98, 1);
   });
 
@@ -45,24 +47,41 @@ describe('seeding-rate conversions', () => {
     });
     expect(Math.round(pounds)).toBe(70);
     // Source: Grainews/Alberta Agriculture (GN-AB): lb/ac = plants/ft² × TKW ÷ survival ÷ 10.4, with 22 seeds/ft²
-    expect(poundsPerAcreFromSeedsPerSquareFoot(22, { thousandKernelWeightGrams: 33 })).toBeCloseTo((22 * 33) / 10.4, 0);
+    expect(poundsPerAcreFromSeedsPerSquareFoot(22, { thousandKernelWeightGrams: 33 })).toBeCloseTo(
+      (22 * 33) / 10.4,
+      0,
+    );
   });
 
   it('round-trips lb/ac and seeds/ft² and converts per-area units', () => {
     const size = { thousandKernelWeightGrams: 40 };
-    expect(seedsPerSquareFootFromPoundsPerAcre(poundsPerAcreFromSeedsPerSquareFoot(30, size), size)).toBeCloseTo(30, 10);
+    expect(
+      seedsPerSquareFootFromPoundsPerAcre(poundsPerAcreFromSeedsPerSquareFoot(30, size), size),
+    ).toBeCloseTo(30, 10);
     // 1 m² = 10.7639 ft² (derived from the exact foot, TRADE_FACTS USU)
     expect(seedsPerSquareMetreFromSquareFoot(1)).toBeCloseTo(10.7639, 4);
     // Source: BODLE hulless oats, 400 seeds/m²; at 25 g TKW: 400 × 25 ÷ 100 = 100 kg/ha (ADAS/BASF form)
-    expect(kilogramsPerHectareFromSeedsPerSquareMetre(400, { thousandKernelWeightGrams: 25 })).toBeCloseTo(100, 10);
+    expect(
+      kilogramsPerHectareFromSeedsPerSquareMetre(400, { thousandKernelWeightGrams: 25 }),
+    ).toBeCloseTo(100, 10);
   });
 
   it('weighs the seed for a strip and for each row', () => {
-    const strip = seedForStrip({ seedsPerFootOfRow: 10, rows: 6, lengthFeet: 100, size: { thousandKernelWeightGrams: 40 } });
+    const strip = seedForStrip({
+      seedsPerFootOfRow: 10,
+      rows: 6,
+      lengthFeet: 100,
+      size: { thousandKernelWeightGrams: 40 },
+    });
     // Arithmetic: 10 seeds/ft × 100 ft = 1,000 seeds × 0.040 g = 40 g per row; × 6 rows = 240 g
     expect(strip.gramsPerRow).toBeCloseTo(40, 10);
     expect(strip.gramsPerStrip).toBeCloseTo(240, 10);
-    const bySeedsPerPound = seedForStrip({ seedsPerFootOfRow: 10, rows: 1, lengthFeet: 100, size: { seedsPerPound: 10_000 } });
+    const bySeedsPerPound = seedForStrip({
+      seedsPerFootOfRow: 10,
+      rows: 1,
+      lengthFeet: 100,
+      size: { seedsPerPound: 10_000 },
+    });
     expect(bySeedsPerPound.gramsPerRow).toBeCloseTo((1000 * GRAMS_PER_POUND) / 10_000, 10);
   });
 });
@@ -75,7 +94,13 @@ describe('seeder calibration', () => {
 
   it('reports 80 seeds per 3-ft turn against a target of 30 as 267 % with advice to close openings', () => {
     // Common practice, no published source
-    const result = calibrateSeeder({ seedsCounted: 80, wheelTurns: 1, circumferenceFeet: 3, rowSpacingInches: 8, targetSeedsPerFootOfRow: 10 });
+    const result = calibrateSeeder({
+      seedsCounted: 80,
+      wheelTurns: 1,
+      circumferenceFeet: 3,
+      rowSpacingInches: 8,
+      targetSeedsPerFootOfRow: 10,
+    });
     expect(Math.round(result.percentOfTarget)).toBe(267);
     expect(result.deliveredSeedsPerSquareFoot).toBeCloseTo(40, 10);
     expect(result.advice).toMatch(/close about/);
@@ -83,9 +108,23 @@ describe('seeder calibration', () => {
   });
 
   it('says about double → close about half; within 5 % → no change', () => {
-    const double = calibrateSeeder({ seedsCounted: 120, wheelTurns: 2, circumferenceFeet: 3, rowSpacingInches: 8, targetSeedsPerFootOfRow: 10 });
-    expect(double.advice).toBe('About double the target (200 %): close about half the cups/openings or pick the next smaller plate; re-check.');
-    const fine = calibrateSeeder({ seedsCounted: 31, wheelTurns: 1, circumferenceFeet: 3, rowSpacingInches: 8, targetSeedsPerFootOfRow: 10 });
+    const double = calibrateSeeder({
+      seedsCounted: 120,
+      wheelTurns: 2,
+      circumferenceFeet: 3,
+      rowSpacingInches: 8,
+      targetSeedsPerFootOfRow: 10,
+    });
+    expect(double.advice).toBe(
+      'About double the target (200 %): close about half the cups/openings or pick the next smaller plate; re-check.',
+    );
+    const fine = calibrateSeeder({
+      seedsCounted: 31,
+      wheelTurns: 1,
+      circumferenceFeet: 3,
+      rowSpacingInches: 8,
+      targetSeedsPerFootOfRow: 10,
+    });
     expect(fine.advice).toMatch(/no change needed/);
   });
 });

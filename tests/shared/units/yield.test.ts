@@ -1,7 +1,18 @@
 import { describe, expect, it } from 'vitest';
-import { ACRES_PER_HECTARE, GRAMS_PER_POUND, KG_PER_HA_PER_LB_PER_ACRE, SQUARE_FEET_PER_ACRE } from '../../../shared/units/constants';
+import {
+  ACRES_PER_HECTARE,
+  GRAMS_PER_POUND,
+  KG_PER_HA_PER_LB_PER_ACRE,
+  SQUARE_FEET_PER_ACRE,
+} from '../../../shared/units/constants';
 import { CROPS, kilogramsPerHectarePerBushelPerAcre } from '../../../shared/units/crops';
-import { countPerArea, establishmentPercent, seedReturn, stripYield, weightAtStandardMoisture } from '../../../shared/units/yield';
+import {
+  countPerArea,
+  establishmentPercent,
+  seedReturn,
+  stripYield,
+  weightAtStandardMoisture,
+} from '../../../shared/units/yield';
 
 describe('unit constants and crops', () => {
   it('uses the exact pound and acre', () => {
@@ -43,11 +54,19 @@ describe('yield and counts', () => {
 
   it('gives bu/ac and kg/ha for a threshed strip', () => {
     // By hand: 20 kg at 13.5 % on 600 ft² → 20000/453.59237 lb × 43560/600 = 3201.1 lb/ac ÷ 60 = 53.35 bu/ac
-    const result = stripYield({ grainGrams: 20_000, areaSquareFeet: 600, moisturePercent: 13.5, crop: 'wheat' });
+    const result = stripYield({
+      grainGrams: 20_000,
+      areaSquareFeet: 600,
+      moisturePercent: 13.5,
+      crop: 'wheat',
+    });
     expect(result.bushelsPerAcre).toBeCloseTo(53.35, 2);
     expect(result.kilogramsPerHectare).toBeCloseTo(result.bushelsPerAcre * 67.25, 0);
     expect(result.warning).toBeUndefined();
-    expect(stripYield({ grainGrams: 200_000, areaSquareFeet: 600, moisturePercent: 13.5, crop: 'wheat' }).warning).toMatch(/outside the usual/);
+    expect(
+      stripYield({ grainGrams: 200_000, areaSquareFeet: 600, moisturePercent: 13.5, crop: 'wheat' })
+        .warning,
+    ).toMatch(/outside the usual/);
   });
 
   it('counts plants per ft² on measured row lengths', () => {
