@@ -78,12 +78,28 @@ export function clientFor(app: Express) {
       token = null;
     },
     get: (url: string) => agent.get(url),
-    post: async (url: string, body?: object) => agent.post(url).set('X-CSRF-Token', await csrf()).send(body ?? {}),
-    patch: async (url: string, body?: object) => agent.patch(url).set('X-CSRF-Token', await csrf()).send(body ?? {}),
-    put: async (url: string, body?: object) => agent.put(url).set('X-CSRF-Token', await csrf()).send(body ?? {}),
-    delete: async (url: string) => agent.delete(url).set('X-CSRF-Token', await csrf()),
+    // The token is fetched before the request is built: the agent copies cookies at creation.
+    post: async (url: string, body?: object) => {
+      const token = await csrf();
+      return agent.post(url).set('X-CSRF-Token', token).send(body ?? {});
+    },
+    patch: async (url: string, body?: object) => {
+      const token = await csrf();
+      return agent.patch(url).set('X-CSRF-Token', token).send(body ?? {});
+    },
+    put: async (url: string, body?: object) => {
+      const token = await csrf();
+      return agent.put(url).set('X-CSRF-Token', token).send(body ?? {});
+    },
+    delete: async (url: string) => {
+      const token = await csrf();
+      return agent.delete(url).set('X-CSRF-Token', token);
+    },
     /** For multipart uploads: returns a request with the CSRF header set. */
-    upload: async (url: string) => agent.post(url).set('X-CSRF-Token', await csrf()),
+    upload: async (url: string) => {
+      const token = await csrf();
+      return agent.post(url).set('X-CSRF-Token', token);
+    },
   };
 }
 
