@@ -1,5 +1,5 @@
 // Turns zod issues and API errors into per-field messages and one summary line for forms.
-import type { z } from 'zod';
+import { z } from 'zod';
 import { isApiError } from './api-client';
 
 export type FieldErrors = Record<string, string>;
@@ -29,6 +29,9 @@ export function errorSummary(error: unknown): string {
     if (error.code === 'validation_failed') return 'Some fields need another look.';
     if (error.status >= 500) return 'Something went wrong on the server. Try again in a moment.';
     return error.message;
+  }
+  if (error instanceof z.ZodError) {
+    return 'The server sent an answer this page does not understand. Reload the page; if it happens again, tell your coordinator.';
   }
   return error instanceof Error ? error.message : 'Something went wrong.';
 }

@@ -4,9 +4,9 @@ import type { Role } from '../../shared/schemas/common';
 
 const CROP_NAMES: Record<CropKey, string> = {
   wheat: 'Winter wheat',
-  'spring-wheat': 'Spring wheat',
+  springWheat: 'Spring wheat',
   oats: 'Oats',
-  'hulless-oats': 'Hulless oats',
+  hullessOats: 'Hulless oats',
   barley: 'Barley',
   rye: 'Rye',
   custom: 'Other crop',

@@ -6,9 +6,10 @@ export const queryClient = new QueryClient({
   defaultOptions: {
     queries: {
       staleTime: 30_000,
-      // Client errors (401, 403, 404, 422…) will not change on a retry; network blips might.
+      // Only a lost connection or a server hiccup may go away on a retry; a 4xx answer or a
+      // response that fails its schema will not.
       retry: (failureCount, error) =>
-        failureCount < 2 && !(isApiError(error) && error.status >= 400 && error.status < 500),
+        failureCount < 2 && isApiError(error) && (error.status === 0 || error.status >= 500),
       refetchOnWindowFocus: false,
     },
     mutations: { retry: false },

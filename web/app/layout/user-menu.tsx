@@ -1,5 +1,6 @@
 // The signed-in person's name, their networks and roles, and the sign-out action.
 import { useEffect, useId, useRef, useState } from 'react';
+import { useNavigate } from 'react-router-dom';
 import type { SessionUser } from '../../../shared/schemas/auth';
 import { Button } from '../../components/ui/button';
 import { useLogout } from '../../features/auth/api/logout';
@@ -7,7 +8,12 @@ import { cn } from '../../lib/cn';
 import { roleName } from '../../lib/format';
 
 export function initials(name: string): string {
-  const parts = name.trim().split(/\s+/).filter(Boolean);
+  // Letters only: "Corin Hale (invented)" gives "CH", not "C(".
+  const parts = name
+    .replace(/\([^)]*\)/g, ' ')
+    .split(/\s+/)
+    .map((part) => part.replace(/[^\p{L}]/gu, ''))
+    .filter(Boolean);
   const letters = parts.length > 1 ? [parts[0]![0], parts[parts.length - 1]![0]] : [parts[0]?.[0]];
   return letters.join('').toUpperCase() || '?';
 }
@@ -39,7 +45,11 @@ export function AccountDetails({ user, onSignOut, busy }: { user: SessionUser; o
 
 export function useSignOut() {
   const logout = useLogout();
-  return { signOut: () => logout.mutate(), busy: logout.isPending };
+  const navigate = useNavigate();
+  return {
+    signOut: () => logout.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) }),
+    busy: logout.isPending,
+  };
 }
 
 export function UserMenu({ user }: { user: SessionUser }) {

@@ -9,7 +9,7 @@ export function caughtMailQueryOptions() {
     queryKey: ['admin', 'mail'],
     queryFn: async ({ signal }) =>
       z.array(CaughtMailSchema).parse(await api.get('/api/admin/mail', { signal })),
-    staleTime: 0,
+    staleTime: 10_000,
   });
 }
 
