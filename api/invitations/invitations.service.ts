@@ -1,7 +1,7 @@
 // Invitations: a coordinator invites an e-mail address to a network with a role; the link
 // lets the person set their name and password and signs them in.
 import type { DataSource, EntityManager } from 'typeorm';
-import type { InvitationAccept, InvitationCreate, InvitationPreview } from '../../shared/schemas/auth';
+import type { InvitationAccept, InvitationPreview } from '../../shared/schemas/auth';
 import type { Role } from '../../shared/schemas/common';
 import { hashPassword } from '../auth/auth.service';
 import { AppError, Conflict, Forbidden, NotFound } from '../errors';
