@@ -3,6 +3,8 @@
 //   { path: 'trials/:trialId', lazy: routeModule(() => import('./routes/trials/trial')) },
 // A route module exports a default component, and optionally `clientLoader(queryClient)`
 // (prefetch with queryClient.ensureQueryData) and an `ErrorBoundary` (404 here, re-throw the rest).
+// Loaders of nested routes run in parallel with the app layout's sign-in guard: a page loader
+// returns early when there is no user rather than redirecting itself.
 import type { QueryClient } from '@tanstack/react-query';
 import type { ComponentType } from 'react';
 import {

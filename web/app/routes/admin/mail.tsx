@@ -18,7 +18,9 @@ import { isNotFound, NotFoundPanel } from '../../route-errors';
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
   const user = await queryClient.ensureQueryData(meQueryOptions());
-  if (!user || !isAdmin(user)) throw redirect('/');
+  // Loaders run in parallel: a signed-out visitor is redirected by the app layout (with `next`).
+  if (!user) return null;
+  if (!isAdmin(user)) throw redirect('/');
   await queryClient.ensureQueryData(caughtMailQueryOptions());
   return null;
 };
