@@ -112,7 +112,10 @@ export default {
         label: ['0.875rem', { lineHeight: '1.25rem', fontWeight: '560' }],
         body: ['1rem', { lineHeight: '1.5rem' }],
         lead: ['1.125rem', { lineHeight: '1.7rem' }],
-        heading: ['1.25rem', { lineHeight: '1.75rem', letterSpacing: '-0.01em', fontWeight: '650' }],
+        heading: [
+          '1.25rem',
+          { lineHeight: '1.75rem', letterSpacing: '-0.01em', fontWeight: '650' },
+        ],
         title: ['1.625rem', { lineHeight: '2rem', letterSpacing: '-0.015em', fontWeight: '700' }],
         display: ['2.25rem', { lineHeight: '2.6rem', letterSpacing: '-0.02em', fontWeight: '750' }],
       },

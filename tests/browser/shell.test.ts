@@ -1,7 +1,13 @@
 // The web shell in a real browser: sign-in redirect, the coordinator's trial list and the phone menu.
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, screenshot, signInThroughUi, startTestServer, watchErrors } from '../helpers/browser';
+import {
+  launchBrowser,
+  screenshot,
+  signInThroughUi,
+  startTestServer,
+  watchErrors,
+} from '../helpers/browser';
 
 const COORDINATOR = 'coordinator@millbrook.example';
 
@@ -19,8 +25,12 @@ describe('web shell', () => {
     await server?.close();
   });
 
-  async function openPage(width: number): Promise<{ page: Page; errors: string[]; close: () => Promise<void> }> {
-    const context = await browser.newContext({ viewport: { width, height: width < 500 ? 844 : 900 } });
+  async function openPage(
+    width: number,
+  ): Promise<{ page: Page; errors: string[]; close: () => Promise<void> }> {
+    const context = await browser.newContext({
+      viewport: { width, height: width < 500 ? 844 : 900 },
+    });
     const page = await context.newPage();
     return { page, errors: watchErrors(page), close: () => context.close() };
   }
@@ -35,7 +45,9 @@ describe('web shell', () => {
     await page.getByLabel(/password/i).fill('sheaf-demo');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL((url) => url.pathname === '/admin/mail');
-    await expect(page.getByRole('heading', { name: 'Caught e-mail' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('heading', { name: 'Caught e-mail' }).isVisible()).resolves.toBe(
+      true,
+    );
     expect(errors).toEqual([]);
     await close();
   });
@@ -59,7 +71,9 @@ describe('web shell', () => {
       }
       const nav = page.getByRole('navigation', { name: 'Main' }).filter({ visible: true });
       await expect(nav.getByRole('link', { name: 'New trial' }).isVisible()).resolves.toBe(true);
-      await expect(nav.getByRole('link', { name: 'Seed calculator' }).isVisible()).resolves.toBe(true);
+      await expect(nav.getByRole('link', { name: 'Seed calculator' }).isVisible()).resolves.toBe(
+        true,
+      );
       await expect(nav.getByRole('link', { name: 'Caught e-mail' }).count()).resolves.toBe(0);
 
       if (width < 768) await screenshot(page, `shell-coordinator-menu-${width}`);

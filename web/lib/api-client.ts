@@ -117,7 +117,11 @@ async function toApiError(response: Response): Promise<ApiError> {
     body = undefined;
   }
   const error =
-    body && typeof body === 'object' && 'error' in body && body.error && typeof body.error === 'object'
+    body &&
+    typeof body === 'object' &&
+    'error' in body &&
+    body.error &&
+    typeof body.error === 'object'
       ? (body.error as Partial<ApiErrorBody['error']>)
       : undefined;
   return new ApiError(
@@ -137,7 +141,11 @@ function fallbackCode(status: number): string {
 }
 
 /** Sends one request and parses the JSON answer (`undefined` for 204). */
-export async function request<T>(method: Method, path: string, options: RequestOptions = {}): Promise<T> {
+export async function request<T>(
+  method: Method,
+  path: string,
+  options: RequestOptions = {},
+): Promise<T> {
   if (!UNSAFE_METHODS.has(method)) {
     return (await readBody(await send(method, path, options))) as T;
   }
@@ -154,7 +162,8 @@ export async function request<T>(method: Method, path: string, options: RequestO
 }
 
 export const api = {
-  get: <T>(path: string, options?: Omit<RequestOptions, 'body'>) => request<T>('GET', path, options),
+  get: <T>(path: string, options?: Omit<RequestOptions, 'body'>) =>
+    request<T>('GET', path, options),
   post: <T>(path: string, body?: unknown, options?: RequestOptions) =>
     request<T>('POST', path, { ...options, body }),
   patch: <T>(path: string, body?: unknown, options?: RequestOptions) =>

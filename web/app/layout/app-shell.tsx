@@ -13,9 +13,15 @@ function NavigationProgress() {
   const navigation = useNavigation();
   if (navigation.state === 'idle') return null;
   return (
-    <div role="progressbar" aria-label="Loading page" className="fixed inset-x-0 top-0 z-50 h-1 overflow-hidden">
+    <div
+      role="progressbar"
+      aria-label="Loading page"
+      className="fixed inset-x-0 top-0 z-50 h-1 overflow-hidden"
+    >
       <div className="h-full w-1/3 animate-[sheaf-slide_1.1s_ease-in-out_infinite] bg-straw-300" />
-      <style>{'@keyframes sheaf-slide{0%{transform:translateX(-100%)}100%{transform:translateX(300%)}}'}</style>
+      <style>
+        {'@keyframes sheaf-slide{0%{transform:translateX(-100%)}100%{transform:translateX(300%)}}'}
+      </style>
     </div>
   );
 }
@@ -23,7 +29,10 @@ function NavigationProgress() {
 function PhoneMenu({ user, onNavigate }: { user: SessionUser; onNavigate: () => void }) {
   const { signOut, busy } = useSignOut();
   return (
-    <div id="phone-menu" className="border-t border-field-700 bg-surface px-4 pb-5 pt-3 shadow-raised md:hidden">
+    <div
+      id="phone-menu"
+      className="border-t border-field-700 bg-surface px-4 pb-5 pt-3 shadow-raised md:hidden"
+    >
       <nav aria-label="Main" className="mb-4">
         <ul className="space-y-1">
           {navItemsFor(user).map((item) => (
@@ -97,8 +106,20 @@ function Header({ user }: { user: SessionUser | null }) {
               aria-controls="phone-menu"
               onClick={() => setMenuOpen((v) => !v)}
             >
-              <svg aria-hidden="true" viewBox="0 0 20 20" className="size-5" fill="none" stroke="currentColor" strokeWidth="2" strokeLinecap="round">
-                {menuOpen ? <path d="M5 5l10 10M15 5L5 15" /> : <path d="M3 6h14M3 10h14M3 14h14" />}
+              <svg
+                aria-hidden="true"
+                viewBox="0 0 20 20"
+                className="size-5"
+                fill="none"
+                stroke="currentColor"
+                strokeWidth="2"
+                strokeLinecap="round"
+              >
+                {menuOpen ? (
+                  <path d="M5 5l10 10M15 5L5 15" />
+                ) : (
+                  <path d="M3 6h14M3 10h14M3 14h14" />
+                )}
               </svg>
               Menu
             </button>

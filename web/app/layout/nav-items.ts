@@ -18,7 +18,10 @@ export function navItemsFor(user: SessionUser): NavItem[] {
       { to: '/calculator', label: 'Seed calculator' },
     );
   } else if (isGrower(user)) {
-    items.push({ to: '/', label: 'My sites', end: true }, { to: '/calculator', label: 'Seed calculator' });
+    items.push(
+      { to: '/', label: 'My sites', end: true },
+      { to: '/calculator', label: 'Seed calculator' },
+    );
   } else {
     items.push({ to: '/', label: 'Reports', end: true });
   }

@@ -19,7 +19,15 @@ export function initials(name: string): string {
 }
 
 /** Memberships and a sign-out button; used in the dropdown and in the phone menu. */
-export function AccountDetails({ user, onSignOut, busy }: { user: SessionUser; onSignOut: () => void; busy: boolean }) {
+export function AccountDetails({
+  user,
+  onSignOut,
+  busy,
+}: {
+  user: SessionUser;
+  onSignOut: () => void;
+  busy: boolean;
+}) {
   return (
     <div className="space-y-3">
       <div>
@@ -47,7 +55,8 @@ export function useSignOut() {
   const logout = useLogout();
   const navigate = useNavigate();
   return {
-    signOut: () => logout.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) }),
+    signOut: () =>
+      logout.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) }),
     busy: logout.isPending,
   };
 }
@@ -90,7 +99,10 @@ export function UserMenu({ user }: { user: SessionUser }) {
           {initials(user.name)}
         </span>
         <span className="max-w-40 truncate">{user.name}</span>
-        <span aria-hidden="true" className={cn('text-xs transition-transform', open && 'rotate-180')}>
+        <span
+          aria-hidden="true"
+          className={cn('text-xs transition-transform', open && 'rotate-180')}
+        >
           ▾
         </span>
         <span className="sr-only">account menu</span>

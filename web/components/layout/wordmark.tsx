@@ -20,7 +20,13 @@ export function SheafMark({ className }: { className?: string }) {
   );
 }
 
-export function Wordmark({ className, tone = 'light' }: { className?: string; tone?: 'light' | 'dark' }) {
+export function Wordmark({
+  className,
+  tone = 'light',
+}: {
+  className?: string;
+  tone?: 'light' | 'dark';
+}) {
   return (
     <span className={cn('inline-flex items-center gap-2', className)}>
       <SheafMark />

@@ -6,9 +6,21 @@ export type AlertTone = 'info' | 'success' | 'caution' | 'danger';
 
 const tones: Record<AlertTone, { box: string; mark: string; symbol: string }> = {
   info: { box: 'border-info/30 bg-info-soft', mark: 'bg-info text-info-soft', symbol: 'i' },
-  success: { box: 'border-accent/30 bg-accent-soft', mark: 'bg-accent text-on-accent', symbol: '✓' },
-  caution: { box: 'border-caution/40 bg-caution-soft', mark: 'bg-caution text-caution-soft', symbol: '!' },
-  danger: { box: 'border-danger/40 bg-danger-soft', mark: 'bg-danger text-danger-soft', symbol: '×' },
+  success: {
+    box: 'border-accent/30 bg-accent-soft',
+    mark: 'bg-accent text-on-accent',
+    symbol: '✓',
+  },
+  caution: {
+    box: 'border-caution/40 bg-caution-soft',
+    mark: 'bg-caution text-caution-soft',
+    symbol: '!',
+  },
+  danger: {
+    box: 'border-danger/40 bg-danger-soft',
+    mark: 'bg-danger text-danger-soft',
+    symbol: '×',
+  },
 };
 
 export interface AlertProps {

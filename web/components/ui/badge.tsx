@@ -11,7 +11,15 @@ const tones: Record<BadgeTone, string> = {
   info: 'bg-info-soft text-info ring-info/25',
 };
 
-export function Badge({ tone = 'neutral', children, className }: { tone?: BadgeTone; children: ReactNode; className?: string }) {
+export function Badge({
+  tone = 'neutral',
+  children,
+  className,
+}: {
+  tone?: BadgeTone;
+  children: ReactNode;
+  className?: string;
+}) {
   return (
     <span
       className={cn(

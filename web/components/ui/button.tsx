@@ -24,7 +24,11 @@ const sizes: Record<ButtonSize, string> = {
   lg: 'min-h-12 px-5 text-body',
 };
 
-export function buttonClasses(variant: ButtonVariant = 'primary', size: ButtonSize = 'md', extra?: string) {
+export function buttonClasses(
+  variant: ButtonVariant = 'primary',
+  size: ButtonSize = 'md',
+  extra?: string,
+) {
   return cn(base, variants[variant], sizes[size], extra);
 }
 
@@ -66,6 +70,11 @@ export interface ButtonLinkProps extends LinkProps {
   size?: ButtonSize;
 }
 
-export function ButtonLink({ variant = 'primary', size = 'md', className, ...rest }: ButtonLinkProps) {
+export function ButtonLink({
+  variant = 'primary',
+  size = 'md',
+  className,
+  ...rest
+}: ButtonLinkProps) {
   return <Link className={buttonClasses(variant, size, className)} {...rest} />;
 }

@@ -26,7 +26,13 @@ export function Spinner({ size = 'md', label = 'Loading', className }: SpinnerPr
 }
 
 /** A centred spinner with visible words, for a page or panel that is still loading. */
-export function LoadingBlock({ label = 'Loading…', className }: { label?: string; className?: string }) {
+export function LoadingBlock({
+  label = 'Loading…',
+  className,
+}: {
+  label?: string;
+  className?: string;
+}) {
   return (
     <div
       role="status"

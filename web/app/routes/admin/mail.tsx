@@ -50,7 +50,9 @@ function MailItem({ mail }: { mail: CaughtMail }) {
         <summary className="flex cursor-pointer list-none flex-col gap-1 p-4 sm:flex-row sm:items-center sm:justify-between">
           <span className="min-w-0">
             <span className="block font-semibold text-ink">{mail.subject || '(no subject)'}</span>
-            <span className="block break-all text-label text-ink-muted">to {mail.to.join(', ')}</span>
+            <span className="block break-all text-label text-ink-muted">
+              to {mail.to.join(', ')}
+            </span>
           </span>
           <span className="figures shrink-0 text-caption text-ink-muted">
             {formatDateTime(mail.receivedAt)}

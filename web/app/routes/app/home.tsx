@@ -36,7 +36,13 @@ function QueryState<T>({
   loadingLabel,
   children,
 }: {
-  query: { data: T | undefined; isError: boolean; error: unknown; refetch: () => unknown; isRefetching: boolean };
+  query: {
+    data: T | undefined;
+    isError: boolean;
+    error: unknown;
+    refetch: () => unknown;
+    isRefetching: boolean;
+  };
   loadingLabel: string;
   children: (data: T) => ReactNode;
 }) {

@@ -1,6 +1,12 @@
 // /invite/:token: see which network and role an invitation is for, then create the account.
 import type { QueryClient } from '@tanstack/react-query';
-import { Link, useNavigate, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
+import {
+  Link,
+  useNavigate,
+  useParams,
+  useRouteError,
+  type LoaderFunctionArgs,
+} from 'react-router-dom';
 import { Alert } from '../../../components/ui/alert';
 import { LoadingBlock } from '../../../components/ui/spinner';
 import { invitationQueryOptions, useInvitation } from '../../../features/auth/api/invitation';
@@ -46,8 +52,8 @@ export function ErrorBoundary() {
   return (
     <AuthCard title="This invitation does not work">
       <Alert tone="caution">
-        The link may be mistyped, already used, or past its date. Ask your coordinator to send a
-        new invitation.
+        The link may be mistyped, already used, or past its date. Ask your coordinator to send a new
+        invitation.
       </Alert>
       <p className="mt-5 text-center text-label">
         Already have an account?{' '}

@@ -105,7 +105,10 @@ export default function CautionsPage() {
             <ul className="mt-4 space-y-2.5">
               {c.points.map((point, i) => (
                 <li key={i} className="flex gap-3">
-                  <span aria-hidden="true" className="mt-2.5 size-1.5 shrink-0 rounded-full bg-accent" />
+                  <span
+                    aria-hidden="true"
+                    className="mt-2.5 size-1.5 shrink-0 rounded-full bg-accent"
+                  />
                   <span>{point}</span>
                 </li>
               ))}

@@ -8,7 +8,12 @@ import {
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
-import { apiFieldErrors, errorSummary, zodFieldErrors, type FieldErrors } from '../../../lib/form-errors';
+import {
+  apiFieldErrors,
+  errorSummary,
+  zodFieldErrors,
+  type FieldErrors,
+} from '../../../lib/form-errors';
 import { formatDate, roleName } from '../../../lib/format';
 import { useAcceptInvitation } from '../api/invitation';
 

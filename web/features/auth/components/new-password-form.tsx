@@ -6,7 +6,12 @@ import { Alert } from '../../../components/ui/alert';
 import { Button, ButtonLink } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { apiFieldErrors, errorSummary, zodFieldErrors, type FieldErrors } from '../../../lib/form-errors';
+import {
+  apiFieldErrors,
+  errorSummary,
+  zodFieldErrors,
+  type FieldErrors,
+} from '../../../lib/form-errors';
 import { useCompletePasswordReset } from '../api/password-reset';
 
 export function NewPasswordForm({ token }: { token: string }) {
@@ -41,7 +46,8 @@ export function NewPasswordForm({ token }: { token: string }) {
     );
   }
 
-  const linkProblem = fieldErrors.token ?? (isApiError(complete.error, 400) && !complete.error.fields.password);
+  const linkProblem =
+    fieldErrors.token ?? (isApiError(complete.error, 400) && !complete.error.fields.password);
   return (
     <form onSubmit={submit} noValidate className="space-y-5">
       {linkProblem ? (

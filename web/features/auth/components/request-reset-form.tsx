@@ -26,8 +26,8 @@ export function RequestResetForm() {
   if (reset.isSuccess) {
     return (
       <Alert tone="success" title="Check your inbox">
-        If <strong>{email}</strong> has a Sheaf account, a link to set a new password is on its
-        way. The link works for a limited time; ask again if it runs out.
+        If <strong>{email}</strong> has a Sheaf account, a link to set a new password is on its way.
+        The link works for a limited time; ask again if it runs out.
       </Alert>
     );
   }

@@ -6,7 +6,12 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { apiFieldErrors, errorSummary, zodFieldErrors, type FieldErrors } from '../../../lib/form-errors';
+import {
+  apiFieldErrors,
+  errorSummary,
+  zodFieldErrors,
+  type FieldErrors,
+} from '../../../lib/form-errors';
 import { useLogin } from '../api/login';
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => void }) {
@@ -33,7 +38,10 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
   return (
     <form onSubmit={submit} noValidate className="space-y-5">
       {login.error ? (
-        <Alert tone="danger" title={wrongPassword ? 'Those details did not match' : 'Could not sign in'}>
+        <Alert
+          tone="danger"
+          title={wrongPassword ? 'Those details did not match' : 'Could not sign in'}
+        >
           {wrongPassword
             ? 'Check the e-mail address and password, or set a new password below.'
             : errorSummary(login.error)}

@@ -8,8 +8,8 @@ export function ReportList({ trials }: { trials: readonly TrialSummary[] }) {
   if (trials.length === 0) {
     return (
       <EmptyState title="No reports published yet">
-        Reports appear here once the coordinator publishes a trial’s results, usually before
-        the winter meeting.
+        Reports appear here once the coordinator publishes a trial’s results, usually before the
+        winter meeting.
       </EmptyState>
     );
   }

@@ -30,8 +30,8 @@ export function SiteCardList({ sites }: { sites: readonly SiteSummary[] }) {
   if (sites.length === 0) {
     return (
       <EmptyState title="No sites yet">
-        When your coordinator enrols one of your fields in a trial, it shows up here with its
-        strip map and seed weights.
+        When your coordinator enrols one of your fields in a trial, it shows up here with its strip
+        map and seed weights.
       </EmptyState>
     );
   }

@@ -6,7 +6,11 @@ import { LinkCard } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { cropName, plural, trialStatusName } from '../../../lib/format';
 
-const STATUS_TONE: Record<TrialStatus, BadgeTone> = { draft: 'straw', active: 'field', closed: 'neutral' };
+const STATUS_TONE: Record<TrialStatus, BadgeTone> = {
+  draft: 'straw',
+  active: 'field',
+  closed: 'neutral',
+};
 const STATUS_ORDER: Record<TrialStatus, number> = { active: 0, draft: 1, closed: 2 };
 
 export function TrialCardList({ trials }: { trials: readonly TrialSummary[] }) {
@@ -16,8 +20,8 @@ export function TrialCardList({ trials }: { trials: readonly TrialSummary[] }) {
         title="No trials yet"
         action={<ButtonLink to="/trials/new">Design a trial</ButtonLink>}
       >
-        Start with the crop and its usual seeding rate; Sheaf sets up quarter, half, full and
-        double rate strips for you to adjust.
+        Start with the crop and its usual seeding rate; Sheaf sets up quarter, half, full and double
+        rate strips for you to adjust.
       </EmptyState>
     );
   }
