@@ -9,6 +9,7 @@ import type { AppConfig } from './config/env';
 import { createAdminRouter } from './admin/admin.router';
 import { createAuthRouter } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
+import { createCalcRouter } from './calc/calc.router';
 import { createHealthRouter } from './health/health.router';
 import { createHomeRouter } from './home/home.router';
 import { createInvitationsRouter } from './invitations/invitations.router';
@@ -21,6 +22,8 @@ import { createPolicies } from './middleware/access';
 import { requireCsrf } from './middleware/csrf';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
+import { createSitesRouter } from './sites/sites.router';
+import { createTrialsRouter } from './trials/trials.router';
 
 export interface AppDeps {
   config: AppConfig;
@@ -32,7 +35,11 @@ export interface AppDeps {
 }
 
 /** Feature routers, mounted under /api in this order. */
-const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [];
+const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
+  createTrialsRouter,
+  createSitesRouter,
+  createCalcRouter,
+];
 
 export function createApp(deps: AppDeps): Express {
   const { config, dataSource } = deps;
@@ -80,7 +87,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', requireCsrf);
 
   app.use('/api/auth', createAuthRouter({ auth, policies, table, loginLimit: config.RATE_LIMIT_LOGIN }));
-  app.use('/api', createInvitationsRouter(ctx));
+  app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_LOGIN * 5 }));
   app.use('/api', createHomeRouter(ctx));
   app.use('/api/admin', createAdminRouter({ mailCatcher: deps.mailCatcher, production: config.NODE_ENV === 'production', policies, table }));
   for (const build of FEATURE_ROUTERS) app.use('/api', build(ctx));

@@ -1,5 +1,7 @@
 // Invitation routes: create (coordinators), preview and accept (the invited person).
 import { Router } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { AppError } from '../errors';
 import { z } from 'zod';
 import { InvitationAcceptSchema, InvitationCreateSchema } from '../../shared/schemas/auth';
 import type { AuthService } from '../auth/auth.service';
@@ -8,12 +10,23 @@ import type { Policies } from '../middleware/access';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 import type { InvitationsService } from './invitations.service';
 
-export function createInvitationsRouter(deps: { invitations: InvitationsService; auth: AuthService; policies: Policies; table: RouteEntry[] }) {
+export function createInvitationsRouter(deps: { invitations: InvitationsService; auth: AuthService; policies: Policies; table: RouteEntry[]; inviteLimit: number }) {
   const router = Router();
   const routes = secureRouter(router, deps.table, '/api');
   const { invitations, auth, policies } = deps;
+  const limit = (max: number, message: string, key?: (req: import('express').Request) => string) =>
+    rateLimit({
+      windowMs: 60 * 60 * 1000,
+      limit: max,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      ...(key ? { keyGenerator: key } : {}),
+      handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', message)),
+    });
+  const invitePerUser = limit(deps.inviteLimit, 'Too many invitations sent in the last hour; try again later', (req) => `user:${req.user?.id ?? 'anonymous'}`);
+  const acceptPerIp = limit(deps.inviteLimit, 'Too many attempts; wait a while and try again');
 
-  routes.post('/networks/:networkId/invitations', policies.networkCoordinator(), async (req, res) => {
+  routes.post('/networks/:networkId/invitations', policies.networkCoordinator(), invitePerUser, async (req, res) => {
     const input = InvitationCreateSchema.parse(req.body);
     const networkId = String(req.params.networkId);
     const inviterRole = req.access!.roles.get(networkId)!;
@@ -26,7 +39,7 @@ export function createInvitationsRouter(deps: { invitations: InvitationsService;
     res.json(await invitations.preview(token));
   });
 
-  routes.post('/invitations/accept', policies.public, async (req, res) => {
+  routes.post('/invitations/accept', policies.public, acceptPerIp, async (req, res) => {
     const input = InvitationAcceptSchema.parse(req.body);
     const userId = await invitations.accept(input);
     const user = await auth.findSessionUser(userId);

@@ -58,3 +58,24 @@ describe('invitations', () => {
     expect(res.status).toBe(404);
   });
 });
+
+describe('invitation rate limit', () => {
+  let t: TestApp;
+  let net: BuiltNetwork;
+  beforeAll(async () => {
+    // RATE_LIMIT_LOGIN 1 → five invitations an hour per coordinator.
+    t = await createTestApp({ RATE_LIMIT_LOGIN: '1' });
+    net = await buildNetwork(t.dataSource, 'Invite limit');
+  });
+  afterAll(() => t.close());
+
+  it('answers 429 once a coordinator sends too many invitations in an hour', async () => {
+    const coordinator = await signIn(t.app, net.emails.coordinator);
+    const statuses: number[] = [];
+    for (let i = 0; i < 6; i += 1) {
+      const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, { email: `bulk${i}-${net.suffix}@test.example`, role: 'member' });
+      statuses.push(res.status);
+    }
+    expect(statuses).toEqual([201, 201, 201, 201, 201, 429]);
+  });
+});
