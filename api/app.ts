@@ -11,6 +11,11 @@ import { createAuthRouter } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
 import { createCalcRouter } from './calc/calc.router';
 import { createHealthRouter } from './health/health.router';
+import { createImportsRouter } from './imports/imports.router';
+import { createPhotosRouter } from './photos/photos.router';
+import { createProgressRouter } from './progress/progress.router';
+import { createSiteDataRouter } from './site-data/site-data.router';
+import { createStripsRouter } from './strips/strips.router';
 import { createHomeRouter } from './home/home.router';
 import { createInvitationsRouter } from './invitations/invitations.router';
 import { createInvitationsService } from './invitations/invitations.service';
@@ -22,6 +27,7 @@ import { createPolicies } from './middleware/access';
 import { requireCsrf } from './middleware/csrf';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
+import { createReportsRouter } from './reports/reports.router';
 import { createSitesRouter } from './sites/sites.router';
 import { createTrialsRouter } from './trials/trials.router';
 
@@ -39,6 +45,12 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createTrialsRouter,
   createSitesRouter,
   createCalcRouter,
+  createReportsRouter,
+  createStripsRouter,
+  createImportsRouter,
+  createPhotosRouter,
+  createProgressRouter,
+  createSiteDataRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {

@@ -47,29 +47,46 @@ const rateLevelsSchema = z
     message: 'Each rate level needs a different multiplier',
   });
 
-/** Every field a coordinator fills in the wizard; a draft may leave most of them empty. */
-export const TrialDesignSchema = z.object({
+/** The design fields without defaults: PATCH must not fill in values the caller did not send. */
+const designFields = {
   name: z.string().trim().min(1, 'Name the trial').max(120),
-  question: z.string().trim().max(500).default(''),
+  question: z.string().trim().max(500),
   crop: CropKeySchema,
-  customCrop: CustomCropSchema.nullable().default(null),
+  customCrop: CustomCropSchema.nullable(),
   season: z.string().trim().min(4, 'Give the season, e.g. 2027').max(20),
-  unitSystem: UnitSystemSchema.default('imperial'),
+  unitSystem: UnitSystemSchema,
   referenceRate: z.number().positive('Must be above 0').max(100000),
   referenceUnit: RateUnitSchema,
-  rateLevels: rateLevelsSchema.default(DEFAULT_RATE_LEVELS),
-  blocksPerSite: z.number().int().min(2, 'Use at least 2 blocks').max(12, 'At most 12 blocks'),
-  rowsPerStrip: z.number().int().min(1, 'At least 1 row').max(48, 'At most 48 rows'),
+  rateLevels: rateLevelsSchema,
+  blocksPerSite: z.number().int('Use a whole number').min(2, 'Use at least 2 blocks').max(12, 'At most 12 blocks'),
+  rowsPerStrip: z.number().int('Use a whole number').min(1, 'At least 1 row').max(48, 'At most 48 rows'),
   rowSpacingIn: z.number().positive('Must be above 0').max(40, 'At most 40 in'),
   stripLengthFt: z.number().positive('Must be above 0').max(5000, 'At most 5,000 ft'),
-  borderRows: z.number().int().min(0).max(12),
+  borderRows: z.number().int('Use a whole number').min(0, 'At least 0').max(12, 'At most 12'),
   thousandKernelWeightG: z.number().positive('Must be above 0').max(100, 'At most 100 g'),
   germinationPct: z.number().min(1, 'At least 1 %').max(100, 'At most 100 %'),
   emergencePct: z.number().min(1, 'At least 1 %').max(100, 'At most 100 %'),
-  seedPricePerLb: z.number().min(0).max(1000).default(0),
-  grainPricePerBu: z.number().min(0).max(1000).default(0),
+  seedPricePerLb: z.number().min(0, 'At least 0').max(1000),
+  grainPricePerBu: z.number().min(0, 'At least 0').max(1000),
+};
+
+/** Every field a coordinator fills in the wizard; a draft may leave most of them empty. */
+export const TrialDesignSchema = z.object({
+  ...designFields,
+  question: designFields.question.default(''),
+  customCrop: designFields.customCrop.default(null),
+  unitSystem: designFields.unitSystem.default('imperial'),
+  rateLevels: designFields.rateLevels.default(DEFAULT_RATE_LEVELS),
+  seedPricePerLb: designFields.seedPricePerLb.default(0),
+  grainPricePerBu: designFields.grainPricePerBu.default(0),
 });
 export type TrialDesign = z.infer<typeof TrialDesignSchema>;
+
+/** The full design a trial needs before it goes to the field (draft → active). */
+export const CompleteTrialDesignSchema = TrialDesignSchema.refine(
+  (t) => t.crop !== 'custom' || t.customCrop,
+  { message: 'A custom crop needs its kernel weight, bushel weight and moisture', path: ['customCrop'] },
+);
 
 export const CreateTrialInputSchema = TrialDesignSchema.partial()
   .extend({ name: z.string().trim().min(1, 'Name the trial').max(120), networkId: z.uuid() })
@@ -79,12 +96,13 @@ export const CreateTrialInputSchema = TrialDesignSchema.partial()
   });
 export type CreateTrialInput = z.infer<typeof CreateTrialInputSchema>;
 
-export const UpdateTrialInputSchema = TrialDesignSchema.partial().extend({
-  status: TrialStatusSchema.optional(),
-});
+export const UpdateTrialInputSchema = z
+  .object(designFields)
+  .partial()
+  .extend({ status: TrialStatusSchema.optional() });
 export type UpdateTrialInput = z.infer<typeof UpdateTrialInputSchema>;
 
-export const TrialSchema = TrialDesignSchema.partial().extend({
+export const TrialSchema = z.object(designFields).partial().extend({
   id: z.uuid(),
   networkId: z.uuid(),
   networkName: z.string(),
@@ -110,3 +128,32 @@ export const TrialSummarySchema = z.object({
   siteCount: z.number(),
 });
 export type TrialSummary = z.infer<typeof TrialSummarySchema>;
+
+/** A site as listed on its trial's page. */
+export const TrialSiteRowSchema = z.object({
+  id: z.uuid(),
+  fieldName: z.string(),
+  growerUserId: z.uuid().nullable(),
+  growerName: z.string().nullable(),
+  growerEmail: z.string().nullable(),
+  /** True while the grower has not accepted the invitation yet. */
+  invitationPending: z.boolean(),
+  randomized: z.boolean(),
+  randomizedAt: z.string().nullable(),
+  sowingDate: z.string().nullable(),
+  sowingRecorded: z.boolean(),
+  stripCount: z.number(),
+  publishedAt: z.string().nullable(),
+});
+export type TrialSiteRow = z.infer<typeof TrialSiteRowSchema>;
+
+/** GET /api/trials/:trialId: the design, its sites (as far as the reader may see them) and what the reader may do. */
+export const TrialDetailSchema = TrialSchema.extend({
+  sites: z.array(TrialSiteRowSchema),
+  /** The reader's role in the trial's network. */
+  viewerRole: z.enum(['admin', 'coordinator', 'grower', 'member']),
+  canEdit: z.boolean(),
+  /** Rate levels and blocks are fixed once any site is randomized. */
+  designLocked: z.boolean(),
+});
+export type TrialDetail = z.infer<typeof TrialDetailSchema>;

@@ -1,0 +1,45 @@
+// Builders for trial-design API tests: a complete design and an active trial with sites.
+import type { Client } from '../../helpers/app';
+
+export function completeDesign(overrides: Record<string, unknown> = {}) {
+  return {
+    name: 'Oat rate test',
+    question: 'Does half the usual rate yield as well?',
+    crop: 'oats',
+    season: '2027',
+    referenceRate: 96,
+    referenceUnit: 'lb/acre',
+    rateLevels: [
+      { multiplier: 0.25, label: 'quarter' },
+      { multiplier: 0.5, label: 'half' },
+      { multiplier: 1, label: 'full' },
+      { multiplier: 2, label: 'double' },
+    ],
+    blocksPerSite: 4,
+    rowsPerStrip: 6,
+    rowSpacingIn: 8,
+    stripLengthFt: 100,
+    borderRows: 1,
+    thousandKernelWeightG: 32,
+    germinationPct: 95,
+    emergencePct: 85,
+    seedPricePerLb: 0.4,
+    grainPricePerBu: 4.5,
+    ...overrides,
+  };
+}
+
+/** Creates a trial with the full design and makes it active; returns its id. */
+export async function buildActiveTrial(coordinator: Client, networkId: string, overrides: Record<string, unknown> = {}): Promise<string> {
+  const created = await coordinator.post('/api/trials', { networkId, ...completeDesign(overrides) });
+  if (created.status !== 201) throw new Error(`create trial: ${created.status} ${JSON.stringify(created.body)}`);
+  const activated = await coordinator.patch(`/api/trials/${created.body.id}`, { status: 'active' });
+  if (activated.status !== 200) throw new Error(`activate trial: ${activated.status} ${JSON.stringify(activated.body)}`);
+  return created.body.id as string;
+}
+
+export async function enrol(coordinator: Client, trialId: string, body: Record<string, unknown>): Promise<string> {
+  const res = await coordinator.post(`/api/trials/${trialId}/sites`, { fieldName: 'North strip field', ...body });
+  if (res.status !== 201) throw new Error(`enrol: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body.id as string;
+}
