@@ -213,3 +213,77 @@ export function plausibilityWarnings(
   }
   return warnings;
 }
+
+/** Unit labels for what a grower enters in a trial's unit system. */
+export interface EntryUnits {
+  length: string;
+  weight: string;
+  area: string;
+  testWeight: string;
+}
+
+export function entryUnits(system: UnitSystem): EntryUnits {
+  return system === 'metric'
+    ? { length: 'm', weight: 'kg', area: 'm²', testWeight: 'kg/hl' }
+    : { length: 'ft', weight: 'lb', area: 'ft²', testWeight: 'lb/bu' };
+}
+
+/** Which measurement groups of a strip are complete enough to use. */
+export function recordedGroups(obs: ObservationValues): {
+  stand: boolean;
+  tillers: boolean;
+  heads: boolean;
+  yield: boolean;
+} {
+  return {
+    stand: obs.standCounts.length > 0 && obs.standRowLength !== null,
+    tillers: obs.tillerPlants !== null && obs.tillerPlants > 0 && obs.tillerCount !== null,
+    heads: obs.headCounts.length > 0 && obs.headRowLength !== null,
+    yield:
+      obs.grainWeight !== null &&
+      obs.moisturePct !== null &&
+      (obs.harvestArea !== null || (obs.harvestRows !== null && obs.harvestLength !== null)),
+  };
+}
+
+/** One strip's yield for the outlier check; value null when not recorded. */
+export interface StripYield {
+  key: string;
+  block: number;
+  rate: string;
+  value: number | null;
+}
+
+/**
+ * Strips whose yield is an outlier in their site: |externally studentized residual| > 3 from
+ * the RCBD fit of the analysis engine (`analyzeSite`). Returns an empty map when the site
+ * cannot be analysed yet (too few strips with a yield, a rate without data, no error df).
+ */
+export function yieldOutliers(
+  strips: readonly StripYield[],
+  analyze: (
+    rows: { block: string; rate: string; value: number | null }[],
+  ) => { residuals: { block: string; rate: string; studentized: number | null }[] },
+): Map<string, number> {
+  const found = new Map<string, number>();
+  if (strips.filter((s) => s.value !== null).length < 4) return found;
+  let residuals: { block: string; rate: string; studentized: number | null }[];
+  try {
+    residuals = analyze(
+      strips.map((s) => ({ block: String(s.block), rate: s.rate, value: s.value })),
+    ).residuals;
+  } catch {
+    return found;
+  }
+  for (const residual of residuals) {
+    if (residual.studentized === null || Math.abs(residual.studentized) <= 3) continue;
+    const strip = strips.find((s) => String(s.block) === residual.block && s.rate === residual.rate);
+    if (strip) found.set(strip.key, residual.studentized);
+  }
+  return found;
+}
+
+/** The warning text for a yield outlier. */
+export function outlierWarning(studentized: number): string {
+  return `This strip's yield stands out from the rest of the site (studentized residual ${studentized.toFixed(1)}): check the weight, moisture and harvested area.`;
+}

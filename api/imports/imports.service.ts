@@ -1,0 +1,78 @@
+// CSV import of a site's strip values: all rows checked first, then written in one transaction;
+// a file whose values are already stored changes nothing.
+import type { DataSource } from 'typeorm';
+import { buildImportTemplate } from '../../shared/import/build-template';
+import { parseImportCsv } from '../../shared/import/parse-import';
+import type { ImportResult } from '../../shared/schemas/import';
+import { ObservationValuesSchema } from '../../shared/schemas/observation';
+import { recordAudit } from '../audit/audit.service';
+import { AppError, InvalidRows } from '../errors';
+import { bumpDataVersion, changedFields, loadSite, loadSiteStrips, lockSiteForChange, writeObservation } from '../lib/strip-data';
+
+/** Reads an uploaded file as CSV text, refusing anything that is not text by its content. */
+export async function csvText(buffer: Buffer, declaredType: string): Promise<string> {
+  const { fileTypeFromBuffer } = await import('file-type');
+  const detected = await fileTypeFromBuffer(buffer);
+  if (detected) {
+    throw new AppError(415, 'unsupported_media_type', `This file is ${detected.ext.toUpperCase()} (${detected.mime}), not CSV. In your spreadsheet use "Save as" → CSV.`);
+  }
+  if (/^(image|video|audio)\//.test(declaredType) || buffer.includes(0)) {
+    throw new AppError(415, 'unsupported_media_type', 'This file is not CSV text. In your spreadsheet use "Save as" → CSV.');
+  }
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(buffer);
+  } catch {
+    // Older spreadsheet programs save CSV in the Windows Western encoding.
+    return new TextDecoder('windows-1252').decode(buffer);
+  }
+}
+
+export function createImportsService(deps: { dataSource: DataSource }) {
+  const { dataSource } = deps;
+  return {
+    async template(siteId: string): Promise<{ fileName: string; csv: string }> {
+      const site = await loadSite(dataSource.manager, siteId);
+      const strips = await loadSiteStrips(dataSource.manager, siteId);
+      const slug = site.fieldName.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'site';
+      return {
+        fileName: `sheaf-${slug}-strips.csv`,
+        csv: buildImportTemplate({ unitSystem: site.unitSystem, fieldName: site.fieldName, strips }),
+      };
+    },
+
+    async importCsv(siteId: string, text: string, actorUserId: string): Promise<ImportResult> {
+      return dataSource.transaction(async (manager) => {
+        const site = await lockSiteForChange(manager, siteId);
+        const strips = await loadSiteStrips(manager, siteId, { lock: true });
+        const parsed = parseImportCsv(text, { unitSystem: site.unitSystem, fieldName: site.fieldName, strips });
+        const byKey = new Map(strips.map((s) => [`${s.block}:${s.position}`, s]));
+        const planned = [];
+        const errors = [...parsed.errors];
+        for (const row of parsed.rows) {
+          const strip = byKey.get(`${row.block}:${row.position}`)!;
+          const merged = ObservationValuesSchema.safeParse({ ...strip.values, ...row.patch });
+          if (!merged.success) {
+            errors.push({ row: row.row, column: String(merged.error.issues[0]?.path[0] ?? ''), message: merged.error.issues[0]?.message ?? 'Invalid value' });
+            continue;
+          }
+          planned.push({ strip, values: merged.data });
+        }
+        if (errors.length > 0) {
+          errors.sort((a, b) => a.row - b.row);
+          throw new InvalidRows(`${errors.length === 1 ? 'One problem' : `${errors.length} problems`} in the file; nothing was saved. Fix ${errors.length === 1 ? 'it' : 'them'} and upload again.`, errors);
+        }
+        let changed = 0;
+        for (const { strip, values } of planned) {
+          const diff = changedFields(strip.values, values);
+          if (!diff) continue;
+          await manager.query('UPDATE strips SET version = version + 1 WHERE id = $1', [strip.stripId]);
+          await writeObservation(manager, strip.stripId, values, actorUserId);
+          await recordAudit(manager, { actorUserId, entityType: 'strip', entityId: strip.stripId, siteId, action: 'import', before: diff.before, after: diff.after });
+          changed += 1;
+        }
+        const dataVersion = changed > 0 ? await bumpDataVersion(manager, siteId) : site.dataVersion;
+        return { rows: parsed.rows.length, changedStrips: changed, unchangedStrips: parsed.rows.length - changed, dataVersion };
+      });
+    },
+  };
+}

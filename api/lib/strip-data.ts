@@ -1,0 +1,242 @@
+// Reading and writing strip observations inside a transaction, shared by the strip form, the
+// CSV import and site data: site context, row mapping, the publish lock and data_version bumps.
+import type { EntityManager } from 'typeorm';
+import { EMPTY_OBSERVATION, type ObservationValues } from '../../shared/schemas/observation';
+import type { SiteDates } from '../../shared/schemas/strip';
+import type { CropKey, CustomCrop, RateUnit, UnitSystem } from '../../shared/schemas/trial';
+import { Locked, NotFound } from '../errors';
+
+export interface SiteRecord extends SiteDates {
+  siteId: string;
+  trialId: string;
+  networkId: string;
+  trialName: string;
+  fieldName: string;
+  notes: string;
+  growerUserId: string | null;
+  growerName: string | null;
+  growerEmail: string | null;
+  unitSystem: UnitSystem;
+  crop: CropKey | null;
+  customCrop: CustomCrop | null;
+  blocksPerSite: number | null;
+  rowsPerStrip: number | null;
+  rowSpacingIn: number | null;
+  stripLengthFt: number | null;
+  thousandKernelWeightG: number | null;
+  referenceRate: number | null;
+  referenceUnit: RateUnit | null;
+  seedPricePerLb: number | null;
+  grainPricePerBu: number | null;
+  publishedAt: string | null;
+  dataVersion: number;
+  rateLevels: { id: string; multiplier: number; label: string }[];
+}
+
+export interface StripRecord {
+  stripId: string;
+  siteId: string;
+  block: number;
+  position: number;
+  rateLevelId: string;
+  rate: number;
+  label: string;
+  version: number;
+  values: ObservationValues;
+  /** False when the strip has no observations row yet. */
+  hasObservation: boolean;
+  updatedAt: string | null;
+}
+
+const num = (value: unknown): number | null => (value === null || value === undefined ? null : Number(value));
+const iso = (value: unknown): string | null => (value instanceof Date ? value.toISOString() : value === null || value === undefined ? null : String(value));
+
+/** The site with its trial's layout and rate levels; `lock` takes the row lock writers need. */
+export async function loadSite(manager: EntityManager, siteId: string, options: { lock?: boolean } = {}): Promise<SiteRecord> {
+  if (options.lock) await manager.query('SELECT 1 FROM sites WHERE id = $1 FOR UPDATE', [siteId]);
+  const rows = await manager.query(
+    `SELECT s.id, s.trial_id, t.network_id, t.name AS trial_name, s.field_name, s.notes, s.grower_user_id,
+            u.name AS grower_name, COALESCE(u.email, s.grower_email) AS grower_email,
+            t.unit_system, t.crop, t.custom_crop, t.blocks_per_site, t.rows_per_strip, t.row_spacing_in,
+            t.strip_length_ft, t.thousand_kernel_weight_g, t.reference_rate, t.reference_unit,
+            t.seed_price_per_lb, t.grain_price_per_bu, s.published_at, s.data_version,
+            s.sowing_date::text AS sowing_date, s.emergence_date::text AS emergence_date,
+            s.heading_date::text AS heading_date, s.harvest_date::text AS harvest_date
+       FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id
+      WHERE s.id = $1`,
+    [siteId],
+  );
+  const row = rows[0];
+  if (!row) throw new NotFound('Site');
+  const levels: { id: string; multiplier: string; label: string }[] = await manager.query(
+    'SELECT id, multiplier, label FROM rate_levels WHERE trial_id = $1 ORDER BY multiplier',
+    [row.trial_id],
+  );
+  return {
+    siteId: row.id,
+    trialId: row.trial_id,
+    networkId: row.network_id,
+    trialName: row.trial_name,
+    fieldName: row.field_name,
+    notes: row.notes,
+    growerUserId: row.grower_user_id,
+    growerName: row.grower_name,
+    growerEmail: row.grower_email,
+    unitSystem: row.unit_system,
+    crop: row.crop,
+    customCrop: row.custom_crop,
+    blocksPerSite: num(row.blocks_per_site),
+    rowsPerStrip: num(row.rows_per_strip),
+    rowSpacingIn: num(row.row_spacing_in),
+    stripLengthFt: num(row.strip_length_ft),
+    thousandKernelWeightG: num(row.thousand_kernel_weight_g),
+    referenceRate: num(row.reference_rate),
+    referenceUnit: row.reference_unit,
+    seedPricePerLb: num(row.seed_price_per_lb),
+    grainPricePerBu: num(row.grain_price_per_bu),
+    publishedAt: iso(row.published_at),
+    dataVersion: Number(row.data_version),
+    sowingDate: row.sowing_date,
+    emergenceDate: row.emergence_date,
+    headingDate: row.heading_date,
+    harvestDate: row.harvest_date,
+    rateLevels: levels.map((l) => ({ id: l.id, multiplier: Number(l.multiplier), label: l.label })),
+  };
+}
+
+/** Locks the site row for a data change and refuses when its report is published. */
+export async function lockSiteForChange(manager: EntityManager, siteId: string): Promise<SiteRecord> {
+  const site = await loadSite(manager, siteId, { lock: true });
+  if (site.publishedAt) {
+    throw new Locked('The report for this site is published, so its data is read-only. Ask the coordinator to unpublish it to make changes.');
+  }
+  return site;
+}
+
+/** Reports compare data_version with their snapshot: bump it on every change to site data. */
+export async function bumpDataVersion(manager: EntityManager, siteId: string): Promise<number> {
+  const [row] = await manager.query('UPDATE sites SET data_version = data_version + 1, updated_at = now() WHERE id = $1 RETURNING data_version', [siteId]);
+  return Number(row.data_version);
+}
+
+const STRIP_SELECT = `
+  SELECT st.id, st.site_id, st.block, st.position, st.rate_level_id, st.version, rl.multiplier, rl.label,
+         o.strip_id AS obs_id, o.seeds_sown, o.stand_counts, o.stand_row_length, o.tiller_plants, o.tiller_count,
+         o.head_counts, o.head_row_length, o.grain_weight, o.harvest_rows, o.harvest_length, o.harvest_area,
+         o.moisture_pct, o.test_weight, o.sowing_date::text AS sowing_date, o.emergence_date::text AS emergence_date,
+         o.heading_date::text AS heading_date, o.harvest_date::text AS harvest_date, o.notes, o.updated_at
+    FROM strips st JOIN rate_levels rl ON rl.id = st.rate_level_id
+    LEFT JOIN observations o ON o.strip_id = st.id`;
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+function toStripRecord(row: any): StripRecord {
+  const values: ObservationValues = row.obs_id
+    ? {
+        seedsSown: num(row.seeds_sown),
+        standCounts: (row.stand_counts ?? []).map(Number),
+        standRowLength: num(row.stand_row_length),
+        tillerPlants: num(row.tiller_plants),
+        tillerCount: num(row.tiller_count),
+        headCounts: (row.head_counts ?? []).map(Number),
+        headRowLength: num(row.head_row_length),
+        grainWeight: num(row.grain_weight),
+        harvestRows: num(row.harvest_rows),
+        harvestLength: num(row.harvest_length),
+        harvestArea: num(row.harvest_area),
+        moisturePct: num(row.moisture_pct),
+        testWeight: num(row.test_weight),
+        sowingDate: row.sowing_date,
+        emergenceDate: row.emergence_date,
+        headingDate: row.heading_date,
+        harvestDate: row.harvest_date,
+        notes: row.notes ?? '',
+      }
+    : { ...EMPTY_OBSERVATION, standCounts: [], headCounts: [] };
+  return {
+    stripId: row.id,
+    siteId: row.site_id,
+    block: Number(row.block),
+    position: Number(row.position),
+    rateLevelId: row.rate_level_id,
+    rate: Number(row.multiplier),
+    label: row.label,
+    version: Number(row.version),
+    values,
+    hasObservation: Boolean(row.obs_id),
+    updatedAt: iso(row.updated_at),
+  };
+}
+
+export async function loadSiteStrips(manager: EntityManager, siteId: string, options: { lock?: boolean } = {}): Promise<StripRecord[]> {
+  const rows = await manager.query(
+    `${STRIP_SELECT} WHERE st.site_id = $1 ORDER BY st.block, st.position${options.lock ? ' FOR UPDATE OF st' : ''}`,
+    [siteId],
+  );
+  return rows.map(toStripRecord);
+}
+
+export async function loadStrip(manager: EntityManager, stripId: string, options: { lock?: boolean } = {}): Promise<StripRecord> {
+  const rows = await manager.query(`${STRIP_SELECT} WHERE st.id = $1${options.lock ? ' FOR UPDATE OF st' : ''}`, [stripId]);
+  if (!rows[0]) throw new NotFound('Strip');
+  return toStripRecord(rows[0]);
+}
+
+const sameValue = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+
+/** The fields whose values differ, with their old and new values (for the audit trail). */
+export function changedFields(before: ObservationValues, after: ObservationValues): { before: Record<string, unknown>; after: Record<string, unknown> } | null {
+  const old: Record<string, unknown> = {};
+  const now: Record<string, unknown> = {};
+  for (const key of Object.keys(after) as (keyof ObservationValues)[]) {
+    if (!sameValue(before[key], after[key])) {
+      old[key] = before[key];
+      now[key] = after[key];
+    }
+  }
+  return Object.keys(now).length === 0 ? null : { before: old, after: now };
+}
+
+/** Whether every field of a partial update already holds the given value. */
+export function patchAlreadyApplied(current: ObservationValues, patch: Partial<ObservationValues>): boolean {
+  return (Object.keys(patch) as (keyof ObservationValues)[]).every((key) => sameValue(current[key], patch[key]));
+}
+
+/** Inserts or replaces the observations row of a strip. */
+export async function writeObservation(manager: EntityManager, stripId: string, values: ObservationValues, actorUserId: string | null): Promise<void> {
+  await manager.query(
+    `INSERT INTO observations (strip_id, seeds_sown, stand_counts, stand_row_length, tiller_plants, tiller_count,
+        head_counts, head_row_length, grain_weight, harvest_rows, harvest_length, harvest_area, moisture_pct,
+        test_weight, sowing_date, emergence_date, heading_date, harvest_date, notes, updated_by, updated_at)
+     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16, $17, $18, $19, $20, now())
+     ON CONFLICT (strip_id) DO UPDATE SET
+        seeds_sown = EXCLUDED.seeds_sown, stand_counts = EXCLUDED.stand_counts, stand_row_length = EXCLUDED.stand_row_length,
+        tiller_plants = EXCLUDED.tiller_plants, tiller_count = EXCLUDED.tiller_count, head_counts = EXCLUDED.head_counts,
+        head_row_length = EXCLUDED.head_row_length, grain_weight = EXCLUDED.grain_weight, harvest_rows = EXCLUDED.harvest_rows,
+        harvest_length = EXCLUDED.harvest_length, harvest_area = EXCLUDED.harvest_area, moisture_pct = EXCLUDED.moisture_pct,
+        test_weight = EXCLUDED.test_weight, sowing_date = EXCLUDED.sowing_date, emergence_date = EXCLUDED.emergence_date,
+        heading_date = EXCLUDED.heading_date, harvest_date = EXCLUDED.harvest_date, notes = EXCLUDED.notes,
+        updated_by = EXCLUDED.updated_by, updated_at = now()`,
+    [
+      stripId,
+      values.seedsSown,
+      JSON.stringify(values.standCounts),
+      values.standRowLength,
+      values.tillerPlants,
+      values.tillerCount,
+      JSON.stringify(values.headCounts),
+      values.headRowLength,
+      values.grainWeight,
+      values.harvestRows,
+      values.harvestLength,
+      values.harvestArea,
+      values.moisturePct,
+      values.testWeight,
+      values.sowingDate,
+      values.emergenceDate,
+      values.headingDate,
+      values.harvestDate,
+      values.notes,
+      actorUserId,
+    ],
+  );
+}
