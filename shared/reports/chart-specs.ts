@@ -1,0 +1,402 @@
+// Vega-Lite specs for the report charts, as pure functions of report data so they can be
+// tested and rendered the same way in the browser and in the server's PDF.
+
+/** A Vega-Lite top-level spec (kept as plain JSON so shared/ needs no charting import). */
+export type ChartSpec = Record<string, unknown>;
+
+export interface ChartTheme {
+  font: string;
+  ink: string;
+  muted: string;
+  line: string;
+  accent: string;
+  highlight: string;
+  background: string;
+  /** Sequential colour scheme for yield maps. */
+  scheme: string;
+}
+
+export const LIGHT_CHART_THEME: ChartTheme = {
+  font: 'Inter Variable, Inter, system-ui, sans-serif',
+  ink: '#26201b',
+  muted: '#6a5a49',
+  line: '#e2dacf',
+  accent: '#1d4f2e',
+  highlight: '#bf8c2c',
+  background: '#ffffff',
+  scheme: 'yellowgreen',
+};
+
+export const DARK_CHART_THEME: ChartTheme = {
+  font: 'Inter Variable, Inter, system-ui, sans-serif',
+  ink: '#fbf6e9',
+  muted: '#c9bcab',
+  line: '#2b4a35',
+  accent: '#e4c06a',
+  highlight: '#74b487',
+  background: '#10301c',
+  scheme: 'yellowgreen',
+};
+
+/** Shared config: the app's font and colours, quiet grid lines, readable label sizes. */
+export function chartConfig(theme: ChartTheme, scale = 1): Record<string, unknown> {
+  return {
+    font: theme.font,
+    background: theme.background,
+    view: { stroke: null },
+    axis: {
+      labelColor: theme.muted,
+      titleColor: theme.ink,
+      gridColor: theme.line,
+      domainColor: theme.muted,
+      tickColor: theme.muted,
+      labelFontSize: 12 * scale,
+      titleFontSize: 13 * scale,
+      titleFontWeight: 600,
+    },
+    legend: { labelColor: theme.ink, titleColor: theme.ink, labelFontSize: 12 * scale, titleFontSize: 12 * scale },
+    title: { color: theme.ink, fontSize: 15 * scale, anchor: 'start' },
+    text: { color: theme.ink },
+  };
+}
+
+interface BaseOptions {
+  theme?: ChartTheme;
+  /** Type scale for projectors (1 = page). */
+  scale?: number;
+  title?: string;
+}
+
+const sorted = <T extends { order: number }>(items: readonly T[]) => [...items].sort((a, b) => a.order - b.order);
+
+/**
+ * Rate means with their 95 % confidence intervals, the individual strips as open points
+ * beside them.
+ *
+ * @param input - means (label, mean, CI) in rate order, strips (label, yield) and the yield unit
+ * @returns a layered Vega-Lite spec
+ */
+export function rateMeansSpec(
+  input: {
+    means: readonly { label: string; mean: number; ciLow: number; ciHigh: number }[];
+    strips: readonly { label: string; yield: number | null; block: number }[];
+    yieldUnit: string;
+  },
+  options: BaseOptions = {},
+): ChartSpec {
+  const theme = options.theme ?? LIGHT_CHART_THEME;
+  const order = input.means.map((m) => m.label);
+  const x = { field: 'label', type: 'nominal', title: 'Seeding rate', sort: order, axis: { labelAngle: 0 } };
+  const y = { type: 'quantitative', title: `Yield (${input.yieldUnit})`, scale: { zero: false } };
+  return {
+    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    ...(options.title ? { title: options.title } : {}),
+    width: 'container',
+    height: 260 * (options.scale ?? 1),
+    autosize: { type: 'fit-x', contains: 'padding' },
+    config: chartConfig(theme, options.scale),
+    layer: [
+      {
+        data: { values: input.strips.filter((s) => s.yield !== null).map((s) => ({ label: s.label, yield: s.yield, block: s.block })) },
+        mark: { type: 'point', filled: false, size: 50 * (options.scale ?? 1), color: theme.muted, opacity: 0.9, xOffset: 14 },
+        encoding: {
+          x,
+          y: { ...y, field: 'yield' },
+          tooltip: [
+            { field: 'label', title: 'Rate' },
+            { field: 'block', title: 'Block' },
+            { field: 'yield', title: 'Strip yield', format: '.1f' },
+          ],
+        },
+      },
+      {
+        data: { values: input.means.map((m) => ({ ...m })) },
+        layer: [
+          {
+            mark: { type: 'rule', color: theme.accent, strokeWidth: 2.5 * (options.scale ?? 1) },
+            encoding: { x, y: { ...y, field: 'ciLow' }, y2: { field: 'ciHigh' } },
+          },
+          {
+            mark: { type: 'point', filled: true, size: 110 * (options.scale ?? 1), color: theme.accent, opacity: 1 },
+            encoding: {
+              x,
+              y: { ...y, field: 'mean' },
+              tooltip: [
+                { field: 'label', title: 'Rate' },
+                { field: 'mean', title: 'Mean', format: '.1f' },
+                { field: 'ciLow', title: '95 % CI low', format: '.1f' },
+                { field: 'ciHigh', title: '95 % CI high', format: '.1f' },
+              ],
+            },
+          },
+        ],
+      },
+    ],
+  };
+}
+
+/**
+ * Yield components by rate: plants/ft², tillers/plant and heads/ft², one small panel each.
+ */
+export function componentsSpec(
+  input: {
+    rows: readonly {
+      label: string;
+      plantsPerSquareFoot: number | null;
+      tillersPerPlant: number | null;
+      headsPerSquareFoot: number | null;
+    }[];
+  },
+  options: BaseOptions = {},
+): ChartSpec {
+  const theme = options.theme ?? LIGHT_CHART_THEME;
+  const order = input.rows.map((r) => r.label);
+  const measures = [
+    { key: 'plantsPerSquareFoot', title: 'Plants per ft²' },
+    { key: 'tillersPerPlant', title: 'Tillers per plant' },
+    { key: 'headsPerSquareFoot', title: 'Heads per ft²' },
+  ] as const;
+  const values = input.rows.flatMap((row) =>
+    measures
+      .filter((m) => row[m.key] !== null)
+      .map((m) => ({ label: row.label, measure: m.title, value: row[m.key] })),
+  );
+  return {
+    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    ...(options.title ? { title: options.title } : {}),
+    config: chartConfig(theme, options.scale),
+    data: { values },
+    columns: 3,
+    facet: { field: 'measure', type: 'nominal', title: null, sort: measures.map((m) => m.title), header: { labelColor: theme.ink, labelFontSize: 12 * (options.scale ?? 1), labelFontWeight: 600 } },
+    spec: {
+      width: 140 * (options.scale ?? 1),
+      height: 150 * (options.scale ?? 1),
+      mark: { type: 'bar', color: theme.highlight, cornerRadiusEnd: 2 },
+      encoding: {
+        x: { field: 'label', type: 'nominal', sort: order, title: null, axis: { labelAngle: 0 } },
+        y: { field: 'value', type: 'quantitative', title: null },
+        tooltip: [
+          { field: 'measure', title: 'Measure' },
+          { field: 'label', title: 'Rate' },
+          { field: 'value', title: 'Mean', format: '.2f' },
+        ],
+      },
+    },
+    resolve: { scale: { y: 'independent' } },
+  };
+}
+
+/**
+ * The strip map: blocks down, positions across, each strip coloured by its yield and
+ * labelled with its rate, so a grower can see a wet corner or a weak block at a glance.
+ */
+export function stripMapSpec(
+  input: {
+    strips: readonly { block: number; position: number; label: string; yield: number | null }[];
+    yieldUnit: string;
+  },
+  options: BaseOptions = {},
+): ChartSpec {
+  const theme = options.theme ?? LIGHT_CHART_THEME;
+  const values = input.strips.map((s) => ({
+    block: `Block ${s.block}`,
+    blockNumber: s.block,
+    position: s.position,
+    label: s.label,
+    yield: s.yield,
+    text: s.yield === null ? `${s.label}\nno yield` : s.label,
+  }));
+  const blocks = [...new Set(values.map((v) => v.blockNumber))].sort((a, b) => a - b).map((b) => `Block ${b}`);
+  return {
+    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    ...(options.title ? { title: options.title } : {}),
+    width: 'container',
+    height: Math.max(1, blocks.length) * 44 * (options.scale ?? 1),
+    autosize: { type: 'fit-x', contains: 'padding' },
+    config: chartConfig(theme, options.scale),
+    data: { values },
+    encoding: {
+      x: { field: 'position', type: 'ordinal', title: 'Strip position in the block', axis: { labelAngle: 0 } },
+      y: { field: 'block', type: 'ordinal', title: null, sort: blocks },
+    },
+    layer: [
+      {
+        mark: { type: 'rect', stroke: theme.background, strokeWidth: 2, cornerRadius: 3 },
+        encoding: {
+          color: {
+            field: 'yield',
+            type: 'quantitative',
+            title: input.yieldUnit,
+            scale: { scheme: theme.scheme },
+            legend: { orient: 'bottom', gradientLength: 160 },
+          },
+          tooltip: [
+            { field: 'block', title: 'Block' },
+            { field: 'position', title: 'Position' },
+            { field: 'label', title: 'Rate' },
+            { field: 'yield', title: `Yield (${input.yieldUnit})`, format: '.1f' },
+          ],
+        },
+      },
+      {
+        mark: { type: 'text', fontSize: 11 * (options.scale ?? 1), fontWeight: 600, color: '#26201b' },
+        encoding: { text: { field: 'label' } },
+      },
+    ],
+  };
+}
+
+/**
+ * Forest plot: each site's difference from the reference rate with its 95 % CI, the pooled
+ * difference as a diamond at the bottom and a line at zero.
+ */
+export function forestSpec(
+  input: {
+    rateLabel: string;
+    referenceLabel: string;
+    yieldUnit: string;
+    sites: readonly { site: string; diff: number; ciLow: number; ciHigh: number }[];
+    pooled?: { diff: number; ciLow: number; ciHigh: number } | null;
+  },
+  options: BaseOptions = {},
+): ChartSpec {
+  const theme = options.theme ?? LIGHT_CHART_THEME;
+  const pooledName = 'All sites (pooled)';
+  const rows = [
+    ...input.sites.map((s, i) => ({ ...s, kind: 'site', order: i })),
+    ...(input.pooled ? [{ site: pooledName, ...input.pooled, kind: 'pooled', order: input.sites.length }] : []),
+  ];
+  const order = sorted(rows).map((r) => r.site);
+  const y = { field: 'site', type: 'nominal', title: null, sort: order };
+  const x = { type: 'quantitative', title: `${input.rateLabel} minus ${input.referenceLabel} (${input.yieldUnit})` };
+  return {
+    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    ...(options.title ? { title: options.title } : {}),
+    width: 'container',
+    height: Math.max(2, rows.length) * 26 * (options.scale ?? 1),
+    autosize: { type: 'fit-x', contains: 'padding' },
+    config: chartConfig(theme, options.scale),
+    layer: [
+      {
+        data: { values: [{ zero: 0 }] },
+        mark: { type: 'rule', color: theme.muted, strokeDash: [4, 4] },
+        encoding: { x: { ...x, field: 'zero' } },
+      },
+      {
+        data: { values: rows },
+        layer: [
+          {
+            mark: { type: 'rule', strokeWidth: 2 * (options.scale ?? 1) },
+            encoding: {
+              y,
+              x: { ...x, field: 'ciLow' },
+              x2: { field: 'ciHigh' },
+              color: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: [theme.muted, theme.accent] } },
+            },
+          },
+          {
+            mark: { type: 'point', filled: true, opacity: 1 },
+            encoding: {
+              y,
+              x: { ...x, field: 'diff' },
+              shape: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: ['square', 'diamond'] } },
+              size: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: [70 * (options.scale ?? 1), 220 * (options.scale ?? 1)] } },
+              color: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: [theme.ink, theme.accent] } },
+              tooltip: [
+                { field: 'site', title: 'Site' },
+                { field: 'diff', title: 'Difference', format: '.1f' },
+                { field: 'ciLow', title: '95 % CI low', format: '.1f' },
+                { field: 'ciHigh', title: '95 % CI high', format: '.1f' },
+              ],
+            },
+          },
+        ],
+      },
+    ],
+  };
+}
+
+/**
+ * The response curve over site means: every site × rate mean as a point, the fitted
+ * quadratic over the tested range, and the agronomic and economic optima as vertical lines.
+ */
+export function responseCurveSpec(
+  input: {
+    points: readonly { site: string; seedRate: number; mean: number }[];
+    curve: { intercept: number; linear: number; quadratic: number; testedRange: { low: number; high: number } } | null;
+    agronomicOptimum: number | null;
+    economicOptimum: number | null;
+    seedUnit: string;
+    yieldUnit: string;
+  },
+  options: BaseOptions = {},
+): ChartSpec {
+  const theme = options.theme ?? LIGHT_CHART_THEME;
+  const x = { type: 'quantitative', title: `Seeding rate (${input.seedUnit})` };
+  const y = { type: 'quantitative', title: `Yield (${input.yieldUnit})`, scale: { zero: false } };
+  const layers: ChartSpec[] = [
+    {
+      data: { values: input.points.map((p) => ({ ...p })) },
+      mark: { type: 'point', filled: true, opacity: 0.55, color: theme.muted, size: 45 * (options.scale ?? 1) },
+      encoding: {
+        x: { ...x, field: 'seedRate' },
+        y: { ...y, field: 'mean' },
+        tooltip: [
+          { field: 'site', title: 'Site' },
+          { field: 'seedRate', title: 'Rate', format: '.1f' },
+          { field: 'mean', title: 'Site mean', format: '.1f' },
+        ],
+      },
+    },
+  ];
+  if (input.curve) {
+    const { intercept, linear, quadratic, testedRange } = input.curve;
+    const steps = 40;
+    const line = Array.from({ length: steps + 1 }, (_, i) => {
+      const rate = testedRange.low + ((testedRange.high - testedRange.low) * i) / steps;
+      return { seedRate: rate, fitted: intercept + linear * rate + quadratic * rate * rate };
+    });
+    layers.push({
+      data: { values: line },
+      mark: { type: 'line', color: theme.accent, strokeWidth: 3 * (options.scale ?? 1) },
+      encoding: { x: { ...x, field: 'seedRate' }, y: { ...y, field: 'fitted' } },
+    });
+  }
+  const optima = [
+    input.agronomicOptimum !== null ? { rate: input.agronomicOptimum, name: 'Highest yield' } : null,
+    input.economicOptimum !== null ? { rate: input.economicOptimum, name: 'Best return over seed' } : null,
+  ].filter((o): o is { rate: number; name: string } => o !== null);
+  if (optima.length > 0) {
+    layers.push({
+      data: { values: optima },
+      layer: [
+        {
+          mark: { type: 'rule', strokeDash: [6, 4], strokeWidth: 2 },
+          encoding: {
+            x: { ...x, field: 'rate' },
+            color: { field: 'name', type: 'nominal', title: null, scale: { domain: ['Highest yield', 'Best return over seed'], range: [theme.accent, theme.highlight] }, legend: { orient: 'bottom' } },
+          },
+        },
+      ],
+    });
+  }
+  return {
+    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    ...(options.title ? { title: options.title } : {}),
+    width: 'container',
+    height: 280 * (options.scale ?? 1),
+    autosize: { type: 'fit-x', contains: 'padding' },
+    config: chartConfig(theme, options.scale),
+    layer: layers,
+  };
+}
+
+/**
+ * Pooled rate means over sites with their 95 % CI (tested against site × rate).
+ */
+export function pooledMeansSpec(
+  input: { means: readonly { label: string; mean: number; ciLow: number; ciHigh: number }[]; yieldUnit: string },
+  options: BaseOptions = {},
+): ChartSpec {
+  return rateMeansSpec({ means: input.means, strips: [], yieldUnit: input.yieldUnit }, options);
+}

@@ -1,0 +1,311 @@
+// Plain-language findings for site and pooled reports, hedged the way a careful agronomist
+// would say them: one field and one season never settle the question on their own.
+import type { PooledAnalysis, RateDifference, SiteAnalysis, SiteDifference } from '../analysis/types';
+import { decimalsFor, formatMoney, formatNumber, formatP } from './format-numbers';
+
+/** How a rate's difference from the reference reads. */
+export type DifferenceVerdict = 'clear' | 'borderline' | 'undetectable';
+
+/** p below alpha but above this, or a gap of at least BORDERLINE_SHARE of the LSD, is "borderline". */
+const BORDERLINE_P = 0.1;
+const BORDERLINE_SHARE = 0.75;
+/** A CV above this is high for a strip trial (Common practice, no published source). */
+const HIGH_CV_PERCENT = 15;
+/** Fewer sites than this cannot carry a network answer: 4–6 farms at least [PNW-V]. */
+const FEW_SITES = 4;
+
+/**
+ * Sorts a difference into clear (p < alpha), borderline (p < 0.10, or the gap is at least
+ * three quarters of the LSD) or undetectable.
+ *
+ * @param difference - the rate's difference from the reference, with its p
+ * @param lsd - the least significant difference at alpha
+ * @param alpha - significance level
+ * @returns the verdict
+ * @example classifyDifference({ diff: -2.1, p: 0.4 } as RateDifference, 4.8, 0.05) // 'undetectable'
+ */
+export function classifyDifference(
+  difference: Pick<RateDifference, 'diff' | 'p'>,
+  lsd: number,
+  alpha: number,
+): DifferenceVerdict {
+  if (difference.p < alpha) return 'clear';
+  if (difference.p < BORDERLINE_P || Math.abs(difference.diff) >= BORDERLINE_SHARE * lsd)
+    return 'borderline';
+  return 'undetectable';
+}
+
+/**
+ * How a rate label reads in a sentence: "half" becomes "half rate", "25 kg/ha" stays.
+ *
+ * @example rateName('half') // 'half rate'
+ */
+export function rateName(label: string): string {
+  const trimmed = label.trim();
+  if (/rate\b/i.test(trimmed) || /\d/.test(trimmed)) return trimmed;
+  return `${trimmed.toLowerCase()} rate`;
+}
+
+const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+const plural = (count: number, one: string, many = `${one}s`) => `${count} ${count === 1 ? one : many}`;
+const NUMBER_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten'];
+const countWord = (count: number) => NUMBER_WORDS[count] ?? String(count);
+
+export interface SiteFindingsInput {
+  analysis: SiteAnalysis;
+  /** Display label of each rate key ("0.5" → "half"). */
+  rateLabels: Readonly<Record<string, string>>;
+  yieldUnit: string;
+  /** Return over seed cost per rate, per acre (or hectare), when prices are known. */
+  returns?: readonly { rate: string; returnOverSeedCost: number | null }[];
+  prices?: { seedPricePerLb: number | null; grainPricePerBu: number | null };
+  moneyUnit?: string;
+}
+
+/**
+ * Findings for one site: the overall rate test, each rate against the reference with the
+ * site's LSD as the yardstick, how precise the site was, missing strips and odd strips,
+ * the seed economics, and the reminder that one field and one season is not an answer.
+ *
+ * @param input - the site analysis, rate labels, yield unit and optional returns over seed cost
+ * @returns sentences in reading order
+ * @example siteFindings({ analysis, rateLabels: { '0.5': 'half', '1': 'full' }, yieldUnit: 'bu/acre' })[1]
+ *   // 'Half rate yielded within 2.1 bu/acre of the full rate; the difference is smaller than this site could detect (LSD 4.8).'
+ */
+export function siteFindings(input: SiteFindingsInput): string[] {
+  const { analysis, yieldUnit } = input;
+  const digits = decimalsFor(analysis.grandMean);
+  const amount = (value: number) => `${formatNumber(Math.abs(value), digits)} ${yieldUnit}`;
+  const name = (rate: string) => rateName(input.rateLabels[rate] ?? `${rate}×`);
+  const referenceName = name(analysis.reference);
+  const lsdText = formatNumber(analysis.lsd, digits);
+  const findings: string[] = [];
+
+  const rateRow = analysis.anova.find((row) => row.source === 'rate') as { p?: number } | undefined;
+  const rateP = rateRow?.p ?? Number.NaN;
+  const verdicts = analysis.differences.map((d) => ({
+    difference: d,
+    verdict: classifyDifference(d, analysis.lsd, analysis.alpha),
+  }));
+  const anyClear = verdicts.some((v) => v.verdict === 'clear');
+  if (rateP < analysis.alpha) {
+    findings.push(
+      `Seeding rate made a difference to yield at this site that is larger than the strip-to-strip variation (${formatP(rateP)}).`,
+    );
+  } else if (!anyClear) {
+    findings.push(
+      `At this site the rates did not yield detectably differently: the gaps between rates were no larger than the differences between strips sown alike (${formatP(rateP)}).`,
+    );
+  } else {
+    findings.push(
+      `Taken all together the rates were not clearly different (${formatP(rateP)}), although one comparison with the ${referenceName} stands out below; read it with care.`,
+    );
+  }
+
+  for (const { difference, verdict } of verdicts) {
+    const rate = capitalise(name(difference.rate));
+    const direction = difference.diff < 0 ? 'less' : 'more';
+    if (verdict === 'clear') {
+      const low = Math.min(Math.abs(difference.ciLow), Math.abs(difference.ciHigh));
+      const high = Math.max(Math.abs(difference.ciLow), Math.abs(difference.ciHigh));
+      findings.push(
+        `${rate} yielded ${amount(difference.diff)} ${direction} than the ${referenceName} (95 % confidence interval ${formatNumber(low, digits)} to ${formatNumber(high, digits)} ${direction}); that is more than this site could put down to chance (LSD ${lsdText}).`,
+      );
+    } else if (verdict === 'borderline') {
+      findings.push(
+        `${rate} yielded ${amount(difference.diff)} ${direction} than the ${referenceName}, close to the smallest difference this site could detect (LSD ${lsdText}, ${formatP(difference.p)}); treat it as a hint to check against other sites, not as a result.`,
+      );
+    } else {
+      findings.push(
+        `${rate} yielded within ${amount(difference.diff)} of the ${referenceName}; the difference is smaller than this site could detect (LSD ${lsdText}).`,
+      );
+    }
+  }
+
+  const precision = `Strips sown alike varied by ${formatNumber(analysis.cvPercent, 1)} % (CV); with ${plural(analysis.blocks, 'block')} this site could tell apart rates about ${amount(analysis.lsd)} apart or more.`;
+  findings.push(
+    analysis.cvPercent > HIGH_CV_PERCENT
+      ? `${precision} That is a lot of variation for a strip trial, so only large differences could show up.`
+      : precision,
+  );
+
+  if (analysis.missing > 0) {
+    const which = analysis.missingEstimates
+      .map((m) => `block ${m.block}, ${name(m.rate)}`)
+      .join('; ');
+    findings.push(
+      `${capitalise(plural(analysis.missing, 'strip'))} had no yield (${which}); the analysis filled ${analysis.missing === 1 ? 'it' : 'them'} in from the rest of the site, which makes the comparisons a little less certain.`,
+    );
+  }
+  for (const outlier of analysis.outliers) {
+    findings.push(
+      `The strip in block ${outlier.block} at ${name(outlier.rate)} (${amount(outlier.value)}) is far from what its block and rate predict; check its weight and harvested area before leaning on it.`,
+    );
+  }
+
+  const returns = (input.returns ?? []).filter(
+    (r): r is { rate: string; returnOverSeedCost: number } => r.returnOverSeedCost !== null,
+  );
+  const referenceReturn = returns.find((r) => r.rate === analysis.reference);
+  if (returns.length >= 2 && referenceReturn && input.prices?.grainPricePerBu && input.prices.seedPricePerLb !== null) {
+    const best = returns.reduce((a, b) => (b.returnOverSeedCost > a.returnOverSeedCost ? b : a));
+    const money = input.moneyUnit ?? '$/acre';
+    const priceText = `grain at ${formatMoney(input.prices.grainPricePerBu)}/bu and seed at ${formatMoney(input.prices.seedPricePerLb)}/lb`;
+    if (best.rate === analysis.reference) {
+      findings.push(
+        `With ${priceText}, the ${referenceName} gave the highest return over seed cost (${formatMoney(best.returnOverSeedCost)} ${money.replace('$/', 'per ')}).`,
+      );
+    } else {
+      const gap = best.returnOverSeedCost - referenceReturn.returnOverSeedCost;
+      const bestVerdict = verdicts.find((v) => v.difference.rate === best.rate)?.verdict;
+      const hedge =
+        bestVerdict === 'clear'
+          ? 'its yield gain over the reference was detectable at this site.'
+          : 'the seed saving is certain, but the yield part of the gap is within what this site could not tell apart.';
+      findings.push(
+        `With ${priceText}, ${name(best.rate)} gave the highest return over seed cost, ${formatMoney(gap)} ${money.replace('$/', 'per ')} more than the ${referenceName}; ${hedge}`,
+      );
+    }
+  }
+
+  findings.push(
+    'This is one field in one season. Weather, soil and seed lot change from year to year, so read this result alongside the other sites in the network before changing how much seed you sow.',
+  );
+  return findings;
+}
+
+export interface PooledFindingsInput {
+  analysis: PooledAnalysis;
+  rateLabels: Readonly<Record<string, string>>;
+  yieldUnit: string;
+  seedUnit: string;
+  /** Per-site differences with each site's own LSD. */
+  siteDifferences: readonly (SiteDifference & { lsd: number })[];
+  sitesExcluded: readonly { name: string; reason: string }[];
+  economics?: readonly { rate: string; returnOverSeedCost: number | null; versusReference: number | null }[];
+  prices?: { seedPricePerLb: number | null; grainPricePerBu: number | null };
+  moneyUnit?: string;
+  seasons?: number;
+}
+
+/**
+ * Findings for the network: how many sites, the pooled rate test (against site × rate),
+ * each rate against the reference with how consistent the sites were ("at 6 of 8 sites
+ * half rate was within the LSD of full rate"), the economic bottom line per acre, the
+ * response curve's optima, the homogeneity of site variances, and what the network could
+ * not tell.
+ *
+ * @param input - the pooled analysis, labels, units, per-site differences, left-out sites and economics
+ * @returns sentences in reading order
+ */
+export function pooledFindings(input: PooledFindingsInput): string[] {
+  const { analysis, yieldUnit } = input;
+  const digits = decimalsFor(analysis.grandMean);
+  const amount = (value: number) => `${formatNumber(Math.abs(value), digits)} ${yieldUnit}`;
+  const name = (rate: string) => rateName(input.rateLabels[rate] ?? `${rate}×`);
+  const referenceName = name(analysis.reference);
+  const findings: string[] = [];
+  const sites = analysis.sites;
+
+  const excluded = input.sitesExcluded;
+  findings.push(
+    excluded.length === 0
+      ? `${capitalise(plural(sites, 'site'))} were analysed together.`
+      : `${capitalise(plural(sites, 'site'))} were analysed together; ${plural(excluded.length, 'site was', 'sites were')} left out (${excluded.map((e) => `${e.name}: ${e.reason}`).join('; ')}).`,
+  );
+
+  const test = analysis.rateTest;
+  const firstDifference = analysis.differences[0];
+  const pooledLsd = firstDifference
+    ? (firstDifference.ciHigh - firstDifference.diff)
+    : Number.NaN;
+  findings.push(
+    test.p < analysis.alpha
+      ? `Over the network, rate changed yield by more than the sites disagreed with each other (F = ${formatNumber(test.f, 2)} on ${test.df1} and ${test.df2} df, tested against the site × rate interaction, ${formatP(test.p)}).`
+      : `Over the network, the rates did not differ by more than the sites disagreed with each other (F = ${formatNumber(test.f, 2)} on ${test.df1} and ${test.df2} df, tested against the site × rate interaction, ${formatP(test.p)}).`,
+  );
+
+  for (const difference of analysis.differences) {
+    const rate = name(difference.rate);
+    const verdict = classifyDifference(difference, pooledLsd, analysis.alpha);
+    const direction = difference.diff < 0 ? 'less' : 'more';
+    const ci = `95 % CI ${formatSigned(difference.ciLow, digits)} to ${formatSigned(difference.ciHigh, digits)}`;
+    const lead =
+      verdict === 'clear'
+        ? `${capitalise(rate)} yielded ${amount(difference.diff)} ${direction} than the ${referenceName} on average (${ci}), a difference the network can stand behind.`
+        : verdict === 'borderline'
+          ? `${capitalise(rate)} yielded ${amount(difference.diff)} ${direction} than the ${referenceName} on average (${ci}, ${formatP(difference.p)}): a lean, not a firm answer.`
+          : `${capitalise(rate)} yielded within ${amount(difference.diff)} of the ${referenceName} on average (${ci}); the network could not tell them apart.`;
+    const perSite = input.siteDifferences.filter((d) => d.rate === difference.rate);
+    const within = perSite.filter((d) => d.p >= analysis.alpha).length;
+    const lower = perSite.filter((d) => d.p < analysis.alpha && d.diff < 0).length;
+    const higher = perSite.filter((d) => d.p < analysis.alpha && d.diff > 0).length;
+    const consistency =
+      perSite.length > 0
+        ? ` At ${within} of ${perSite.length} sites ${rate} was within the LSD of the ${referenceName}; it was detectably lower at ${countWord(lower)} and detectably higher at ${countWord(higher)}.`
+        : '';
+    findings.push(lead + consistency);
+  }
+
+  const economics = (input.economics ?? []).filter(
+    (row): row is { rate: string; returnOverSeedCost: number; versusReference: number } =>
+      row.returnOverSeedCost !== null && row.versusReference !== null,
+  );
+  if (economics.length >= 2 && input.prices?.grainPricePerBu && input.prices.seedPricePerLb !== null) {
+    const best = economics.reduce((a, b) => (b.returnOverSeedCost > a.returnOverSeedCost ? b : a));
+    const per = (input.moneyUnit ?? '$/acre').replace('$/', 'per ');
+    const priceText = `grain at ${formatMoney(input.prices.grainPricePerBu)}/bu and seed at ${formatMoney(input.prices.seedPricePerLb)}/lb`;
+    if (best.rate === analysis.reference) {
+      findings.push(
+        `Bottom line: with ${priceText}, the ${referenceName} returned the most over seed cost, averaged over the sites (${formatMoney(best.returnOverSeedCost)} ${per}).`,
+      );
+    } else {
+      const bestDifference = analysis.differences.find((d) => d.rate === best.rate);
+      const firm = bestDifference && bestDifference.p < analysis.alpha;
+      findings.push(
+        `Bottom line: with ${priceText}, ${name(best.rate)} returned ${formatMoney(best.versusReference)} ${per} more over seed cost than the ${referenceName}, averaged over the sites${firm ? '.' : '; the seed saving is certain, the yield part of it is not.'}`,
+      );
+    }
+  }
+
+  const curve = analysis.curve;
+  if (curve) {
+    const rateDigits = decimalsFor(curve.testedRange.high);
+    const optimumText = (value: number | null | undefined, flag: string | undefined) =>
+      value !== null && value !== undefined
+        ? `${formatNumber(value, rateDigits)} ${input.seedUnit}`
+        : flag === 'beyond the tested rates'
+          ? 'beyond the rates tested'
+          : 'not defined (the curve does not bend over)';
+    let sentence = `A curve through the site means puts the highest yield at ${optimumText(curve.agronomicOptimum, curve.agronomicOptimumFlag)}`;
+    if (curve.economics)
+      sentence += ` and the best return over seed cost at ${optimumText(curve.economicOptimum, curve.economicOptimumFlag)}`;
+    sentence += `. Curves like this are sensitive to a few sites, so read the optimum as a range around that rate, not a single number (R² ${formatNumber(curve.rSquared, 2)}).`;
+    findings.push(sentence);
+  }
+
+  if (analysis.bartlett) {
+    findings.push(
+      analysis.bartlett.p < analysis.alpha
+        ? `Some sites were much noisier than others (Bartlett's test ${formatP(analysis.bartlett.p)}); the pooled test uses the site × rate interaction, which copes with this, but weigh the noisiest sites less when you read their own reports.`
+        : `The sites were about equally precise (Bartlett's test of site variances ${formatP(analysis.bartlett.p)}), so pooling them is reasonable.`,
+    );
+  }
+
+  const couldNot: string[] = [];
+  if (Number.isFinite(pooledLsd))
+    couldNot.push(`differences smaller than about ${amount(pooledLsd)} between rates`);
+  if ((input.seasons ?? 1) <= 1)
+    couldNot.push('whether the answer holds in a wetter, drier or later season (this is one season)');
+  if (sites < FEW_SITES)
+    couldNot.push(`how far the answer travels to other farms (only ${plural(sites, 'site')}; four to six is a usual minimum)`);
+  couldNot.push('which farms would gain from a change, beyond what their own site reports show');
+  findings.push(`What the network could not tell: ${couldNot.join('; ')}.`);
+  return findings;
+}
+
+function formatSigned(value: number, digits: number): string {
+  const text = formatNumber(Math.abs(value), digits);
+  if (Number(text.replace(/,/g, '')) === 0) return text;
+  return value < 0 ? `−${text}` : `+${text}`;
+}

@@ -1,0 +1,56 @@
+// Number wording for report text and tables: thousands separators, sensible decimals, p-values.
+
+/**
+ * Decimals that suit a quantity of this size: none from 1,000 up (kg/ha), one from 10 up
+ * (bu/acre), two below.
+ *
+ * @param scale - a typical value of the quantity (e.g. the grand mean)
+ * @returns number of decimals
+ * @example decimalsFor(62.4) // 1
+ */
+export function decimalsFor(scale: number): number {
+  const size = Math.abs(scale);
+  if (size >= 1000) return 0;
+  if (size >= 10) return 1;
+  return 2;
+}
+
+/**
+ * Formats a number with thousands separators and a fixed number of decimals; "–" when missing.
+ *
+ * @example formatNumber(5124.25, 0) // '5,124'
+ */
+export function formatNumber(value: number | null | undefined, decimals = 1): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '–';
+  const rounded = Number(value.toFixed(decimals));
+  // Avoid "-0.0" after rounding.
+  const clean = Object.is(rounded, -0) ? 0 : rounded;
+  return clean.toLocaleString('en-US', {
+    minimumFractionDigits: decimals,
+    maximumFractionDigits: decimals,
+  });
+}
+
+/**
+ * Formats a p-value the way agronomy reports print it.
+ *
+ * @example formatP(0.00042) // 'p < 0.001'
+ * @example formatP(0.1128) // 'p = 0.11'
+ */
+export function formatP(p: number): string {
+  if (!Number.isFinite(p)) return 'p not available';
+  if (p < 0.001) return 'p < 0.001';
+  if (p < 0.01) return `p = ${p.toFixed(3)}`;
+  return `p = ${p.toFixed(2)}`;
+}
+
+/**
+ * Formats money with a sign and the currency symbol.
+ *
+ * @example formatMoney(-3.456) // '−$3.46'
+ */
+export function formatMoney(value: number | null | undefined, symbol = '$'): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '–';
+  const text = `${symbol}${formatNumber(Math.abs(value), 2)}`;
+  return value < -0.005 ? `−${text}` : text;
+}
