@@ -53,7 +53,9 @@ async function main() {
       await Promise.allSettled([dataSource.destroy(), sessionPool.end(), mailCatcher?.close()]);
       process.exit(0);
     });
+    // Keep-alive sockets become idle as in-flight requests finish; close them as they do.
     server.closeIdleConnections();
+    setInterval(() => server.closeIdleConnections(), 100).unref();
   };
   process.on('SIGTERM', () => shutdown('SIGTERM'));
   process.on('SIGINT', () => shutdown('SIGINT'));

@@ -5,7 +5,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { ensureNodeModules } from './lib/deps.mjs';
 import { DATA_DIR, runTs } from './lib/env.mjs';
-import { startCluster } from './lib/postgres.mjs';
+import { findPostgresBin, startCluster } from './lib/postgres.mjs';
 
 const [action, fileArg] = process.argv.slice(2);
 const actions = ['migrate', 'revert', 'seed', 'backup', 'restore'];
@@ -14,14 +14,17 @@ if (!actions.includes(action)) {
   process.exit(2);
 }
 ensureNodeModules();
-const cluster = await startCluster({
-  dataDir: process.env.SHEAF_PG_DATA ?? path.join(DATA_DIR, 'postgres'),
-  port: Number(process.env.PGPORT ?? 54329),
-  database: process.env.SHEAF_DB_NAME ?? 'sheaf',
-});
+// With DATABASE_URL set, work on that database; otherwise on the project cluster.
+const cluster = process.env.DATABASE_URL
+  ? { bin: findPostgresBin(), alreadyRunning: true, databaseUrl: process.env.DATABASE_URL, stop() {} }
+  : await startCluster({
+      dataDir: process.env.SHEAF_PG_DATA ?? path.join(DATA_DIR, 'postgres'),
+      port: Number(process.env.PGPORT ?? 54329),
+      database: process.env.SHEAF_DB_NAME ?? 'sheaf',
+    });
 let code = 0;
 try {
-  const env = { DATABASE_URL: process.env.DATABASE_URL ?? cluster.databaseUrl };
+  const env = { DATABASE_URL: cluster.databaseUrl };
   if (action === 'migrate' || action === 'revert' || action === 'seed') {
     runTs('db/cli.ts', [action], env);
   } else if (action === 'backup') {
