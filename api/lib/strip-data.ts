@@ -115,7 +115,11 @@ export async function lockSiteForChange(manager: EntityManager, siteId: string):
 
 /** Reports compare data_version with their snapshot: bump it on every change to site data. */
 export async function bumpDataVersion(manager: EntityManager, siteId: string): Promise<number> {
-  const [row] = await manager.query('UPDATE sites SET data_version = data_version + 1, updated_at = now() WHERE id = $1 RETURNING data_version', [siteId]);
+  // Wrapped in a CTE so the driver answers with rows (a bare UPDATE answers [rows, count]).
+  const [row] = await manager.query(
+    'WITH bumped AS (UPDATE sites SET data_version = data_version + 1, updated_at = now() WHERE id = $1 RETURNING data_version) SELECT data_version FROM bumped',
+    [siteId],
+  );
   return Number(row.data_version);
 }
 

@@ -63,7 +63,8 @@ export function createStripsService(deps: { dataSource: DataSource }) {
         const diff = changedFields(current.values, merged);
         if (!diff) return { changed: false as const };
         const updated: unknown[] = await manager.query(
-          'UPDATE strips SET version = version + 1 WHERE id = $1 AND version = $2 RETURNING version',
+          // The CTE makes the driver return the updated rows; none means the version was stale.
+          'WITH bumped AS (UPDATE strips SET version = version + 1 WHERE id = $1 AND version = $2 RETURNING version) SELECT version FROM bumped',
           [stripId, input.version],
         );
         if (updated.length === 0) return { changed: false as const, stale: true as const };
