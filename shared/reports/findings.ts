@@ -134,7 +134,7 @@ export function siteFindings(input: SiteFindingsInput): string[] {
       .map((m) => `block ${m.block}, ${name(m.rate)}`)
       .join('; ');
     findings.push(
-      `${capitalise(plural(analysis.missing, 'strip'))} had no yield (${which}); the analysis filled ${analysis.missing === 1 ? 'it' : 'them'} in from the rest of the site, which makes the comparisons a little less certain.`,
+      `${capitalise(countWord(analysis.missing))} ${analysis.missing === 1 ? 'strip' : 'strips'} had no yield (${which}); the analysis filled ${analysis.missing === 1 ? 'it' : 'them'} in from the rest of the site, which makes the comparisons a little less certain.`,
     );
   }
   for (const outlier of analysis.outliers) {
