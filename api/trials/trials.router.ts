@@ -30,6 +30,10 @@ export function createTrialsRouter(ctx: RouterContext) {
     res.json(await trials.update(String(req.params.trialId), req.user!.id, input));
   });
 
+  routes.get('/trials/:trialId/people', ctx.policies.trialCoordinator(), async (req, res) => {
+    res.json(await trials.people(String(req.params.trialId)));
+  });
+
   routes.post('/trials/:trialId/sites', ctx.policies.trialCoordinator(), async (req, res) => {
     const input = CreateSiteInputSchema.parse(req.body);
     const { siteId, invitation } = await trials.enrolSite(String(req.params.trialId), req.user!.id, input);

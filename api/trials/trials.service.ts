@@ -6,6 +6,7 @@ import type { CreateSiteInput } from '../../shared/schemas/site';
 import {
   CompleteTrialDesignSchema,
   type CreateTrialInput,
+  type NetworkPerson,
   type TrialDetail,
   type TrialStatus,
   type UpdateTrialInput,
@@ -236,7 +237,18 @@ export function createTrialsService(deps: { dataSource: DataSource; invitations:
     });
   }
 
-  return { create, get, update, enrolSite };
+  /** Members of the trial's network a coordinator can enrol as growers (growers first). */
+  async function people(trialId: string): Promise<NetworkPerson[]> {
+    const rows: { id: string; name: string; email: string; role: Role }[] = await dataSource.query(
+      `SELECT u.id, u.name, u.email, m.role FROM trials t
+         JOIN memberships m ON m.network_id = t.network_id JOIN users u ON u.id = m.user_id
+        WHERE t.id = $1 ORDER BY (m.role = 'grower') DESC, u.name`,
+      [trialId],
+    );
+    return rows.map((r) => ({ userId: r.id, name: r.name, email: r.email, role: r.role }));
+  }
+
+  return { create, get, update, enrolSite, people };
 }
 
 function pick(source: Record<string, unknown>, keys: string[]): Record<string, unknown> {

@@ -157,3 +157,12 @@ export const TrialDetailSchema = TrialSchema.extend({
   designLocked: z.boolean(),
 });
 export type TrialDetail = z.infer<typeof TrialDetailSchema>;
+
+/** GET /api/trials/:trialId/people: who a coordinator can enrol as a site's grower. */
+export const NetworkPersonSchema = z.object({
+  userId: z.uuid(),
+  name: z.string(),
+  email: z.string(),
+  role: z.enum(['admin', 'coordinator', 'grower', 'member']),
+});
+export type NetworkPerson = z.infer<typeof NetworkPersonSchema>;

@@ -38,6 +38,11 @@ export function routeModule(load: () => Promise<RouteModule>) {
 export const appRoutes: RouteObject[] = [
   { index: true, lazy: routeModule(() => import('./routes/app/home')) },
   { path: 'admin/mail', lazy: routeModule(() => import('./routes/admin/mail')) },
+  { path: 'trials/new', lazy: routeModule(() => import('./routes/trials/new')) },
+  { path: 'trials/:trialId', lazy: routeModule(() => import('./routes/trials/trial')) },
+  { path: 'trials/:trialId/edit', lazy: routeModule(() => import('./routes/trials/edit')) },
+  { path: 'sites/:siteId/map', lazy: routeModule(() => import('./routes/sites/map')) },
+  { path: 'sites/:siteId/packet', lazy: routeModule(() => import('./routes/sites/packet')) },
   { path: '*', lazy: routeModule(() => import('./routes/app/not-found')) },
 ];
 
@@ -52,6 +57,8 @@ const authRoutes: RouteObject[] = [
 /** Pages anyone may read, signed in or not. */
 const openRoutes: RouteObject[] = [
   { path: 'cautions', lazy: routeModule(() => import('./routes/public/cautions')) },
+  { path: 'calculator', lazy: routeModule(() => import('./routes/calculator/calculator')) },
+  { path: 'calibrate', lazy: routeModule(() => import('./routes/sites/calibrate')) },
 ];
 
 export const routes: RouteObject[] = [

@@ -1,0 +1,16 @@
+// `/calculator`: the public seed calculator; results update as you type.
+import { PageHeader } from '../../../components/ui/page-header';
+import { SeedCalculator } from '../../../features/calculator/components/seed-calculator';
+
+export default function CalculatorPage() {
+  return (
+    <>
+      <PageHeader
+        eyebrow="Seed calculator"
+        title="From one seeding rate to all the others"
+        description="Enter a rate in any unit — or the stand you want — and your seed lot. Seeds per foot of row, per ft² and m², lb/acre, kg/ha, grams per row and strip and seeds per wheel turn follow."
+      />
+      <SeedCalculator />
+    </>
+  );
+}

@@ -1,0 +1,172 @@
+// `/trials/:trialId`: design summary, sites with randomization and packets, and links onward.
+import type { QueryClient } from '@tanstack/react-query';
+import { useMemo, useState } from 'react';
+import { Link, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
+import { rateTable } from '../../../../shared/design/rate-table';
+import { Alert } from '../../../components/ui/alert';
+import { Badge } from '../../../components/ui/badge';
+import { Button, ButtonLink } from '../../../components/ui/button';
+import { Card } from '../../../components/ui/card';
+import { PageHeader } from '../../../components/ui/page-header';
+import { LoadingBlock } from '../../../components/ui/spinner';
+import { trialQueryOptions, useTrial } from '../../../features/trials/api/get-trial';
+import { useSendAllPackets } from '../../../features/trials/api/trial-mutations';
+import { EnrolSiteForm } from '../../../features/trials/components/enrol-site-form';
+import { RateSummaryTable } from '../../../features/trials/components/rate-summary-table';
+import { SitesTable } from '../../../features/trials/components/sites-table';
+import { CROP_LABELS, UNIT_LABELS } from '../../../features/trials/components/trial-wizard';
+import { errorSummary } from '../../../lib/form-errors';
+import { trialStatusName } from '../../../lib/format';
+import { isNotFound, NotFoundPanel } from '../../route-errors';
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ params }: LoaderFunctionArgs) => {
+    await queryClient.ensureQueryData(trialQueryOptions(params.trialId!));
+    return null;
+  };
+
+const linkClass = 'inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent hover:bg-accent-soft';
+
+export default function TrialPage() {
+  const { trialId } = useParams();
+  const { data: trial } = useTrial(trialId!);
+  const [enrolOpen, setEnrolOpen] = useState(false);
+  const sendAll = useSendAllPackets(trialId!);
+  const table = useMemo(() => (trial ? rateTable({ ...trial, rateLevels: trial.rateLevels }) : []), [trial]);
+  if (!trial) return <LoadingBlock />;
+  const active = trial.status === 'active';
+  const crop = trial.crop ? (trial.crop === 'custom' ? (trial.customCrop?.name ?? 'Custom crop') : CROP_LABELS[trial.crop]) : 'Crop not chosen';
+
+  return (
+    <>
+      <PageHeader
+        eyebrow={`${trial.networkName} · ${crop}${trial.season ? ` · ${trial.season}` : ''}`}
+        title={
+          <span className="flex flex-wrap items-center gap-3">
+            {trial.name}
+            <Badge tone={active ? 'field' : trial.status === 'draft' ? 'straw' : 'neutral'}>{trialStatusName(trial.status)}</Badge>
+          </span>
+        }
+        description={trial.question || undefined}
+        actions={
+          trial.canEdit ? (
+            <>
+              <ButtonLink to={`/trials/${trial.id}/edit${trial.status === 'draft' ? '' : '?step=4'}`} variant={trial.status === 'draft' ? 'primary' : 'secondary'}>
+                {trial.status === 'draft' ? 'Finish the design' : 'Edit design'}
+              </ButtonLink>
+              {active ? (
+                <Button variant="secondary" busy={sendAll.isPending} onClick={() => sendAll.mutate()}>
+                  E-mail all packets
+                </Button>
+              ) : null}
+            </>
+          ) : null
+        }
+      />
+      {trial.status === 'draft' && trial.canEdit ? (
+        <Alert tone="caution" title="This trial is still a draft" className="mb-6">
+          Finish the design to send it to the field; sites can be enrolled now and randomized once it is active.
+        </Alert>
+      ) : null}
+      {sendAll.isSuccess ? (
+        <Alert tone="success" className="mb-6" title={`Packet e-mail sent to ${sendAll.data.sent.length} grower${sendAll.data.sent.length === 1 ? '' : 's'}`}>
+          {sendAll.data.skipped.length > 0 ? `${sendAll.data.skipped.length} site(s) skipped: ${sendAll.data.skipped.map((s) => s.reason).join('; ')}.` : null}
+        </Alert>
+      ) : null}
+      {sendAll.isError ? (
+        <Alert tone="danger" className="mb-6">
+          {errorSummary(sendAll.error)}
+        </Alert>
+      ) : null}
+
+      <div className="grid gap-8 xl:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="min-w-0 space-y-8">
+          <section aria-labelledby="sites-title" className="space-y-4">
+            <div className="flex flex-wrap items-end justify-between gap-3">
+              <h2 id="sites-title" className="text-heading text-ink">
+                Sites ({trial.sites.length})
+              </h2>
+              {trial.canEdit && trial.status !== 'closed' ? (
+                <Button variant={enrolOpen ? 'quiet' : 'secondary'} onClick={() => setEnrolOpen((o) => !o)} aria-expanded={enrolOpen}>
+                  {enrolOpen ? 'Close the form' : 'Enrol a site'}
+                </Button>
+              ) : null}
+            </div>
+            {enrolOpen ? (
+              <Card>
+                <EnrolSiteForm trialId={trial.id} />
+              </Card>
+            ) : null}
+            <SitesTable trialId={trial.id} sites={trial.sites} canEdit={trial.canEdit} active={active} />
+          </section>
+          <section aria-labelledby="rates-title" className="space-y-3">
+            <h2 id="rates-title" className="text-heading text-ink">
+              Seed for every rate
+            </h2>
+            {table.length > 0 ? (
+              <RateSummaryTable rows={table} caption="Seed amounts per rate" />
+            ) : (
+              <p className="text-ink-muted">The design is not complete enough for seed amounts yet.</p>
+            )}
+          </section>
+        </div>
+        <aside className="space-y-6">
+          <Card>
+            <h2 className="text-heading text-ink">Design</h2>
+            <dl className="mt-3 space-y-2 text-label">
+              {[
+                ['Reference rate', trial.referenceRate ? `${trial.referenceRate} ${UNIT_LABELS[trial.referenceUnit ?? 'lb/acre']}` : '—'],
+                ['Rates', trial.rateLevels.map((l) => `${l.label} ×${l.multiplier}`).join(', ')],
+                ['Blocks per site', trial.blocksPerSite ?? '—'],
+                ['Strip', trial.rowsPerStrip ? `${trial.rowsPerStrip} rows at ${trial.rowSpacingIn} in × ${trial.stripLengthFt} ft` : '—'],
+                ['Border rows', trial.borderRows ?? '—'],
+                ['Seed lot', trial.thousandKernelWeightG ? `${trial.thousandKernelWeightG} g/1,000 · ${trial.germinationPct ?? '?'} % germ. · ${trial.emergencePct ?? '?'} % emergence` : '—'],
+                ['Prices', `seed $${trial.seedPricePerLb ?? 0}/lb · grain $${trial.grainPricePerBu ?? 0}/bu`],
+              ].map(([k, v]) => (
+                <div key={String(k)}>
+                  <dt className="text-ink-muted">{k}</dt>
+                  <dd className="font-normal text-ink">{v}</dd>
+                </div>
+              ))}
+            </dl>
+            {trial.designLocked ? <p className="mt-3 text-caption text-ink-muted">Rates and blocks are fixed: a site is randomized.</p> : null}
+          </Card>
+          <Card>
+            <h2 className="text-heading text-ink">During the season</h2>
+            <ul className="mt-2 flex flex-col">
+              {trial.canEdit ? (
+                <li>
+                  <Link className={linkClass} to={`/trials/${trial.id}/progress`}>
+                    Data progress
+                  </Link>
+                </li>
+              ) : null}
+              <li>
+                <Link className={linkClass} to={`/trials/${trial.id}/report`}>
+                  Pooled report
+                </Link>
+              </li>
+              <li>
+                <Link className={linkClass} to={`/trials/${trial.id}/meeting`}>
+                  Meeting view
+                </Link>
+              </li>
+              <li>
+                <Link className={linkClass} to="/calculator">
+                  Seed calculator
+                </Link>
+              </li>
+            </ul>
+          </Card>
+        </aside>
+      </div>
+    </>
+  );
+}
+
+export function ErrorBoundary() {
+  const error = useRouteError();
+  if (!isNotFound(error)) throw error;
+  return <NotFoundPanel title="No such trial" />;
+}
