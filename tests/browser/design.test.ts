@@ -1,8 +1,10 @@
 // Trial design in a real browser: the demo coordinator creates a trial with the wizard, enrols two
 // sites, randomizes them and opens a field packet; screenshots at 390 and 1280 px.
+import fs from 'node:fs';
+import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, screenshot, signInThroughUi, startTestServer, watchErrors } from '../helpers/browser';
+import { ARTIFACTS, launchBrowser, screenshot, signInThroughUi, startTestServer, watchErrors } from '../helpers/browser';
 
 const COORDINATOR = 'coordinator@millbrook.example';
 // An invented demo grower no other test signs in as.
@@ -108,6 +110,7 @@ describe('trial design in the browser', () => {
       await rows.nth(i).getByRole('button', { name: 'Randomize' }).click();
       await rows.nth(i).getByText('Map ready').waitFor();
     }
+    await page.evaluate(() => window.scrollTo(0, 0));
     await screenshot(page, 'design-trial-page-1280');
 
     // Open the packet of the first site.
@@ -121,10 +124,13 @@ describe('trial design in the browser', () => {
     }
     await expect(page.getByText(/Zadoks 12–13/).isVisible()).resolves.toBe(true);
     await screenshot(page, 'design-packet-1280');
+    await page.locator('figure.strip-map').screenshot({ path: path.join(ARTIFACTS, 'design-strip-map-1280.png') });
     await page.emulateMedia({ media: 'print' });
-    await screenshot(page, 'design-packet-print-1280');
-    const pdf = await page.pdf({ format: 'A4', printBackground: true });
-    expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    for (const format of ['A4', 'Letter'] as const) {
+      const pdf = await page.pdf({ format, printBackground: true });
+      expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+      fs.writeFileSync(path.join(ARTIFACTS, `design-packet-${format.toLowerCase()}.pdf`), pdf);
+    }
     expect(errors).toEqual([]);
     await close();
   });
@@ -136,12 +142,15 @@ describe('trial design in the browser', () => {
     await page.goto(`${server.baseUrl}${trialPath}`);
     await page.getByRole('heading', { name: /Sites \(2\)/ }).waitFor();
     await screenshot(page, 'design-trial-page-390');
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     await page.goto(`${server.baseUrl}${trialPath}/edit?step=4`);
     await page.getByRole('heading', { name: /Step 5 of 5/ }).waitFor();
     await screenshot(page, 'design-wizard-summary-390');
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     await page.goto(`${server.baseUrl}${packetPath}`);
     await page.getByRole('heading', { name: '1. Strip map' }).waitFor();
     await screenshot(page, 'design-packet-390');
+    await page.locator('figure.strip-map').screenshot({ path: path.join(ARTIFACTS, 'design-strip-map-390.png') });
     const width = await page.evaluate(() => document.documentElement.scrollWidth);
     expect(width).toBeLessThanOrEqual(390);
 

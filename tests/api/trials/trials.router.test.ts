@@ -251,6 +251,17 @@ describe('trial design API', () => {
     });
   });
 
+  describe('GET /api/trials/:trialId/people', () => {
+    it('lists the network’s people for the enrol form, growers first, to coordinators only', async () => {
+      const trialId = await buildActiveTrial(coordinator, net.networkId);
+      const res = await coordinator.get(`/api/trials/${trialId}/people`);
+      expect(res.status).toBe(200);
+      expect(res.body).toHaveLength(5);
+      expect(res.body.slice(0, 2).map((p: { role: string }) => p.role)).toEqual(['grower', 'grower']);
+      expect((await grower.get(`/api/trials/${trialId}/people`)).status).toBe(403);
+    });
+  });
+
   describe('POST /api/trials/:trialId/packets/send', () => {
     it('e-mails every randomized site and lists the ones it skipped', async () => {
       const trialId = await buildActiveTrial(coordinator, net.networkId, { name: 'Packet trial' });

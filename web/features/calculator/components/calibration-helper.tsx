@@ -74,7 +74,7 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
   const growerSites = mySites.data ?? [];
 
   return (
-    <div className="grid gap-6 lg:grid-cols-2">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-2">
       <form className="space-y-5" onSubmit={(e) => e.preventDefault()} aria-label="Calibration inputs">
         {user && growerSites.length > 0 ? (
           <div className="grid gap-3 rounded-card border border-line bg-surface p-4 sm:grid-cols-2">
@@ -158,7 +158,7 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
                 <dd className="figures text-heading">{f1.format(result.targetSeedsPerTurn)}</dd>
               </div>
               <div className="rounded-field border border-line bg-surface p-3">
-                <dt className="text-ink-muted">Target for {v.wheelTurns} turns</dt>
+                <dt className="text-ink-muted">Target for {v.wheelTurns} turn{v.wheelTurns.trim() === '1' ? '' : 's'}</dt>
                 <dd className="figures text-heading">{f1.format(result.targetForRun)}</dd>
               </div>
             </dl>

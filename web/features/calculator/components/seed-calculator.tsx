@@ -80,7 +80,7 @@ export function SeedCalculator() {
   const sizeError = errors.thousandKernelWeightG ?? errors.seedsPerLb;
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
       <form className="space-y-5" onSubmit={(e) => e.preventDefault()} aria-label="Seed calculator inputs">
         <fieldset className="grid grid-cols-[1fr_1.3fr] gap-3">
           <legend className="mb-1.5 text-label text-ink">Rate</legend>

@@ -17,7 +17,9 @@ const PRINT_CSS = `
   .field-packet section { break-inside: auto; }
   .field-packet .packet-page { break-before: page; }
   .field-packet h2 { break-after: avoid; }
-  .field-packet tr, .field-packet li, .field-packet figure { break-inside: avoid; }
+  .field-packet tr, .field-packet li { break-inside: avoid; }
+  .field-packet .strip-map { max-width: var(--map-print-width, 120mm); }
+  .field-packet .strip-map figcaption { break-inside: avoid; }
   .field-packet .screen-only { display: none !important; }
   .field-packet .sheet td { height: 9mm; }
   .field-packet a { color: #000; text-decoration: none; }

@@ -26,7 +26,11 @@ export function StripMap({ layout, title, startEdgeLabel = 'Start edge of the fi
   const titleId = `map-title-${layout.siteId}`;
 
   return (
-    <figure className="strip-map mx-auto w-full max-w-xl">
+    <figure
+      className="strip-map mx-auto w-full max-w-xl"
+      // In print the map must fit one page under the packet header: about 175 mm of height.
+      style={{ '--map-print-width': `${Math.min(150, (175 * WIDTH) / height).toFixed(0)}mm` } as React.CSSProperties}
+    >
       <svg viewBox={`0 0 ${WIDTH} ${height}`} role="img" aria-labelledby={titleId} className="h-auto w-full" style={{ fontFamily: 'inherit' }}>
         <title id={titleId}>{title}</title>
         <defs>

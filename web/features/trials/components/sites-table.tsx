@@ -29,9 +29,9 @@ export function SitesTable({ trialId, sites, canEdit, active }: { trialId: strin
       {randomize.isError ? <p role="alert" className="text-label text-danger">{errorSummary(randomize.error)}</p> : null}
       {sendPacket.isError ? <p role="alert" className="text-label text-danger">{errorSummary(sendPacket.error)}</p> : null}
       {sendPacket.isSuccess ? <p role="status" className="text-label text-accent">Packet e-mail sent to {sendPacket.data.sent[0]?.to}.</p> : null}
-      <ul className="grid gap-3 md:grid-cols-2" aria-label="Sites">
+      <ul className="grid grid-cols-1 gap-3 md:grid-cols-2" aria-label="Sites">
         {sites.map((site) => (
-          <li key={site.id} className="rounded-card border border-line bg-surface p-4 shadow-card" data-testid="site-row">
+          <li key={site.id} className="min-w-0 rounded-card border border-line bg-surface p-4 shadow-card" data-testid="site-row">
             <div className="flex flex-wrap items-start justify-between gap-2">
               <div className="min-w-0">
                 <h3 className="text-heading text-ink">{site.fieldName}</h3>

@@ -246,8 +246,8 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
   const stepErrors = Object.keys(errors).length > 0;
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[14rem_1fr]">
-      <nav aria-label="Wizard steps" className="no-print">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[14rem_minmax(0,1fr)]">
+      <nav aria-label="Wizard steps" className="no-print min-w-0">
         <ol className="flex gap-2 overflow-x-auto pb-1 lg:flex-col lg:overflow-visible">
           {STEPS.map((name, index) => (
             <li key={name} className="shrink-0">
@@ -543,7 +543,7 @@ function DesignSummary({ payload }: { payload: UpdateTrialInput }) {
     [
       'Strips',
       payload.rowsPerStrip && payload.stripLengthFt
-        ? `${payload.rowsPerStrip} rows at ${payload.rowSpacingIn ?? '?'} in × ${payload.stripLengthFt} ft, ${payload.borderRows ?? 0} border rows`
+        ? `${payload.rowsPerStrip} rows at ${payload.rowSpacingIn ?? '?'} in × ${payload.stripLengthFt} ft, ${payload.borderRows ?? 0} border row${payload.borderRows === 1 ? '' : 's'}`
         : '—',
     ],
     ['Seed lot', payload.thousandKernelWeightG ? `${payload.thousandKernelWeightG} g per 1,000 seeds, ${payload.germinationPct ?? '?'} % germination, ${payload.emergencePct ?? '?'} % expected emergence` : '—'],
