@@ -20,7 +20,11 @@ const SITE_SQL = `SELECT s.id, s.field_name, t.name AS trial_name, t.season, u.n
        s.randomized_at IS NOT NULL AS randomized
   FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id`;
 
-export function createPacketsService(deps: { dataSource: DataSource; mailer: Mailer; publicUrl: string }) {
+export function createPacketsService(deps: {
+  dataSource: DataSource;
+  mailer: Mailer;
+  publicUrl: string;
+}) {
   const { dataSource, mailer, publicUrl } = deps;
 
   function skipReason(site: PacketSite): string | null {
@@ -40,7 +44,11 @@ export function createPacketsService(deps: { dataSource: DataSource; mailer: Mai
           greeting,
           `Your field packet for ${site.field_name} in the seeding-rate trial "${site.trial_name}"${site.season ? ` (${site.season})` : ''} is ready.`,
           'It holds the strip map, the seed to weigh out for every strip, how to calibrate your seeder, what to count and when, a blank recording sheet and the safety cautions. Print it or save it as a PDF before you go to the field.',
-          ...(site.pending ? ['You will need to accept your invitation to Sheaf first (look for the earlier e-mail) to open the packet.'] : []),
+          ...(site.pending
+            ? [
+                'You will need to accept your invitation to Sheaf first (look for the earlier e-mail) to open the packet.',
+              ]
+            : []),
         ],
         link: { label: 'Open your field packet', url },
       }),
@@ -57,7 +65,10 @@ export function createPacketsService(deps: { dataSource: DataSource; mailer: Mai
   }
 
   async function sendForTrial(trialId: string, _userId: string): Promise<PacketSendResult> {
-    const sites: PacketSite[] = await dataSource.query(`${SITE_SQL} WHERE s.trial_id = $1 ORDER BY s.created_at`, [trialId]);
+    const sites: PacketSite[] = await dataSource.query(
+      `${SITE_SQL} WHERE s.trial_id = $1 ORDER BY s.created_at`,
+      [trialId],
+    );
     const result: PacketSendResult = { sent: [], skipped: [] };
     for (const site of sites) {
       const reason = skipReason(site);

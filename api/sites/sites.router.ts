@@ -10,7 +10,11 @@ export function createSitesRouter(ctx: RouterContext) {
   const router = Router();
   const routes = secureRouter(router, ctx.table, '/api');
   const sites = createSitesService({ dataSource: ctx.dataSource });
-  const packets = createPacketsService({ dataSource: ctx.dataSource, mailer: ctx.mailer, publicUrl: ctx.config.PUBLIC_URL });
+  const packets = createPacketsService({
+    dataSource: ctx.dataSource,
+    mailer: ctx.mailer,
+    publicUrl: ctx.config.PUBLIC_URL,
+  });
 
   routes.get('/sites/:siteId', ctx.policies.siteReader(), async (req, res) => {
     res.json(await sites.get(String(req.params.siteId), req.user!.id));
@@ -27,7 +31,11 @@ export function createSitesRouter(ctx: RouterContext) {
 
   routes.post('/sites/:siteId/calibrations', ctx.policies.siteGrower(), async (req, res) => {
     const input = CalibrationInputSchema.parse(req.body);
-    res.status(201).json({ calibrations: await sites.addCalibration(String(req.params.siteId), req.user!.id, input) });
+    res
+      .status(201)
+      .json({
+        calibrations: await sites.addCalibration(String(req.params.siteId), req.user!.id, input),
+      });
   });
 
   routes.post('/sites/:siteId/packet/send', ctx.policies.siteCoordinator(), async (req, res) => {

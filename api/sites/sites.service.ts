@@ -95,7 +95,12 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       'SELECT id, multiplier, label FROM rate_levels WHERE trial_id = $1 ORDER BY multiplier',
       [trialId],
     );
-    const cropName = t.crop === 'custom' ? (t.custom_crop?.name ?? 'Custom crop') : t.crop ? (CROPS[t.crop as CropKey]?.name ?? t.crop) : null;
+    const cropName =
+      t.crop === 'custom'
+        ? (t.custom_crop?.name ?? 'Custom crop')
+        : t.crop
+          ? (CROPS[t.crop as CropKey]?.name ?? t.crop)
+          : null;
     return {
       id: t.id,
       name: t.name,
@@ -114,12 +119,19 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       thousandKernelWeightG: num(t.thousand_kernel_weight_g),
       germinationPct: num(t.germination_pct),
       emergencePct: num(t.emergence_pct),
-      rateLevels: levels.map((l) => ({ id: l.id, multiplier: Number(l.multiplier), label: l.label })),
+      rateLevels: levels.map((l) => ({
+        id: l.id,
+        multiplier: Number(l.multiplier),
+        label: l.label,
+      })),
     };
   }
 
   async function viewerRole(networkId: string, userId: string): Promise<Role> {
-    const [row]: { role: Role }[] = await dataSource.query('SELECT role FROM memberships WHERE user_id = $1 AND network_id = $2', [userId, networkId]);
+    const [row]: { role: Role }[] = await dataSource.query(
+      'SELECT role FROM memberships WHERE user_id = $1 AND network_id = $2',
+      [userId, networkId],
+    );
     if (!row) throw new NotFound('Site');
     return row.role;
   }
@@ -139,7 +151,12 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       previousCrop: row.previous_crop,
       fertility: row.fertility,
       notes: row.notes,
-      grower: { userId: row.grower_user_id, name: row.grower_name, email: row.grower_email, invitationPending: row.pending },
+      grower: {
+        userId: row.grower_user_id,
+        name: row.grower_name,
+        email: row.grower_email,
+        invitationPending: row.pending,
+      },
       sowingDate: row.sowing_date,
       emergenceDate: row.emergence_date,
       headingDate: row.heading_date,
@@ -163,44 +180,76 @@ export function createSitesService(deps: { dataSource: DataSource }) {
   /** Draws the site's RCBD map from `seed` (or a new one) and replaces its strips. */
   async function randomize(siteId: string, userId: string, seed?: string): Promise<Layout> {
     await dataSource.transaction(async (manager) => {
-      const [site]: { id: string; trial_id: string; published_at: Date | null; sowing_recorded: boolean }[] = await manager.query(
+      const [site]: {
+        id: string;
+        trial_id: string;
+        published_at: Date | null;
+        sowing_recorded: boolean;
+      }[] = await manager.query(
         `SELECT s.id, s.trial_id, s.published_at, ${SOWING_RECORDED_SQL} AS sowing_recorded FROM sites s WHERE s.id = $1 FOR UPDATE`,
         [siteId],
       );
       if (!site) throw new NotFound('Site');
-      if (site.published_at) throw new Locked('This site’s report is published: its strip map is final');
+      if (site.published_at)
+        throw new Locked('This site’s report is published: its strip map is final');
       if (site.sowing_recorded) {
-        throw new Conflict('Sowing is already recorded for this site (a sowing date or strip data), so its strip map can no longer be re-randomized');
+        throw new Conflict(
+          'Sowing is already recorded for this site (a sowing date or strip data), so its strip map can no longer be re-randomized',
+        );
       }
       const [trial]: { status: string; blocks_per_site: number | null }[] = await manager.query(
         'SELECT status, blocks_per_site FROM trials WHERE id = $1',
         [site.trial_id],
       );
       if (!trial || trial.status !== 'active') {
-        throw new Conflict('Finish the trial design first: strips are randomized once the trial is active');
+        throw new Conflict(
+          'Finish the trial design first: strips are randomized once the trial is active',
+        );
       }
-      const levels: { id: string }[] = await manager.query('SELECT id FROM rate_levels WHERE trial_id = $1 ORDER BY position', [site.trial_id]);
+      const levels: { id: string }[] = await manager.query(
+        'SELECT id FROM rate_levels WHERE trial_id = $1 ORDER BY position',
+        [site.trial_id],
+      );
       const blocks = trial.blocks_per_site ?? 0;
-      if (levels.length < 2 || blocks < 1) throw new Conflict('The trial needs at least 2 rate levels and 1 block before randomizing');
+      if (levels.length < 2 || blocks < 1)
+        throw new Conflict('The trial needs at least 2 rate levels and 1 block before randomizing');
       const useSeed = seed ?? newRandomizationSeed();
-      const map = randomizeSite(levels.map((l) => l.id), blocks, useSeed);
+      const map = randomizeSite(
+        levels.map((l) => l.id),
+        blocks,
+        useSeed,
+      );
       await manager.query('DELETE FROM strips WHERE site_id = $1', [siteId]);
       for (const [b, order] of map.entries()) {
         for (const [p, levelId] of order.entries()) {
-          await manager.query('INSERT INTO strips (site_id, block, position, rate_level_id) VALUES ($1, $2, $3, $4)', [siteId, b + 1, p + 1, levelId]);
+          await manager.query(
+            'INSERT INTO strips (site_id, block, position, rate_level_id) VALUES ($1, $2, $3, $4)',
+            [siteId, b + 1, p + 1, levelId],
+          );
         }
       }
       await manager.query(
         'UPDATE sites SET randomization_seed = $2, randomized_at = now(), data_version = data_version + 1, updated_at = now() WHERE id = $1',
         [siteId, useSeed],
       );
-      await recordAudit(manager, { actorUserId: userId, entityType: 'site', entityId: siteId, siteId, action: 'randomize', after: { seed: useSeed } });
+      await recordAudit(manager, {
+        actorUserId: userId,
+        entityType: 'site',
+        entityId: siteId,
+        siteId,
+        action: 'randomize',
+        after: { seed: useSeed },
+      });
     });
     return layout(siteId);
   }
 
   async function layout(siteId: string): Promise<Layout> {
-    const [site]: { trial_id: string; randomization_seed: string | null; randomized_at: Date | null }[] = await dataSource.query(
+    const [site]: {
+      trial_id: string;
+      randomization_seed: string | null;
+      randomized_at: Date | null;
+    }[] = await dataSource.query(
       'SELECT trial_id, randomization_seed, randomized_at FROM sites WHERE id = $1',
       [siteId],
     );
@@ -209,13 +258,19 @@ export function createSitesService(deps: { dataSource: DataSource }) {
     const amounts = new Map(
       rateTable({ ...trial, rateLevels: trial.rateLevels }).map((r) => [r.rateLevelId, r] as const),
     );
-    const strips: { id: string; block: number; position: number; rate_level_id: string; multiplier: string; label: string }[] =
-      await dataSource.query(
-        `SELECT st.id, st.block, st.position, st.rate_level_id, rl.multiplier, rl.label
+    const strips: {
+      id: string;
+      block: number;
+      position: number;
+      rate_level_id: string;
+      multiplier: string;
+      label: string;
+    }[] = await dataSource.query(
+      `SELECT st.id, st.block, st.position, st.rate_level_id, rl.multiplier, rl.label
            FROM strips st JOIN rate_levels rl ON rl.id = st.rate_level_id
           WHERE st.site_id = $1 ORDER BY st.block, st.position`,
-        [siteId],
-      );
+      [siteId],
+    );
     const blocks = new Map<number, Layout['blocks'][number]>();
     for (const s of strips) {
       const amount = amounts.get(s.rate_level_id);
@@ -242,7 +297,11 @@ export function createSitesService(deps: { dataSource: DataSource }) {
     };
   }
 
-  async function addCalibration(siteId: string, userId: string, input: CalibrationInput): Promise<CalibrationRecordDto[]> {
+  async function addCalibration(
+    siteId: string,
+    userId: string,
+    input: CalibrationInput,
+  ): Promise<CalibrationRecordDto[]> {
     const result = calibrateSeeder({
       seedsCounted: input.seedsCounted,
       wheelTurns: input.turns,
@@ -263,15 +322,27 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       note: input.note,
     };
     return dataSource.transaction(async (manager) => {
-      const [row]: { calibrations: CalibrationRecordDto[]; published_at: Date | null }[] = await manager.query(
-        'SELECT calibrations, published_at FROM sites WHERE id = $1 FOR UPDATE',
-        [siteId],
-      );
+      const [row]: { calibrations: CalibrationRecordDto[]; published_at: Date | null }[] =
+        await manager.query(
+          'SELECT calibrations, published_at FROM sites WHERE id = $1 FOR UPDATE',
+          [siteId],
+        );
       if (!row) throw new NotFound('Site');
-      if (row.published_at) throw new Locked('This site’s report is published: its records are read-only');
+      if (row.published_at)
+        throw new Locked('This site’s report is published: its records are read-only');
       const next = [...(row.calibrations ?? []), record];
-      await manager.query('UPDATE sites SET calibrations = $2::jsonb, updated_at = now() WHERE id = $1', [siteId, JSON.stringify(next)]);
-      await recordAudit(manager, { actorUserId: userId, entityType: 'site', entityId: siteId, siteId, action: 'calibrate', after: { ...record } });
+      await manager.query(
+        'UPDATE sites SET calibrations = $2::jsonb, updated_at = now() WHERE id = $1',
+        [siteId, JSON.stringify(next)],
+      );
+      await recordAudit(manager, {
+        actorUserId: userId,
+        entityType: 'site',
+        entityId: siteId,
+        siteId,
+        action: 'calibrate',
+        after: { ...record },
+      });
       return next;
     });
   }

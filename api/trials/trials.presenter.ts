@@ -9,7 +9,12 @@ function present<T>(value: T | null): T | undefined {
 
 export function presentTrial(
   trial: Trial,
-  extra: { networkName: string; levels: RateLevelRow[]; siteCount: number; pooledPublishedAt: Date | null },
+  extra: {
+    networkName: string;
+    levels: RateLevelRow[];
+    siteCount: number;
+    pooledPublishedAt: Date | null;
+  },
 ): TrialDto {
   return {
     id: trial.id,
@@ -38,7 +43,9 @@ export function presentTrial(
     seedPricePerLb: present(trial.seedPricePerLb),
     grainPricePerBu: present(trial.grainPricePerBu),
     siteCount: extra.siteCount,
-    pooledPublishedAt: extra.pooledPublishedAt ? new Date(extra.pooledPublishedAt).toISOString() : null,
+    pooledPublishedAt: extra.pooledPublishedAt
+      ? new Date(extra.pooledPublishedAt).toISOString()
+      : null,
     publicLinkToken: trial.publicLinkToken,
     createdAt: new Date(trial.createdAt).toISOString(),
     updatedAt: new Date(trial.updatedAt).toISOString(),

@@ -13,7 +13,11 @@ export function createTrialsRouter(ctx: RouterContext) {
   const routes = secureRouter(router, ctx.table, '/api');
   const trials = createTrialsService({ dataSource: ctx.dataSource, invitations: ctx.invitations });
   const sites = createSitesService({ dataSource: ctx.dataSource });
-  const packets = createPacketsService({ dataSource: ctx.dataSource, mailer: ctx.mailer, publicUrl: ctx.config.PUBLIC_URL });
+  const packets = createPacketsService({
+    dataSource: ctx.dataSource,
+    mailer: ctx.mailer,
+    publicUrl: ctx.config.PUBLIC_URL,
+  });
 
   // GET /api/trials (the list) lives in the home router.
   routes.post('/trials', ctx.policies.signedIn, async (req, res) => {
@@ -36,13 +40,21 @@ export function createTrialsRouter(ctx: RouterContext) {
 
   routes.post('/trials/:trialId/sites', ctx.policies.trialCoordinator(), async (req, res) => {
     const input = CreateSiteInputSchema.parse(req.body);
-    const { siteId, invitation } = await trials.enrolSite(String(req.params.trialId), req.user!.id, input);
+    const { siteId, invitation } = await trials.enrolSite(
+      String(req.params.trialId),
+      req.user!.id,
+      input,
+    );
     res.status(201).json({ ...(await sites.get(siteId, req.user!.id)), invitation });
   });
 
-  routes.post('/trials/:trialId/packets/send', ctx.policies.trialCoordinator(), async (req, res) => {
-    res.json(await packets.sendForTrial(String(req.params.trialId), req.user!.id));
-  });
+  routes.post(
+    '/trials/:trialId/packets/send',
+    ctx.policies.trialCoordinator(),
+    async (req, res) => {
+      res.json(await packets.sendForTrial(String(req.params.trialId), req.user!.id));
+    },
+  );
 
   return router;
 }

@@ -31,17 +31,27 @@ function factorial(n: number): number {
  * @throws Error for no treatments, duplicates or blocks < 1
  * @example randomizeSite(['q','h','f','d'], 4, 'site-1') // four different orders of q, h, f, d
  */
-export function randomizeSite<T extends string>(treatments: readonly T[], blocks: number, seed: string): T[][] {
+export function randomizeSite<T extends string>(
+  treatments: readonly T[],
+  blocks: number,
+  seed: string,
+): T[][] {
   if (treatments.length === 0) throw new Error('randomizeSite needs at least one treatment');
-  if (new Set(treatments).size !== treatments.length) throw new Error('randomizeSite needs distinct treatments');
-  if (!Number.isInteger(blocks) || blocks < 1) throw new Error('randomizeSite needs a whole number of blocks, at least 1');
+  if (new Set(treatments).size !== treatments.length)
+    throw new Error('randomizeSite needs distinct treatments');
+  if (!Number.isInteger(blocks) || blocks < 1)
+    throw new Error('randomizeSite needs a whole number of blocks, at least 1');
   const random = seedrandom(seed);
   const keepDistinct = factorial(treatments.length) >= blocks;
   const seen = new Set<string>();
   const layout: T[][] = [];
   for (let b = 0; b < blocks; b += 1) {
     let order = shuffle(treatments, random);
-    for (let tries = 0; keepDistinct && seen.has(order.join('\u0000')) && tries < 1000; tries += 1) {
+    for (
+      let tries = 0;
+      keepDistinct && seen.has(order.join('\u0000')) && tries < 1000;
+      tries += 1
+    ) {
       order = shuffle(treatments, random);
     }
     seen.add(order.join('\u0000'));

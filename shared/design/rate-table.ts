@@ -34,8 +34,12 @@ export interface RateTableRow {
 /** True when the design has what the seed amounts need. */
 export function hasSeedInputs(design: RateTableDesign): boolean {
   return Boolean(
-    design.referenceRate && design.referenceUnit && design.rowSpacingIn && design.rowsPerStrip &&
-      design.stripLengthFt && design.thousandKernelWeightG,
+    design.referenceRate &&
+    design.referenceUnit &&
+    design.rowSpacingIn &&
+    design.rowsPerStrip &&
+    design.stripLengthFt &&
+    design.thousandKernelWeightG,
   );
 }
 
@@ -52,10 +56,14 @@ export function rateTable(design: RateTableDesign): RateTableRow[] {
   return [...design.rateLevels]
     .sort((a, b) => a.multiplier - b.multiplier)
     .map((level) => {
-      const rate = convertRate((design.referenceRate as number) * level.multiplier, design.referenceUnit as RateUnit, {
-        size,
-        rowSpacingInches: design.rowSpacingIn as number,
-      });
+      const rate = convertRate(
+        (design.referenceRate as number) * level.multiplier,
+        design.referenceUnit as RateUnit,
+        {
+          size,
+          rowSpacingInches: design.rowSpacingIn as number,
+        },
+      );
       const strip = seedForStrip({
         seedsPerFootOfRow: rate.seedsPerFootOfRow,
         rows: design.rowsPerStrip as number,

@@ -1,7 +1,11 @@
 // The seed calculator: one rate (or target stand) and a seed lot → every unit, grams per row
 // and strip, and seeds per seeder-wheel turn. Used by the public page and POST /api/calc/seeding.
 import type { SeedingCalcParsed, SeedingCalcResult } from '../schemas/calc';
-import { SQUARE_FEET_PER_ACRE, SQUARE_FEET_PER_SQUARE_METRE, GRAMS_PER_POUND } from '../units/constants';
+import {
+  SQUARE_FEET_PER_ACRE,
+  SQUARE_FEET_PER_SQUARE_METRE,
+  GRAMS_PER_POUND,
+} from '../units/constants';
 import { convertRate } from '../units/rate-units';
 import { seedsPerWheelTurn } from '../units/calibration';
 import { seedForStrip, seedsToSow, type SeedSize } from '../units/seeding-rate';
@@ -22,17 +26,27 @@ export function calculateSeeding(input: SeedingCalcParsed): SeedingCalcResult {
       ? { thousandKernelWeightGrams: input.thousandKernelWeightG }
       : { seedsPerPound: input.seedsPerLb as number };
   const thousandKernelWeightG =
-    'thousandKernelWeightGrams' in size ? size.thousandKernelWeightGrams : (1000 * GRAMS_PER_POUND) / size.seedsPerPound;
+    'thousandKernelWeightGrams' in size
+      ? size.thousandKernelWeightGrams
+      : (1000 * GRAMS_PER_POUND) / size.seedsPerPound;
   const survival = (input.germinationPct / 100) * (input.emergencePct / 100);
   const context = { size, rowSpacingInches: input.rowSpacingIn };
 
   let rates;
   switch (input.unit) {
     case 'plants/ft2':
-      rates = convertRate(seedsToSow(input.value, input.germinationPct, input.emergencePct), 'seeds/ft2', context);
+      rates = convertRate(
+        seedsToSow(input.value, input.germinationPct, input.emergencePct),
+        'seeds/ft2',
+        context,
+      );
       break;
     case 'plants/m2':
-      rates = convertRate(seedsToSow(input.value, input.germinationPct, input.emergencePct), 'seeds/m2', context);
+      rates = convertRate(
+        seedsToSow(input.value, input.germinationPct, input.emergencePct),
+        'seeds/m2',
+        context,
+      );
       break;
     case 'plants/acre':
       rates = convertRate(
@@ -61,11 +75,16 @@ export function calculateSeeding(input: SeedingCalcParsed): SeedingCalcResult {
     thousandKernelWeightG,
     seedsPerLb: (1000 * GRAMS_PER_POUND) / thousandKernelWeightG,
     expectedPlantsPerSquareFoot: rates.seedsPerSquareFoot * survival,
-    expectedPlantsPerSquareMetre: rates.seedsPerSquareFoot * SQUARE_FEET_PER_SQUARE_METRE * survival,
+    expectedPlantsPerSquareMetre:
+      rates.seedsPerSquareFoot * SQUARE_FEET_PER_SQUARE_METRE * survival,
     perRow: strip ? { seeds: strip.seedsPerRow, grams: strip.gramsPerRow } : null,
     perStrip:
-      strip && input.rowsPerStrip !== undefined ? { seeds: strip.seedsPerStrip, grams: strip.gramsPerStrip } : null,
+      strip && input.rowsPerStrip !== undefined
+        ? { seeds: strip.seedsPerStrip, grams: strip.gramsPerStrip }
+        : null,
     seedsPerWheelTurn:
-      input.wheelCircumferenceFt !== undefined ? seedsPerWheelTurn(rates.seedsPerFootOfRow, input.wheelCircumferenceFt) : null,
+      input.wheelCircumferenceFt !== undefined
+        ? seedsPerWheelTurn(rates.seedsPerFootOfRow, input.wheelCircumferenceFt)
+        : null,
   };
 }

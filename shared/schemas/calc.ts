@@ -9,7 +9,11 @@ export const CalcUnitSchema = z.enum(CALC_UNITS);
 export type CalcUnit = z.infer<typeof CalcUnitSchema>;
 
 const optionalPositive = (max: number, unit: string) =>
-  z.number().positive('Must be above 0').max(max, `At most ${max.toLocaleString('en')} ${unit}`).optional();
+  z
+    .number()
+    .positive('Must be above 0')
+    .max(max, `At most ${max.toLocaleString('en')} ${unit}`)
+    .optional();
 
 export const SeedingCalcInputSchema = z
   .object({
@@ -19,8 +23,16 @@ export const SeedingCalcInputSchema = z
     seedsPerLb: optionalPositive(200_000, 'seeds/lb'),
     germinationPct: z.number().min(1, 'At least 1 %').max(100, 'At most 100 %').default(100),
     emergencePct: z.number().min(1, 'At least 1 %').max(100, 'At most 100 %').default(100),
-    rowSpacingIn: z.number({ error: 'Enter the row spacing' }).positive('Must be above 0').max(40, 'At most 40 in'),
-    rowsPerStrip: z.number().int('Use a whole number').min(1, 'At least 1 row').max(48, 'At most 48 rows').optional(),
+    rowSpacingIn: z
+      .number({ error: 'Enter the row spacing' })
+      .positive('Must be above 0')
+      .max(40, 'At most 40 in'),
+    rowsPerStrip: z
+      .number()
+      .int('Use a whole number')
+      .min(1, 'At least 1 row')
+      .max(48, 'At most 48 rows')
+      .optional(),
     stripLengthFt: optionalPositive(5000, 'ft'),
     wheelCircumferenceFt: optionalPositive(20, 'ft'),
   })
@@ -50,11 +62,28 @@ export const SeedingCalcResultSchema = z.object({
 export type SeedingCalcResult = z.infer<typeof SeedingCalcResultSchema>;
 
 export const CalibrationCalcInputSchema = z.object({
-  seedsCounted: z.number({ error: 'Enter the seeds you counted' }).int('Count whole seeds').min(0, 'At least 0').max(1_000_000),
-  wheelTurns: z.number({ error: 'Enter the wheel turns' }).int('Use a whole number of turns').min(1, 'At least 1 turn').max(200),
-  wheelCircumferenceFt: z.number({ error: 'Enter the wheel circumference' }).positive('Must be above 0').max(20, 'At most 20 ft'),
-  rowSpacingIn: z.number({ error: 'Enter the row spacing' }).positive('Must be above 0').max(40, 'At most 40 in'),
-  targetSeedsPerFootOfRow: z.number({ error: 'Enter the target' }).positive('Must be above 0').max(1000),
+  seedsCounted: z
+    .number({ error: 'Enter the seeds you counted' })
+    .int('Count whole seeds')
+    .min(0, 'At least 0')
+    .max(1_000_000),
+  wheelTurns: z
+    .number({ error: 'Enter the wheel turns' })
+    .int('Use a whole number of turns')
+    .min(1, 'At least 1 turn')
+    .max(200),
+  wheelCircumferenceFt: z
+    .number({ error: 'Enter the wheel circumference' })
+    .positive('Must be above 0')
+    .max(20, 'At most 20 ft'),
+  rowSpacingIn: z
+    .number({ error: 'Enter the row spacing' })
+    .positive('Must be above 0')
+    .max(40, 'At most 40 in'),
+  targetSeedsPerFootOfRow: z
+    .number({ error: 'Enter the target' })
+    .positive('Must be above 0')
+    .max(1000),
 });
 export type CalibrationCalcInput = z.infer<typeof CalibrationCalcInputSchema>;
 

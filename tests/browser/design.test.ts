@@ -4,7 +4,14 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ARTIFACTS, launchBrowser, screenshot, signInThroughUi, startTestServer, watchErrors } from '../helpers/browser';
+import {
+  ARTIFACTS,
+  launchBrowser,
+  screenshot,
+  signInThroughUi,
+  startTestServer,
+  watchErrors,
+} from '../helpers/browser';
 
 const COORDINATOR = 'coordinator@millbrook.example';
 // An invented demo grower no other test signs in as.
@@ -29,15 +36,22 @@ describe('trial design in the browser', () => {
     if (server) {
       // The test's own trial is removed so the demo network is left as it was.
       const db = server.testApp.dataSource;
-      await db.query('DELETE FROM sites WHERE trial_id IN (SELECT id FROM trials WHERE name = $1)', [trialName]);
+      await db.query(
+        'DELETE FROM sites WHERE trial_id IN (SELECT id FROM trials WHERE name = $1)',
+        [trialName],
+      );
       await db.query('DELETE FROM trials WHERE name = $1', [trialName]);
       await db.query('DELETE FROM invitations WHERE email = $1', [invitee]);
       await server.close();
     }
   });
 
-  async function openPage(width: number): Promise<{ page: Page; errors: string[]; close: () => Promise<void> }> {
-    const context = await browser.newContext({ viewport: { width, height: width < 500 ? 844 : 900 } });
+  async function openPage(
+    width: number,
+  ): Promise<{ page: Page; errors: string[]; close: () => Promise<void> }> {
+    const context = await browser.newContext({
+      viewport: { width, height: width < 500 ? 844 : 900 },
+    });
     const page = await context.newPage();
     return { page, errors: watchErrors(page), close: () => context.close() };
   }
@@ -49,7 +63,9 @@ describe('trial design in the browser', () => {
 
     // Step 1: crop and season.
     await page.getByLabel('Trial name').fill(trialName);
-    await page.getByLabel('The question').fill('Does half the usual oat rate yield as well on our farms?');
+    await page
+      .getByLabel('The question')
+      .fill('Does half the usual oat rate yield as well on our farms?');
     await page.getByLabel('Crop').selectOption('oats');
     await page.getByLabel('Season').fill('2027');
     await page.getByRole('button', { name: 'Save and continue' }).click();
@@ -119,12 +135,20 @@ describe('trial design in the browser', () => {
     packetPath = new URL(page.url()).pathname;
     await page.getByRole('heading', { name: '1. Strip map' }).waitFor();
     await expect(page.locator('svg[role="img"] g[data-rate]').count()).resolves.toBe(16);
-    for (const heading of ['2. Seed to weigh for each strip', '3. Check your seeder before you sow', '4. What to count, and when', '5. Recording sheet', '6. Work safely']) {
+    for (const heading of [
+      '2. Seed to weigh for each strip',
+      '3. Check your seeder before you sow',
+      '4. What to count, and when',
+      '5. Recording sheet',
+      '6. Work safely',
+    ]) {
       await expect(page.getByRole('heading', { name: heading }).isVisible()).resolves.toBe(true);
     }
     await expect(page.getByText(/Zadoks 12–13/).isVisible()).resolves.toBe(true);
     await screenshot(page, 'design-packet-1280');
-    await page.locator('figure.strip-map').screenshot({ path: path.join(ARTIFACTS, 'design-strip-map-1280.png') });
+    await page
+      .locator('figure.strip-map')
+      .screenshot({ path: path.join(ARTIFACTS, 'design-strip-map-1280.png') });
     await page.emulateMedia({ media: 'print' });
     for (const format of ['A4', 'Letter'] as const) {
       const pdf = await page.pdf({ format, printBackground: true });
@@ -142,22 +166,30 @@ describe('trial design in the browser', () => {
     await page.goto(`${server.baseUrl}${trialPath}`);
     await page.getByRole('heading', { name: /Sites \(2\)/ }).waitFor();
     await screenshot(page, 'design-trial-page-390');
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
+      390,
+    );
     await page.goto(`${server.baseUrl}${trialPath}/edit?step=4`);
     await page.getByRole('heading', { name: /Step 5 of 5/ }).waitFor();
     await screenshot(page, 'design-wizard-summary-390');
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
+      390,
+    );
     await page.goto(`${server.baseUrl}${packetPath}`);
     await page.getByRole('heading', { name: '1. Strip map' }).waitFor();
     await screenshot(page, 'design-packet-390');
-    await page.locator('figure.strip-map').screenshot({ path: path.join(ARTIFACTS, 'design-strip-map-390.png') });
+    await page
+      .locator('figure.strip-map')
+      .screenshot({ path: path.join(ARTIFACTS, 'design-strip-map-390.png') });
     const width = await page.evaluate(() => document.documentElement.scrollWidth);
     expect(width).toBeLessThanOrEqual(390);
 
     await page.goto(`${server.baseUrl}/calculator`);
     await page.getByLabel('Amount').fill('10');
     await page.getByLabel('Unit').selectOption('seeds/ft-row');
-    await expect(page.getByTestId('calc-results').textContent()).resolves.toMatch(/Seeds per ft²15/);
+    await expect(page.getByTestId('calc-results').textContent()).resolves.toMatch(
+      /Seeds per ft²15/,
+    );
     await screenshot(page, 'design-calculator-390');
     await page.goto(`${server.baseUrl}/calibrate`);
     await page.getByLabel('Wheel turns').fill('1');

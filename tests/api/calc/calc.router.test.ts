@@ -49,13 +49,24 @@ describe('public calculators', () => {
     });
 
     it('answers 400 naming thousandKernelWeightG when the seed lot is missing', async () => {
-      const res = await anonymous.post('/api/calc/seeding', { value: 90, unit: 'lb/acre', rowSpacingIn: 8 });
+      const res = await anonymous.post('/api/calc/seeding', {
+        value: 90,
+        unit: 'lb/acre',
+        rowSpacingIn: 8,
+      });
       expect(res.status).toBe(400);
-      expect(res.body.error.fields.thousandKernelWeightG).toMatch(/thousand-kernel weight or seeds per lb/);
+      expect(res.body.error.fields.thousandKernelWeightG).toMatch(
+        /thousand-kernel weight or seeds per lb/,
+      );
     });
 
     it('answers 400 naming value for a negative rate and unit for an unknown unit', async () => {
-      const res = await anonymous.post('/api/calc/seeding', { value: -1, unit: 'bushels', rowSpacingIn: 8, thousandKernelWeightG: 40 });
+      const res = await anonymous.post('/api/calc/seeding', {
+        value: -1,
+        unit: 'bushels',
+        rowSpacingIn: 8,
+        thousandKernelWeightG: 40,
+      });
       expect(res.status).toBe(400);
       expect(res.body.error.fields.value).toBeDefined();
       expect(res.body.error.fields.unit).toBeDefined();

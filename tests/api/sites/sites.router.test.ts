@@ -1,14 +1,25 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { rateTable } from '../../../shared/design/rate-table';
-import { buildNetwork, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
+import {
+  buildNetwork,
+  createTestApp,
+  signIn,
+  type BuiltNetwork,
+  type Client,
+  type TestApp,
+} from '../../helpers/app';
 import { buildActiveTrial, completeDesign, enrol } from '../trials/builders';
 
 interface LayoutBody {
   seed: string;
-  blocks: { block: number; strips: { stripId: string; position: number; rate: number; label: string; seedGrams: number }[] }[];
+  blocks: {
+    block: number;
+    strips: { stripId: string; position: number; rate: number; label: string; seedGrams: number }[];
+  }[];
 }
 
-const orders = (layout: LayoutBody) => layout.blocks.map((b) => b.strips.map((s) => s.label).join(','));
+const orders = (layout: LayoutBody) =>
+  layout.blocks.map((b) => b.strips.map((s) => s.label).join(','));
 
 describe('site design API', () => {
   let t: TestApp;
@@ -36,7 +47,10 @@ describe('site design API', () => {
 
   describe('GET /api/sites/:siteId', () => {
     it('gives the grower the site with its trial design, dates and flags', async () => {
-      const siteId = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower, fieldName: 'Detail field' });
+      const siteId = await enrol(coordinator, trialId, {
+        growerUserId: net.userIds.grower,
+        fieldName: 'Detail field',
+      });
       const res = await grower.get(`/api/sites/${siteId}`);
       expect(res.status).toBe(200);
       expect(res.body).toMatchObject({
@@ -50,7 +64,12 @@ describe('site design API', () => {
         isGrower: true,
         canCoordinate: false,
       });
-      expect(res.body.trial).toMatchObject({ name: 'Site tests', crop: 'oats', blocksPerSite: 4, rowSpacingIn: 8 });
+      expect(res.body.trial).toMatchObject({
+        name: 'Site tests',
+        crop: 'oats',
+        blocksPerSite: 4,
+        rowSpacingIn: 8,
+      });
       expect(res.body.trial.rateLevels).toHaveLength(4);
     });
 
@@ -65,7 +84,9 @@ describe('site design API', () => {
   describe('POST /api/sites/:siteId/randomize', () => {
     it('puts every rate once in every block and stores the seed', async () => {
       const siteId = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower });
-      const res = await coordinator.post(`/api/sites/${siteId}/randomize`, { seed: 'fixed-seed-1' });
+      const res = await coordinator.post(`/api/sites/${siteId}/randomize`, {
+        seed: 'fixed-seed-1',
+      });
       expect(res.status).toBe(200);
       const layout = res.body as LayoutBody;
       expect(layout.seed).toBe('fixed-seed-1');
@@ -76,35 +97,53 @@ describe('site design API', () => {
       }
       expect(new Set(orders(layout)).size).toBe(4);
       const detail = await coordinator.get(`/api/sites/${siteId}`);
-      expect(detail.body).toMatchObject({ randomized: true, randomizationSeed: 'fixed-seed-1', stripCount: 16 });
+      expect(detail.body).toMatchObject({
+        randomized: true,
+        randomizationSeed: 'fixed-seed-1',
+        stripCount: 16,
+      });
     });
 
     it('gives the same map for the same seed on another site', async () => {
       const a = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower });
       const b = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower2 });
-      const first = (await coordinator.post(`/api/sites/${a}/randomize`, { seed: 'same-seed' })).body as LayoutBody;
-      const second = (await coordinator.post(`/api/sites/${b}/randomize`, { seed: 'same-seed' })).body as LayoutBody;
+      const first = (await coordinator.post(`/api/sites/${a}/randomize`, { seed: 'same-seed' }))
+        .body as LayoutBody;
+      const second = (await coordinator.post(`/api/sites/${b}/randomize`, { seed: 'same-seed' }))
+        .body as LayoutBody;
       expect(orders(second)).toEqual(orders(first));
-      const third = (await coordinator.post(`/api/sites/${b}/randomize`, { seed: 'another-seed' })).body as LayoutBody;
+      const third = (await coordinator.post(`/api/sites/${b}/randomize`, { seed: 'another-seed' }))
+        .body as LayoutBody;
       expect(orders(third)).not.toEqual(orders(first));
     });
 
     it('replaces the strips when re-randomized before sowing', async () => {
       const siteId = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower });
-      const first = (await coordinator.post(`/api/sites/${siteId}/randomize`, {})).body as LayoutBody;
-      const second = (await coordinator.post(`/api/sites/${siteId}/randomize`, {})).body as LayoutBody;
+      const first = (await coordinator.post(`/api/sites/${siteId}/randomize`, {}))
+        .body as LayoutBody;
+      const second = (await coordinator.post(`/api/sites/${siteId}/randomize`, {}))
+        .body as LayoutBody;
       expect(second.seed).not.toBe(first.seed);
       const firstIds = new Set(first.blocks.flatMap((b) => b.strips.map((s) => s.stripId)));
-      expect(second.blocks.flatMap((b) => b.strips.map((s) => s.stripId)).some((id) => firstIds.has(id))).toBe(false);
-      const [{ n }] = await t.dataSource.query('SELECT count(*)::int AS n FROM strips WHERE site_id = $1', [siteId]);
+      expect(
+        second.blocks.flatMap((b) => b.strips.map((s) => s.stripId)).some((id) => firstIds.has(id)),
+      ).toBe(false);
+      const [{ n }] = await t.dataSource.query(
+        'SELECT count(*)::int AS n FROM strips WHERE site_id = $1',
+        [siteId],
+      );
       expect(n).toBe(16);
     });
 
     it('refuses with 409 once a sowing date is recorded', async () => {
       const siteId = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower });
       await coordinator.post(`/api/sites/${siteId}/randomize`, { seed: 'before-sowing' });
-      await t.dataSource.query(`UPDATE sites SET sowing_date = '2027-04-20' WHERE id = $1`, [siteId]);
-      const res = await coordinator.post(`/api/sites/${siteId}/randomize`, { seed: 'after-sowing' });
+      await t.dataSource.query(`UPDATE sites SET sowing_date = '2027-04-20' WHERE id = $1`, [
+        siteId,
+      ]);
+      const res = await coordinator.post(`/api/sites/${siteId}/randomize`, {
+        seed: 'after-sowing',
+      });
       expect(res.status).toBe(409);
       expect(res.body.error.message).toMatch(/sowing is already recorded/i);
       const layout = (await coordinator.get(`/api/sites/${siteId}/layout`)).body as LayoutBody;
@@ -113,17 +152,21 @@ describe('site design API', () => {
 
     it('refuses with 409 once a strip has data', async () => {
       const siteId = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower });
-      const layout = (await coordinator.post(`/api/sites/${siteId}/randomize`, {})).body as LayoutBody;
-      await t.dataSource.query('INSERT INTO observations (strip_id, stand_counts) VALUES ($1, $2)', [
-        layout.blocks[0]!.strips[0]!.stripId,
-        JSON.stringify([31, 29]),
-      ]);
+      const layout = (await coordinator.post(`/api/sites/${siteId}/randomize`, {}))
+        .body as LayoutBody;
+      await t.dataSource.query(
+        'INSERT INTO observations (strip_id, stand_counts) VALUES ($1, $2)',
+        [layout.blocks[0]!.strips[0]!.stripId, JSON.stringify([31, 29])],
+      );
       const res = await coordinator.post(`/api/sites/${siteId}/randomize`, {});
       expect(res.status).toBe(409);
     });
 
     it('refuses with 409 while the trial is a draft', async () => {
-      const draft = await coordinator.post('/api/trials', { networkId: net.networkId, ...completeDesign({ name: 'Still a draft' }) });
+      const draft = await coordinator.post('/api/trials', {
+        networkId: net.networkId,
+        ...completeDesign({ name: 'Still a draft' }),
+      });
       const siteId = await enrol(coordinator, draft.body.id, { growerUserId: net.userIds.grower });
       const res = await coordinator.post(`/api/sites/${siteId}/randomize`, {});
       expect(res.status).toBe(409);
@@ -132,7 +175,9 @@ describe('site design API', () => {
 
     it('answers 400 naming seed for an over-long seed', async () => {
       const siteId = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower });
-      const res = await coordinator.post(`/api/sites/${siteId}/randomize`, { seed: 'x'.repeat(65) });
+      const res = await coordinator.post(`/api/sites/${siteId}/randomize`, {
+        seed: 'x'.repeat(65),
+      });
       expect(res.status).toBe(400);
       expect(res.body.error.fields.seed).toBeDefined();
     });
@@ -167,7 +212,14 @@ describe('site design API', () => {
   });
 
   describe('POST /api/sites/:siteId/calibrations', () => {
-    const run = { wheelCircumferenceFt: 3, turns: 1, seedsCounted: 80, targetSeedsPerFt: 10, rowSpacingIn: 8, rateLabel: 'full' };
+    const run = {
+      wheelCircumferenceFt: 3,
+      turns: 1,
+      seedsCounted: 80,
+      targetSeedsPerFt: 10,
+      rowSpacingIn: 8,
+      rateLabel: 'full',
+    };
 
     it('stores the grower’s calibration with the percent of target', async () => {
       const siteId = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower });
@@ -175,7 +227,12 @@ describe('site design API', () => {
       expect(res.status).toBe(201);
       // 80 seeds counted against a target of 30 per 3-ft turn = 267 % (common practice, no published source).
       expect(res.body.calibrations).toHaveLength(1);
-      expect(res.body.calibrations[0]).toMatchObject({ seedsCounted: 80, deliveredSeedsPerFt: 26.67, percentOfTarget: 266.7, rateLabel: 'full' });
+      expect(res.body.calibrations[0]).toMatchObject({
+        seedsCounted: 80,
+        deliveredSeedsPerFt: 26.67,
+        percentOfTarget: 266.7,
+        rateLabel: 'full',
+      });
       const detail = await grower.get(`/api/sites/${siteId}`);
       expect(detail.body.calibrations).toHaveLength(1);
     });
@@ -201,12 +258,17 @@ describe('site design API', () => {
 
   describe('POST /api/sites/:siteId/packet/send', () => {
     it('e-mails the grower a link to the packet on PUBLIC_URL, in text and HTML', async () => {
-      const siteId = await enrol(coordinator, trialId, { growerUserId: net.userIds.grower2, fieldName: 'Packet field' });
+      const siteId = await enrol(coordinator, trialId, {
+        growerUserId: net.userIds.grower2,
+        fieldName: 'Packet field',
+      });
       await coordinator.post(`/api/sites/${siteId}/randomize`, {});
       const res = await coordinator.post(`/api/sites/${siteId}/packet/send`);
       expect(res.status).toBe(200);
       expect(res.body.sent).toEqual([{ siteId, to: net.emails.grower2 }]);
-      const mail = await t.mailCatcher.waitFor((m) => m.to.includes(net.emails.grower2) && m.subject.includes('Packet field'));
+      const mail = await t.mailCatcher.waitFor(
+        (m) => m.to.includes(net.emails.grower2) && m.subject.includes('Packet field'),
+      );
       expect(mail.subject).toMatch(/field packet is ready/i);
       expect(mail.text).toContain(`http://sheaf.test/sites/${siteId}/packet`);
       expect(mail.html).toContain(`href="http://sheaf.test/sites/${siteId}/packet"`);

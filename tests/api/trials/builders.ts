@@ -30,16 +30,32 @@ export function completeDesign(overrides: Record<string, unknown> = {}) {
 }
 
 /** Creates a trial with the full design and makes it active; returns its id. */
-export async function buildActiveTrial(coordinator: Client, networkId: string, overrides: Record<string, unknown> = {}): Promise<string> {
-  const created = await coordinator.post('/api/trials', { networkId, ...completeDesign(overrides) });
-  if (created.status !== 201) throw new Error(`create trial: ${created.status} ${JSON.stringify(created.body)}`);
+export async function buildActiveTrial(
+  coordinator: Client,
+  networkId: string,
+  overrides: Record<string, unknown> = {},
+): Promise<string> {
+  const created = await coordinator.post('/api/trials', {
+    networkId,
+    ...completeDesign(overrides),
+  });
+  if (created.status !== 201)
+    throw new Error(`create trial: ${created.status} ${JSON.stringify(created.body)}`);
   const activated = await coordinator.patch(`/api/trials/${created.body.id}`, { status: 'active' });
-  if (activated.status !== 200) throw new Error(`activate trial: ${activated.status} ${JSON.stringify(activated.body)}`);
+  if (activated.status !== 200)
+    throw new Error(`activate trial: ${activated.status} ${JSON.stringify(activated.body)}`);
   return created.body.id as string;
 }
 
-export async function enrol(coordinator: Client, trialId: string, body: Record<string, unknown>): Promise<string> {
-  const res = await coordinator.post(`/api/trials/${trialId}/sites`, { fieldName: 'North strip field', ...body });
+export async function enrol(
+  coordinator: Client,
+  trialId: string,
+  body: Record<string, unknown>,
+): Promise<string> {
+  const res = await coordinator.post(`/api/trials/${trialId}/sites`, {
+    fieldName: 'North strip field',
+    ...body,
+  });
   if (res.status !== 201) throw new Error(`enrol: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body.id as string;
 }

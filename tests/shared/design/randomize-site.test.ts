@@ -19,7 +19,9 @@ describe('randomizeSite', () => {
   });
 
   it('gives different maps for different sites (seeds)', () => {
-    const maps = new Set(Array.from({ length: 200 }, (_, i) => JSON.stringify(randomizeSite(RATES, 4, `site-${i}`))));
+    const maps = new Set(
+      Array.from({ length: 200 }, (_, i) => JSON.stringify(randomizeSite(RATES, 4, `site-${i}`))),
+    );
     // 24^4 ≈ 330,000 equally likely maps: 200 seeds should all differ.
     expect(maps.size).toBe(200);
   });
@@ -64,11 +66,15 @@ describe('randomizeSite', () => {
       }
       expect(counts.size).toBe(24);
       const expected = sites / 24;
-      const statistic = [...counts.values()].reduce((sum, observed) => sum + (observed - expected) ** 2 / expected, 0);
+      const statistic = [...counts.values()].reduce(
+        (sum, observed) => sum + (observed - expected) ** 2 / expected,
+        0,
+      );
       expect(statistic).toBeLessThan(35.172);
       expect(chiSquareUpperTailP(statistic, 23)).toBeGreaterThan(0.05);
       // And plainly: each rate sits in each position within 10 % of a quarter of the time.
-      for (const byRate of positionCounts) for (const n of byRate) expect(Math.abs(n / (sites / 4) - 1)).toBeLessThan(0.1);
+      for (const byRate of positionCounts)
+        for (const n of byRate) expect(Math.abs(n / (sites / 4) - 1)).toBeLessThan(0.1);
     }
   });
 

@@ -5,14 +5,22 @@ import { ButtonLink } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
-import { layoutQueryOptions, siteQueryOptions, useLayout, useSite } from '../../../features/packets/api/get-site';
+import {
+  layoutQueryOptions,
+  siteQueryOptions,
+  useLayout,
+  useSite,
+} from '../../../features/packets/api/get-site';
 import { StripMap } from '../../../features/packets/components/strip-map';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ params }: LoaderFunctionArgs) => {
-    await Promise.all([queryClient.ensureQueryData(siteQueryOptions(params.siteId!)), queryClient.ensureQueryData(layoutQueryOptions(params.siteId!))]);
+    await Promise.all([
+      queryClient.ensureQueryData(siteQueryOptions(params.siteId!)),
+      queryClient.ensureQueryData(layoutQueryOptions(params.siteId!)),
+    ]);
     return null;
   };
 
@@ -27,12 +35,18 @@ export default function SiteMapPage() {
         eyebrow={<Link to={`/trials/${site.data.trialId}`}>{site.data.trial.name}</Link>}
         title={`Strip map: ${site.data.fieldName}`}
         description={`${site.data.trial.blocksPerSite ?? '?'} blocks, each with every rate once in its own random order.`}
-        actions={site.data.randomized ? <ButtonLink to={`/sites/${site.data.id}/packet`}>Field packet</ButtonLink> : null}
+        actions={
+          site.data.randomized ? (
+            <ButtonLink to={`/sites/${site.data.id}/packet`}>Field packet</ButtonLink>
+          ) : null
+        }
       />
       {site.data.randomized ? (
         <StripMap layout={layout.data} title={`Strip map for ${site.data.fieldName}`} />
       ) : (
-        <EmptyState title="Not randomized yet">The coordinator draws the map from the trial page.</EmptyState>
+        <EmptyState title="Not randomized yet">
+          The coordinator draws the map from the trial page.
+        </EmptyState>
       )}
     </>
   );

@@ -4,14 +4,22 @@ import { Link, useParams, useRouteError, type LoaderFunctionArgs } from 'react-r
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { LoadingBlock } from '../../../components/ui/spinner';
-import { layoutQueryOptions, siteQueryOptions, useLayout, useSite } from '../../../features/packets/api/get-site';
+import {
+  layoutQueryOptions,
+  siteQueryOptions,
+  useLayout,
+  useSite,
+} from '../../../features/packets/api/get-site';
 import { FieldPacket } from '../../../features/packets/components/field-packet';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ params }: LoaderFunctionArgs) => {
-    await Promise.all([queryClient.ensureQueryData(siteQueryOptions(params.siteId!)), queryClient.ensureQueryData(layoutQueryOptions(params.siteId!))]);
+    await Promise.all([
+      queryClient.ensureQueryData(siteQueryOptions(params.siteId!)),
+      queryClient.ensureQueryData(layoutQueryOptions(params.siteId!)),
+    ]);
     return null;
   };
 
@@ -21,14 +29,22 @@ export default function PacketPage() {
   const layout = useLayout(siteId!);
   if (!site.data || !layout.data) return <LoadingBlock />;
   if (!site.data.randomized) {
-    return <EmptyState title="The packet is not ready yet">Your coordinator sends it once the strips of this site are randomized.</EmptyState>;
+    return (
+      <EmptyState title="The packet is not ready yet">
+        Your coordinator sends it once the strips of this site are randomized.
+      </EmptyState>
+    );
   }
   return (
     <>
       <div className="no-print mb-6 flex flex-wrap items-center justify-between gap-3 rounded-card border border-line bg-surface p-4 shadow-card">
         <p className="text-label font-normal text-ink-muted">
           Print it, or choose “Save as PDF” in the print dialog. A4 and Letter both fit.{' '}
-          <Link to={site.data.canCoordinate ? `/trials/${site.data.trialId}` : `/sites/${site.data.id}`}>Back</Link>
+          <Link
+            to={site.data.canCoordinate ? `/trials/${site.data.trialId}` : `/sites/${site.data.id}`}
+          >
+            Back
+          </Link>
         </p>
         <Button onClick={() => window.print()}>Print the packet</Button>
       </div>

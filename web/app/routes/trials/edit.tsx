@@ -1,6 +1,12 @@
 // `/trials/:trialId/edit`: the wizard on an existing trial (draft or active).
 import type { QueryClient } from '@tanstack/react-query';
-import { Link, useParams, useRouteError, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import {
+  Link,
+  useParams,
+  useRouteError,
+  useSearchParams,
+  type LoaderFunctionArgs,
+} from 'react-router-dom';
 import { Alert } from '../../../components/ui/alert';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
@@ -30,7 +36,12 @@ export default function EditTrialPage() {
         description={<Link to={`/trials/${trial.data.id}`}>Back to the trial page</Link>}
       />
       {trial.data.canEdit ? (
-        <TrialWizard key={trial.data.id} trial={trial.data} user={user} initialStep={Number(search.get('step') ?? 0)} />
+        <TrialWizard
+          key={trial.data.id}
+          trial={trial.data}
+          user={user}
+          initialStep={Number(search.get('step') ?? 0)}
+        />
       ) : (
         <Alert tone="info">Only the trial’s coordinators change its design.</Alert>
       )}

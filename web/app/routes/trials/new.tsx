@@ -22,7 +22,8 @@ export default function NewTrialPage() {
         <TrialWizard user={user} />
       ) : (
         <Alert tone="info" title="Coordinators design trials">
-          Ask your network’s coordinator to set up a trial; you will get a field packet once your site is enrolled.
+          Ask your network’s coordinator to set up a trial; you will get a field packet once your
+          site is enrolled.
         </Alert>
       )}
     </>

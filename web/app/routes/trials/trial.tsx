@@ -26,17 +26,25 @@ export const clientLoader =
     return null;
   };
 
-const linkClass = 'inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent hover:bg-accent-soft';
+const linkClass =
+  'inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent hover:bg-accent-soft';
 
 export default function TrialPage() {
   const { trialId } = useParams();
   const { data: trial } = useTrial(trialId!);
   const [enrolOpen, setEnrolOpen] = useState(false);
   const sendAll = useSendAllPackets(trialId!);
-  const table = useMemo(() => (trial ? rateTable({ ...trial, rateLevels: trial.rateLevels }) : []), [trial]);
+  const table = useMemo(
+    () => (trial ? rateTable({ ...trial, rateLevels: trial.rateLevels }) : []),
+    [trial],
+  );
   if (!trial) return <LoadingBlock />;
   const active = trial.status === 'active';
-  const crop = trial.crop ? (trial.crop === 'custom' ? (trial.customCrop?.name ?? 'Custom crop') : CROP_LABELS[trial.crop]) : 'Crop not chosen';
+  const crop = trial.crop
+    ? trial.crop === 'custom'
+      ? (trial.customCrop?.name ?? 'Custom crop')
+      : CROP_LABELS[trial.crop]
+    : 'Crop not chosen';
 
   return (
     <>
@@ -45,18 +53,27 @@ export default function TrialPage() {
         title={
           <span className="flex flex-wrap items-center gap-3">
             {trial.name}
-            <Badge tone={active ? 'field' : trial.status === 'draft' ? 'straw' : 'neutral'}>{trialStatusName(trial.status)}</Badge>
+            <Badge tone={active ? 'field' : trial.status === 'draft' ? 'straw' : 'neutral'}>
+              {trialStatusName(trial.status)}
+            </Badge>
           </span>
         }
         description={trial.question || undefined}
         actions={
           trial.canEdit ? (
             <>
-              <ButtonLink to={`/trials/${trial.id}/edit${trial.status === 'draft' ? '' : '?step=4'}`} variant={trial.status === 'draft' ? 'primary' : 'secondary'}>
+              <ButtonLink
+                to={`/trials/${trial.id}/edit${trial.status === 'draft' ? '' : '?step=4'}`}
+                variant={trial.status === 'draft' ? 'primary' : 'secondary'}
+              >
                 {trial.status === 'draft' ? 'Finish the design' : 'Edit design'}
               </ButtonLink>
               {active ? (
-                <Button variant="secondary" busy={sendAll.isPending} onClick={() => sendAll.mutate()}>
+                <Button
+                  variant="secondary"
+                  busy={sendAll.isPending}
+                  onClick={() => sendAll.mutate()}
+                >
                   E-mail all packets
                 </Button>
               ) : null}
@@ -66,12 +83,19 @@ export default function TrialPage() {
       />
       {trial.status === 'draft' && trial.canEdit ? (
         <Alert tone="caution" title="This trial is still a draft" className="mb-6">
-          Finish the design to send it to the field; sites can be enrolled now and randomized once it is active.
+          Finish the design to send it to the field; sites can be enrolled now and randomized once
+          it is active.
         </Alert>
       ) : null}
       {sendAll.isSuccess ? (
-        <Alert tone="success" className="mb-6" title={`Packet e-mail sent to ${sendAll.data.sent.length} grower${sendAll.data.sent.length === 1 ? '' : 's'}`}>
-          {sendAll.data.skipped.length > 0 ? `${sendAll.data.skipped.length} site(s) skipped: ${sendAll.data.skipped.map((s) => s.reason).join('; ')}.` : null}
+        <Alert
+          tone="success"
+          className="mb-6"
+          title={`Packet e-mail sent to ${sendAll.data.sent.length} grower${sendAll.data.sent.length === 1 ? '' : 's'}`}
+        >
+          {sendAll.data.skipped.length > 0
+            ? `${sendAll.data.skipped.length} site(s) skipped: ${sendAll.data.skipped.map((s) => s.reason).join('; ')}.`
+            : null}
         </Alert>
       ) : null}
       {sendAll.isError ? (
@@ -88,7 +112,11 @@ export default function TrialPage() {
                 Sites ({trial.sites.length})
               </h2>
               {trial.canEdit && trial.status !== 'closed' ? (
-                <Button variant={enrolOpen ? 'quiet' : 'secondary'} onClick={() => setEnrolOpen((o) => !o)} aria-expanded={enrolOpen}>
+                <Button
+                  variant={enrolOpen ? 'quiet' : 'secondary'}
+                  onClick={() => setEnrolOpen((o) => !o)}
+                  aria-expanded={enrolOpen}
+                >
                   {enrolOpen ? 'Close the form' : 'Enrol a site'}
                 </Button>
               ) : null}
@@ -98,7 +126,12 @@ export default function TrialPage() {
                 <EnrolSiteForm trialId={trial.id} />
               </Card>
             ) : null}
-            <SitesTable trialId={trial.id} sites={trial.sites} canEdit={trial.canEdit} active={active} />
+            <SitesTable
+              trialId={trial.id}
+              sites={trial.sites}
+              canEdit={trial.canEdit}
+              active={active}
+            />
           </section>
           <section aria-labelledby="rates-title" className="space-y-3">
             <h2 id="rates-title" className="text-heading text-ink">
@@ -107,7 +140,9 @@ export default function TrialPage() {
             {table.length > 0 ? (
               <RateSummaryTable rows={table} caption="Seed amounts per rate" />
             ) : (
-              <p className="text-ink-muted">The design is not complete enough for seed amounts yet.</p>
+              <p className="text-ink-muted">
+                The design is not complete enough for seed amounts yet.
+              </p>
             )}
           </section>
         </div>
@@ -116,13 +151,31 @@ export default function TrialPage() {
             <h2 className="text-heading text-ink">Design</h2>
             <dl className="mt-3 space-y-2 text-label">
               {[
-                ['Reference rate', trial.referenceRate ? `${trial.referenceRate} ${UNIT_LABELS[trial.referenceUnit ?? 'lb/acre']}` : '—'],
+                [
+                  'Reference rate',
+                  trial.referenceRate
+                    ? `${trial.referenceRate} ${UNIT_LABELS[trial.referenceUnit ?? 'lb/acre']}`
+                    : '—',
+                ],
                 ['Rates', trial.rateLevels.map((l) => `${l.label} ×${l.multiplier}`).join(', ')],
                 ['Blocks per site', trial.blocksPerSite ?? '—'],
-                ['Strip', trial.rowsPerStrip ? `${trial.rowsPerStrip} rows at ${trial.rowSpacingIn} in × ${trial.stripLengthFt} ft` : '—'],
+                [
+                  'Strip',
+                  trial.rowsPerStrip
+                    ? `${trial.rowsPerStrip} rows at ${trial.rowSpacingIn} in × ${trial.stripLengthFt} ft`
+                    : '—',
+                ],
                 ['Border rows', trial.borderRows ?? '—'],
-                ['Seed lot', trial.thousandKernelWeightG ? `${trial.thousandKernelWeightG} g/1,000 · ${trial.germinationPct ?? '?'} % germ. · ${trial.emergencePct ?? '?'} % emergence` : '—'],
-                ['Prices', `seed $${trial.seedPricePerLb ?? 0}/lb · grain $${trial.grainPricePerBu ?? 0}/bu`],
+                [
+                  'Seed lot',
+                  trial.thousandKernelWeightG
+                    ? `${trial.thousandKernelWeightG} g/1,000 · ${trial.germinationPct ?? '?'} % germ. · ${trial.emergencePct ?? '?'} % emergence`
+                    : '—',
+                ],
+                [
+                  'Prices',
+                  `seed $${trial.seedPricePerLb ?? 0}/lb · grain $${trial.grainPricePerBu ?? 0}/bu`,
+                ],
               ].map(([k, v]) => (
                 <div key={String(k)}>
                   <dt className="text-ink-muted">{k}</dt>
@@ -130,7 +183,11 @@ export default function TrialPage() {
                 </div>
               ))}
             </dl>
-            {trial.designLocked ? <p className="mt-3 text-caption text-ink-muted">Rates and blocks are fixed: a site is randomized.</p> : null}
+            {trial.designLocked ? (
+              <p className="mt-3 text-caption text-ink-muted">
+                Rates and blocks are fixed: a site is randomized.
+              </p>
+            ) : null}
           </Card>
           <Card>
             <h2 className="text-heading text-ink">During the season</h2>

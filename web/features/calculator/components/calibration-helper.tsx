@@ -11,7 +11,11 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { errorSummary } from '../../../lib/form-errors';
 import { cn } from '../../../lib/cn';
-import { useCalibrationSite, useMySitesForCalibration, useSaveCalibration } from '../api/calibration';
+import {
+  useCalibrationSite,
+  useMySitesForCalibration,
+  useSaveCalibration,
+} from '../api/calibration';
 
 const selectClass =
   'block min-h-11 w-full rounded-field border border-line-strong bg-surface px-3 text-body text-ink focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30';
@@ -24,8 +28,20 @@ function num(value: string): number | undefined {
   return Number.isFinite(n) ? n : Number.NaN;
 }
 
-export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser | null; initialSiteId: string | null }) {
-  const [v, setV] = useState({ wheelCircumferenceFt: '3', wheelTurns: '5', seedsCounted: '', rowSpacingIn: '8', targetSeedsPerFootOfRow: '10' });
+export function CalibrationHelper({
+  user,
+  initialSiteId,
+}: {
+  user: SessionUser | null;
+  initialSiteId: string | null;
+}) {
+  const [v, setV] = useState({
+    wheelCircumferenceFt: '3',
+    wheelTurns: '5',
+    seedsCounted: '',
+    rowSpacingIn: '8',
+    targetSeedsPerFootOfRow: '10',
+  });
   const [siteId, setSiteId] = useState<string | null>(initialSiteId);
   const [rateLabel, setRateLabel] = useState<string>('');
   const set = (patch: Partial<typeof v>) => setV((s) => ({ ...s, ...patch }));
@@ -33,16 +49,22 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
   const site = useCalibrationSite(siteId);
   const save = useSaveCalibration(siteId ?? '');
 
-  const targets = useMemo(() => (site.data ? rateTable({ ...site.data.trial, rateLevels: site.data.trial.rateLevels }) : []), [site.data]);
+  const targets = useMemo(
+    () =>
+      site.data ? rateTable({ ...site.data.trial, rateLevels: site.data.trial.rateLevels }) : [],
+    [site.data],
+  );
 
   useEffect(() => {
-    if (site.data?.trial.rowSpacingIn) setV((s) => ({ ...s, rowSpacingIn: String(site.data.trial.rowSpacingIn) }));
+    if (site.data?.trial.rowSpacingIn)
+      setV((s) => ({ ...s, rowSpacingIn: String(site.data.trial.rowSpacingIn) }));
   }, [site.data]);
 
   function chooseRate(label: string) {
     setRateLabel(label);
     const row = targets.find((r) => r.label === label);
-    if (row) set({ targetSeedsPerFootOfRow: String(Math.round(row.seedsPerFootOfRow * 100) / 100) });
+    if (row)
+      set({ targetSeedsPerFootOfRow: String(Math.round(row.seedsPerFootOfRow * 100) / 100) });
   }
 
   const { result, errors } = useMemo(() => {
@@ -56,7 +78,12 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
     if (!parsed.success) {
       const fields: Record<string, string> = {};
       for (const issue of parsed.error.issues) {
-        fields[String(issue.path[0])] ??= issue.code === 'invalid_type' ? (issue.input === undefined ? 'Fill this in' : 'Enter a number') : issue.message;
+        fields[String(issue.path[0])] ??=
+          issue.code === 'invalid_type'
+            ? issue.input === undefined
+              ? 'Fill this in'
+              : 'Enter a number'
+            : issue.message;
       }
       return { result: null, errors: fields };
     }
@@ -67,7 +94,10 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
       rowSpacingInches: parsed.data.rowSpacingIn,
       targetSeedsPerFootOfRow: parsed.data.targetSeedsPerFootOfRow,
     });
-    return { result: { ...r, targetForRun: r.targetSeedsPerTurn * parsed.data.wheelTurns }, errors: {} as Record<string, string> };
+    return {
+      result: { ...r, targetForRun: r.targetSeedsPerTurn * parsed.data.wheelTurns },
+      errors: {} as Record<string, string>,
+    };
   }, [v]);
 
   const onTarget = result ? Math.abs(result.percentOfTarget - 100) <= 5 : false;
@@ -75,14 +105,23 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
 
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-2">
-      <form className="space-y-5" onSubmit={(e) => e.preventDefault()} aria-label="Calibration inputs">
+      <form
+        className="space-y-5"
+        onSubmit={(e) => e.preventDefault()}
+        aria-label="Calibration inputs"
+      >
         {user && growerSites.length > 0 ? (
           <div className="grid gap-3 rounded-card border border-line bg-surface p-4 sm:grid-cols-2">
             <div className="flex flex-col gap-1.5">
               <label htmlFor="cal-site" className="text-label text-ink">
                 Your site
               </label>
-              <select id="cal-site" className={selectClass} value={siteId ?? ''} onChange={(e) => setSiteId(e.target.value || null)}>
+              <select
+                id="cal-site"
+                className={selectClass}
+                value={siteId ?? ''}
+                onChange={(e) => setSiteId(e.target.value || null)}
+              >
                 <option value="">No site (just calculate)</option>
                 {growerSites.map((s) => (
                   <option key={s.id} value={s.id}>
@@ -96,7 +135,12 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
                 <label htmlFor="cal-rate" className="text-label text-ink">
                   Rate you are setting
                 </label>
-                <select id="cal-rate" className={selectClass} value={rateLabel} onChange={(e) => chooseRate(e.target.value)}>
+                <select
+                  id="cal-rate"
+                  className={selectClass}
+                  value={rateLabel}
+                  onChange={(e) => chooseRate(e.target.value)}
+                >
                   <option value="">Choose a rate…</option>
                   {targets.map((r) => (
                     <option key={r.label} value={r.label}>
@@ -110,14 +154,42 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
         ) : null}
         <ol className="list-decimal space-y-1 pl-5 text-label font-normal text-ink-muted">
           <li>Roll the drive wheel one turn on the floor and measure how far it went.</li>
-          <li>Lift the seeder, put a bowl under one outlet, and turn the wheel a set number of times.</li>
+          <li>
+            Lift the seeder, put a bowl under one outlet, and turn the wheel a set number of times.
+          </li>
           <li>Count the seeds in the bowl and enter them below.</li>
         </ol>
         <div className="grid grid-cols-2 gap-3">
-          <TextField label="Wheel circumference" suffix="ft" inputMode="decimal" value={v.wheelCircumferenceFt} onChange={(e) => set({ wheelCircumferenceFt: e.target.value })} error={errors.wheelCircumferenceFt} />
-          <TextField label="Wheel turns" inputMode="numeric" value={v.wheelTurns} onChange={(e) => set({ wheelTurns: e.target.value })} error={errors.wheelTurns} />
-          <TextField label="Seeds counted" inputMode="numeric" value={v.seedsCounted} onChange={(e) => set({ seedsCounted: e.target.value })} error={errors.seedsCounted} />
-          <TextField label="Row spacing" suffix="in" inputMode="decimal" value={v.rowSpacingIn} onChange={(e) => set({ rowSpacingIn: e.target.value })} error={errors.rowSpacingIn} />
+          <TextField
+            label="Wheel circumference"
+            suffix="ft"
+            inputMode="decimal"
+            value={v.wheelCircumferenceFt}
+            onChange={(e) => set({ wheelCircumferenceFt: e.target.value })}
+            error={errors.wheelCircumferenceFt}
+          />
+          <TextField
+            label="Wheel turns"
+            inputMode="numeric"
+            value={v.wheelTurns}
+            onChange={(e) => set({ wheelTurns: e.target.value })}
+            error={errors.wheelTurns}
+          />
+          <TextField
+            label="Seeds counted"
+            inputMode="numeric"
+            value={v.seedsCounted}
+            onChange={(e) => set({ seedsCounted: e.target.value })}
+            error={errors.seedsCounted}
+          />
+          <TextField
+            label="Row spacing"
+            suffix="in"
+            inputMode="decimal"
+            value={v.rowSpacingIn}
+            onChange={(e) => set({ rowSpacingIn: e.target.value })}
+            error={errors.rowSpacingIn}
+          />
           <TextField
             label="Target"
             suffix="seeds/ft"
@@ -137,8 +209,15 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
         </h2>
         {result ? (
           <>
-            <div className={cn('rounded-card border-2 p-5', onTarget ? 'border-accent bg-accent-soft' : 'border-caution bg-caution-soft')}>
-              <p className="text-caption font-semibold uppercase tracking-wide text-ink-muted">Percent of target</p>
+            <div
+              className={cn(
+                'rounded-card border-2 p-5',
+                onTarget ? 'border-accent bg-accent-soft' : 'border-caution bg-caution-soft',
+              )}
+            >
+              <p className="text-caption font-semibold uppercase tracking-wide text-ink-muted">
+                Percent of target
+              </p>
               <p className="figures text-display text-ink" data-testid="percent-of-target">
                 {Math.round(result.percentOfTarget)} %
               </p>
@@ -147,18 +226,24 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
             <dl className="grid grid-cols-2 gap-3 text-label">
               <div className="rounded-field border border-line bg-surface p-3">
                 <dt className="text-ink-muted">Delivered per foot of row</dt>
-                <dd className="figures text-heading">{f1.format(result.deliveredSeedsPerFootOfRow)}</dd>
+                <dd className="figures text-heading">
+                  {f1.format(result.deliveredSeedsPerFootOfRow)}
+                </dd>
               </div>
               <div className="rounded-field border border-line bg-surface p-3">
                 <dt className="text-ink-muted">Delivered per ft²</dt>
-                <dd className="figures text-heading">{f1.format(result.deliveredSeedsPerSquareFoot)}</dd>
+                <dd className="figures text-heading">
+                  {f1.format(result.deliveredSeedsPerSquareFoot)}
+                </dd>
               </div>
               <div className="rounded-field border border-line bg-surface p-3">
                 <dt className="text-ink-muted">Target per turn</dt>
                 <dd className="figures text-heading">{f1.format(result.targetSeedsPerTurn)}</dd>
               </div>
               <div className="rounded-field border border-line bg-surface p-3">
-                <dt className="text-ink-muted">Target for {v.wheelTurns} turn{v.wheelTurns.trim() === '1' ? '' : 's'}</dt>
+                <dt className="text-ink-muted">
+                  Target for {v.wheelTurns} turn{v.wheelTurns.trim() === '1' ? '' : 's'}
+                </dt>
                 <dd className="figures text-heading">{f1.format(result.targetForRun)}</dd>
               </div>
             </dl>
@@ -180,17 +265,24 @@ export function CalibrationHelper({ user, initialSiteId }: { user: SessionUser |
                 >
                   Save this check to {site.data.fieldName}
                 </Button>
-                {save.isSuccess ? <Alert tone="success">Saved. {save.data.calibrations.length} check(s) on record for this site.</Alert> : null}
+                {save.isSuccess ? (
+                  <Alert tone="success">
+                    Saved. {save.data.calibrations.length} check(s) on record for this site.
+                  </Alert>
+                ) : null}
                 {save.isError ? <Alert tone="danger">{errorSummary(save.error)}</Alert> : null}
               </div>
             ) : !user ? (
               <p className="text-caption text-ink-muted">
-                Growers in a trial can <Link to="/sign-in?next=/calibrate">sign in</Link> to keep this check with their site.
+                Growers in a trial can <Link to="/sign-in?next=/calibrate">sign in</Link> to keep
+                this check with their site.
               </p>
             ) : null}
           </>
         ) : (
-          <p className="rounded-field border border-dashed border-line-strong bg-sunken p-4 text-ink-muted">Enter the seeds you counted to see how close the seeder is.</p>
+          <p className="rounded-field border border-dashed border-line-strong bg-sunken p-4 text-ink-muted">
+            Enter the seeds you counted to see how close the seeder is.
+          </p>
         )}
       </section>
     </div>

@@ -65,14 +65,22 @@ export function SeedCalculator() {
       const fields: Record<string, string> = {};
       for (const issue of parsed.error.issues) {
         const key = String(issue.path[0] ?? 'form');
-        fields[key] ??= issue.code === 'invalid_type' ? (issue.input === undefined ? 'Fill this in' : 'Enter a number') : issue.message;
+        fields[key] ??=
+          issue.code === 'invalid_type'
+            ? issue.input === undefined
+              ? 'Fill this in'
+              : 'Enter a number'
+            : issue.message;
       }
       return { result: null, errors: fields };
     }
     try {
       return { result: calculateSeeding(parsed.data), errors: {} as Record<string, string> };
     } catch (error) {
-      return { result: null, errors: { form: error instanceof Error ? error.message : 'Cannot compute' } };
+      return {
+        result: null,
+        errors: { form: error instanceof Error ? error.message : 'Cannot compute' },
+      };
     }
   }, [v]);
 
@@ -81,15 +89,30 @@ export function SeedCalculator() {
 
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
-      <form className="space-y-5" onSubmit={(e) => e.preventDefault()} aria-label="Seed calculator inputs">
+      <form
+        className="space-y-5"
+        onSubmit={(e) => e.preventDefault()}
+        aria-label="Seed calculator inputs"
+      >
         <fieldset className="grid grid-cols-[1fr_1.3fr] gap-3">
           <legend className="mb-1.5 text-label text-ink">Rate</legend>
-          <TextField label="Amount" inputMode="decimal" value={v.value} onChange={(e) => set({ value: e.target.value })} error={errors.value} />
+          <TextField
+            label="Amount"
+            inputMode="decimal"
+            value={v.value}
+            onChange={(e) => set({ value: e.target.value })}
+            error={errors.value}
+          />
           <div className="flex flex-col gap-1.5">
             <label htmlFor="calc-unit" className="text-label text-ink">
               Unit
             </label>
-            <select id="calc-unit" className={selectClass} value={v.unit} onChange={(e) => set({ unit: e.target.value as CalcUnit })}>
+            <select
+              id="calc-unit"
+              className={selectClass}
+              value={v.unit}
+              onChange={(e) => set({ unit: e.target.value as CalcUnit })}
+            >
               {CALC_UNITS.map((u) => (
                 <option key={u} value={u}>
                   {UNIT_NAMES[u]}
@@ -108,27 +131,87 @@ export function SeedCalculator() {
               ] as const
             ).map(([mode, label]) => (
               <label key={mode} className="flex min-h-11 items-center gap-2 text-label">
-                <input type="radio" name="calc-size" checked={v.sizeMode === mode} onChange={() => set({ sizeMode: mode })} className="size-5 accent-[var(--sheaf-accent)]" />
+                <input
+                  type="radio"
+                  name="calc-size"
+                  checked={v.sizeMode === mode}
+                  onChange={() => set({ sizeMode: mode })}
+                  className="size-5 accent-[var(--sheaf-accent)]"
+                />
                 {label}
               </label>
             ))}
           </div>
           {v.sizeMode === 'tkw' ? (
-            <TextField label="Thousand-kernel weight" suffix="g" inputMode="decimal" value={v.tkw} onChange={(e) => set({ tkw: e.target.value })} error={sizeError} />
+            <TextField
+              label="Thousand-kernel weight"
+              suffix="g"
+              inputMode="decimal"
+              value={v.tkw}
+              onChange={(e) => set({ tkw: e.target.value })}
+              error={sizeError}
+            />
           ) : (
-            <TextField label="Seeds per lb" inputMode="numeric" value={v.seedsPerLb} onChange={(e) => set({ seedsPerLb: e.target.value })} error={sizeError} />
+            <TextField
+              label="Seeds per lb"
+              inputMode="numeric"
+              value={v.seedsPerLb}
+              onChange={(e) => set({ seedsPerLb: e.target.value })}
+              error={sizeError}
+            />
           )}
           <div className="grid grid-cols-2 gap-3">
-            <TextField label="Germination" suffix="%" inputMode="decimal" value={v.germinationPct} onChange={(e) => set({ germinationPct: e.target.value })} error={errors.germinationPct} />
-            <TextField label="Expected emergence" suffix="%" inputMode="decimal" value={v.emergencePct} onChange={(e) => set({ emergencePct: e.target.value })} error={errors.emergencePct} />
+            <TextField
+              label="Germination"
+              suffix="%"
+              inputMode="decimal"
+              value={v.germinationPct}
+              onChange={(e) => set({ germinationPct: e.target.value })}
+              error={errors.germinationPct}
+            />
+            <TextField
+              label="Expected emergence"
+              suffix="%"
+              inputMode="decimal"
+              value={v.emergencePct}
+              onChange={(e) => set({ emergencePct: e.target.value })}
+              error={errors.emergencePct}
+            />
           </div>
         </fieldset>
         <fieldset className="grid grid-cols-2 gap-3">
           <legend className="mb-1.5 text-label text-ink">Rows, strip and seeder</legend>
-          <TextField label="Row spacing" suffix="in" inputMode="decimal" value={v.rowSpacingIn} onChange={(e) => set({ rowSpacingIn: e.target.value })} error={errors.rowSpacingIn} />
-          <TextField label="Rows per strip" inputMode="numeric" value={v.rowsPerStrip} onChange={(e) => set({ rowsPerStrip: e.target.value })} error={errors.rowsPerStrip} />
-          <TextField label="Strip length" suffix="ft" inputMode="decimal" value={v.stripLengthFt} onChange={(e) => set({ stripLengthFt: e.target.value })} error={errors.stripLengthFt} />
-          <TextField label="Wheel circumference" suffix="ft" inputMode="decimal" value={v.wheelCircumferenceFt} onChange={(e) => set({ wheelCircumferenceFt: e.target.value })} error={errors.wheelCircumferenceFt} />
+          <TextField
+            label="Row spacing"
+            suffix="in"
+            inputMode="decimal"
+            value={v.rowSpacingIn}
+            onChange={(e) => set({ rowSpacingIn: e.target.value })}
+            error={errors.rowSpacingIn}
+          />
+          <TextField
+            label="Rows per strip"
+            inputMode="numeric"
+            value={v.rowsPerStrip}
+            onChange={(e) => set({ rowsPerStrip: e.target.value })}
+            error={errors.rowsPerStrip}
+          />
+          <TextField
+            label="Strip length"
+            suffix="ft"
+            inputMode="decimal"
+            value={v.stripLengthFt}
+            onChange={(e) => set({ stripLengthFt: e.target.value })}
+            error={errors.stripLengthFt}
+          />
+          <TextField
+            label="Wheel circumference"
+            suffix="ft"
+            inputMode="decimal"
+            value={v.wheelCircumferenceFt}
+            onChange={(e) => set({ wheelCircumferenceFt: e.target.value })}
+            error={errors.wheelCircumferenceFt}
+          />
         </fieldset>
       </form>
 
@@ -141,7 +224,11 @@ export function SeedCalculator() {
             <dl className="grid grid-cols-2 gap-3" data-testid="calc-results">
               {(
                 [
-                  ['Seeds per foot of row', f1.format(result.seedsPerFootOfRow), v.unit === 'seeds/ft-row'],
+                  [
+                    'Seeds per foot of row',
+                    f1.format(result.seedsPerFootOfRow),
+                    v.unit === 'seeds/ft-row',
+                  ],
                   ['Seeds per ft²', f1.format(result.seedsPerSquareFoot), v.unit === 'seeds/ft2'],
                   ['Seeds per m²', f0.format(result.seedsPerSquareMetre), v.unit === 'seeds/m2'],
                   ['lb per acre', f1.format(result.poundsPerAcre), v.unit === 'lb/acre'],
@@ -149,7 +236,13 @@ export function SeedCalculator() {
                   ['Seeds per acre', f0.format(result.seedsPerAcre), false],
                 ] as const
               ).map(([label, value, given]) => (
-                <div key={label} className={cn('rounded-field border p-3', given ? 'border-accent bg-accent-soft' : 'border-line bg-surface')}>
+                <div
+                  key={label}
+                  className={cn(
+                    'rounded-field border p-3',
+                    given ? 'border-accent bg-accent-soft' : 'border-line bg-surface',
+                  )}
+                >
                   <dt className="text-caption text-ink-muted">{label}</dt>
                   <dd className="figures text-heading text-ink">{value}</dd>
                 </div>
@@ -158,26 +251,38 @@ export function SeedCalculator() {
             <dl className="grid gap-2 rounded-card border border-line bg-surface p-4 text-label sm:grid-cols-2">
               <div>
                 <dt className="text-ink-muted">Per row of the strip</dt>
-                <dd className="figures font-semibold">{result.perRow ? `${f1.format(result.perRow.grams)} g · ${f0.format(result.perRow.seeds)} seeds` : '—'}</dd>
+                <dd className="figures font-semibold">
+                  {result.perRow
+                    ? `${f1.format(result.perRow.grams)} g · ${f0.format(result.perRow.seeds)} seeds`
+                    : '—'}
+                </dd>
               </div>
               <div>
                 <dt className="text-ink-muted">Per strip</dt>
-                <dd className="figures font-semibold">{result.perStrip ? `${f1.format(result.perStrip.grams)} g · ${f0.format(result.perStrip.seeds)} seeds` : '—'}</dd>
+                <dd className="figures font-semibold">
+                  {result.perStrip
+                    ? `${f1.format(result.perStrip.grams)} g · ${f0.format(result.perStrip.seeds)} seeds`
+                    : '—'}
+                </dd>
               </div>
               <div>
                 <dt className="text-ink-muted">Seeds per wheel turn</dt>
-                <dd className="figures font-semibold">{result.seedsPerWheelTurn === null ? '—' : f1.format(result.seedsPerWheelTurn)}</dd>
+                <dd className="figures font-semibold">
+                  {result.seedsPerWheelTurn === null ? '—' : f1.format(result.seedsPerWheelTurn)}
+                </dd>
               </div>
               <div>
                 <dt className="text-ink-muted">Expected plants</dt>
                 <dd className="figures font-semibold">
-                  {f1.format(result.expectedPlantsPerSquareFoot)} /ft² · {f0.format(result.expectedPlantsPerSquareMetre)} /m²
+                  {f1.format(result.expectedPlantsPerSquareFoot)} /ft² ·{' '}
+                  {f0.format(result.expectedPlantsPerSquareMetre)} /m²
                 </dd>
               </div>
               <div>
                 <dt className="text-ink-muted">Seed size</dt>
                 <dd className="figures font-semibold">
-                  {f1.format(result.thousandKernelWeightG)} g/1,000 · {f0.format(result.seedsPerLb)} seeds/lb
+                  {f1.format(result.thousandKernelWeightG)} g/1,000 · {f0.format(result.seedsPerLb)}{' '}
+                  seeds/lb
                 </dd>
               </div>
             </dl>

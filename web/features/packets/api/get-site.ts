@@ -7,7 +7,8 @@ import { api } from '../../../lib/api-client';
 export function siteQueryOptions(siteId: string) {
   return queryOptions({
     queryKey: ['sites', siteId, 'detail'],
-    queryFn: async ({ signal }) => SiteDetailSchema.parse(await api.get(`/api/sites/${siteId}`, { signal })),
+    queryFn: async ({ signal }) =>
+      SiteDetailSchema.parse(await api.get(`/api/sites/${siteId}`, { signal })),
   });
 }
 
@@ -18,7 +19,8 @@ export function useSite(siteId: string) {
 export function layoutQueryOptions(siteId: string) {
   return queryOptions({
     queryKey: ['sites', siteId, 'layout'],
-    queryFn: async ({ signal }) => LayoutSchema.parse(await api.get(`/api/sites/${siteId}/layout`, { signal })),
+    queryFn: async ({ signal }) =>
+      LayoutSchema.parse(await api.get(`/api/sites/${siteId}/layout`, { signal })),
   });
 }
 

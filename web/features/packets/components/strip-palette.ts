@@ -1,7 +1,16 @@
 // Sheaf's strip-map palette: one sequential ramp from pale straw to deep field green whose
 // lightness falls steadily, so heavier rates read darker in colour, for colour-blind readers
 // and in black-and-white print alike. Each rate also gets its own hatch density.
-const RAMP = ['#f7efd2', '#e6d28e', '#c9b35a', '#9c9a45', '#5f763a', '#456638', '#2a4a2b', '#132b1b'] as const;
+const RAMP = [
+  '#f7efd2',
+  '#e6d28e',
+  '#c9b35a',
+  '#9c9a45',
+  '#5f763a',
+  '#456638',
+  '#2a4a2b',
+  '#132b1b',
+] as const;
 /** Relative luminance above which dark text reads better than white. */
 const LIGHT = new Set<string>(['#f7efd2', '#e6d28e', '#c9b35a', '#9c9a45']);
 

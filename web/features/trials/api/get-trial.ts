@@ -7,7 +7,8 @@ import { api } from '../../../lib/api-client';
 export function trialQueryOptions(trialId: string) {
   return queryOptions({
     queryKey: ['trials', 'detail', trialId],
-    queryFn: async ({ signal }) => TrialDetailSchema.parse(await api.get(`/api/trials/${trialId}`, { signal })),
+    queryFn: async ({ signal }) =>
+      TrialDetailSchema.parse(await api.get(`/api/trials/${trialId}`, { signal })),
   });
 }
 
@@ -18,7 +19,10 @@ export function useTrial(trialId: string) {
 export function trialPeopleQueryOptions(trialId: string) {
   return queryOptions({
     queryKey: ['trials', 'people', trialId],
-    queryFn: async ({ signal }) => z.array(NetworkPersonSchema).parse(await api.get(`/api/trials/${trialId}/people`, { signal })),
+    queryFn: async ({ signal }) =>
+      z
+        .array(NetworkPersonSchema)
+        .parse(await api.get(`/api/trials/${trialId}/people`, { signal })),
   });
 }
 

@@ -1,14 +1,19 @@
 // Writes for trial design: create and update a trial, enrol a site, randomize, send packets.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateSiteInput, PacketSendResult } from '../../../../shared/schemas/site';
-import { TrialDetailSchema, type CreateTrialInput, type UpdateTrialInput } from '../../../../shared/schemas/trial';
+import {
+  TrialDetailSchema,
+  type CreateTrialInput,
+  type UpdateTrialInput,
+} from '../../../../shared/schemas/trial';
 import type { Layout } from '../../../../shared/schemas/layout';
 import { api } from '../../../lib/api-client';
 
 export function useCreateTrial() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: CreateTrialInput) => TrialDetailSchema.parse(await api.post('/api/trials', input)),
+    mutationFn: async (input: CreateTrialInput) =>
+      TrialDetailSchema.parse(await api.post('/api/trials', input)),
     onSuccess: (trial) => {
       queryClient.setQueryData(['trials', 'detail', trial.id], trial);
       void queryClient.invalidateQueries({ queryKey: ['trials', 'list'] });
@@ -19,7 +24,8 @@ export function useCreateTrial() {
 export function useUpdateTrial(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: UpdateTrialInput) => TrialDetailSchema.parse(await api.patch(`/api/trials/${trialId}`, input)),
+    mutationFn: async (input: UpdateTrialInput) =>
+      TrialDetailSchema.parse(await api.patch(`/api/trials/${trialId}`, input)),
     onSuccess: (trial) => {
       queryClient.setQueryData(['trials', 'detail', trial.id], trial);
       void queryClient.invalidateQueries({ queryKey: ['trials', 'list'] });
@@ -30,7 +36,8 @@ export function useUpdateTrial(trialId: string) {
 export function useEnrolSite(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: CreateSiteInput) => api.post<{ id: string; fieldName: string }>(`/api/trials/${trialId}/sites`, input),
+    mutationFn: (input: CreateSiteInput) =>
+      api.post<{ id: string; fieldName: string }>(`/api/trials/${trialId}/sites`, input),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: ['trials'] }),
   });
 }
@@ -39,7 +46,10 @@ export function useRandomizeSite(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: { siteId: string; seed?: string }) =>
-      api.post<Layout>(`/api/sites/${input.siteId}/randomize`, input.seed ? { seed: input.seed } : {}),
+      api.post<Layout>(
+        `/api/sites/${input.siteId}/randomize`,
+        input.seed ? { seed: input.seed } : {},
+      ),
     onSuccess: (_layout, input) => {
       void queryClient.invalidateQueries({ queryKey: ['trials', 'detail', trialId] });
       void queryClient.invalidateQueries({ queryKey: ['sites', input.siteId] });

@@ -9,7 +9,15 @@ import { useTrialPeople } from '../api/get-trial';
 import { useEnrolSite } from '../api/trial-mutations';
 import { SelectField, TextAreaField } from './fields';
 
-const EMPTY = { growerUserId: '', growerEmail: '', fieldName: '', soil: '', previousCrop: '', fertility: '', notes: '' };
+const EMPTY = {
+  growerUserId: '',
+  growerEmail: '',
+  fieldName: '',
+  soil: '',
+  previousCrop: '',
+  fertility: '',
+  notes: '',
+};
 
 export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: () => void }) {
   const people = useTrialPeople(trialId);
@@ -28,12 +36,15 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
       previousCrop: form.previousCrop,
       fertility: form.fertility,
       notes: form.notes,
-      ...(mode === 'member' ? { growerUserId: form.growerUserId || undefined } : { growerEmail: form.growerEmail || undefined }),
+      ...(mode === 'member'
+        ? { growerUserId: form.growerUserId || undefined }
+        : { growerEmail: form.growerEmail || undefined }),
     };
     const parsed = CreateSiteInputSchema.safeParse(candidate);
     if (!parsed.success) {
       const fields: Record<string, string> = {};
-      for (const issue of parsed.error.issues) fields[String(issue.path[0] ?? 'form')] ??= issue.message;
+      for (const issue of parsed.error.issues)
+        fields[String(issue.path[0] ?? 'form')] ??= issue.message;
       if (mode === 'member' && fields.growerEmail) fields.growerUserId = 'Choose the grower';
       setErrors(fields);
       return;
@@ -57,7 +68,9 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
 
   return (
     <form onSubmit={submit} noValidate className="space-y-4" aria-label="Enrol a site">
-      {enrol.isError && Object.keys(errors).length === 0 ? <Alert tone="danger">{errorSummary(enrol.error)}</Alert> : null}
+      {enrol.isError && Object.keys(errors).length === 0 ? (
+        <Alert tone="danger">{errorSummary(enrol.error)}</Alert>
+      ) : null}
       {done ? <Alert tone="success">{done}</Alert> : null}
       <fieldset className="flex flex-wrap gap-4">
         <legend className="mb-2 text-label text-ink">Grower</legend>
@@ -68,14 +81,25 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
           ] as const
         ).map(([value, label]) => (
           <label key={value} className="flex min-h-11 items-center gap-2 text-label">
-            <input type="radio" name="grower-mode" checked={mode === value} onChange={() => setMode(value)} className="size-5 accent-[var(--sheaf-accent)]" />
+            <input
+              type="radio"
+              name="grower-mode"
+              checked={mode === value}
+              onChange={() => setMode(value)}
+              className="size-5 accent-[var(--sheaf-accent)]"
+            />
             {label}
           </label>
         ))}
       </fieldset>
       <div className="grid gap-4 sm:grid-cols-2">
         {mode === 'member' ? (
-          <SelectField label="Grower" value={form.growerUserId} onChange={(e) => set({ growerUserId: e.target.value })} error={errors.growerUserId}>
+          <SelectField
+            label="Grower"
+            value={form.growerUserId}
+            onChange={(e) => set({ growerUserId: e.target.value })}
+            error={errors.growerUserId}
+          >
             <option value="">{people.isPending ? 'Loading people…' : 'Choose a person…'}</option>
             {(people.data ?? []).map((p) => (
               <option key={p.userId} value={p.userId}>
@@ -94,11 +118,41 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
             error={errors.growerEmail}
           />
         )}
-        <TextField label="Field name" required value={form.fieldName} onChange={(e) => set({ fieldName: e.target.value })} error={errors.fieldName} />
-        <TextField label="Soil" value={form.soil} onChange={(e) => set({ soil: e.target.value })} error={errors.soil} placeholder="e.g. silt loam" />
-        <TextField label="Previous crop" value={form.previousCrop} onChange={(e) => set({ previousCrop: e.target.value })} error={errors.previousCrop} />
-        <TextField label="Fertility" value={form.fertility} onChange={(e) => set({ fertility: e.target.value })} error={errors.fertility} placeholder="e.g. compost 3 t/acre" containerClassName="sm:col-span-2" />
-        <TextAreaField label="Notes" value={form.notes} onChange={(e) => set({ notes: e.target.value })} error={errors.notes} containerClassName="sm:col-span-2" />
+        <TextField
+          label="Field name"
+          required
+          value={form.fieldName}
+          onChange={(e) => set({ fieldName: e.target.value })}
+          error={errors.fieldName}
+        />
+        <TextField
+          label="Soil"
+          value={form.soil}
+          onChange={(e) => set({ soil: e.target.value })}
+          error={errors.soil}
+          placeholder="e.g. silt loam"
+        />
+        <TextField
+          label="Previous crop"
+          value={form.previousCrop}
+          onChange={(e) => set({ previousCrop: e.target.value })}
+          error={errors.previousCrop}
+        />
+        <TextField
+          label="Fertility"
+          value={form.fertility}
+          onChange={(e) => set({ fertility: e.target.value })}
+          error={errors.fertility}
+          placeholder="e.g. compost 3 t/acre"
+          containerClassName="sm:col-span-2"
+        />
+        <TextAreaField
+          label="Notes"
+          value={form.notes}
+          onChange={(e) => set({ notes: e.target.value })}
+          error={errors.notes}
+          containerClassName="sm:col-span-2"
+        />
       </div>
       <Button type="submit" busy={enrol.isPending}>
         Enrol site

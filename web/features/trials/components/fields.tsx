@@ -1,5 +1,10 @@
 // Select and multi-line fields styled like the shared TextField, for the trial forms.
-import { useId, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+import {
+  useId,
+  type ReactNode,
+  type SelectHTMLAttributes,
+  type TextareaHTMLAttributes,
+} from 'react';
 import { cn } from '../../../lib/cn';
 
 const control =
@@ -27,7 +32,10 @@ function FieldFrame({ id, label, hint, error, className, children }: FieldFrameP
       ) : null}
       {children}
       {error ? (
-        <p id={`${id}-error`} className="flex items-start gap-1.5 text-caption font-medium text-danger">
+        <p
+          id={`${id}-error`}
+          className="flex items-start gap-1.5 text-caption font-medium text-danger"
+        >
           <span aria-hidden="true">▲</span>
           {error}
         </p>
@@ -43,14 +51,25 @@ export interface SelectFieldProps extends Omit<SelectHTMLAttributes<HTMLSelectEl
   containerClassName?: string;
 }
 
-export function SelectField({ label, hint, error, containerClassName, className, children, ...rest }: SelectFieldProps) {
+export function SelectField({
+  label,
+  hint,
+  error,
+  containerClassName,
+  className,
+  children,
+  ...rest
+}: SelectFieldProps) {
   const id = useId();
   return (
     <FieldFrame id={id} label={label} hint={hint} error={error} className={containerClassName}>
       <select
         id={id}
         aria-invalid={error ? true : undefined}
-        aria-describedby={[hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined}
+        aria-describedby={
+          [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') ||
+          undefined
+        }
         className={cn(control, error ? 'border-danger' : 'border-line-strong', className)}
         {...rest}
       >
@@ -60,21 +79,34 @@ export function SelectField({ label, hint, error, containerClassName, className,
   );
 }
 
-export interface TextAreaFieldProps extends Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, 'id'> {
+export interface TextAreaFieldProps extends Omit<
+  TextareaHTMLAttributes<HTMLTextAreaElement>,
+  'id'
+> {
   label: ReactNode;
   hint?: ReactNode;
   error?: string;
   containerClassName?: string;
 }
 
-export function TextAreaField({ label, hint, error, containerClassName, className, ...rest }: TextAreaFieldProps) {
+export function TextAreaField({
+  label,
+  hint,
+  error,
+  containerClassName,
+  className,
+  ...rest
+}: TextAreaFieldProps) {
   const id = useId();
   return (
     <FieldFrame id={id} label={label} hint={hint} error={error} className={containerClassName}>
       <textarea
         id={id}
         aria-invalid={error ? true : undefined}
-        aria-describedby={[hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined}
+        aria-describedby={
+          [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') ||
+          undefined
+        }
         className={cn(control, 'py-2', error ? 'border-danger' : 'border-line-strong', className)}
         rows={3}
         {...rest}

@@ -11,7 +11,13 @@ function tryNumber<T>(compute: () => T): T | string {
   }
 }
 
-export function PowerPlanner({ rates, blocksPerSite }: { rates: number; blocksPerSite: number | null }) {
+export function PowerPlanner({
+  rates,
+  blocksPerSite,
+}: {
+  rates: number;
+  blocksPerSite: number | null;
+}) {
   const [cv, setCv] = useState('10');
   const [difference, setDifference] = useState('10');
   const [siteByRate, setSiteByRate] = useState('5');
@@ -19,23 +25,50 @@ export function PowerPlanner({ rates, blocksPerSite }: { rates: number; blocksPe
   const differenceValue = Number(difference);
   const interaction = Number(siteByRate);
   const ready = cvValue > 0 && differenceValue > 0 && interaction >= 0 && rates >= 2;
-  const blocks = ready ? tryNumber(() => blocksNeeded({ cvPercent: cvValue, difference: differenceValue, rates })) : null;
+  const blocks = ready
+    ? tryNumber(() => blocksNeeded({ cvPercent: cvValue, difference: differenceValue, rates }))
+    : null;
   const usedBlocks = blocksPerSite ?? 4;
   const sites = ready
-    ? tryNumber(() => sitesNeeded({ cvPercent: cvValue, difference: differenceValue, rates, blocksPerSite: usedBlocks, siteByRateCvPercent: interaction }))
+    ? tryNumber(() =>
+        sitesNeeded({
+          cvPercent: cvValue,
+          difference: differenceValue,
+          rates,
+          blocksPerSite: usedBlocks,
+          siteByRateCvPercent: interaction,
+        }),
+      )
     : null;
 
   return (
-    <section aria-labelledby="planner-title" className="rounded-card border border-line bg-surface p-5 shadow-card">
-      <h3 id="planner-title" className="text-heading text-ink">How many blocks and sites?</h3>
+    <section
+      aria-labelledby="planner-title"
+      className="rounded-card border border-line bg-surface p-5 shadow-card"
+    >
+      <h3 id="planner-title" className="text-heading text-ink">
+        How many blocks and sites?
+      </h3>
       <p className="mt-1 max-w-prose text-label font-normal text-ink-muted">
-        With the strip-to-strip variation you expect (CV) and the smallest yield difference worth finding, this estimates the
-        replication for a two-sided test at 5 % with 80 % power. Strip CVs of 5–15 % are usual; a past season’s site reports
-        give your own.
+        With the strip-to-strip variation you expect (CV) and the smallest yield difference worth
+        finding, this estimates the replication for a two-sided test at 5 % with 80 % power. Strip
+        CVs of 5–15 % are usual; a past season’s site reports give your own.
       </p>
       <div className="mt-4 grid gap-4 sm:grid-cols-3">
-        <TextField label="Expected CV" suffix="%" inputMode="decimal" value={cv} onChange={(e) => setCv(e.target.value)} />
-        <TextField label="Difference to detect" suffix="% of mean" inputMode="decimal" value={difference} onChange={(e) => setDifference(e.target.value)} />
+        <TextField
+          label="Expected CV"
+          suffix="%"
+          inputMode="decimal"
+          value={cv}
+          onChange={(e) => setCv(e.target.value)}
+        />
+        <TextField
+          label="Difference to detect"
+          suffix="% of mean"
+          inputMode="decimal"
+          value={difference}
+          onChange={(e) => setDifference(e.target.value)}
+        />
         <TextField
           label="Site × rate CV"
           hint="How much rate effects vary between farms"
@@ -47,7 +80,9 @@ export function PowerPlanner({ rates, blocksPerSite }: { rates: number; blocksPe
       </div>
       <dl className="mt-5 grid gap-3 sm:grid-cols-2" aria-live="polite">
         <div className="rounded-field bg-sunken p-4">
-          <dt className="text-caption font-semibold uppercase tracking-wide text-ink-muted">Blocks per site</dt>
+          <dt className="text-caption font-semibold uppercase tracking-wide text-ink-muted">
+            Blocks per site
+          </dt>
           <dd className="figures mt-1 text-title text-ink" data-testid="blocks-needed">
             {blocks === null ? '—' : typeof blocks === 'string' ? 'More than 200' : blocks.blocks}
           </dd>
@@ -58,16 +93,21 @@ export function PowerPlanner({ rates, blocksPerSite }: { rates: number; blocksPe
           </dd>
         </div>
         <div className="rounded-field bg-sunken p-4">
-          <dt className="text-caption font-semibold uppercase tracking-wide text-ink-muted">Sites, with {usedBlocks} blocks each</dt>
+          <dt className="text-caption font-semibold uppercase tracking-wide text-ink-muted">
+            Sites, with {usedBlocks} blocks each
+          </dt>
           <dd className="figures mt-1 text-title text-ink" data-testid="sites-needed">
             {sites === null ? '—' : typeof sites === 'string' ? 'More than 500' : sites.sites}
           </dd>
-          <dd className="text-caption text-ink-muted">to find {difference} % in the pooled analysis over farms</dd>
+          <dd className="text-caption text-ink-muted">
+            to find {difference} % in the pooled analysis over farms
+          </dd>
         </div>
       </dl>
       <p className="mt-3 text-caption text-ink-muted">
-        Planning figures, not promises: the site × rate CV is a guess until a first season is pooled. Extension guides on strip
-        trials suggest at least 4 blocks, and 4–6 farms when each has one replicate.
+        Planning figures, not promises: the site × rate CV is a guess until a first season is
+        pooled. Extension guides on strip trials suggest at least 4 blocks, and 4–6 farms when each
+        has one replicate.
       </p>
     </section>
   );

@@ -12,12 +12,24 @@ export function RateSummaryTable({ rows, caption }: { rows: RateTableRow[]; capt
         {caption ? <caption className="sr-only">{caption}</caption> : null}
         <thead className="bg-sunken text-left text-caption uppercase tracking-wide text-ink-muted">
           <tr>
-            <th scope="col" className="px-3 py-2">Rate</th>
-            <th scope="col" className="px-3 py-2 text-right">Seeds / ft of row</th>
-            <th scope="col" className="px-3 py-2 text-right">Seeds / ft²</th>
-            <th scope="col" className="px-3 py-2 text-right">lb / acre</th>
-            <th scope="col" className="px-3 py-2 text-right">kg / ha</th>
-            <th scope="col" className="px-3 py-2 text-right">g per strip</th>
+            <th scope="col" className="px-3 py-2">
+              Rate
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Seeds / ft of row
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Seeds / ft²
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              lb / acre
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              kg / ha
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              g per strip
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -30,7 +42,9 @@ export function RateSummaryTable({ rows, caption }: { rows: RateTableRow[]; capt
               <td className="px-3 py-2 text-right">{one.format(r.seedsPerSquareFoot)}</td>
               <td className="px-3 py-2 text-right">{one.format(r.poundsPerAcre)}</td>
               <td className="px-3 py-2 text-right">{one.format(r.kilogramsPerHectare)}</td>
-              <td className="px-3 py-2 text-right font-semibold">{whole.format(r.gramsPerStrip)}</td>
+              <td className="px-3 py-2 text-right font-semibold">
+                {whole.format(r.gramsPerStrip)}
+              </td>
             </tr>
           ))}
         </tbody>

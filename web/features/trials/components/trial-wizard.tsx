@@ -45,7 +45,13 @@ export const CROP_LABELS: Record<CropKey, string> = {
   custom: 'Another crop (enter its values)',
 };
 
-const STEPS = ['Crop and season', 'Rates', 'Strips and blocks', 'Seed lot and prices', 'Summary'] as const;
+const STEPS = [
+  'Crop and season',
+  'Rates',
+  'Strips and blocks',
+  'Seed lot and prices',
+  'Summary',
+] as const;
 
 const NUMBER_FIELDS = [
   'referenceRate',
@@ -85,11 +91,21 @@ interface FormState {
   numbers: Record<NumberField, string>;
 }
 
-const text = (value: number | null | undefined) => (value === null || value === undefined ? '' : String(value));
+const text = (value: number | null | undefined) =>
+  value === null || value === undefined ? '' : String(value);
 
 function initialState(trial: TrialDetail | undefined): FormState {
-  const numbers = Object.fromEntries(NUMBER_FIELDS.map((f) => [f, text(trial?.[f] as number | undefined)])) as Record<NumberField, string>;
-  if (!trial) Object.assign(numbers, { blocksPerSite: '4', rowSpacingIn: '8', borderRows: '1', germinationPct: '', emergencePct: '85' });
+  const numbers = Object.fromEntries(
+    NUMBER_FIELDS.map((f) => [f, text(trial?.[f] as number | undefined)]),
+  ) as Record<NumberField, string>;
+  if (!trial)
+    Object.assign(numbers, {
+      blocksPerSite: '4',
+      rowSpacingIn: '8',
+      borderRows: '1',
+      germinationPct: '',
+      emergencePct: '85',
+    });
   return {
     name: trial?.name ?? '',
     question: trial?.question ?? '',
@@ -100,10 +116,15 @@ function initialState(trial: TrialDetail | undefined): FormState {
     customBushel: text(trial?.customCrop?.bushelWeightLb),
     customMoisture: text(trial?.customCrop?.standardMoisturePct),
     referenceUnit: trial?.referenceUnit ?? 'lb/acre',
-    levels: (trial?.rateLevels.length ? trial.rateLevels : DEFAULT_RATE_LEVELS).map((l) => ({ multiplier: String(l.multiplier), label: l.label })),
+    levels: (trial?.rateLevels.length ? trial.rateLevels : DEFAULT_RATE_LEVELS).map((l) => ({
+      multiplier: String(l.multiplier),
+      label: l.label,
+    })),
     seedSize: 'tkw',
     tkw: text(trial?.thousandKernelWeightG),
-    seedsPerLb: trial?.thousandKernelWeightG ? String(Math.round((1000 * GRAMS_PER_POUND) / trial.thousandKernelWeightG)) : '',
+    seedsPerLb: trial?.thousandKernelWeightG
+      ? String(Math.round((1000 * GRAMS_PER_POUND) / trial.thousandKernelWeightG))
+      : '',
     numbers,
   };
 }
@@ -123,7 +144,10 @@ function toPayload(form: FormState): UpdateTrialInput {
     season: form.season || undefined,
     crop: form.crop || undefined,
     referenceUnit: form.referenceUnit,
-    rateLevels: form.levels.map((l) => ({ multiplier: toNumber(l.multiplier) ?? Number.NaN, label: l.label })),
+    rateLevels: form.levels.map((l) => ({
+      multiplier: toNumber(l.multiplier) ?? Number.NaN,
+      label: l.label,
+    })),
   };
   if (form.crop === 'custom') {
     payload.customCrop = {
@@ -136,27 +160,50 @@ function toPayload(form: FormState): UpdateTrialInput {
   for (const field of NUMBER_FIELDS) payload[field] = toNumber(form.numbers[field]);
   const perLb = toNumber(form.seedsPerLb);
   payload.thousandKernelWeightG =
-    form.seedSize === 'tkw' ? toNumber(form.tkw) : perLb === undefined ? undefined : perLb > 0 ? Math.round(((1000 * GRAMS_PER_POUND) / perLb) * 100) / 100 : Number.NaN;
-  return Object.fromEntries(Object.entries(payload).filter(([, v]) => v !== undefined)) as UpdateTrialInput;
+    form.seedSize === 'tkw'
+      ? toNumber(form.tkw)
+      : perLb === undefined
+        ? undefined
+        : perLb > 0
+          ? Math.round(((1000 * GRAMS_PER_POUND) / perLb) * 100) / 100
+          : Number.NaN;
+  return Object.fromEntries(
+    Object.entries(payload).filter(([, v]) => v !== undefined),
+  ) as UpdateTrialInput;
 }
 
 function issuesToFields(error: z.ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
   for (const issue of error.issues) {
     const key = issue.path.length ? issue.path.map(String).join('.') : 'form';
-    const message = issue.code === 'invalid_type' ? (issue.input === undefined ? 'Fill this in' : 'Enter a number') : issue.message;
+    const message =
+      issue.code === 'invalid_type'
+        ? issue.input === undefined
+          ? 'Fill this in'
+          : 'Enter a number'
+        : issue.message;
     fields[key] ??= message;
   }
   return fields;
 }
 
-export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDetail; user: SessionUser; initialStep?: number }) {
+export function TrialWizard({
+  trial,
+  user,
+  initialStep = 0,
+}: {
+  trial?: TrialDetail;
+  user: SessionUser;
+  initialStep?: number;
+}) {
   const navigate = useNavigate();
   const [form, setForm] = useState<FormState>(() => initialState(trial));
   const [step, setStep] = useState(Math.min(Math.max(initialStep, 0), STEPS.length - 1));
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [saved, setSaved] = useState<string | null>(null);
-  const coordinating = user.memberships.filter((m) => m.role === 'coordinator' || m.role === 'admin');
+  const coordinating = user.memberships.filter(
+    (m) => m.role === 'coordinator' || m.role === 'admin',
+  );
   const [networkId, setNetworkId] = useState(trial?.networkId ?? coordinating[0]?.networkId ?? '');
   const create = useCreateTrial();
   const update = useUpdateTrial(trial?.id ?? '');
@@ -175,13 +222,17 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
   }, [payload]);
 
   const set = (patch: Partial<FormState>) => setForm((f) => ({ ...f, ...patch }));
-  const setNumber = (field: NumberField, value: string) => setForm((f) => ({ ...f, numbers: { ...f.numbers, [field]: value } }));
+  const setNumber = (field: NumberField, value: string) =>
+    setForm((f) => ({ ...f, numbers: { ...f.numbers, [field]: value } }));
   const err = (key: string) => errors[key];
 
   function chooseCrop(crop: CropKey | '') {
     const patch: Partial<FormState> = { crop };
     if (crop && crop !== 'custom' && !form.numbers.referenceRate) {
-      patch.numbers = { ...form.numbers, referenceRate: String(CROPS[crop].typicalReferenceRatePoundsPerAcre) };
+      patch.numbers = {
+        ...form.numbers,
+        referenceRate: String(CROPS[crop].typicalReferenceRatePoundsPerAcre),
+      };
       patch.referenceUnit = 'lb/acre';
     }
     set(patch);
@@ -192,11 +243,14 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
     if (!keys) return {};
     const mask = Object.fromEntries(keys.map((k) => [k, true])) as Record<string, true>;
     const schema = TrialDesignSchema.pick(mask as never);
-    const candidate = Object.fromEntries(keys.map((k) => [k, (payload as Record<string, unknown>)[k]]));
+    const candidate = Object.fromEntries(
+      keys.map((k) => [k, (payload as Record<string, unknown>)[k]]),
+    );
     if (index === 0 && form.crop !== 'custom') delete candidate.customCrop;
     const result = (schema as unknown as z.ZodType).safeParse(candidate);
     const fields = result.success ? {} : issuesToFields(result.error);
-    if (index === 0 && form.crop === 'custom' && !payload.customCrop) fields.customCrop = 'Enter the crop’s values';
+    if (index === 0 && form.crop === 'custom' && !payload.customCrop)
+      fields.customCrop = 'Enter the crop’s values';
     return fields;
   }
 
@@ -210,7 +264,11 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
         delete body.blocksPerSite;
       }
       if (!trial) {
-        result = await create.mutateAsync({ ...(body as object), networkId, name: form.name } as never);
+        result = await create.mutateAsync({
+          ...(body as object),
+          networkId,
+          name: form.name,
+        } as never);
         navigate(`/trials/${result.id}/edit?step=${step + 1}`, { replace: true });
       } else {
         result = await update.mutateAsync(body);
@@ -293,7 +351,12 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
         {step === 0 ? (
           <div className="grid gap-4 sm:grid-cols-2">
             {!trial && coordinating.length > 1 ? (
-              <SelectField label="Network" value={networkId} onChange={(e) => setNetworkId(e.target.value)} containerClassName="sm:col-span-2">
+              <SelectField
+                label="Network"
+                value={networkId}
+                onChange={(e) => setNetworkId(e.target.value)}
+                containerClassName="sm:col-span-2"
+              >
                 {coordinating.map((m) => (
                   <option key={m.networkId} value={m.networkId}>
                     {m.networkName}
@@ -319,7 +382,12 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
               containerClassName="sm:col-span-2"
               placeholder="Does half the usual oat rate yield as well on our farms?"
             />
-            <SelectField label="Crop" value={form.crop} onChange={(e) => chooseCrop(e.target.value as CropKey | '')} error={err('crop')}>
+            <SelectField
+              label="Crop"
+              value={form.crop}
+              onChange={(e) => chooseCrop(e.target.value as CropKey | '')}
+              error={err('crop')}
+            >
               <option value="">Choose a crop…</option>
               {CROP_KEYS.map((key) => (
                 <option key={key} value={key}>
@@ -327,15 +395,52 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
                 </option>
               ))}
             </SelectField>
-            <TextField label="Season" required value={form.season} onChange={(e) => set({ season: e.target.value })} error={err('season')} hint="e.g. 2027 or 2027–28" />
+            <TextField
+              label="Season"
+              required
+              value={form.season}
+              onChange={(e) => set({ season: e.target.value })}
+              error={err('season')}
+              hint="e.g. 2027 or 2027–28"
+            />
             {form.crop === 'custom' ? (
               <fieldset className="grid gap-4 rounded-field border border-line p-4 sm:col-span-2 sm:grid-cols-2">
                 <legend className="px-1 text-label text-ink">Your crop’s values</legend>
-                {err('customCrop') ? <p className="text-caption font-medium text-danger sm:col-span-2">{err('customCrop')}</p> : null}
-                <TextField label="Crop name" value={form.customName} onChange={(e) => set({ customName: e.target.value })} error={err('customCrop.name')} />
-                <TextField label="Thousand-kernel weight" suffix="g" inputMode="decimal" value={form.customTkw} onChange={(e) => set({ customTkw: e.target.value })} error={err('customCrop.thousandKernelWeightG')} />
-                <TextField label="Bushel weight" suffix="lb" inputMode="decimal" value={form.customBushel} onChange={(e) => set({ customBushel: e.target.value })} error={err('customCrop.bushelWeightLb')} />
-                <TextField label="Standard moisture" suffix="%" inputMode="decimal" value={form.customMoisture} onChange={(e) => set({ customMoisture: e.target.value })} error={err('customCrop.standardMoisturePct')} />
+                {err('customCrop') ? (
+                  <p className="text-caption font-medium text-danger sm:col-span-2">
+                    {err('customCrop')}
+                  </p>
+                ) : null}
+                <TextField
+                  label="Crop name"
+                  value={form.customName}
+                  onChange={(e) => set({ customName: e.target.value })}
+                  error={err('customCrop.name')}
+                />
+                <TextField
+                  label="Thousand-kernel weight"
+                  suffix="g"
+                  inputMode="decimal"
+                  value={form.customTkw}
+                  onChange={(e) => set({ customTkw: e.target.value })}
+                  error={err('customCrop.thousandKernelWeightG')}
+                />
+                <TextField
+                  label="Bushel weight"
+                  suffix="lb"
+                  inputMode="decimal"
+                  value={form.customBushel}
+                  onChange={(e) => set({ customBushel: e.target.value })}
+                  error={err('customCrop.bushelWeightLb')}
+                />
+                <TextField
+                  label="Standard moisture"
+                  suffix="%"
+                  inputMode="decimal"
+                  value={form.customMoisture}
+                  onChange={(e) => set({ customMoisture: e.target.value })}
+                  error={err('customCrop.standardMoisturePct')}
+                />
               </fieldset>
             ) : null}
           </div>
@@ -351,14 +456,23 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
             <div className="grid gap-4 sm:grid-cols-2">
               <TextField
                 label="Reference (full) rate"
-                hint={form.crop && form.crop !== 'custom' ? `A usual full rate for ${CROP_LABELS[form.crop].toLowerCase()} is about ${CROPS[form.crop].typicalReferenceRatePoundsPerAcre} lb/acre; use your local advice.` : 'Your usual rate, as local advice recommends.'}
+                hint={
+                  form.crop && form.crop !== 'custom'
+                    ? `A usual full rate for ${CROP_LABELS[form.crop].toLowerCase()} is about ${CROPS[form.crop].typicalReferenceRatePoundsPerAcre} lb/acre; use your local advice.`
+                    : 'Your usual rate, as local advice recommends.'
+                }
                 inputMode="decimal"
                 required
                 value={form.numbers.referenceRate}
                 onChange={(e) => setNumber('referenceRate', e.target.value)}
                 error={err('referenceRate')}
               />
-              <SelectField label="Unit" value={form.referenceUnit} onChange={(e) => set({ referenceUnit: e.target.value as RateUnit })} error={err('referenceUnit')}>
+              <SelectField
+                label="Unit"
+                value={form.referenceUnit}
+                onChange={(e) => set({ referenceUnit: e.target.value as RateUnit })}
+                error={err('referenceUnit')}
+              >
                 {RATE_UNITS.map((u) => (
                   <option key={u} value={u}>
                     {UNIT_LABELS[u]}
@@ -367,9 +481,16 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
               </SelectField>
             </div>
             <fieldset disabled={locked} className="space-y-3">
-              <legend className="text-label text-ink">Rate levels (multiples of the reference rate)</legend>
-              <p className="text-caption text-ink-muted">Between 2 and 8 levels, each with its own multiplier and a short label growers will see on the map.</p>
-              {err('rateLevels') ? <p className="text-caption font-medium text-danger">{err('rateLevels')}</p> : null}
+              <legend className="text-label text-ink">
+                Rate levels (multiples of the reference rate)
+              </legend>
+              <p className="text-caption text-ink-muted">
+                Between 2 and 8 levels, each with its own multiplier and a short label growers will
+                see on the map.
+              </p>
+              {err('rateLevels') ? (
+                <p className="text-caption font-medium text-danger">{err('rateLevels')}</p>
+              ) : null}
               <ul className="space-y-2">
                 {form.levels.map((level, index) => (
                   <li key={index} className="grid grid-cols-[1fr_1.4fr_auto] items-end gap-2">
@@ -377,14 +498,26 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
                       label={`Level ${index + 1} multiplier`}
                       inputMode="decimal"
                       value={level.multiplier}
-                      onChange={(e) => set({ levels: form.levels.map((l, i) => (i === index ? { ...l, multiplier: e.target.value } : l)) })}
+                      onChange={(e) =>
+                        set({
+                          levels: form.levels.map((l, i) =>
+                            i === index ? { ...l, multiplier: e.target.value } : l,
+                          ),
+                        })
+                      }
                       error={err(`rateLevels.${index}.multiplier`)}
                       suffix="×"
                     />
                     <TextField
                       label="Label"
                       value={level.label}
-                      onChange={(e) => set({ levels: form.levels.map((l, i) => (i === index ? { ...l, label: e.target.value } : l)) })}
+                      onChange={(e) =>
+                        set({
+                          levels: form.levels.map((l, i) =>
+                            i === index ? { ...l, label: e.target.value } : l,
+                          ),
+                        })
+                      }
                       error={err(`rateLevels.${index}.label`)}
                     />
                     <Button
@@ -398,7 +531,11 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
                   </li>
                 ))}
               </ul>
-              <Button variant="secondary" disabled={form.levels.length >= 8} onClick={() => set({ levels: [...form.levels, { multiplier: '', label: '' }] })}>
+              <Button
+                variant="secondary"
+                disabled={form.levels.length >= 8}
+                onClick={() => set({ levels: [...form.levels, { multiplier: '', label: '' }] })}
+              >
                 Add a level
               </Button>
             </fieldset>
@@ -417,9 +554,32 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
               onChange={(e) => setNumber('blocksPerSite', e.target.value)}
               error={err('blocksPerSite')}
             />
-            <TextField label="Rows per strip" inputMode="numeric" required value={form.numbers.rowsPerStrip} onChange={(e) => setNumber('rowsPerStrip', e.target.value)} error={err('rowsPerStrip')} />
-            <TextField label="Row spacing" suffix="in" inputMode="decimal" required value={form.numbers.rowSpacingIn} onChange={(e) => setNumber('rowSpacingIn', e.target.value)} error={err('rowSpacingIn')} />
-            <TextField label="Strip length" suffix="ft" inputMode="decimal" required value={form.numbers.stripLengthFt} onChange={(e) => setNumber('stripLengthFt', e.target.value)} error={err('stripLengthFt')} />
+            <TextField
+              label="Rows per strip"
+              inputMode="numeric"
+              required
+              value={form.numbers.rowsPerStrip}
+              onChange={(e) => setNumber('rowsPerStrip', e.target.value)}
+              error={err('rowsPerStrip')}
+            />
+            <TextField
+              label="Row spacing"
+              suffix="in"
+              inputMode="decimal"
+              required
+              value={form.numbers.rowSpacingIn}
+              onChange={(e) => setNumber('rowSpacingIn', e.target.value)}
+              error={err('rowSpacingIn')}
+            />
+            <TextField
+              label="Strip length"
+              suffix="ft"
+              inputMode="decimal"
+              required
+              value={form.numbers.stripLengthFt}
+              onChange={(e) => setNumber('stripLengthFt', e.target.value)}
+              error={err('stripLengthFt')}
+            />
             <TextField
               label="Border rows"
               hint="Rows on each side of a strip that are sown but not counted or harvested."
@@ -428,9 +588,11 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
               onChange={(e) => setNumber('borderRows', e.target.value)}
               error={err('borderRows')}
             />
-            {toNumber(form.numbers.blocksPerSite) !== undefined && (toNumber(form.numbers.blocksPerSite) as number) < 3 ? (
+            {toNumber(form.numbers.blocksPerSite) !== undefined &&
+            (toNumber(form.numbers.blocksPerSite) as number) < 3 ? (
               <Alert tone="caution" title="Fewer than 3 blocks" className="sm:col-span-2">
-                With 2 blocks a site has very few error degrees of freedom, so only large differences show. Use at least 3, better 4.
+                With 2 blocks a site has very few error degrees of freedom, so only large
+                differences show. Use at least 3, better 4.
               </Alert>
             ) : null}
           </div>
@@ -448,7 +610,14 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
                   ] as const
                 ).map(([value, label]) => (
                   <label key={value} className="flex min-h-11 items-center gap-2 text-label">
-                    <input type="radio" name="seed-size" value={value} checked={form.seedSize === value} onChange={() => set({ seedSize: value })} className="size-5 accent-[var(--sheaf-accent)]" />
+                    <input
+                      type="radio"
+                      name="seed-size"
+                      value={value}
+                      checked={form.seedSize === value}
+                      onChange={() => set({ seedSize: value })}
+                      className="size-5 accent-[var(--sheaf-accent)]"
+                    />
                     {label}
                   </label>
                 ))}
@@ -462,16 +631,57 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
                   value={form.tkw}
                   onChange={(e) => set({ tkw: e.target.value })}
                   error={err('thousandKernelWeightG')}
-                  placeholder={form.crop && form.crop !== 'custom' ? `about ${CROPS[form.crop].typicalThousandKernelWeightGrams}` : undefined}
+                  placeholder={
+                    form.crop && form.crop !== 'custom'
+                      ? `about ${CROPS[form.crop].typicalThousandKernelWeightGrams}`
+                      : undefined
+                  }
                 />
               ) : (
-                <TextField label="Seeds per lb" hint="From the seed tag, or count a 20 g sample and multiply by 22.68." inputMode="numeric" value={form.seedsPerLb} onChange={(e) => set({ seedsPerLb: e.target.value })} error={err('thousandKernelWeightG')} />
+                <TextField
+                  label="Seeds per lb"
+                  hint="From the seed tag, or count a 20 g sample and multiply by 22.68."
+                  inputMode="numeric"
+                  value={form.seedsPerLb}
+                  onChange={(e) => set({ seedsPerLb: e.target.value })}
+                  error={err('thousandKernelWeightG')}
+                />
               )}
             </fieldset>
-            <TextField label="Germination" hint="From the seed tag." suffix="%" inputMode="decimal" value={form.numbers.germinationPct} onChange={(e) => setNumber('germinationPct', e.target.value)} error={err('germinationPct')} />
-            <TextField label="Expected emergence" hint="Share of live seeds that become plants; 80–90 % in a good seedbed." suffix="%" inputMode="decimal" value={form.numbers.emergencePct} onChange={(e) => setNumber('emergencePct', e.target.value)} error={err('emergencePct')} />
-            <TextField label="Seed price" suffix="$ / lb" inputMode="decimal" value={form.numbers.seedPricePerLb} onChange={(e) => setNumber('seedPricePerLb', e.target.value)} error={err('seedPricePerLb')} />
-            <TextField label="Grain price" suffix="$ / bu" inputMode="decimal" value={form.numbers.grainPricePerBu} onChange={(e) => setNumber('grainPricePerBu', e.target.value)} error={err('grainPricePerBu')} />
+            <TextField
+              label="Germination"
+              hint="From the seed tag."
+              suffix="%"
+              inputMode="decimal"
+              value={form.numbers.germinationPct}
+              onChange={(e) => setNumber('germinationPct', e.target.value)}
+              error={err('germinationPct')}
+            />
+            <TextField
+              label="Expected emergence"
+              hint="Share of live seeds that become plants; 80–90 % in a good seedbed."
+              suffix="%"
+              inputMode="decimal"
+              value={form.numbers.emergencePct}
+              onChange={(e) => setNumber('emergencePct', e.target.value)}
+              error={err('emergencePct')}
+            />
+            <TextField
+              label="Seed price"
+              suffix="$ / lb"
+              inputMode="decimal"
+              value={form.numbers.seedPricePerLb}
+              onChange={(e) => setNumber('seedPricePerLb', e.target.value)}
+              error={err('seedPricePerLb')}
+            />
+            <TextField
+              label="Grain price"
+              suffix="$ / bu"
+              inputMode="decimal"
+              value={form.numbers.grainPricePerBu}
+              onChange={(e) => setNumber('grainPricePerBu', e.target.value)}
+              error={err('grainPricePerBu')}
+            />
           </div>
         ) : null}
 
@@ -481,15 +691,22 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
             {table.length > 0 ? (
               <div className="space-y-2">
                 <h3 className="text-heading text-ink">Seed for every rate</h3>
-                <p className="text-caption text-ink-muted">Grams are for one strip of {form.numbers.rowsPerStrip} rows × {form.numbers.stripLengthFt} ft.</p>
+                <p className="text-caption text-ink-muted">
+                  Grams are for one strip of {form.numbers.rowsPerStrip} rows ×{' '}
+                  {form.numbers.stripLengthFt} ft.
+                </p>
                 <RateSummaryTable rows={table} caption="Seed amounts per rate level" />
               </div>
             ) : (
               <Alert tone="caution" title="Seed amounts need the full design">
-                Fill in the reference rate, strips and seed lot to see seeds per foot of row, seeds/ft², lb/acre, kg/ha and grams per strip.
+                Fill in the reference rate, strips and seed lot to see seeds per foot of row,
+                seeds/ft², lb/acre, kg/ha and grams per strip.
               </Alert>
             )}
-            <PowerPlanner rates={form.levels.length} blocksPerSite={toNumber(form.numbers.blocksPerSite) ?? null} />
+            <PowerPlanner
+              rates={form.levels.length}
+              blocksPerSite={toNumber(form.numbers.blocksPerSite) ?? null}
+            />
             {Object.keys(errors).length > 0 ? (
               <Alert tone="danger" title="Not ready for the field yet">
                 <ul className="list-disc pl-5">
@@ -520,7 +737,12 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
             </Button>
           )}
           {step === STEPS.length - 1 || trial ? (
-            <Button variant="quiet" onClick={() => void save()} busy={busy} disabled={!networkId || !form.name.trim()}>
+            <Button
+              variant="quiet"
+              onClick={() => void save()}
+              busy={busy}
+              disabled={!networkId || !form.name.trim()}
+            >
               Save draft
             </Button>
           ) : null}
@@ -535,10 +757,25 @@ export function TrialWizard({ trial, user, initialStep = 0 }: { trial?: TrialDet
 
 function DesignSummary({ payload }: { payload: UpdateTrialInput }) {
   const rows: [string, string][] = [
-    ['Crop', payload.crop ? (payload.crop === 'custom' ? (payload.customCrop?.name ?? 'Custom') : CROP_LABELS[payload.crop]) : '—'],
+    [
+      'Crop',
+      payload.crop
+        ? payload.crop === 'custom'
+          ? (payload.customCrop?.name ?? 'Custom')
+          : CROP_LABELS[payload.crop]
+        : '—',
+    ],
     ['Season', payload.season ?? '—'],
-    ['Reference rate', payload.referenceRate ? `${payload.referenceRate} ${UNIT_LABELS[payload.referenceUnit ?? 'lb/acre']}` : '—'],
-    ['Rate levels', (payload.rateLevels ?? []).map((l) => `${l.label} ×${l.multiplier}`).join(', ') || '—'],
+    [
+      'Reference rate',
+      payload.referenceRate
+        ? `${payload.referenceRate} ${UNIT_LABELS[payload.referenceUnit ?? 'lb/acre']}`
+        : '—',
+    ],
+    [
+      'Rate levels',
+      (payload.rateLevels ?? []).map((l) => `${l.label} ×${l.multiplier}`).join(', ') || '—',
+    ],
     ['Blocks per site', payload.blocksPerSite !== undefined ? String(payload.blocksPerSite) : '—'],
     [
       'Strips',
@@ -546,8 +783,16 @@ function DesignSummary({ payload }: { payload: UpdateTrialInput }) {
         ? `${payload.rowsPerStrip} rows at ${payload.rowSpacingIn ?? '?'} in × ${payload.stripLengthFt} ft, ${payload.borderRows ?? 0} border row${payload.borderRows === 1 ? '' : 's'}`
         : '—',
     ],
-    ['Seed lot', payload.thousandKernelWeightG ? `${payload.thousandKernelWeightG} g per 1,000 seeds, ${payload.germinationPct ?? '?'} % germination, ${payload.emergencePct ?? '?'} % expected emergence` : '—'],
-    ['Prices', `seed $${payload.seedPricePerLb ?? 0}/lb, grain $${payload.grainPricePerBu ?? 0}/bu`],
+    [
+      'Seed lot',
+      payload.thousandKernelWeightG
+        ? `${payload.thousandKernelWeightG} g per 1,000 seeds, ${payload.germinationPct ?? '?'} % germination, ${payload.emergencePct ?? '?'} % expected emergence`
+        : '—',
+    ],
+    [
+      'Prices',
+      `seed $${payload.seedPricePerLb ?? 0}/lb, grain $${payload.grainPricePerBu ?? 0}/bu`,
+    ],
   ];
   return (
     <dl className="grid gap-x-6 gap-y-3 rounded-card border border-line bg-surface p-5 shadow-card sm:grid-cols-[12rem_1fr]">
