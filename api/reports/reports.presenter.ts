@@ -215,7 +215,7 @@ export function buildSiteReport(input: {
   site: SiteRow;
   strips: readonly StripRow[];
   photos: readonly ReportPhoto[];
-}): Omit<SiteReport, 'published' | 'dataChangedSincePublished' | 'fromSnapshot'> {
+}): Omit<SiteReport, 'published' | 'dataChangedSincePublished' | 'fromSnapshot' | 'canPublish'> {
   const { trial, site } = input;
   const rates = reportRates(trial, input.levels);
   const reference = referenceOf(rates);
@@ -346,7 +346,7 @@ function enginePrices(trial: TrialFacts, units: ReportUnits, seed: number | null
 export function buildPooledReport(
   input: PooledInput,
   query: PooledQuery,
-): Omit<PooledReport, 'published' | 'dataChangedSincePublished' | 'fromSnapshot' | 'publicLinkToken'> {
+): Omit<PooledReport, 'published' | 'dataChangedSincePublished' | 'fromSnapshot' | 'canPublish' | 'publicLinkToken'> {
   const { trial, rates } = input;
   const units = unitsOf(trial);
   const reference = referenceOf(rates);

@@ -222,13 +222,14 @@ export function createReportsService(deps: ReportsServiceDeps) {
     const bundle = await loadSiteBundle(dataSource, siteId);
     const published = toPublished(bundle.snapshot);
     const changed = !!bundle.snapshot && bundle.snapshot.data_version !== String(bundle.site.dataVersion);
+    const canPublish = !!access && isCoordinating(access.roles.get(bundle.trial.networkId));
     if (!readsLive(access, bundle.trial.networkId, bundle.growerUserId)) {
       if (!bundle.snapshot) throw new Forbidden('This site report is not published yet');
       const [stored] = await dataSource.query('SELECT report FROM report_snapshots WHERE id = $1', [bundle.snapshot.id]);
-      return { ...(stored.report as SiteReport), published, dataChangedSincePublished: changed, fromSnapshot: true };
+      return { ...(stored.report as SiteReport), published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish };
     }
     const body = await liveSiteBody(dataSource, bundle);
-    return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: false };
+    return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish };
   }
 
   async function loadTrialBundle(db: Queryable, trialId: string) {
@@ -267,10 +268,10 @@ export function createReportsService(deps: ReportsServiceDeps) {
       if (!bundle.snapshot) throw new Forbidden('The pooled report is not published yet');
       const stored = await storedPooled(bundle.snapshot.id);
       const body = hasQuery(query) ? buildPooledReport(stored.input, query) : stored.report;
-      return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: true, publicLinkToken: null };
+      return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish: false, publicLinkToken: null };
     }
     const body = buildPooledReport(await livePooledInput(dataSource, bundle), query);
-    return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, publicLinkToken: bundle.trial.publicLinkToken };
+    return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish: true, publicLinkToken: bundle.trial.publicLinkToken };
   }
 
   async function publicReport(token: string, query: PooledQuery): Promise<PooledReport> {

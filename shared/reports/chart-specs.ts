@@ -147,7 +147,7 @@ export function componentsSpec(
       headsPerSquareFoot: number | null;
     }[];
   },
-  options: BaseOptions = {},
+  options: BaseOptions & { columns?: number; panelWidth?: number } = {},
 ): ChartSpec {
   const theme = options.theme ?? LIGHT_CHART_THEME;
   const order = input.rows.map((r) => r.label);
@@ -166,10 +166,10 @@ export function componentsSpec(
     ...(options.title ? { title: options.title } : {}),
     config: chartConfig(theme, options.scale),
     data: { values },
-    columns: 3,
+    columns: options.columns ?? 3,
     facet: { field: 'measure', type: 'nominal', title: null, sort: measures.map((m) => m.title), header: { labelColor: theme.ink, labelFontSize: 12 * (options.scale ?? 1), labelFontWeight: 600 } },
     spec: {
-      width: 140 * (options.scale ?? 1),
+      width: (options.panelWidth ?? 140) * (options.scale ?? 1),
       height: 150 * (options.scale ?? 1),
       mark: { type: 'bar', color: theme.highlight, cornerRadiusEnd: 2 },
       encoding: {
@@ -206,6 +206,8 @@ export function stripMapSpec(
     yield: s.yield,
     text: s.yield === null ? `${s.label}\nno yield` : s.label,
   }));
+  const yields = values.map((v) => v.yield).filter((y): y is number => y !== null);
+  const midpoint = yields.length > 0 ? (Math.min(...yields) + Math.max(...yields)) / 2 : 0;
   const blocks = [...new Set(values.map((v) => v.blockNumber))].sort((a, b) => a - b).map((b) => `Block ${b}`);
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
@@ -239,8 +241,12 @@ export function stripMapSpec(
         },
       },
       {
-        mark: { type: 'text', fontSize: 11 * (options.scale ?? 1), fontWeight: 600, color: '#26201b' },
-        encoding: { text: { field: 'label' } },
+        mark: { type: 'text', fontSize: 11 * (options.scale ?? 1), fontWeight: 600 },
+        encoding: {
+          text: { field: 'label' },
+          // Light text on the darker (higher-yield) half of the colour scale keeps labels readable.
+          color: { condition: { test: `datum.yield !== null && datum.yield > ${midpoint}`, value: '#ffffff' }, value: '#26201b' },
+        },
       },
     ],
   };
@@ -374,7 +380,7 @@ export function responseCurveSpec(
           mark: { type: 'rule', strokeDash: [6, 4], strokeWidth: 2 },
           encoding: {
             x: { ...x, field: 'rate' },
-            color: { field: 'name', type: 'nominal', title: null, scale: { domain: ['Highest yield', 'Best return over seed'], range: [theme.accent, theme.highlight] }, legend: { orient: 'bottom' } },
+            color: { field: 'name', type: 'nominal', title: null, scale: { domain: ['Highest yield', 'Best return over seed'], range: [theme.accent, theme.highlight] }, legend: { orient: 'bottom', labelLimit: 0 } },
           },
         },
       ],

@@ -50,6 +50,7 @@ const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1
 const plural = (count: number, one: string, many = `${one}s`) => `${count} ${count === 1 ? one : many}`;
 const NUMBER_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten'];
 const countWord = (count: number) => NUMBER_WORDS[count] ?? String(count);
+const siteCount = (count: number) => (count === 0 ? 'none' : countWord(count));
 
 export interface SiteFindingsInput {
   analysis: SiteAnalysis;
@@ -242,7 +243,7 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
     const higher = perSite.filter((d) => d.p < analysis.alpha && d.diff > 0).length;
     const consistency =
       perSite.length > 0
-        ? ` At ${within} of ${perSite.length} sites ${rate} was within the LSD of the ${referenceName}; it was detectably lower at ${countWord(lower)} and detectably higher at ${countWord(higher)}.`
+        ? ` At ${within} of ${perSite.length} sites ${rate} was within the LSD of the ${referenceName}; it was detectably lower at ${siteCount(lower)} and detectably higher at ${siteCount(higher)}.`
         : '';
     findings.push(lead + consistency);
   }

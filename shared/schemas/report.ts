@@ -135,6 +135,8 @@ export const SiteReportSchema = z.object({
   dataChangedSincePublished: z.boolean(),
   /** True when this body is the frozen published snapshot rather than live data. */
   fromSnapshot: z.boolean(),
+  /** True when the caller coordinates the network (may publish, unpublish and export). */
+  canPublish: z.boolean(),
 });
 export type SiteReport = z.infer<typeof SiteReportSchema>;
 
@@ -217,6 +219,7 @@ export const PooledReportSchema = z.object({
   published: PublishedInfoSchema.nullable(),
   dataChangedSincePublished: z.boolean(),
   fromSnapshot: z.boolean(),
+  canPublish: z.boolean(),
   publicLinkToken: z.string().nullable(),
 });
 export type PooledReport = z.infer<typeof PooledReportSchema>;

@@ -38,6 +38,8 @@ export function routeModule(load: () => Promise<RouteModule>) {
 export const appRoutes: RouteObject[] = [
   { index: true, lazy: routeModule(() => import('./routes/app/home')) },
   { path: 'admin/mail', lazy: routeModule(() => import('./routes/admin/mail')) },
+  { path: 'sites/:siteId/report', lazy: routeModule(() => import('./routes/reports/site-report')) },
+  { path: 'trials/:trialId/report', lazy: routeModule(() => import('./routes/reports/pooled-report')) },
   { path: 'trials/new', lazy: routeModule(() => import('./routes/trials/new')) },
   { path: 'trials/:trialId', lazy: routeModule(() => import('./routes/trials/trial')) },
   { path: 'trials/:trialId/edit', lazy: routeModule(() => import('./routes/trials/edit')) },
@@ -57,6 +59,7 @@ const authRoutes: RouteObject[] = [
 /** Pages anyone may read, signed in or not. */
 const openRoutes: RouteObject[] = [
   { path: 'cautions', lazy: routeModule(() => import('./routes/public/cautions')) },
+  { path: 'shared/:token', lazy: routeModule(() => import('./routes/reports/shared-report')) },
   { path: 'calculator', lazy: routeModule(() => import('./routes/calculator/calculator')) },
   { path: 'calibrate', lazy: routeModule(() => import('./routes/sites/calibrate')) },
 ];
@@ -70,6 +73,8 @@ export const routes: RouteObject[] = [
     children: [
       { lazy: routeModule(() => import('./routes/auth/layout')), children: authRoutes },
       { lazy: routeModule(() => import('./routes/public/layout')), children: openRoutes },
+      // Full-screen slides for a projector: no app shell around them.
+      { path: 'trials/:trialId/meeting', lazy: routeModule(() => import('./routes/reports/meeting')) },
       { id: 'app', lazy: routeModule(() => import('./routes/app/layout')), children: appRoutes },
     ],
   },

@@ -1,0 +1,49 @@
+// /trials/:trialId/report: the pooled network report with filters and adjustable prices.
+import type { QueryClient } from '@tanstack/react-query';
+import { useParams, useRouteError, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { PooledQuerySchema, type PooledQuery } from '../../../../shared/schemas/report';
+import { LoadingBlock } from '../../../components/ui/spinner';
+import { meQueryOptions } from '../../../features/auth/api/get-me';
+import { pooledReportQueryOptions, pooledSearch, usePooledReport } from '../../../features/reports/api/get-pooled-report';
+import { PooledReportView } from '../../../features/reports/components/pooled-report-view';
+import { isApiError } from '../../../lib/api-client';
+import { isNotFound, NotFoundPanel } from '../../route-errors';
+import { NotPublishedPanel } from './not-published';
+
+/** Filters and prices live in the address, so a filtered view can be bookmarked or shared. */
+export function queryFromSearch(search: URLSearchParams): PooledQuery {
+  const parsed = PooledQuerySchema.safeParse(Object.fromEntries(search));
+  return parsed.success ? parsed.data : {};
+}
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ params, request }: LoaderFunctionArgs) => {
+    const user = await queryClient.ensureQueryData(meQueryOptions());
+    if (!user) return null;
+    await queryClient.ensureQueryData(pooledReportQueryOptions(String(params.trialId), queryFromSearch(new URL(request.url).searchParams)));
+    return null;
+  };
+
+export default function PooledReportPage() {
+  const trialId = String(useParams().trialId);
+  const [search, setSearch] = useSearchParams();
+  const query = queryFromSearch(search);
+  const { data, isPlaceholderData } = usePooledReport(trialId, query);
+  if (!data) return <LoadingBlock label="Loading the network report…" />;
+  return (
+    <PooledReportView
+      report={data}
+      query={query}
+      updating={isPlaceholderData}
+      onQuery={(next) => setSearch(new URLSearchParams(pooledSearch(next).slice(1)), { replace: true, preventScrollReset: true })}
+    />
+  );
+}
+
+export function ErrorBoundary() {
+  const error = useRouteError();
+  if (isNotFound(error)) return <NotFoundPanel title="No such trial report" />;
+  if (isApiError(error, 403)) return <NotPublishedPanel what="network report" />;
+  throw error;
+}

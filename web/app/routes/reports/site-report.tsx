@@ -1,0 +1,34 @@
+// /sites/:siteId/report: one grower's site report (live for the coordinator and grower, the
+// published snapshot for members).
+import type { QueryClient } from '@tanstack/react-query';
+import { useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
+import { LoadingBlock } from '../../../components/ui/spinner';
+import { meQueryOptions } from '../../../features/auth/api/get-me';
+import { siteReportQueryOptions, useSiteReport } from '../../../features/reports/api/get-site-report';
+import { SiteReportView } from '../../../features/reports/components/site-report-view';
+import { isApiError } from '../../../lib/api-client';
+import { isNotFound, NotFoundPanel } from '../../route-errors';
+import { NotPublishedPanel } from './not-published';
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ params }: LoaderFunctionArgs) => {
+    const user = await queryClient.ensureQueryData(meQueryOptions());
+    if (!user) return null;
+    await queryClient.ensureQueryData(siteReportQueryOptions(String(params.siteId)));
+    return null;
+  };
+
+export default function SiteReportPage() {
+  const siteId = String(useParams().siteId);
+  const { data } = useSiteReport(siteId);
+  if (!data) return <LoadingBlock label="Loading the site report…" />;
+  return <SiteReportView report={data} />;
+}
+
+export function ErrorBoundary() {
+  const error = useRouteError();
+  if (isNotFound(error)) return <NotFoundPanel title="No such site report" />;
+  if (isApiError(error, 403)) return <NotPublishedPanel what="site report" />;
+  throw error;
+}

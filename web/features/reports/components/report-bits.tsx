@@ -1,0 +1,53 @@
+// Small pieces shared by the report pages: fact lists, section headings, export links.
+import type { ReactNode } from 'react';
+import { buttonClasses } from '../../../components/ui/button';
+
+export function Facts({ items }: { items: [string, ReactNode][] }) {
+  return (
+    <dl className="grid grid-cols-1 gap-x-6 gap-y-3 rounded-card border border-line bg-surface p-5 shadow-card sm:grid-cols-2 lg:grid-cols-4">
+      {items.map(([term, value]) => (
+        <div key={term} className="min-w-0">
+          <dt className="text-caption font-semibold uppercase tracking-wide text-ink-muted">{term}</dt>
+          <dd className="mt-0.5 text-ink">{value || '—'}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+export function Section({ id, title, intro, children }: { id: string; title: string; intro?: ReactNode; children: ReactNode }) {
+  return (
+    <section aria-labelledby={`${id}-title`} className="space-y-4 break-inside-avoid-page">
+      <div>
+        <h2 id={`${id}-title`} className="text-heading text-ink">
+          {title}
+        </h2>
+        {intro ? <p className="mt-1 max-w-prose text-label text-ink-muted">{intro}</p> : null}
+      </div>
+      {children}
+    </section>
+  );
+}
+
+export function ChartCard({ children }: { children: ReactNode }) {
+  return <div className="min-w-0 overflow-x-auto rounded-card border border-line bg-surface p-4 shadow-card">{children}</div>;
+}
+
+/** A plain download link styled as a button (the browser saves the file). */
+export function DownloadLink({ href, children }: { href: string; children: ReactNode }) {
+  return (
+    <a href={href} download className={buttonClasses('secondary', 'md', 'no-underline')}>
+      {children}
+    </a>
+  );
+}
+
+/** A boxed note that sits beside the tables. */
+export function DataTableNote({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <div className="rounded-card border border-line bg-surface p-4">
+      <p className="text-label font-semibold text-ink">{title}</p>
+      <p className="mt-1 text-label text-ink">{children}</p>
+    </div>
+  );
+}

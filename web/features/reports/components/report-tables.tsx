@@ -1,0 +1,140 @@
+// The report tables: ANOVA, rate means, differences from the reference, components, economics.
+import type { ReactNode } from 'react';
+import type { AnovaRow, PooledMean, RateDifference, RateMean } from '../../../../shared/analysis/types';
+import { formatMoney, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
+import type { ComponentRow, EconomicsRow } from '../../../../shared/schemas/report';
+import { cn } from '../../../lib/cn';
+
+export function DataTable({ caption, head, rows, className }: { caption: ReactNode; head: ReactNode[]; rows: ReactNode[][]; className?: string }) {
+  return (
+    <div className={cn('overflow-x-auto rounded-card border border-line bg-surface', className)}>
+      <table className="figures w-full min-w-max border-collapse text-label">
+        <caption className="px-4 pt-3 text-left text-label font-semibold text-ink">{caption}</caption>
+        <thead>
+          <tr>
+            {head.map((cell, i) => (
+              <th key={i} scope="col" className={cn('border-b border-line px-4 py-2 font-semibold text-ink-muted', i === 0 ? 'text-left' : 'text-right')}>
+                {cell}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((row, r) => (
+            <tr key={r} className="border-b border-line last:border-b-0">
+              {row.map((cell, i) =>
+                i === 0 ? (
+                  <th key={i} scope="row" className="px-4 py-2 text-left font-medium text-ink">
+                    {cell}
+                  </th>
+                ) : (
+                  <td key={i} className="px-4 py-2 text-right text-ink">
+                    {cell}
+                  </td>
+                ),
+              )}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+const pValue = (p: number | undefined) => (p === undefined ? '' : formatP(p).replace('p = ', '').replace('p < ', '< '));
+const SOURCES: Record<string, string> = {
+  block: 'Blocks',
+  rate: 'Seeding rate',
+  error: 'Error (strips)',
+  total: 'Total',
+  site: 'Sites',
+  'block(site)': 'Blocks within sites',
+  'site:rate': 'Site × rate',
+};
+
+export function AnovaTable({ anova, digits, caption = 'Analysis of variance' }: { anova: AnovaRow[]; digits: number; caption?: ReactNode }) {
+  return (
+    <DataTable
+      caption={caption}
+      head={['Source', 'df', 'Sum of squares', 'Mean square', 'F', 'p']}
+      rows={anova.map((row) => [
+        SOURCES[row.source] ?? row.source,
+        row.df,
+        formatNumber(row.ss, digits),
+        'ms' in row ? formatNumber(row.ms, digits) : '',
+        'f' in row ? formatNumber(row.f, 2) : '',
+        'p' in row ? pValue(row.p) : '',
+      ])}
+    />
+  );
+}
+
+export function MeansTable({ means, label, unit, digits }: { means: (RateMean | PooledMean)[]; label: (rate: string) => string; unit: string; digits: number }) {
+  const letters = means.some((m) => 'group' in m);
+  return (
+    <DataTable
+      caption="Rate means with 95 % confidence intervals"
+      head={['Rate', 'Strips', `Mean (${unit})`, '95 % CI', ...(letters ? ['Group'] : [])]}
+      rows={means.map((m) => [
+        label(m.rate),
+        m.n,
+        formatNumber(m.mean, digits),
+        `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`,
+        ...(letters ? [(m as RateMean).group] : []),
+      ])}
+    />
+  );
+}
+
+export function DifferencesTable({ differences, label, referenceLabel, unit, digits }: { differences: RateDifference[]; label: (rate: string) => string; referenceLabel: string; unit: string; digits: number }) {
+  return (
+    <DataTable
+      caption={`Difference from the ${referenceLabel} rate`}
+      head={['Rate', `Difference (${unit})`, '95 % CI', 'p']}
+      rows={differences.map((d) => [
+        label(d.rate),
+        `${d.diff > 0 ? '+' : ''}${formatNumber(d.diff, digits)}`,
+        `${formatNumber(d.ciLow, digits)} to ${formatNumber(d.ciHigh, digits)}`,
+        pValue(d.p),
+      ])}
+    />
+  );
+}
+
+export function ComponentsTable({ rows, seedUnit, yieldUnit, moneyUnit, digits }: { rows: ComponentRow[]; seedUnit: string; yieldUnit: string; moneyUnit: string; digits: number }) {
+  return (
+    <DataTable
+      caption="Yield components and seed economics (means over strips)"
+      head={['Rate', `Seed (${seedUnit})`, 'Plants/ft²', 'Establishment', 'Tillers/plant', 'Heads/ft²', `Yield (${yieldUnit})`, 'Seed return', `Return over seed (${moneyUnit})`]}
+      rows={rows.map((c) => [
+        c.label,
+        formatNumber(c.seedRate, 1),
+        formatNumber(c.plantsPerSquareFoot, 1),
+        c.establishmentPercent === null ? '–' : `${formatNumber(c.establishmentPercent, 0)} %`,
+        formatNumber(c.tillersPerPlant, 2),
+        formatNumber(c.headsPerSquareFoot, 1),
+        formatNumber(c.yield, digits),
+        c.seedReturn === null ? '–' : `${formatNumber(c.seedReturn, 1)}×`,
+        formatMoney(c.returnOverSeedCost),
+      ])}
+    />
+  );
+}
+
+export function EconomicsTable({ rows, seedUnit, yieldUnit, moneyUnit, referenceLabel, digits }: { rows: EconomicsRow[]; seedUnit: string; yieldUnit: string; moneyUnit: string; referenceLabel: string; digits: number }) {
+  return (
+    <DataTable
+      caption="Return over seed cost, averaged over sites"
+      head={['Rate', `Seed (${seedUnit})`, `Seed cost (${moneyUnit})`, `Yield (${yieldUnit})`, `Grain value (${moneyUnit})`, 'Return over seed', `Versus ${referenceLabel}`]}
+      rows={rows.map((e) => [
+        e.label,
+        formatNumber(e.seedRate, 1),
+        formatMoney(e.seedCost),
+        formatNumber(e.meanYield, digits),
+        formatMoney(e.grainValue),
+        formatMoney(e.returnOverSeedCost),
+        e.versusReference === null ? '–' : `${e.versusReference > 0.005 ? '+' : ''}${formatMoney(e.versusReference)}`,
+      ])}
+    />
+  );
+}
