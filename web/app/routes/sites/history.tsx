@@ -1,0 +1,24 @@
+// `/sites/:siteId/history`: who changed what on this site (coordinators).
+import { useParams } from 'react-router-dom';
+import { Alert } from '../../../components/ui/alert';
+import { LoadingBlock } from '../../../components/ui/spinner';
+import { useSiteAudit } from '../../../features/collect/api/site-audit';
+import { HistoryList } from '../../../features/collect/components/history-list';
+import { SiteHeading } from '../../../features/collect/components/site-heading';
+import { errorSummary } from '../../../lib/form-errors';
+import { CollectErrorBoundary, siteStripsLoader, WithSiteStrips } from './collect-route';
+
+export const clientLoader = siteStripsLoader;
+export const ErrorBoundary = CollectErrorBoundary;
+
+function History() {
+  const { siteId = '' } = useParams();
+  const audit = useSiteAudit(siteId);
+  if (audit.data) return <HistoryList events={audit.data} />;
+  if (audit.isError) return <Alert tone="danger">{errorSummary(audit.error)}</Alert>;
+  return <LoadingBlock label="Loading history…" />;
+}
+
+export default function HistoryPage() {
+  return <WithSiteStrips>{(data) => (<><SiteHeading site={data.site} title={`${data.site.fieldName}: history`} /><History /></>)}</WithSiteStrips>;
+}

@@ -1,0 +1,194 @@
+/**
+ * The outbox: strip edits are written to localStorage the moment they are typed and sent to
+ * the server in the background, so nothing is lost when the signal drops or the page reloads.
+ * Sending resumes on the browser's `online` event and on a timer. A stale version (409) keeps
+ * the edit and waits for the grower to reload or overwrite.
+ */
+import { useEffect, useSyncExternalStore } from 'react';
+import { StripSchema, type StripDto, type StripValuesPatch } from '../../../../shared/schemas/strip';
+import { api, isApiError } from '../../../lib/api-client';
+import { queryClient } from '../../../lib/query-client';
+import { storeStrip } from '../api/site-strips';
+
+export type OutboxStatus = 'pending' | 'conflict' | 'locked' | 'rejected';
+
+export interface OutboxEntry {
+  stripId: string;
+  siteId: string;
+  /** The strip version these edits were made on. */
+  baseVersion: number;
+  values: StripValuesPatch;
+  status: OutboxStatus;
+  message?: string;
+  /** The server's strip when it answered 409. */
+  current?: StripDto;
+  updatedAt: number;
+}
+
+const STORAGE_KEY = 'sheaf.collect.outbox.v1';
+const RETRY_MS = 5000;
+
+let entries: Record<string, OutboxEntry> = load();
+let snapshot: OutboxEntry[] = Object.values(entries);
+let flushing = false;
+let sending = false;
+let retryTimer: ReturnType<typeof setTimeout> | null = null;
+let soonTimer: ReturnType<typeof setTimeout> | null = null;
+let started = false;
+const listeners = new Set<() => void>();
+
+function load(): Record<string, OutboxEntry> {
+  try {
+    const raw = typeof localStorage === 'undefined' ? null : localStorage.getItem(STORAGE_KEY);
+    return raw ? (JSON.parse(raw) as Record<string, OutboxEntry>) : {};
+  } catch {
+    return {};
+  }
+}
+
+function commit(next: Record<string, OutboxEntry>) {
+  entries = next;
+  snapshot = Object.values(entries).sort((a, b) => a.updatedAt - b.updatedAt);
+  try {
+    localStorage.setItem(STORAGE_KEY, JSON.stringify(entries));
+  } catch {
+    // Storage full or blocked: the edit still sits in memory and is sent while the page is open.
+  }
+  for (const listener of listeners) listener();
+}
+
+function subscribe(listener: () => void) {
+  listeners.add(listener);
+  return () => listeners.delete(listener);
+}
+
+const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+
+/** Keeps an edit of one strip; later edits of the same strip merge into it. */
+export function queueEdit(strip: { stripId: string; siteId: string; version: number }, values: StripValuesPatch): void {
+  const existing = entries[strip.stripId];
+  const entry: OutboxEntry = existing
+    ? { ...existing, values: { ...existing.values, ...values }, updatedAt: Date.now() }
+    : { stripId: strip.stripId, siteId: strip.siteId, baseVersion: strip.version, values, status: 'pending', updatedAt: Date.now() };
+  if (entry.status === 'rejected') entry.status = 'pending';
+  commit({ ...entries, [strip.stripId]: entry });
+  flushSoon();
+}
+
+/** Sends after a short pause, so a burst of keystrokes becomes one request. */
+export function flushSoon(delay = 600): void {
+  if (soonTimer) clearTimeout(soonTimer);
+  soonTimer = setTimeout(() => {
+    soonTimer = null;
+    void flush();
+  }, delay);
+}
+
+function scheduleRetry() {
+  if (retryTimer) return;
+  retryTimer = setTimeout(() => {
+    retryTimer = null;
+    void flush();
+  }, RETRY_MS);
+}
+
+async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'> {
+  const sent = entry.values;
+  try {
+    const strip = StripSchema.parse(await api.patch(`/api/strips/${entry.stripId}`, { version: entry.baseVersion, values: sent }));
+    storeStrip(queryClient, strip);
+    const latest = entries[entry.stripId];
+    if (!latest) return 'sent';
+    const remaining: Record<string, unknown> = {};
+    for (const [key, value] of Object.entries(latest.values)) {
+      if (!same(value, (sent as Record<string, unknown>)[key])) remaining[key] = value;
+    }
+    const next = { ...entries };
+    if (Object.keys(remaining).length === 0) delete next[entry.stripId];
+    else next[entry.stripId] = { ...latest, values: remaining as StripValuesPatch, baseVersion: strip.version };
+    commit(next);
+    return 'sent';
+  } catch (error) {
+    if (isApiError(error, 0) || (isApiError(error) && error.status >= 500)) return 'offline';
+    const latest = entries[entry.stripId] ?? entry;
+    if (isApiError(error, 409)) {
+      const current = StripSchema.safeParse(error.current);
+      if (current.success) storeStrip(queryClient, current.data);
+      commit({ ...entries, [entry.stripId]: { ...latest, status: 'conflict', message: error.message, current: current.success ? current.data : undefined } });
+    } else if (isApiError(error, 423)) {
+      commit({ ...entries, [entry.stripId]: { ...latest, status: 'locked', message: error.message } });
+    } else if (isApiError(error, 401)) {
+      return 'offline';
+    } else {
+      commit({ ...entries, [entry.stripId]: { ...latest, status: 'rejected', message: error instanceof Error ? error.message : 'Not accepted' } });
+    }
+    return 'held';
+  }
+}
+
+/** Sends every pending edit, one strip at a time; stops at the first network failure. */
+export async function flush(): Promise<void> {
+  if (flushing) {
+    sending = true;
+    return;
+  }
+  flushing = true;
+  try {
+    do {
+      sending = false;
+      for (const entry of snapshot.filter((e) => e.status === 'pending')) {
+        const result = await sendOne(entry);
+        if (result === 'offline') {
+          scheduleRetry();
+          return;
+        }
+      }
+      if (snapshot.some((e) => e.status === 'pending')) sending = true;
+    } while (sending && snapshot.some((e) => e.status === 'pending'));
+  } finally {
+    flushing = false;
+  }
+}
+
+/** Drops my edits of a strip and shows the server's values. */
+export function discardEdits(stripId: string): void {
+  const next = { ...entries };
+  const entry = next[stripId];
+  delete next[stripId];
+  commit(next);
+  if (entry) void queryClient.invalidateQueries({ queryKey: ['collect', 'site', entry.siteId] });
+}
+
+/** Saves my edits over someone else's newer version. */
+export function overwriteWithMine(stripId: string): void {
+  const entry = entries[stripId];
+  if (!entry?.current) return;
+  commit({ ...entries, [stripId]: { ...entry, baseVersion: entry.current.version, status: 'pending', current: undefined, message: undefined } });
+  void flush();
+}
+
+function start() {
+  if (started || typeof window === 'undefined') return;
+  started = true;
+  window.addEventListener('online', () => void flush());
+  window.addEventListener('storage', (event) => {
+    if (event.key === STORAGE_KEY) {
+      entries = load();
+      snapshot = Object.values(entries);
+      for (const listener of listeners) listener();
+    }
+  });
+  void flush();
+}
+
+/** Every edit not yet accepted by the server; starts the background sender. */
+export function useOutbox(): OutboxEntry[] {
+  useEffect(start, []);
+  return useSyncExternalStore(subscribe, () => snapshot, () => snapshot);
+}
+
+/** The waiting edit of one strip, if any. */
+export function useStripOutbox(stripId: string | undefined): OutboxEntry | undefined {
+  const all = useOutbox();
+  return stripId ? all.find((e) => e.stripId === stripId) : undefined;
+}
