@@ -95,13 +95,13 @@ describe('trial design in the browser', () => {
     // Summary: per-rate seed amounts and the planner.
     const table = page.getByRole('table').first();
     await expect(table.textContent()).resolves.toMatch(/quarter/);
-    await expect(page.getByText('How many blocks and sites?').isVisible()).resolves.toBe(true);
+    await page.getByText('How many blocks and sites?').waitFor();
     await expect(page.getByTestId('blocks-needed').textContent()).resolves.toMatch(/^\d+$/);
     await screenshot(page, 'design-wizard-summary-1280');
     await page.getByRole('button', { name: 'Send to the field' }).click();
     await page.waitForURL(/\/trials\/[0-9a-f-]{36}$/);
     trialPath = new URL(page.url()).pathname;
-    await expect(page.getByText('In the field').first().isVisible()).resolves.toBe(true);
+    await page.getByText('In the field').first().waitFor();
 
     // Enrol an existing member, then invite a new address.
     await page.getByRole('button', { name: 'Enrol a site' }).click();
