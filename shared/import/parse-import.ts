@@ -5,7 +5,7 @@ import { ObservationValuesSchema } from '../schemas/observation';
 import type { ImportRowError } from '../schemas/import';
 import type { StripValuesPatch } from '../schemas/strip';
 import type { UnitSystem } from '../schemas/trial';
-import { IDENTITY_HEADERS, otherSystemHeader, templateHeaders, valueColumns, type ValueColumn } from './columns';
+import { otherSystemHeader, templateHeaders, valueColumns, type ValueColumn } from './columns';
 
 export interface ImportStripRef {
   block: number;

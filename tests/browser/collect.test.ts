@@ -129,6 +129,30 @@ describe('collecting strip data in the browser', () => {
     expect(await page.evaluate(() => document.body.dataset.hacked)).toBeUndefined();
   });
 
+  it('previews a CSV with its row errors before upload, and uploads a photo', async () => {
+    await page.goto(`${server.baseUrl}/sites/${site.siteId}/import`);
+    await page.getByLabel('CSV file (up to 5 MB)').setInputFiles({
+      name: 'ridge.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from('site,block,position,rate,moisture_pct,notes\nRidge field,1,2,double,wet,<b>bold</b>\nRidge field,1,3,half,13.1,\n'),
+    });
+    const problems = page.getByTestId('import-errors');
+    await problems.waitFor();
+    expect(await problems.textContent()).toContain('moisture_pct');
+    // The HTML typed in a cell is previewed as text.
+    expect(await page.getByTestId('import-preview').locator('b').count()).toBe(0);
+    expect(await page.getByRole('button', { name: /Upload ridge\.csv/ }).isDisabled()).toBe(true);
+    await screenshot(page, 'collect-import-390');
+
+    await page.goto(`${server.baseUrl}/sites/${site.siteId}/photos`);
+    const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f3e3f00000000049454e44ae426082', 'hex');
+    await page.getByLabel(/^Photo \(JPEG/).setInputFiles({ name: 'lodging.png', mimeType: 'image/png', buffer: png });
+    await page.getByLabel('Caption').fill('Lodging after the storm');
+    await page.getByRole('button', { name: 'Upload photo' }).click();
+    await page.getByRole('img', { name: 'Lodging after the storm' }).waitFor();
+    await screenshot(page, 'collect-photos-390');
+  });
+
   it('shows the grid and the coordinator’s progress page', async () => {
     await page.goto(`${server.baseUrl}/sites/${site.siteId}/grid`);
     await page.getByTestId('strip-grid').waitFor();

@@ -23,15 +23,28 @@ export function HistoryList({ events }: { events: AuditEventDto[] }) {
             <span className="block text-caption text-ink-muted">{formatDateTime(event.createdAt)}</span>
           </p>
           {event.after ? (
-            <table className="mt-2 w-full text-left text-caption">
+            <table className="mt-2 w-full table-fixed text-left text-caption">
+              <thead>
+                <tr className="text-ink-muted">
+                  <th scope="col" className="w-1/2 py-1 pr-2 font-medium sm:w-1/3">
+                    Value
+                  </th>
+                  <th scope="col" className="py-1 pr-2 font-medium">
+                    Before
+                  </th>
+                  <th scope="col" className="py-1 font-medium">
+                    After
+                  </th>
+                </tr>
+              </thead>
               <tbody>
                 {Object.keys(event.after).map((key) => (
                   <tr key={key} className="border-t border-line">
                     <th scope="row" className="py-1 pr-2 font-medium text-ink-muted">
                       {label(key)}
                     </th>
-                    <td className="figures py-1 pr-2 text-ink-muted line-through decoration-ink-muted/40">{show(event.before?.[key])}</td>
-                    <td className="figures py-1 font-semibold text-ink">{show(event.after?.[key])}</td>
+                    <td className="figures break-words py-1 pr-2 text-ink-muted line-through decoration-ink-muted/40">{show(event.before?.[key])}</td>
+                    <td className="figures break-words py-1 font-semibold text-ink">{show(event.after?.[key])}</td>
                   </tr>
                 ))}
               </tbody>

@@ -29,7 +29,7 @@ export function SiteDatesForm({ site }: { site: SiteContext }) {
         Site dates
       </h2>
       <p className="text-label text-ink-muted">These apply to every strip. Give a date on a strip only when it differs.</p>
-      <div className="grid grid-cols-2 gap-3">
+      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-1">
         {DATE_FIELDS.map(({ key, label }) => (
           <TextField
             key={key}

@@ -145,7 +145,7 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
 
       <Section title="Dates for this strip">
         <p className="text-label text-ink-muted">Leave empty when the site dates apply.</p>
-        <div className="grid grid-cols-2 gap-3">
+        <div className="grid gap-3 sm:grid-cols-2">
           <ValueInput label="Sowing" field="sowingDate" kind="date" {...common} />
           <ValueInput label="Emergence" field="emergenceDate" kind="date" {...common} />
           <ValueInput label="Heading" field="headingDate" kind="date" {...common} />

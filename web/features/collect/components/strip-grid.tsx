@@ -182,7 +182,6 @@ export function StripGrid({ data }: { data: SiteStrips }) {
         },
       }),
     ],
-    // eslint-disable-next-line react-hooks/exhaustive-deps
     [columns, site, disabled],
   );
 
