@@ -110,7 +110,8 @@ export function createApp(deps: AppDeps): Express {
     app.use(express.static(webRoot, { index: false, maxAge: '1h', setHeaders: cacheImmutableAssets }));
     app.get('/{*splat}', (_req, res) => {
       res.set('Cache-Control', 'no-cache');
-      res.sendFile(path.join(webRoot, 'index.html'));
+      // root keeps the dot-folder check off the build folder itself (e.g. .data/web-x).
+      res.sendFile('index.html', { root: webRoot });
     });
   }
   app.use(errorHandler);

@@ -11,6 +11,7 @@ export type PolicyKind =
   | 'network-coordinator'
   | 'trial-coordinator'
   | 'trial-reader'
+  | 'pooled-reader'
   | 'site-coordinator'
   | 'site-grower'
   | 'site-reader'
@@ -150,6 +151,20 @@ export function createPolicies(dataSource: DataSource) {
         }
         if (await trialHasPublished(trialId)) return;
         throw new Forbidden('This trial has nothing published yet');
+      }, param),
+    /** The pooled report: coordinators always; everyone else in the network once it is published. */
+    pooledReader: (param = 'trialId') =>
+      policy('pooled-reader', async (req) => {
+        const ctx = await context(req);
+        const trialId = uuidParam(req, param, 'Trial');
+        const role = ctx.roles.get(await trialNetwork(trialId));
+        if (!role) throw new NotFound('Trial');
+        if (isCoordinating(role)) return;
+        const live = await dataSource.query(
+          `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND scope = 'pooled' AND withdrawn_at IS NULL LIMIT 1`,
+          [trialId],
+        );
+        if (live.length === 0) throw new Forbidden('The pooled report is not published yet');
       }, param),
     siteCoordinator: (param = 'siteId') =>
       policy('site-coordinator', (req) => checkSite(req, uuidParam(req, param, 'Site'), false, false), param),

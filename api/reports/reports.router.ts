@@ -40,13 +40,13 @@ export function createReportsRouter(ctx: RouterContext) {
     res.json(await reports.unpublishSite(param(req, 'siteId'), req.user!.id));
   });
 
-  routes.get('/trials/:trialId/pooled-report', policies.trialReader(), async (req, res) => {
+  routes.get('/trials/:trialId/pooled-report', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
     res.set('Cache-Control', 'private, no-cache');
     res.json(await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query));
   });
 
-  routes.get('/trials/:trialId/pooled-report.pdf', policies.trialReader(), async (req, res) => {
+  routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
     const report = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
     const pdf = await htmlToPdf(await pooledReportHtml(report));

@@ -66,9 +66,9 @@ const authRoutes: RouteObject[] = [
 /** Pages anyone may read, signed in or not. */
 const openRoutes: RouteObject[] = [
   { path: 'cautions', lazy: routeModule(() => import('./routes/public/cautions')) },
-  { path: 'shared/:token', lazy: routeModule(() => import('./routes/reports/shared-report')) },
   { path: 'calculator', lazy: routeModule(() => import('./routes/calculator/calculator')) },
   { path: 'calibrate', lazy: routeModule(() => import('./routes/sites/calibrate')) },
+  { path: 'shared/:token', lazy: routeModule(() => import('./routes/reports/shared-report')) },
 ];
 
 export const routes: RouteObject[] = [

@@ -21,6 +21,7 @@ const MATRIX: Record<PolicyKind, Record<Persona, Expectation>> = {
   'network-coordinator': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 403, coordinator: 'allowed', admin: 'allowed' },
   'trial-coordinator': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 403, coordinator: 'allowed', admin: 'allowed' },
   'trial-reader': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
+  'pooled-reader': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 403, coordinator: 'allowed', admin: 'allowed' },
   'site-coordinator': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 403, coordinator: 'allowed', admin: 'allowed' },
   'site-grower': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
   'site-reader': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
