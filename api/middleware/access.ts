@@ -58,7 +58,9 @@ export function createPolicies(dataSource: DataSource) {
 
   function uuidParam(req: Request, name: string, what: string): string {
     const value = req.params[name];
-    if (typeof value !== 'string' || !/^[0-9a-f-]{36}$/i.test(value)) throw new NotFound(what);
+    // The 8-4-4-4-12 shape PostgreSQL's uuid type accepts: anything looser (36 dashes) reached
+    // the query and came back as a 500 (invalid input syntax for type uuid).
+    if (typeof value !== 'string' || !/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value)) throw new NotFound(what);
     return value;
   }
 
