@@ -131,12 +131,12 @@ try {
     for (const [i, line] of lines.slice(1).entries()) {
       const cells = line.split(',');
       const set = (name, value) => { if (col(name) >= 0) cells[col(name)] = String(value); };
-      set('grain_weight', (4 + (i % 7) * 0.1).toFixed(2));
+      set('grain_weight_lb', (4 + (i % 7) * 0.1).toFixed(2));
       set('moisture_pct', '13.5');
       set('harvest_rows', '4');
-      set('harvest_length', '50');
-      set('stand_count_1', String(30 + (i % 5)));
-      set('stand_row_length', '3');
+      set('harvest_length_ft', '50');
+      set('stand_1', String(30 + (i % 5)));
+      set('stand_row_length_ft', '3');
       filled.push(cells.join(','));
     }
     const form = new FormData();

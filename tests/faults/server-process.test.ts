@@ -1,52 +1,9 @@
 // The real server process: SIGTERM lets an in-flight request finish, and a signed-in
 // session still works after the server restarts.
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import http from 'node:http';
 import { afterEach, describe, expect, it } from 'vitest';
-import { testDatabaseUrl } from '../helpers/app';
-
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const server = http.createServer();
-    server.listen(0, '127.0.0.1', () => {
-      const address = server.address();
-      server.close(() => resolve(typeof address === 'object' && address ? address.port : 0));
-    });
-  });
-}
-
-async function startServer(port: number): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'api/server.ts'], {
-    env: {
-      ...process.env,
-      NODE_ENV: 'test',
-      PORT: String(port),
-      HOST: '127.0.0.1',
-      DATABASE_URL: testDatabaseUrl(),
-      SESSION_SECRET: 'server-process-test-secret',
-      SMTP_PORT: '0',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error('server did not start')), 30_000);
-    child.stdout!.on('data', (chunk: Buffer) => {
-      if (chunk.toString().includes('listening on')) {
-        clearTimeout(timer);
-        resolve();
-      }
-    });
-    child.on('exit', (code) => reject(new Error(`server exited early with ${code}`)));
-  });
-  return child;
-}
-
-function exitOf(child: ChildProcess): Promise<number | null> {
-  return new Promise((resolve) => {
-    if (child.exitCode !== null) resolve(child.exitCode);
-    else child.once('exit', (code) => resolve(code));
-  });
-}
+import { exitOf, freePort, startServerProcess as startServer } from '../helpers/server-process';
 
 interface Reply { status: number; body: string; cookies: string[] }
 function send(port: number, method: string, path: string, headers: Record<string, string>, body?: string): Promise<Reply> {
