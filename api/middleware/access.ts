@@ -3,6 +3,7 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { DataSource } from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
 import { Forbidden, NotFound, Unauthenticated } from '../errors';
+import { createTtlCache } from '../lib/ttl-cache';
 
 export type PolicyKind =
   | 'public'
@@ -44,15 +45,21 @@ export function isCoordinating(role: Role | undefined): boolean {
 
 /** Builds the policies against one DataSource. */
 export function createPolicies(dataSource: DataSource) {
+  const membershipCache = createTtlCache<Map<string, Role>>();
   async function context(req: Request): Promise<AccessContext> {
     const userId = req.user?.id;
     if (!userId) throw new Unauthenticated();
     if (req.access) return req.access;
-    const rows: { network_id: string; role: Role }[] = await dataSource.query(
-      'SELECT network_id, role FROM memberships WHERE user_id = $1',
-      [userId],
-    );
-    req.access = { userId, roles: new Map(rows.map((r) => [r.network_id, r.role])) };
+    let roles = membershipCache.get(userId);
+    if (!roles) {
+      const rows: { network_id: string; role: Role }[] = await dataSource.query(
+        'SELECT network_id, role FROM memberships WHERE user_id = $1',
+        [userId],
+      );
+      roles = new Map(rows.map((r) => [r.network_id, r.role]));
+      membershipCache.set(userId, roles);
+    }
+    req.access = { userId, roles };
     return req.access;
   }
 

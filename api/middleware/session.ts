@@ -6,6 +6,7 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type pg from 'pg';
 import type { AppConfig } from '../config/env';
 import type { AuthService } from '../auth/auth.service';
+import { createTtlCache } from '../lib/ttl-cache';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -18,15 +19,38 @@ declare global {
   }
 }
 
+type SessionCallback = (err: unknown, session?: session.SessionData | null) => void;
+
 export function createSessionMiddleware(config: AppConfig, pool: pg.Pool) {
   const PgStore = connectPgSimple(session);
+  const recent = createTtlCache<string>();
+  /** PostgreSQL session store that answers repeated reads of one session from memory for 2 s. */
+  class CachedPgStore extends PgStore {
+    override get(sid: string, callback: SessionCallback) {
+      const hit = recent.get(sid);
+      if (hit) return callback(null, JSON.parse(hit));
+      super.get(sid, (err: unknown, data?: session.SessionData | null) => {
+        if (!err && data) recent.set(sid, JSON.stringify(data));
+        callback(err, data);
+      });
+    }
+    override set(sid: string, data: session.SessionData, callback?: (err?: unknown) => void) {
+      recent.delete(sid);
+      super.set(sid, data, callback);
+    }
+    override destroy(sid: string, callback?: (err?: unknown) => void) {
+      recent.delete(sid);
+      super.destroy(sid, callback);
+    }
+  }
   return session({
-    store: new PgStore({ pool, tableName: 'user_sessions', createTableIfMissing: false, pruneSessionInterval: 60 * 15 }),
+    // No touch on every request: a read-only request then costs at most one session SELECT.
+    store: new CachedPgStore({ pool, tableName: 'user_sessions', createTableIfMissing: false, pruneSessionInterval: 60 * 15, disableTouch: true }),
     name: 'sheaf.sid',
     secret: config.SESSION_SECRET,
     resave: false,
     saveUninitialized: false,
-    rolling: true,
+    rolling: false,
     cookie: {
       httpOnly: true,
       sameSite: 'lax',
@@ -45,8 +69,14 @@ export function createPassport(auth: AuthService) {
     }),
   );
   instance.serializeUser((user, done) => done(null, user.id));
+  const users = createTtlCache<Express.User>();
   instance.deserializeUser((id: string, done) => {
-    auth.findSessionUser(id).then((user) => done(null, user ?? false), done);
+    const cached = users.get(id);
+    if (cached) return done(null, cached);
+    auth.findSessionUser(id).then((user) => {
+      if (user) users.set(id, user);
+      done(null, user ?? false);
+    }, done);
   });
   return instance;
 }

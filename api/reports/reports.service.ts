@@ -9,6 +9,7 @@ import { recordAudit } from '../audit/audit.service';
 import { Conflict, Forbidden, NotFound } from '../errors';
 import { composeMail, type Mailer } from '../mail/mailer';
 import { isCoordinating, type AccessContext } from '../middleware/access';
+import { createReportCache, digestOf } from './report-cache';
 import { stripsCsv } from './reports.csv';
 import {
   buildPooledReport,
@@ -172,6 +173,8 @@ const hasQuery = (query: PooledQuery) => Object.values(query).some((v) => v !== 
 
 export function createReportsService(deps: ReportsServiceDeps) {
   const { dataSource } = deps;
+  const siteBodies = createReportCache<Awaited<ReturnType<typeof buildSiteReport>>>();
+  const pooledBodies = createReportCache<ReturnType<typeof buildPooledReport>>(100);
 
   async function loadSiteBundle(db: Queryable, siteId: string) {
     const rows: Record<string, unknown>[] = await db.query(
@@ -228,7 +231,11 @@ export function createReportsService(deps: ReportsServiceDeps) {
       const [stored] = await dataSource.query('SELECT report FROM report_snapshots WHERE id = $1', [bundle.snapshot.id]);
       return { ...(stored.report as SiteReport), published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish };
     }
-    const body = await liveSiteBody(dataSource, bundle);
+    const photos = await loadPhotos(dataSource, bundle.site.id);
+    const body = await siteBodies.getOrCompute(digestOf('site', bundle.trial, bundle.site, photos), async () => {
+      const strips = await loadStrips(dataSource, { siteId: bundle.site.id });
+      return buildSiteReport({ trial: bundle.trial, levels: bundle.trial.levels, site: bundle.site, strips, photos });
+    });
     return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish };
   }
 
@@ -270,7 +277,9 @@ export function createReportsService(deps: ReportsServiceDeps) {
       const body = hasQuery(query) ? buildPooledReport(stored.input, query) : stored.report;
       return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish: false, publicLinkToken: null };
     }
-    const body = buildPooledReport(await livePooledInput(dataSource, bundle), query);
+    const body = await pooledBodies.getOrCompute(digestOf('pooled', bundle.trial, bundle.sites, query), async () =>
+      buildPooledReport(await livePooledInput(dataSource, bundle), query),
+    );
     return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish: true, publicLinkToken: bundle.trial.publicLinkToken };
   }
 
