@@ -18,6 +18,7 @@ export function NotFoundPanel({
 }) {
   return (
     <EmptyState
+      titleAs="h1"
       title={title}
       action={
         <ButtonLink to="/" variant="secondary">

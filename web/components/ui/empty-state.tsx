@@ -7,9 +7,17 @@ export interface EmptyStateProps {
   children?: ReactNode;
   action?: ReactNode;
   className?: string;
+  /** `h1` when the empty state is the whole page (a 404 or "not published"), so it has a heading. */
+  titleAs?: 'p' | 'h1' | 'h2';
 }
 
-export function EmptyState({ title, children, action, className }: EmptyStateProps) {
+export function EmptyState({
+  title,
+  children,
+  action,
+  className,
+  titleAs: Title = 'p',
+}: EmptyStateProps) {
   return (
     <div
       className={cn(
@@ -29,7 +37,7 @@ export function EmptyState({ title, children, action, className }: EmptyStatePro
           />
         ))}
       </svg>
-      <p className="text-heading text-ink">{title}</p>
+      <Title className="text-heading text-ink">{title}</Title>
       {children ? <div className="mt-1 max-w-prose text-ink-muted">{children}</div> : null}
       {action ? <div className="mt-5">{action}</div> : null}
     </div>

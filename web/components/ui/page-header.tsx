@@ -1,16 +1,32 @@
 // The top of every page: an optional eyebrow line, the title, a sentence of context and actions.
 import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
 import { cn } from '../../lib/cn';
+
+/** Where "up" is from this page: the parent page's path and name. */
+export interface BackTo {
+  to: string;
+  label: string;
+}
 
 export interface PageHeaderProps {
   eyebrow?: ReactNode;
+  /** A link to the page this one belongs to, shown above the title. */
+  back?: BackTo;
   title: ReactNode;
   description?: ReactNode;
   actions?: ReactNode;
   className?: string;
 }
 
-export function PageHeader({ eyebrow, title, description, actions, className }: PageHeaderProps) {
+export function PageHeader({
+  eyebrow,
+  back,
+  title,
+  description,
+  actions,
+  className,
+}: PageHeaderProps) {
   return (
     <header
       className={cn(
@@ -19,6 +35,17 @@ export function PageHeader({ eyebrow, title, description, actions, className }: 
       )}
     >
       <div className="min-w-0 space-y-1">
+        {back ? (
+          <p className="no-print mb-2">
+            <Link
+              to={back.to}
+              className="inline-flex min-h-11 items-center gap-1.5 rounded-field text-label font-semibold text-accent no-underline hover:underline sm:min-h-0"
+            >
+              <span aria-hidden="true">←</span>
+              {back.label}
+            </Link>
+          </p>
+        ) : null}
         {eyebrow ? (
           <p className="text-caption font-semibold uppercase tracking-wider text-straw-700 dark:text-straw-300">
             {eyebrow}

@@ -1,5 +1,5 @@
 // `/`: the signed-in home. Coordinators see their trials, growers their sites, members reports.
-import type { QueryClient } from '@tanstack/react-query';
+import { useQueries, type QueryClient } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { useRouteError } from 'react-router-dom';
 import type { SessionUser } from '../../../../shared/schemas/auth';
@@ -12,6 +12,7 @@ import { ReportList } from '../../../features/home/components/report-list';
 import { SiteCardList } from '../../../features/home/components/site-card-list';
 import { TrialCardList } from '../../../features/home/components/trial-card-list';
 import { mySitesQueryOptions, useMySites } from '../../../features/sites/api/get-my-sites';
+import { trialQueryOptions } from '../../../features/trials/api/get-trial';
 import { trialsQueryOptions, useTrials } from '../../../features/trials/api/get-trials';
 import { errorSummary } from '../../../lib/form-errors';
 import { firstName, homeKind } from '../../../lib/session';
@@ -20,8 +21,16 @@ import { isNotFound, NotFoundPanel } from '../../route-errors';
 export const clientLoader = (queryClient: QueryClient) => async () => {
   const user = await queryClient.ensureQueryData(meQueryOptions());
   if (!user) return null;
-  if (homeKind(user) === 'grower') await queryClient.ensureQueryData(mySitesQueryOptions());
-  else await queryClient.ensureQueryData(trialsQueryOptions());
+  const kind = homeKind(user);
+  if (kind === 'grower') {
+    await queryClient.ensureQueryData(mySitesQueryOptions());
+  } else {
+    const trials = await queryClient.ensureQueryData(trialsQueryOptions());
+    // A member's list names each published report, which the trial's detail lists.
+    if (kind === 'member') {
+      await Promise.all(trials.map((t) => queryClient.ensureQueryData(trialQueryOptions(t.id))));
+    }
+  }
   return null;
 };
 
@@ -100,6 +109,16 @@ function GrowerHome({ user }: { user: SessionUser }) {
 
 function MemberHome({ user }: { user: SessionUser }) {
   const trials = useTrials();
+  const details = useQueries({
+    queries: (trials.data ?? []).map((t) => trialQueryOptions(t.id)),
+    combine: (results) => ({
+      data: results.every((r) => r.data) ? results.map((r) => r.data!) : undefined,
+      isError: results.some((r) => r.isError),
+      error: results.find((r) => r.error)?.error,
+      isRefetching: results.some((r) => r.isRefetching),
+      refetch: () => results.forEach((r) => void r.refetch()),
+    }),
+  });
   return (
     <>
       <PageHeader
@@ -107,9 +126,15 @@ function MemberHome({ user }: { user: SessionUser }) {
         title="Reports"
         description="What the network’s rate strips showed, site by site and pooled across farms."
       />
-      <QueryState query={trials} loadingLabel="Loading reports…">
-        {(data) => <ReportList trials={data} />}
-      </QueryState>
+      {trials.data === undefined ? (
+        <QueryState query={trials} loadingLabel="Loading reports…">
+          {() => null}
+        </QueryState>
+      ) : (
+        <QueryState query={details} loadingLabel="Loading reports…">
+          {(data) => <ReportList trials={data} />}
+        </QueryState>
+      )}
     </>
   );
 }

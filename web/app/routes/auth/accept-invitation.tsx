@@ -12,6 +12,7 @@ import { LoadingBlock } from '../../../components/ui/spinner';
 import { invitationQueryOptions, useInvitation } from '../../../features/auth/api/invitation';
 import { AcceptInvitationForm } from '../../../features/auth/components/accept-invitation-form';
 import { AuthCard } from '../../../features/auth/components/auth-card';
+import { isApiError } from '../../../lib/api-client';
 import { errorSummary } from '../../../lib/form-errors';
 import { isNotFound } from '../../route-errors';
 
@@ -48,7 +49,8 @@ export default function AcceptInvitationPage() {
 
 export function ErrorBoundary() {
   const error = useRouteError();
-  if (!isNotFound(error)) throw error;
+  // A malformed token is refused by validation (400): to the reader it is the same broken link.
+  if (!isNotFound(error) && !isApiError(error, 400)) throw error;
   return (
     <AuthCard title="This invitation does not work">
       <Alert tone="caution">

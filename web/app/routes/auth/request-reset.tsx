@@ -6,7 +6,7 @@ import { RequestResetForm } from '../../../features/auth/components/request-rese
 export default function RequestResetPage() {
   return (
     <AuthCard
-      title="Set a new password"
+      title="Forgot your password?"
       intro="Enter the address you sign in with. We will e-mail you a link to choose a new password."
       footer={
         <Link to="/sign-in" className="text-accent underline">

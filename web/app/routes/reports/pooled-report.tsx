@@ -1,10 +1,20 @@
 // /trials/:trialId/report: the pooled network report with filters and adjustable prices.
 import type { QueryClient } from '@tanstack/react-query';
-import { useParams, useRouteError, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import {
+  useParams,
+  useRouteError,
+  useSearchParams,
+  type LoaderFunctionArgs,
+} from 'react-router-dom';
 import { PooledQuerySchema, type PooledQuery } from '../../../../shared/schemas/report';
 import { LoadingBlock } from '../../../components/ui/spinner';
-import { meQueryOptions } from '../../../features/auth/api/get-me';
-import { pooledReportQueryOptions, pooledSearch, usePooledReport } from '../../../features/reports/api/get-pooled-report';
+import { meQueryOptions, useMe } from '../../../features/auth/api/get-me';
+import { homeKind } from '../../../lib/session';
+import {
+  pooledReportQueryOptions,
+  pooledSearch,
+  usePooledReport,
+} from '../../../features/reports/api/get-pooled-report';
 import { PooledReportView } from '../../../features/reports/components/pooled-report-view';
 import { isApiError } from '../../../lib/api-client';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
@@ -21,7 +31,12 @@ export const clientLoader =
   async ({ params, request }: LoaderFunctionArgs) => {
     const user = await queryClient.ensureQueryData(meQueryOptions());
     if (!user) return null;
-    await queryClient.ensureQueryData(pooledReportQueryOptions(String(params.trialId), queryFromSearch(new URL(request.url).searchParams)));
+    await queryClient.ensureQueryData(
+      pooledReportQueryOptions(
+        String(params.trialId),
+        queryFromSearch(new URL(request.url).searchParams),
+      ),
+    );
     return null;
   };
 
@@ -30,13 +45,24 @@ export default function PooledReportPage() {
   const [search, setSearch] = useSearchParams();
   const query = queryFromSearch(search);
   const { data, isPlaceholderData } = usePooledReport(trialId, query);
+  const { data: user } = useMe();
   if (!data) return <LoadingBlock label="Loading the network report…" />;
+  const back =
+    data.canPublish || (user && homeKind(user) !== 'member')
+      ? { to: `/trials/${trialId}`, label: data.trial.name }
+      : { to: '/', label: 'Reports' };
   return (
     <PooledReportView
+      back={back}
       report={data}
       query={query}
       updating={isPlaceholderData}
-      onQuery={(next) => setSearch(new URLSearchParams(pooledSearch(next).slice(1)), { replace: true, preventScrollReset: true })}
+      onQuery={(next) =>
+        setSearch(new URLSearchParams(pooledSearch(next).slice(1)), {
+          replace: true,
+          preventScrollReset: true,
+        })
+      }
     />
   );
 }

@@ -3,8 +3,12 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { LoadingBlock } from '../../../components/ui/spinner';
-import { meQueryOptions } from '../../../features/auth/api/get-me';
-import { siteReportQueryOptions, useSiteReport } from '../../../features/reports/api/get-site-report';
+import { meQueryOptions, useMe } from '../../../features/auth/api/get-me';
+import { homeKind } from '../../../lib/session';
+import {
+  siteReportQueryOptions,
+  useSiteReport,
+} from '../../../features/reports/api/get-site-report';
 import { SiteReportView } from '../../../features/reports/components/site-report-view';
 import { isApiError } from '../../../lib/api-client';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
@@ -22,8 +26,14 @@ export const clientLoader =
 export default function SiteReportPage() {
   const siteId = String(useParams().siteId);
   const { data } = useSiteReport(siteId);
+  const { data: user } = useMe();
   if (!data) return <LoadingBlock label="Loading the site report…" />;
-  return <SiteReportView report={data} />;
+  // Coordinators and growers read the trial page; members come from their list of reports.
+  const back =
+    data.canPublish || (user && homeKind(user) !== 'member')
+      ? { to: `/trials/${data.site.trialId}`, label: data.site.trialName }
+      : { to: '/', label: 'Reports' };
+  return <SiteReportView report={data} back={back} />;
 }
 
 export function ErrorBoundary() {

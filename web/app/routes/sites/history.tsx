@@ -5,6 +5,7 @@ import { LoadingBlock } from '../../../components/ui/spinner';
 import { useSiteAudit } from '../../../features/collect/api/site-audit';
 import { HistoryList } from '../../../features/collect/components/history-list';
 import { SiteHeading } from '../../../features/collect/components/site-heading';
+import { isApiError } from '../../../lib/api-client';
 import { errorSummary } from '../../../lib/form-errors';
 import { CollectErrorBoundary, siteStripsLoader, WithSiteStrips } from './collect-route';
 
@@ -15,10 +16,31 @@ function History() {
   const { siteId = '' } = useParams();
   const audit = useSiteAudit(siteId);
   if (audit.data) return <HistoryList events={audit.data} />;
-  if (audit.isError) return <Alert tone="danger">{errorSummary(audit.error)}</Alert>;
+  if (audit.isError) {
+    if (isApiError(audit.error, 403))
+      return (
+        <Alert tone="info" title="History is for coordinators">
+          The trial’s coordinators see who changed which number here.
+        </Alert>
+      );
+    return (
+      <Alert tone="danger" title="Could not load the history">
+        {errorSummary(audit.error)}
+      </Alert>
+    );
+  }
   return <LoadingBlock label="Loading history…" />;
 }
 
 export default function HistoryPage() {
-  return <WithSiteStrips>{(data) => (<><SiteHeading site={data.site} title={`${data.site.fieldName}: history`} /><History /></>)}</WithSiteStrips>;
+  return (
+    <WithSiteStrips>
+      {(data) => (
+        <>
+          <SiteHeading site={data.site} title={`${data.site.fieldName}: history`} />
+          <History />
+        </>
+      )}
+    </WithSiteStrips>
+  );
 }

@@ -1,6 +1,6 @@
 // `/sites/:siteId/map`: the site's strip map on its own, with a link to the printable packet.
 import type { QueryClient } from '@tanstack/react-query';
-import { Link, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
+import { useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { ButtonLink } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeader } from '../../../components/ui/page-header';
@@ -32,7 +32,12 @@ export default function SiteMapPage() {
   return (
     <>
       <PageHeader
-        eyebrow={<Link to={`/trials/${site.data.trialId}`}>{site.data.trial.name}</Link>}
+        back={
+          site.data.canCoordinate
+            ? { to: `/trials/${site.data.trialId}`, label: site.data.trial.name }
+            : { to: `/sites/${site.data.id}`, label: site.data.fieldName }
+        }
+        eyebrow={site.data.trial.name}
         title={`Strip map: ${site.data.fieldName}`}
         description={`${site.data.trial.blocksPerSite ?? '?'} blocks, each with every rate once in its own random order.`}
         actions={

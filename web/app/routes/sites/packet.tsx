@@ -1,7 +1,7 @@
 // `/sites/:siteId/packet`: the printable field packet (print or "Save as PDF" from the browser).
 import type { QueryClient } from '@tanstack/react-query';
 import { Link, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
-import { Button } from '../../../components/ui/button';
+import { Button, ButtonLink } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { LoadingBlock } from '../../../components/ui/spinner';
 import {
@@ -28,25 +28,40 @@ export default function PacketPage() {
   const site = useSite(siteId!);
   const layout = useLayout(siteId!);
   if (!site.data || !layout.data) return <LoadingBlock />;
+  const back = site.data.canCoordinate
+    ? { to: `/trials/${site.data.trialId}`, label: site.data.trial.name }
+    : { to: `/sites/${site.data.id}`, label: site.data.fieldName };
   if (!site.data.randomized) {
     return (
-      <EmptyState title="The packet is not ready yet">
+      <EmptyState
+        titleAs="h1"
+        title="The packet is not ready yet"
+        action={
+          <ButtonLink to={back.to} variant="secondary">
+            Back to {back.label}
+          </ButtonLink>
+        }
+      >
         Your coordinator sends it once the strips of this site are randomized.
       </EmptyState>
     );
   }
   return (
     <>
-      <div className="no-print mb-6 flex flex-wrap items-center justify-between gap-3 rounded-card border border-line bg-surface p-4 shadow-card">
-        <p className="text-label font-normal text-ink-muted">
-          Print it, or choose “Save as PDF” in the print dialog. A4 and Letter both fit.{' '}
-          <Link
-            to={site.data.canCoordinate ? `/trials/${site.data.trialId}` : `/sites/${site.data.id}`}
-          >
-            Back
-          </Link>
-        </p>
-        <Button onClick={() => window.print()}>Print the packet</Button>
+      <div className="no-print mb-6 space-y-3">
+        <Link
+          to={back.to}
+          className="inline-flex min-h-11 items-center gap-1.5 text-label font-semibold text-accent no-underline hover:underline"
+        >
+          <span aria-hidden="true">←</span>
+          {back.label}
+        </Link>
+        <div className="flex flex-wrap items-center justify-between gap-3 rounded-card border border-line bg-surface p-4 shadow-card">
+          <p className="text-label font-normal text-ink-muted">
+            Print it, or choose “Save as PDF” in the print dialog. A4 and Letter both fit.
+          </p>
+          <Button onClick={() => window.print()}>Print the packet</Button>
+        </div>
       </div>
       <FieldPacket site={site.data} layout={layout.data} />
     </>

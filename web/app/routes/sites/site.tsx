@@ -28,11 +28,34 @@ export default function SitePage() {
               <Card>
                 <SiteDatesForm key={data.site.dataVersion} site={data.site} />
               </Card>
-              {data.site.isCoordinator ? (
-                <p className="text-label">
-                  <Link to={`/trials/${data.site.trialId}/progress`}>Progress across the trial →</Link>
-                </p>
-              ) : null}
+              <Card>
+                <h2 className="text-heading text-ink">This site</h2>
+                <ul className="mt-2 flex flex-col">
+                  {[
+                    { to: `/sites/${data.site.siteId}/map`, label: 'Strip map' },
+                    { to: `/sites/${data.site.siteId}/packet`, label: 'Field packet' },
+                    { to: `/sites/${data.site.siteId}/report`, label: 'Site report' },
+                    { to: '/calibrate?site=' + data.site.siteId, label: 'Calibrate the seeder' },
+                    ...(data.site.isCoordinator
+                      ? [
+                          {
+                            to: `/trials/${data.site.trialId}/progress`,
+                            label: 'Progress across the trial',
+                          },
+                        ]
+                      : []),
+                  ].map((item) => (
+                    <li key={item.to}>
+                      <Link
+                        to={item.to}
+                        className="inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent no-underline hover:bg-accent-soft"
+                      >
+                        {item.label}
+                      </Link>
+                    </li>
+                  ))}
+                </ul>
+              </Card>
             </div>
           </div>
         </>

@@ -17,7 +17,15 @@ export default function StripPage() {
         if (!strip) return <NotFoundPanel title="Strip not found" />;
         return (
           <>
-            <SiteHeading site={data.site} title={`Block ${strip.block} · strip ${strip.position}`} description={`${strip.label} rate (${strip.rate}× the reference) · ${data.site.fieldName}`} />
+            <SiteHeading
+              site={data.site}
+              back={{
+                to: `/sites/${data.site.siteId}`,
+                label: `All strips of ${data.site.fieldName}`,
+              }}
+              title={`Block ${strip.block} · strip ${strip.position}`}
+              description={`${strip.label} rate (${strip.rate}× the reference) · ${data.site.fieldName}`}
+            />
             <StripForm key={strip.stripId} data={data} strip={strip} />
           </>
         );

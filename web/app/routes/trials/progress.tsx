@@ -2,10 +2,14 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
 import { meQueryOptions } from '../../../features/auth/api/get-me';
-import { trialProgressQueryOptions, useTrialProgress } from '../../../features/collect/api/trial-progress';
+import {
+  trialProgressQueryOptions,
+  useTrialProgress,
+} from '../../../features/collect/api/trial-progress';
 import { ProgressTable } from '../../../features/collect/components/progress-table';
 import { errorSummary } from '../../../lib/form-errors';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
@@ -22,11 +26,29 @@ export const clientLoader =
 export default function ProgressPage() {
   const { trialId = '' } = useParams();
   const progress = useTrialProgress(trialId);
-  if (progress.isError) return <Alert tone="danger">{errorSummary(progress.error)}</Alert>;
+  if (progress.isError) {
+    return (
+      <Alert
+        tone="danger"
+        title="Could not load progress"
+        action={
+          <Button variant="secondary" onClick={() => void progress.refetch()}>
+            Try again
+          </Button>
+        }
+      >
+        {errorSummary(progress.error)}
+      </Alert>
+    );
+  }
   if (!progress.data) return <LoadingBlock label="Loading progress…" />;
   return (
     <>
-      <PageHeader eyebrow={progress.data.trialName} title="Numbers coming in" description="How many strips at each site have each measurement entered." />
+      <PageHeader
+        back={{ to: `/trials/${trialId}`, label: progress.data.trialName }}
+        title="Numbers coming in"
+        description="How many strips at each site have each measurement entered."
+      />
       <ProgressTable progress={progress.data} />
     </>
   );

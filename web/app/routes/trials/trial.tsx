@@ -9,6 +9,7 @@ import { Button, ButtonLink } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
+import { useMe } from '../../../features/auth/api/get-me';
 import { trialQueryOptions, useTrial } from '../../../features/trials/api/get-trial';
 import { useSendAllPackets } from '../../../features/trials/api/trial-mutations';
 import { EnrolSiteForm } from '../../../features/trials/components/enrol-site-form';
@@ -32,6 +33,7 @@ const linkClass =
 export default function TrialPage() {
   const { trialId } = useParams();
   const { data: trial } = useTrial(trialId!);
+  const { data: me } = useMe();
   const [enrolOpen, setEnrolOpen] = useState(false);
   const sendAll = useSendAllPackets(trialId!);
   const table = useMemo(
@@ -130,6 +132,7 @@ export default function TrialPage() {
               trialId={trial.id}
               sites={trial.sites}
               canEdit={trial.canEdit}
+              viewerId={me?.id}
               active={active}
             />
           </section>
@@ -183,14 +186,14 @@ export default function TrialPage() {
                 </div>
               ))}
             </dl>
-            {trial.designLocked ? (
+            {trial.designLocked && trial.canEdit ? (
               <p className="mt-3 text-caption text-ink-muted">
                 Rates and blocks are fixed: a site is randomized.
               </p>
             ) : null}
           </Card>
           <Card>
-            <h2 className="text-heading text-ink">During the season</h2>
+            <h2 className="text-heading text-ink">Reports and tools</h2>
             <ul className="mt-2 flex flex-col">
               {trial.canEdit ? (
                 <li>
@@ -199,16 +202,24 @@ export default function TrialPage() {
                   </Link>
                 </li>
               ) : null}
-              <li>
-                <Link className={linkClass} to={`/trials/${trial.id}/report`}>
-                  Pooled report
-                </Link>
-              </li>
-              <li>
-                <Link className={linkClass} to={`/trials/${trial.id}/meeting`}>
-                  Meeting view
-                </Link>
-              </li>
+              {trial.canEdit || trial.pooledPublishedAt ? (
+                <>
+                  <li>
+                    <Link className={linkClass} to={`/trials/${trial.id}/report`}>
+                      Pooled report
+                    </Link>
+                  </li>
+                  <li>
+                    <Link className={linkClass} to={`/trials/${trial.id}/meeting`}>
+                      Meeting view
+                    </Link>
+                  </li>
+                </>
+              ) : (
+                <li className="px-3 py-2 text-label text-ink-muted">
+                  The pooled report appears here once the coordinator publishes it.
+                </li>
+              )}
               <li>
                 <Link className={linkClass} to="/calculator">
                   Seed calculator

@@ -5,12 +5,21 @@ import type { StripDto } from '../../../../shared/schemas/strip';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
+import { EmptyState } from '../../../components/ui/empty-state';
 import { TextField } from '../../../components/ui/text-field';
 import { errorSummary } from '../../../lib/form-errors';
 import { formatDateTime } from '../../../lib/format';
 import { useSitePhotos, useUploadPhoto } from '../api/photos';
 
-export function PhotoUploader({ siteId, strips, stripId }: { siteId: string; strips?: StripDto[]; stripId?: string }) {
+export function PhotoUploader({
+  siteId,
+  strips,
+  stripId,
+}: {
+  siteId: string;
+  strips?: StripDto[];
+  stripId?: string;
+}) {
   const upload = useUploadPhoto(siteId);
   const fileRef = useRef<HTMLInputElement>(null);
   const [caption, setCaption] = useState('');
@@ -63,7 +72,12 @@ export function PhotoUploader({ siteId, strips, stripId }: { siteId: string; str
           </select>
         </div>
       ) : null}
-      <TextField label="Caption" value={caption} maxLength={300} onChange={(event) => setCaption(event.target.value)} />
+      <TextField
+        label="Caption"
+        value={caption}
+        maxLength={300}
+        onChange={(event) => setCaption(event.target.value)}
+      />
       {upload.isError ? <Alert tone="danger">{errorSummary(upload.error)}</Alert> : null}
       <Button type="submit" variant="secondary" busy={upload.isPending}>
         Upload photo
@@ -73,20 +87,39 @@ export function PhotoUploader({ siteId, strips, stripId }: { siteId: string; str
 }
 
 export function PhotoGrid({ photos, strips }: { photos: PhotoDto[]; strips?: StripDto[] }) {
-  if (photos.length === 0) return <p className="text-label text-ink-muted">No photos yet.</p>;
+  if (photos.length === 0) {
+    return (
+      <EmptyState title="No photos yet">
+        A photo of each block at heading, or of an odd strip, helps the coordinator read the
+        numbers.
+      </EmptyState>
+    );
+  }
   return (
     <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3">
       {photos.map((photo) => {
         const strip = strips?.find((s) => s.stripId === photo.stripId);
         return (
-          <li key={photo.id} className="overflow-hidden rounded-field border border-line bg-surface">
+          <li
+            key={photo.id}
+            className="overflow-hidden rounded-field border border-line bg-surface"
+          >
             <a href={photo.url} target="_blank" rel="noreferrer">
-              <img src={photo.url} alt={photo.caption || 'Field photo'} loading="lazy" className="aspect-[4/3] w-full object-cover" />
+              <img
+                src={photo.url}
+                alt={photo.caption || 'Field photo'}
+                loading="lazy"
+                className="aspect-[4/3] w-full object-cover"
+              />
             </a>
             <div className="space-y-0.5 p-2 text-caption">
               {photo.caption ? <p className="text-ink">{photo.caption}</p> : null}
               <p className="text-ink-muted">
-                {strip ? `Block ${strip.block} · strip ${strip.position} · ` : photo.stripId ? '' : 'Whole site · '}
+                {strip
+                  ? `Block ${strip.block} · strip ${strip.position} · `
+                  : photo.stripId
+                    ? ''
+                    : 'Whole site · '}
                 {formatDateTime(photo.createdAt)}
               </p>
             </div>
@@ -97,13 +130,25 @@ export function PhotoGrid({ photos, strips }: { photos: PhotoDto[]; strips?: Str
   );
 }
 
-export function StripPhotos({ siteId, stripId, canUpload }: { siteId: string; stripId: string; canUpload: boolean }) {
+export function StripPhotos({
+  siteId,
+  stripId,
+  canUpload,
+}: {
+  siteId: string;
+  stripId: string;
+  canUpload: boolean;
+}) {
   const photos = useSitePhotos(siteId);
   const mine = (photos.data ?? []).filter((p) => p.stripId === stripId);
   return (
     <Card className="space-y-4 p-4 sm:p-5">
       <h2 className="text-heading text-ink">Photos of this strip</h2>
-      <PhotoGrid photos={mine} />
+      {mine.length > 0 ? (
+        <PhotoGrid photos={mine} />
+      ) : (
+        <p className="text-label text-ink-muted">No photos of this strip yet.</p>
+      )}
       {canUpload ? <PhotoUploader siteId={siteId} stripId={stripId} /> : null}
     </Card>
   );

@@ -1,6 +1,12 @@
 // The whole site as a grid (@tanstack/react-table v8): arrow keys move, Enter moves down, and a
 // block of cells pasted from a spreadsheet fills the strips and columns from the focused cell.
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type ColumnDef } from '@tanstack/react-table';
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  useReactTable,
+  type ColumnDef,
+} from '@tanstack/react-table';
 import { useMemo, useRef, useState, type ClipboardEvent, type KeyboardEvent } from 'react';
 import type { ObservationValues } from '../../../../shared/schemas/observation';
 import type { SiteStrips, StripDto, StripValuesPatch } from '../../../../shared/schemas/strip';
@@ -9,7 +15,13 @@ import { entryUnits } from '../../../../shared/units/strip-derived';
 import { Alert } from '../../../components/ui/alert';
 import { cn } from '../../../lib/cn';
 import { queueEdit, useOutbox } from '../lib/outbox';
-import { cellText, effectiveValues, formatNumber, liveDerived, patchForCell } from '../lib/strip-values';
+import {
+  cellText,
+  effectiveValues,
+  formatNumber,
+  liveDerived,
+  patchForCell,
+} from '../lib/strip-values';
 
 interface GridRow {
   strip: StripDto;
@@ -19,6 +31,49 @@ interface GridRow {
 
 const columnHelper = createColumnHelper<GridRow>();
 
+const UNITS = {
+  imperial: { length: 'ft', weight: 'lb', area: 'ft²', testWeight: 'lb/bu' },
+  metric: { length: 'm', weight: 'kg', area: 'm²', testWeight: 'kg/hl' },
+} as const;
+
+/** A short plain heading for a grid column; the CSV column name stays in the tooltip. */
+function gridLabel(column: ValueColumn, system: 'imperial' | 'metric'): string {
+  const u = UNITS[system];
+  const n = column.index === undefined ? '' : ` ${column.index + 1}`;
+  switch (column.field) {
+    case 'seedsSown':
+      return 'Seeds sown';
+    case 'standCounts':
+      return `Stand${n}`;
+    case 'standRowLength':
+      return `Stand row (${u.length})`;
+    case 'tillerPlants':
+      return 'Plants for tillers';
+    case 'tillerCount':
+      return 'Tillers';
+    case 'headCounts':
+      return `Heads${n}`;
+    case 'headRowLength':
+      return `Head row (${u.length})`;
+    case 'grainWeight':
+      return `Grain (${u.weight})`;
+    case 'harvestRows':
+      return 'Rows harvested';
+    case 'harvestLength':
+      return `Length harvested (${u.length})`;
+    case 'harvestArea':
+      return `Area harvested (${u.area})`;
+    case 'moisturePct':
+      return 'Moisture %';
+    case 'testWeight':
+      return `Test weight (${u.testWeight})`;
+    case 'notes':
+      return 'Notes';
+    default:
+      return column.header;
+  }
+}
+
 function focusCell(row: number, col: number) {
   const input = document.querySelector<HTMLInputElement>(`[data-cell="${row}:${col}"]`);
   if (input) {
@@ -27,7 +82,21 @@ function focusCell(row: number, col: number) {
   }
 }
 
-function GridCell({ row, col, data, column, disabled, onPaste }: { row: number; col: number; data: GridRow; column: ValueColumn; disabled: boolean; onPaste: (event: ClipboardEvent<HTMLInputElement>, row: number, col: number) => void }) {
+function GridCell({
+  row,
+  col,
+  data,
+  column,
+  disabled,
+  onPaste,
+}: {
+  row: number;
+  col: number;
+  data: GridRow;
+  column: ValueColumn;
+  disabled: boolean;
+  onPaste: (event: ClipboardEvent<HTMLInputElement>, row: number, col: number) => void;
+}) {
   const [draft, setDraft] = useState<string | null>(null);
   const [error, setError] = useState<string | undefined>();
   const text = draft ?? cellText(data.values, column);
@@ -38,7 +107,9 @@ function GridCell({ row, col, data, column, disabled, onPaste }: { row: number; 
       aria-invalid={error ? true : undefined}
       title={error}
       disabled={disabled}
-      inputMode={column.kind === 'int' ? 'numeric' : column.kind === 'number' ? 'decimal' : undefined}
+      inputMode={
+        column.kind === 'int' ? 'numeric' : column.kind === 'number' ? 'decimal' : undefined
+      }
       autoComplete="off"
       value={text}
       className={cn(
@@ -65,7 +136,10 @@ export function StripGrid({ data }: { data: SiteStrips }) {
   const { site } = data;
   const outbox = useOutbox();
   const [pasteErrors, setPasteErrors] = useState<string[]>([]);
-  const columns = useMemo(() => valueColumns(site.unitSystem).filter((c) => c.kind !== 'date'), [site.unitSystem]);
+  const columns = useMemo(
+    () => valueColumns(site.unitSystem).filter((c) => c.kind !== 'date'),
+    [site.unitSystem],
+  );
   const units = entryUnits(site.unitSystem);
   const rows: GridRow[] = useMemo(
     () =>
@@ -83,25 +157,40 @@ export function StripGrid({ data }: { data: SiteStrips }) {
   // function between renders (or inputs remount and lose focus), so paste reads rows from a ref.
   const rowsRef = useRef(rows);
   rowsRef.current = rows;
-  const pasteRef = useRef<(event: ClipboardEvent<HTMLInputElement>, row: number, col: number) => void>(() => {});
+  const pasteRef = useRef<
+    (event: ClipboardEvent<HTMLInputElement>, row: number, col: number) => void
+  >(() => {});
   pasteRef.current = (event, row, col) => {
     const rows = rowsRef.current;
     const text = event.clipboardData.getData('text/plain');
     if (!/[\t\n]/.test(text.replace(/\r?\n$/, ''))) return;
     event.preventDefault();
-    const block = text.replace(/\r/g, '').replace(/\n$/, '').split('\n').map((line) => line.split('\t'));
+    const block = text
+      .replace(/\r/g, '')
+      .replace(/\n$/, '')
+      .split('\n')
+      .map((line) => line.split('\t'));
     const errors: string[] = [];
-    const pending = new Map<string, { strip: StripDto; values: ObservationValues; patch: StripValuesPatch }>();
+    const pending = new Map<
+      string,
+      { strip: StripDto; values: ObservationValues; patch: StripValuesPatch }
+    >();
     block.forEach((cells, i) => {
       const target = rows[row + i];
       if (!target) return;
-      const state = pending.get(target.strip.stripId) ?? { strip: target.strip, values: target.values, patch: {} };
+      const state = pending.get(target.strip.stripId) ?? {
+        strip: target.strip,
+        values: target.values,
+        patch: {},
+      };
       cells.forEach((cell, j) => {
         const column = columns[col + j];
         if (!column) return;
         const result = patchForCell(state.values, column, cell);
         if ('error' in result) {
-          errors.push(`Block ${target.strip.block} strip ${target.strip.position}, ${column.header}: ${result.error} ("${cell.slice(0, 20)}")`);
+          errors.push(
+            `Block ${target.strip.block} strip ${target.strip.position}, ${column.header}: ${result.error} ("${cell.slice(0, 20)}")`,
+          );
           return;
         }
         state.values = { ...state.values, ...result.patch };
@@ -109,10 +198,12 @@ export function StripGrid({ data }: { data: SiteStrips }) {
       });
       pending.set(target.strip.stripId, state);
     });
-    for (const { strip, patch } of pending.values()) if (Object.keys(patch).length > 0) queueEdit(strip, patch);
+    for (const { strip, patch } of pending.values())
+      if (Object.keys(patch).length > 0) queueEdit(strip, patch);
     setPasteErrors(errors);
   };
-  const paste = (event: ClipboardEvent<HTMLInputElement>, row: number, col: number) => pasteRef.current(event, row, col);
+  const paste = (event: ClipboardEvent<HTMLInputElement>, row: number, col: number) =>
+    pasteRef.current(event, row, col);
 
   const keyDown = (event: KeyboardEvent<HTMLDivElement>) => {
     const target = event.target as HTMLInputElement;
@@ -143,9 +234,15 @@ export function StripGrid({ data }: { data: SiteStrips }) {
         header: 'Strip',
         cell: ({ row }) => (
           <span className="block whitespace-nowrap px-2 text-label">
-            <span className="font-semibold">B{row.original.strip.block} · {row.original.strip.position}</span>{' '}
+            <span className="font-semibold">
+              B{row.original.strip.block} · {row.original.strip.position}
+            </span>{' '}
             <span className="text-ink-muted">{row.original.strip.label}</span>
-            {row.original.waiting ? <span className="ml-1 text-caution" title="Waiting to be sent">●</span> : null}
+            {row.original.waiting ? (
+              <span className="ml-1 text-caution" title="Waiting to be sent">
+                ●
+              </span>
+            ) : null}
           </span>
         ),
       }),
@@ -153,11 +250,24 @@ export function StripGrid({ data }: { data: SiteStrips }) {
         columnHelper.display({
           id: column.header,
           header: () => (
-            <span title={column.meaning} className="whitespace-nowrap">
-              {column.header}
+            <span
+              title={`${column.meaning} (CSV column ${column.header})`}
+              className="whitespace-nowrap"
+            >
+              {gridLabel(column, site.unitSystem)}
             </span>
           ),
-          cell: ({ row }) => <GridCell key={row.original.strip.stripId} row={row.index} col={col} data={row.original} column={column} disabled={disabled} onPaste={paste} />,
+          cell: ({ row }) => (
+            <GridCell
+              key={row.original.strip.stripId}
+              row={row.index}
+              col={col}
+              data={row.original}
+              column={column}
+              disabled={disabled}
+              onPaste={paste}
+            />
+          ),
         }),
       ),
       columnHelper.display({
@@ -165,7 +275,15 @@ export function StripGrid({ data }: { data: SiteStrips }) {
         header: site.unitSystem === 'metric' ? 'plants/m²' : 'plants/ft²',
         cell: ({ row }) => {
           const { derived } = liveDerived(site, row.original.strip, row.original.values);
-          return <span className="figures block px-2 text-right">{formatNumber(site.unitSystem === 'metric' ? derived.plantsPerSquareMetre : derived.plantsPerSquareFoot)}</span>;
+          return (
+            <span className="figures block px-2 text-right">
+              {formatNumber(
+                site.unitSystem === 'metric'
+                  ? derived.plantsPerSquareMetre
+                  : derived.plantsPerSquareFoot,
+              )}
+            </span>
+          );
         },
       }),
       columnHelper.display({
@@ -174,7 +292,10 @@ export function StripGrid({ data }: { data: SiteStrips }) {
         cell: ({ row }) => {
           const { derived, warnings } = liveDerived(site, row.original.strip, row.original.values);
           return (
-            <span className="figures block px-2 text-right font-semibold" title={warnings.join('\n')}>
+            <span
+              className="figures block px-2 text-right font-semibold"
+              title={warnings.join('\n')}
+            >
               {formatNumber(derived.yieldBushelsPerAcre)}
               {warnings.length > 0 ? <span className="ml-1 text-danger">▲</span> : null}
             </span>
@@ -185,12 +306,18 @@ export function StripGrid({ data }: { data: SiteStrips }) {
     [columns, site, disabled],
   );
 
-  const table = useReactTable({ data: rows, columns: tableColumns, getCoreRowModel: getCoreRowModel() });
+  const table = useReactTable({
+    data: rows,
+    columns: tableColumns,
+    getCoreRowModel: getCoreRowModel(),
+  });
 
   return (
     <div className="space-y-3">
       <p className="text-label text-ink-muted">
-        Units: lengths in {units.length}, weight in {units.weight}, area in {units.area}. Arrow keys move between cells, Enter moves down, and you can paste a block of cells copied from a spreadsheet.
+        Units: lengths in {units.length}, weight in {units.weight}, area in {units.area}. Arrow keys
+        move between cells, Enter moves down, and you can paste a block of cells copied from a
+        spreadsheet.
       </p>
       {pasteErrors.length > 0 ? (
         <Alert tone="danger" title="Some pasted cells were not taken">
@@ -201,13 +328,23 @@ export function StripGrid({ data }: { data: SiteStrips }) {
           </ul>
         </Alert>
       ) : null}
-      <div className="overflow-x-auto rounded-card border border-line bg-surface shadow-card" onKeyDown={keyDown}>
+      <div
+        className="overflow-x-auto rounded-card border border-line bg-surface shadow-card"
+        onKeyDown={keyDown}
+      >
         <table className="border-collapse text-body" data-testid="strip-grid">
           <thead className="bg-sunken">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
                 {group.headers.map((header, i) => (
-                  <th key={header.id} scope="col" className={cn('border-b border-line px-2 py-2 text-left text-caption font-semibold text-ink-muted', i === 0 && 'sticky left-0 z-10 bg-sunken')}>
+                  <th
+                    key={header.id}
+                    scope="col"
+                    className={cn(
+                      'border-b border-line px-2 py-2 text-left text-caption font-semibold text-ink-muted',
+                      i === 0 && 'sticky left-0 z-10 bg-sunken',
+                    )}
+                  >
                     {flexRender(header.column.columnDef.header, header.getContext())}
                   </th>
                 ))}
@@ -216,9 +353,22 @@ export function StripGrid({ data }: { data: SiteStrips }) {
           </thead>
           <tbody>
             {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className={cn(row.original.strip.position === 1 && row.index > 0 && 'border-t-2 border-line-strong')}>
+              <tr
+                key={row.id}
+                className={cn(
+                  row.original.strip.position === 1 &&
+                    row.index > 0 &&
+                    'border-t-2 border-line-strong',
+                )}
+              >
                 {row.getVisibleCells().map((cell, i) => (
-                  <td key={cell.id} className={cn('border-b border-r border-line p-0', i === 0 && 'sticky left-0 z-10 bg-surface')}>
+                  <td
+                    key={cell.id}
+                    className={cn(
+                      'border-b border-r border-line p-0',
+                      i === 0 && 'sticky left-0 z-10 bg-surface',
+                    )}
+                  >
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 ))}

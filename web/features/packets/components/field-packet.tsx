@@ -198,9 +198,10 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
           </table>
         ) : null}
         <p className="text-caption text-ink-muted">
-          Different wheel? The calibration helper works it out and, when you are signed in, saves
-          the check to this site: <Link to={`/calibrate?site=${site.id}`}>/calibrate</Link>. Wheel
-          slip in soft soil makes the field rate a little lower than the bowl test.
+          Different wheel? Sheaf’s{' '}
+          <Link to={`/calibrate?site=${site.id}`}>seeder calibration helper</Link> (the Calibrate
+          page) works it out and, when you are signed in, saves the check to this site. Wheel slip
+          in soft soil makes the field rate a little lower than the bowl test.
         </p>
       </Section>
 

@@ -2,14 +2,23 @@
 // combined ANOVA with its error term, economics with adjustable prices, and filters.
 import { useMemo, useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
-import { forestSpec, pooledMeansSpec, responseCurveSpec } from '../../../../shared/reports/chart-specs';
+import {
+  forestSpec,
+  pooledMeansSpec,
+  responseCurveSpec,
+} from '../../../../shared/reports/chart-specs';
 import { rateName } from '../../../../shared/reports/findings';
-import { decimalsFor, formatMoney, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
+import {
+  decimalsFor,
+  formatMoney,
+  formatNumber,
+  formatP,
+} from '../../../../shared/reports/format-numbers';
 import type { PooledQuery, PooledReport } from '../../../../shared/schemas/report';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { Button, buttonClasses } from '../../../components/ui/button';
-import { PageHeader } from '../../../components/ui/page-header';
+import { PageHeader, type BackTo } from '../../../components/ui/page-header';
 import { TextField } from '../../../components/ui/text-field';
 import { cn } from '../../../lib/cn';
 import { pooledSearch } from '../api/get-pooled-report';
@@ -17,7 +26,13 @@ import { usePublicLink, usePublishTrial } from '../api/publish-report';
 import { FindingsList } from './findings-list';
 import { PublishPanel } from './publish-panel';
 import { ChartCard, DataTableNote, DownloadLink, Section } from './report-bits';
-import { AnovaTable, DataTable, DifferencesTable, EconomicsTable, MeansTable } from './report-tables';
+import {
+  AnovaTable,
+  DataTable,
+  DifferencesTable,
+  EconomicsTable,
+  MeansTable,
+} from './report-tables';
 import { VegaChart } from './vega-chart';
 
 export interface PooledReportViewProps {
@@ -26,6 +41,8 @@ export interface PooledReportViewProps {
   onQuery: (query: PooledQuery) => void;
   /** The public copy: no publishing, no exports, no meeting view link. */
   isPublic?: boolean;
+  /** The page this report belongs to (the trial page, or the member's home). */
+  back?: BackTo;
   updating?: boolean;
 }
 
@@ -41,24 +58,40 @@ function PublicLinkControl({ trialId, token }: { trialId: string; token: string 
             <a href={url}>{url}</a>
           </p>
         ) : (
-          <p className="text-label text-ink-muted">Off. Anyone with the link can read the published report without signing in; grower names are not shown.</p>
+          <p className="text-label text-ink-muted">
+            Off. Anyone with the link can read the published report without signing in; grower names
+            are not shown.
+          </p>
         )}
       </div>
-      <Button variant={url ? 'secondary' : 'primary'} busy={link.isPending} onClick={() => link.mutate(!url)}>
+      <Button
+        variant={url ? 'secondary' : 'primary'}
+        busy={link.isPending}
+        onClick={() => link.mutate(!url)}
+      >
         {url ? 'Turn the link off' : 'Turn the link on'}
       </Button>
     </div>
   );
 }
 
-function FiltersForm({ report, query, onQuery, isPublic }: Pick<PooledReportViewProps, 'report' | 'query' | 'onQuery' | 'isPublic'>) {
+function FiltersForm({
+  report,
+  query,
+  onQuery,
+  isPublic,
+}: Pick<PooledReportViewProps, 'report' | 'query' | 'onQuery' | 'isPublic'>) {
   const [seedPrice, setSeedPrice] = useState(String(report.prices.seedPricePerLb ?? ''));
   const [grainPrice, setGrainPrice] = useState(String(report.prices.grainPricePerBu ?? ''));
   const submitPrices = (event: FormEvent) => {
     event.preventDefault();
     const seed = Number(seedPrice);
     const grain = Number(grainPrice);
-    onQuery({ ...query, seedPrice: seedPrice === '' || !(seed >= 0) ? undefined : seed, grainPrice: grainPrice === '' || !(grain > 0) ? undefined : grain });
+    onQuery({
+      ...query,
+      seedPrice: seedPrice === '' || !(seed >= 0) ? undefined : seed,
+      grainPrice: grainPrice === '' || !(grain > 0) ? undefined : grain,
+    });
   };
   const select = (name: 'soil' | 'previousCrop', label: string, options: string[]) => (
     <label className="flex flex-col gap-1.5 text-label text-ink">
@@ -89,16 +122,35 @@ function FiltersForm({ report, query, onQuery, isPublic }: Pick<PooledReportView
               type="checkbox"
               className="size-5 accent-[var(--sheaf-accent)]"
               checked={query.sites === 'published'}
-              onChange={(e) => onQuery({ ...query, sites: e.target.checked ? 'published' : undefined })}
+              onChange={(e) =>
+                onQuery({ ...query, sites: e.target.checked ? 'published' : undefined })
+              }
             />
             Only sites whose own report is published
           </label>
         ) : null}
       </fieldset>
       <form onSubmit={submitPrices} className="grid gap-3 sm:grid-cols-[1fr_1fr_auto] sm:items-end">
-        <p className="text-label font-semibold text-ink sm:col-span-3">Prices (recomputed on the server)</p>
-        <TextField label="Seed price" suffix="$/lb" inputMode="decimal" value={seedPrice} onChange={(e) => setSeedPrice(e.target.value)} />
-        <TextField label="Grain price" suffix="$/bu" inputMode="decimal" value={grainPrice} onChange={(e) => setGrainPrice(e.target.value)} />
+        <div className="sm:col-span-3">
+          <p className="text-label font-semibold text-ink">Try other prices</p>
+          <p className="text-caption text-ink-muted">
+            Return over seed cost is worked out again at the prices you enter.
+          </p>
+        </div>
+        <TextField
+          label="Seed price"
+          suffix="$/lb"
+          inputMode="decimal"
+          value={seedPrice}
+          onChange={(e) => setSeedPrice(e.target.value)}
+        />
+        <TextField
+          label="Grain price"
+          suffix="$/bu"
+          inputMode="decimal"
+          value={grainPrice}
+          onChange={(e) => setGrainPrice(e.target.value)}
+        />
         <Button type="submit" variant="secondary">
           Recalculate
         </Button>
@@ -107,7 +159,14 @@ function FiltersForm({ report, query, onQuery, isPublic }: Pick<PooledReportView
   );
 }
 
-export function PooledReportView({ report, query, onQuery, isPublic = false, updating = false }: PooledReportViewProps) {
+export function PooledReportView({
+  report,
+  query,
+  onQuery,
+  isPublic = false,
+  updating = false,
+  back,
+}: PooledReportViewProps) {
   const { trial, analysis } = report;
   const publish = usePublishTrial(trial.id);
   const unit = trial.units.yield;
@@ -117,13 +176,26 @@ export function PooledReportView({ report, query, onQuery, isPublic = false, upd
   const referenceLabel = label(trial.reference);
   const comparisons = analysis?.differences.map((d) => d.rate) ?? [];
   const [forestRate, setForestRate] = useState<string | null>(null);
-  const shownRate = forestRate && comparisons.includes(forestRate) ? forestRate : comparisons.includes('0.5') ? '0.5' : (comparisons[0] ?? null);
+  const shownRate =
+    forestRate && comparisons.includes(forestRate)
+      ? forestRate
+      : comparisons.includes('0.5')
+        ? '0.5'
+        : (comparisons[0] ?? null);
 
   const specs = useMemo(() => {
     if (!analysis) return null;
     const pooledDifference = analysis.differences.find((d) => d.rate === shownRate) ?? null;
     return {
-      means: pooledMeansSpec({ means: analysis.means.map((m) => ({ label: label(m.rate), mean: m.mean, ciLow: m.ciLow, ciHigh: m.ciHigh })), yieldUnit: unit }),
+      means: pooledMeansSpec({
+        means: analysis.means.map((m) => ({
+          label: label(m.rate),
+          mean: m.mean,
+          ciLow: m.ciLow,
+          ciHigh: m.ciHigh,
+        })),
+        yieldUnit: unit,
+      }),
       forest: shownRate
         ? forestSpec({
             rateLabel: label(shownRate),
@@ -134,7 +206,11 @@ export function PooledReportView({ report, query, onQuery, isPublic = false, upd
           })
         : null,
       curve: responseCurveSpec({
-        points: report.siteMeans.map((p) => ({ site: p.site, seedRate: p.seedRate ?? Number(p.rate), mean: p.mean })),
+        points: report.siteMeans.map((p) => ({
+          site: p.site,
+          seedRate: p.seedRate ?? Number(p.rate),
+          mean: p.mean,
+        })),
         curve: analysis.curve ?? null,
         agronomicOptimum: analysis.curve?.agronomicOptimum ?? null,
         economicOptimum: analysis.curve?.economicOptimum ?? null,
@@ -150,23 +226,35 @@ export function PooledReportView({ report, query, onQuery, isPublic = false, upd
   return (
     <div className={cn('space-y-8', updating && 'opacity-70 transition-opacity')}>
       <PageHeader
+        back={back}
         eyebrow={`Network report · ${[trial.cropName, trial.season].filter(Boolean).join(', ')}`}
         title={trial.name}
         description={trial.question}
         actions={
           isPublic ? null : (
             <>
-              <Link to={`/trials/${trial.id}/meeting`} className={buttonClasses('primary', 'md', 'no-underline')}>
+              <Link
+                to={`/trials/${trial.id}/meeting`}
+                className={buttonClasses('primary', 'md', 'no-underline')}
+              >
                 Meeting view
               </Link>
-              <DownloadLink href={`/api/trials/${trial.id}/pooled-report.pdf${pooledSearch(query)}`}>PDF</DownloadLink>
-              {report.canPublish ? <DownloadLink href={`/api/trials/${trial.id}/export.csv`}>Strips CSV</DownloadLink> : null}
+              <DownloadLink
+                href={`/api/trials/${trial.id}/pooled-report.pdf${pooledSearch(query)}`}
+              >
+                PDF
+              </DownloadLink>
+              {report.canPublish ? (
+                <DownloadLink href={`/api/trials/${trial.id}/export.csv`}>Strips CSV</DownloadLink>
+              ) : null}
             </>
           )
         }
       />
       {isPublic ? (
-        <Alert tone="info">A read-only copy of this network’s published report, shared by its coordinator.</Alert>
+        <Alert tone="info">
+          A read-only copy of this network’s published report, shared by its coordinator.
+        </Alert>
       ) : (
         <PublishPanel
           what="network report"
@@ -178,28 +266,60 @@ export function PooledReportView({ report, query, onQuery, isPublic = false, upd
           onAction={(action) => publish.mutate(action)}
           lockNote="Publishing stores a snapshot of this analysis (all complete sites, the trial's prices) for members; later data changes will not alter it silently."
         >
-          {report.canPublish ? <PublicLinkControl trialId={trial.id} token={report.publicLinkToken} /> : null}
+          {report.canPublish ? (
+            <PublicLinkControl trialId={trial.id} token={report.publicLinkToken} />
+          ) : null}
         </PublishPanel>
       )}
-      <FiltersForm key={`${report.prices.seedPricePerLb}-${report.prices.grainPricePerBu}`} report={report} query={query} onQuery={onQuery} isPublic={isPublic} />
+      <FiltersForm
+        key={`${report.prices.seedPricePerLb}-${report.prices.grainPricePerBu}`}
+        report={report}
+        query={query}
+        onQuery={onQuery}
+        isPublic={isPublic}
+      />
       <FindingsList title="What the network found" findings={report.findings} />
 
-      <Section id="sites" title="Sites in this analysis" intro="A site joins the pooled analysis once at least three quarters of its strips have a yield.">
+      <Section
+        id="sites"
+        title="Sites in this analysis"
+        intro="A site joins the pooled analysis once at least three quarters of its strips have a yield."
+      >
         <DataTable
           caption={`${report.sitesIncluded.length} in, ${report.sitesExcluded.length} left out`}
           head={['Site', 'Soil', 'Previous crop', 'Strips with yield', 'Status']}
           rows={[
-            ...report.sitesIncluded.map((s) => [s.fieldName, s.soil || '—', s.previousCrop || '—', `${s.stripsWithYield} of ${s.strips}`, <Badge tone="field">In</Badge>]),
-            ...report.sitesExcluded.map((e) => [e.site.fieldName, e.site.soil || '—', e.site.previousCrop || '—', `${e.site.stripsWithYield} of ${e.site.strips}`, <span className="text-ink-muted">Left out: {e.reason}</span>]),
+            ...report.sitesIncluded.map((s) => [
+              s.fieldName,
+              s.soil || '—',
+              s.previousCrop || '—',
+              `${s.stripsWithYield} of ${s.strips}`,
+              <Badge tone="field">In</Badge>,
+            ]),
+            ...report.sitesExcluded.map((e) => [
+              e.site.fieldName,
+              e.site.soil || '—',
+              e.site.previousCrop || '—',
+              `${e.site.stripsWithYield} of ${e.site.strips}`,
+              <span className="text-ink-muted">Left out: {e.reason}</span>,
+            ]),
           ]}
         />
       </Section>
 
       {analysis && specs ? (
         <>
-          <Section id="forest" title={`Each site against the ${rateName(referenceLabel)}`} intro="Squares are each site’s difference with its 95 % confidence interval; the diamond is the network’s pooled difference. Bars that cross the dashed zero line could not tell the rates apart.">
+          <Section
+            id="forest"
+            title={`Each site against the ${rateName(referenceLabel)}`}
+            intro="Squares are each site’s difference with its 95 % confidence interval; the diamond is the network’s pooled difference. Bars that cross the dashed zero line could not tell the rates apart."
+          >
             {comparisons.length > 1 ? (
-              <div role="group" aria-label="Rate to compare" className="no-print flex flex-wrap gap-2">
+              <div
+                role="group"
+                aria-label="Rate to compare"
+                className="no-print flex flex-wrap gap-2"
+              >
                 {comparisons.map((rate) => (
                   <button
                     key={rate}
@@ -208,7 +328,9 @@ export function PooledReportView({ report, query, onQuery, isPublic = false, upd
                     onClick={() => setForestRate(rate)}
                     className={cn(
                       'min-h-11 rounded-full border px-4 text-label font-semibold',
-                      rate === shownRate ? 'border-accent bg-accent text-on-accent' : 'border-line-strong bg-surface text-ink hover:bg-sunken',
+                      rate === shownRate
+                        ? 'border-accent bg-accent text-on-accent'
+                        : 'border-line-strong bg-surface text-ink hover:bg-sunken',
                     )}
                   >
                     {label(rate)}
@@ -218,28 +340,53 @@ export function PooledReportView({ report, query, onQuery, isPublic = false, upd
             ) : null}
             {specs.forest ? (
               <ChartCard>
-                <VegaChart spec={specs.forest} title={`Forest plot ${label(shownRate ?? '')}`} description={`${label(shownRate ?? '')} minus ${referenceLabel}, ${unit}, by site.`} />
+                <VegaChart
+                  spec={specs.forest}
+                  title={`Forest plot ${label(shownRate ?? '')}`}
+                  description={`${label(shownRate ?? '')} minus ${referenceLabel}, ${unit}, by site.`}
+                />
               </ChartCard>
             ) : null}
           </Section>
-          <Section id="curve" title="Response to seeding rate" intro="Each point is one site’s mean at one rate. The line is a quadratic fitted to those means; dashed lines mark the rate of highest yield and the rate of best return over seed cost at the prices above.">
+          <Section
+            id="curve"
+            title="Response to seeding rate"
+            intro="Each point is one site’s mean at one rate. The line is a quadratic fitted to those means; dashed lines mark the rate of highest yield and the rate of best return over seed cost at the prices above."
+          >
             <div className="grid gap-4 lg:grid-cols-2">
               <ChartCard>
-                <VegaChart spec={specs.curve} title="Response curve" description={`Yield (${unit}) against seeding rate (${trial.units.seed}).`} />
+                <VegaChart
+                  spec={specs.curve}
+                  title="Response curve"
+                  description={`Yield (${unit}) against seeding rate (${trial.units.seed}).`}
+                />
               </ChartCard>
               <ChartCard>
-                <VegaChart spec={specs.means} title="Network rate means" description="Rate means over sites with 95 % confidence intervals (tested against site × rate)." />
+                <VegaChart
+                  spec={specs.means}
+                  title="Network rate means"
+                  description="Rate means over sites with 95 % confidence intervals (tested against site × rate)."
+                />
               </ChartCard>
             </div>
             {curve ? (
               <p className="text-label text-ink">
                 Highest yield at{' '}
-                <strong>{curve.agronomicOptimum !== null ? `${formatNumber(curve.agronomicOptimum, 0)} ${trial.units.seed}` : curve.agronomicOptimumFlag}</strong>
+                <strong>
+                  {curve.agronomicOptimum !== null
+                    ? `${formatNumber(curve.agronomicOptimum, 0)} ${trial.units.seed}`
+                    : curve.agronomicOptimumFlag}
+                </strong>
                 {curve.economics ? (
                   <>
                     ; best return over seed cost at{' '}
-                    <strong>{curve.economicOptimum != null ? `${formatNumber(curve.economicOptimum, 0)} ${trial.units.seed}` : curve.economicOptimumFlag}</strong> (seed{' '}
-                    {formatMoney(report.prices.seedPricePerLb)}/lb, grain {formatMoney(report.prices.grainPricePerBu)}/bu)
+                    <strong>
+                      {curve.economicOptimum != null
+                        ? `${formatNumber(curve.economicOptimum, 0)} ${trial.units.seed}`
+                        : curve.economicOptimumFlag}
+                    </strong>{' '}
+                    (seed {formatMoney(report.prices.seedPricePerLb)}/lb, grain{' '}
+                    {formatMoney(report.prices.grainPricePerBu)}/bu)
                   </>
                 ) : null}
                 . R² {formatNumber(curve.rSquared, 2)} over {curve.points} site means.
@@ -251,21 +398,41 @@ export function PooledReportView({ report, query, onQuery, isPublic = false, upd
             title="Combined analysis"
             intro={`Sites are taken as a random sample of farms, so rate is tested against the site × rate interaction (${analysis.rateTest.df1} and ${analysis.rateTest.df2} df${errorRow && 'ms' in errorRow ? `, mean square ${formatNumber(errorRow.ms, digits)}` : ''}), not against the strip error. ${analysis.method === 'site-means' ? 'Sites differ in blocks or have missing strips, so the analysis uses each site’s rate means.' : ''}`}
           >
-            <AnovaTable anova={analysis.anova} digits={digits} caption="Combined analysis of variance" />
+            <AnovaTable
+              anova={analysis.anova}
+              digits={digits}
+              caption="Combined analysis of variance"
+            />
             <div className="grid gap-4 lg:grid-cols-2">
               <MeansTable means={analysis.means} label={label} unit={unit} digits={digits} />
-              <DifferencesTable differences={analysis.differences} label={label} referenceLabel={referenceLabel} unit={unit} digits={digits} />
+              <DifferencesTable
+                differences={analysis.differences}
+                label={label}
+                referenceLabel={referenceLabel}
+                unit={unit}
+                digits={digits}
+              />
               {analysis.bartlett ? (
                 <DataTableNote title="Homogeneity of site variances">
-                  Bartlett’s test: χ² = {formatNumber(analysis.bartlett.chiSquare, 2)} on {analysis.bartlett.df} df, {formatP(analysis.bartlett.p)}.{' '}
-                  {analysis.bartlett.p < 0.05 ? 'Some sites were much noisier than others.' : 'The sites were about equally precise.'}
+                  Bartlett’s test: χ² = {formatNumber(analysis.bartlett.chiSquare, 2)} on{' '}
+                  {analysis.bartlett.df} df, {formatP(analysis.bartlett.p)}.{' '}
+                  {analysis.bartlett.p < 0.05
+                    ? 'Some sites were much noisier than others.'
+                    : 'The sites were about equally precise.'}
                 </DataTableNote>
               ) : null}
             </div>
           </Section>
           {report.economics.length > 0 ? (
             <Section id="economics" title="Economics per acre">
-              <EconomicsTable rows={report.economics} seedUnit={trial.units.seed} yieldUnit={unit} moneyUnit={trial.units.money} referenceLabel={referenceLabel} digits={digits} />
+              <EconomicsTable
+                rows={report.economics}
+                seedUnit={trial.units.seed}
+                yieldUnit={unit}
+                moneyUnit={trial.units.money}
+                referenceLabel={referenceLabel}
+                digits={digits}
+              />
             </Section>
           ) : null}
         </>

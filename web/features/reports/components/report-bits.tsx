@@ -4,10 +4,12 @@ import { buttonClasses } from '../../../components/ui/button';
 
 export function Facts({ items }: { items: [string, ReactNode][] }) {
   return (
-    <dl className="grid grid-cols-1 gap-x-6 gap-y-3 rounded-card border border-line bg-surface p-5 shadow-card sm:grid-cols-2 lg:grid-cols-4">
+    <dl className="grid grid-cols-2 gap-x-6 gap-y-3 rounded-card border border-line bg-surface p-5 shadow-card sm:grid-cols-2 lg:grid-cols-4">
       {items.map(([term, value]) => (
         <div key={term} className="min-w-0">
-          <dt className="text-caption font-semibold uppercase tracking-wide text-ink-muted">{term}</dt>
+          <dt className="text-caption font-semibold uppercase tracking-wide text-ink-muted">
+            {term}
+          </dt>
           <dd className="mt-0.5 text-ink">{value || '—'}</dd>
         </div>
       ))}
@@ -15,7 +17,17 @@ export function Facts({ items }: { items: [string, ReactNode][] }) {
   );
 }
 
-export function Section({ id, title, intro, children }: { id: string; title: string; intro?: ReactNode; children: ReactNode }) {
+export function Section({
+  id,
+  title,
+  intro,
+  children,
+}: {
+  id: string;
+  title: string;
+  intro?: ReactNode;
+  children: ReactNode;
+}) {
   return (
     <section aria-labelledby={`${id}-title`} className="space-y-4 break-inside-avoid-page">
       <div>
@@ -30,7 +42,11 @@ export function Section({ id, title, intro, children }: { id: string; title: str
 }
 
 export function ChartCard({ children }: { children: ReactNode }) {
-  return <div className="min-w-0 overflow-x-auto rounded-card border border-line bg-surface p-4 shadow-card">{children}</div>;
+  return (
+    <div className="min-w-0 overflow-x-auto rounded-card border border-line bg-surface p-4 shadow-card">
+      {children}
+    </div>
+  );
 }
 
 /** A plain download link styled as a button (the browser saves the file). */

@@ -12,11 +12,14 @@ export function SitesTable({
   trialId,
   sites,
   canEdit,
+  viewerId,
   active,
 }: {
   trialId: string;
   sites: TrialSiteRow[];
   canEdit: boolean;
+  /** The signed-in user: a grower enters data only on their own sites. */
+  viewerId?: string;
   active: boolean;
 }) {
   const randomize = useRandomizeSite(trialId);
@@ -87,19 +90,13 @@ export function SitesTable({
               )}
             </div>
             <div className="mt-3 flex flex-wrap gap-2">
-              {canEdit ? (
+              {canEdit && !site.sowingRecorded && !site.publishedAt ? (
                 <Button
                   variant={site.randomized ? 'secondary' : 'primary'}
                   onClick={() => confirmRandomize(site)}
                   busy={randomize.isPending && randomize.variables?.siteId === site.id}
-                  disabled={!active || site.sowingRecorded || Boolean(site.publishedAt)}
-                  title={
-                    site.sowingRecorded
-                      ? 'Sowing is recorded: the map is final'
-                      : !active
-                        ? 'Send the trial to the field first'
-                        : undefined
-                  }
+                  disabled={!active}
+                  title={!active ? 'Send the trial to the field first' : undefined}
                 >
                   {site.randomized ? 'Re-randomize' : 'Randomize'}
                 </Button>
@@ -129,12 +126,14 @@ export function SitesTable({
                   E-mail packet
                 </Button>
               ) : null}
-              <Link
-                className="inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent hover:bg-accent-soft"
-                to={`/sites/${site.id}`}
-              >
-                Data entry
-              </Link>
+              {canEdit || (viewerId !== undefined && site.growerUserId === viewerId) ? (
+                <Link
+                  className="inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent hover:bg-accent-soft"
+                  to={`/sites/${site.id}`}
+                >
+                  Data entry
+                </Link>
+              ) : null}
               <Link
                 className="inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent hover:bg-accent-soft"
                 to={`/sites/${site.id}/report`}
