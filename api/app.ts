@@ -59,6 +59,8 @@ export function createApp(deps: AppDeps): Express {
   const table: RouteEntry[] = [];
   app.locals.routeTable = table;
   app.disable('x-powered-by');
+  // No ETag hashing of large JSON bodies on every request; static files keep their own ETags.
+  app.set('etag', false);
   if (config.TRUST_PROXY === 'on') app.set('trust proxy', 1);
 
   app.use(

@@ -85,7 +85,7 @@ try {
   const stripRows = (
     await db.query(
       `SELECT st.id, st.version FROM strips st JOIN sites s ON s.id = st.site_id
-        WHERE s.trial_id = $1 AND st.position = 1 ORDER BY s.field_name, st.block`,
+        WHERE s.trial_id = $1 AND st.position = 1 ORDER BY st.block, s.field_name`,
       [ids.trialId],
     )
   ).rows;

@@ -1,4 +1,5 @@
 // Report routes: site and pooled reports, publishing, the public link and the exports.
+import { sendJson } from '../lib/send-json';
 import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { PooledQuerySchema, PublicLinkInputSchema } from '../../shared/schemas/report';
@@ -19,7 +20,7 @@ export function createReportsRouter(ctx: RouterContext) {
 
   routes.get('/sites/:siteId/report', policies.siteReader(), async (req, res) => {
     res.set('Cache-Control', 'private, no-cache');
-    res.json(await reports.siteReport(param(req, 'siteId'), req.access ?? null));
+    sendJson(res, await reports.siteReport(param(req, 'siteId'), req.access ?? null));
   });
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
@@ -43,7 +44,7 @@ export function createReportsRouter(ctx: RouterContext) {
   routes.get('/trials/:trialId/pooled-report', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
     res.set('Cache-Control', 'private, no-cache');
-    res.json(await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query));
+    sendJson(res, await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query));
   });
 
   routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {

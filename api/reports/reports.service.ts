@@ -175,6 +175,15 @@ export function createReportsService(deps: ReportsServiceDeps) {
   const { dataSource } = deps;
   const siteBodies = createReportCache<Awaited<ReturnType<typeof buildSiteReport>>>();
   const pooledBodies = createReportCache<ReturnType<typeof buildPooledReport>>(100);
+  // Whole responses, so that identical requests get the identical object (its JSON is memoised).
+  const responses = createReportCache<SiteReport | PooledReport>(300);
+  // Published snapshots never change: read each one from PostgreSQL once.
+  const snapshots = createReportCache<Record<string, unknown>>(300);
+  const storedSnapshot = (id: string) =>
+    snapshots.getOrCompute(id, async () => {
+      const [row] = await dataSource.query('SELECT report FROM report_snapshots WHERE id = $1', [id]);
+      return row.report as Record<string, unknown>;
+    });
 
   async function loadSiteBundle(db: Queryable, siteId: string) {
     const rows: Record<string, unknown>[] = await db.query(
@@ -228,15 +237,16 @@ export function createReportsService(deps: ReportsServiceDeps) {
     const canPublish = !!access && isCoordinating(access.roles.get(bundle.trial.networkId));
     if (!readsLive(access, bundle.trial.networkId, bundle.growerUserId)) {
       if (!bundle.snapshot) throw new Forbidden('This site report is not published yet');
-      const [stored] = await dataSource.query('SELECT report FROM report_snapshots WHERE id = $1', [bundle.snapshot.id]);
-      return { ...(stored.report as SiteReport), published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish };
+      const stored = (await storedSnapshot(bundle.snapshot.id)) as unknown as SiteReport;
+      return { ...stored, published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish };
     }
     const photos = await loadPhotos(dataSource, bundle.site.id);
     const body = await siteBodies.getOrCompute(digestOf('site', bundle.trial, bundle.site, photos), async () => {
       const strips = await loadStrips(dataSource, { siteId: bundle.site.id });
       return buildSiteReport({ trial: bundle.trial, levels: bundle.trial.levels, site: bundle.site, strips, photos });
     });
-    return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish };
+    const key = digestOf('site-response', bundle.trial, bundle.site, photos, published, changed, canPublish);
+    return (await responses.getOrCompute(key, async () => ({ ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish }))) as SiteReport;
   }
 
   async function loadTrialBundle(db: Queryable, trialId: string) {
@@ -262,8 +272,7 @@ export function createReportsService(deps: ReportsServiceDeps) {
   }
 
   async function storedPooled(snapshotId: string): Promise<{ report: PooledReport; input: PooledInput }> {
-    const [row] = await dataSource.query('SELECT report FROM report_snapshots WHERE id = $1', [snapshotId]);
-    return row.report as { report: PooledReport; input: PooledInput };
+    return (await storedSnapshot(snapshotId)) as unknown as { report: PooledReport; input: PooledInput };
   }
 
   async function pooledReport(trialId: string, access: AccessContext | null, query: PooledQuery): Promise<PooledReport> {
@@ -274,13 +283,18 @@ export function createReportsService(deps: ReportsServiceDeps) {
     if (!coordinating) {
       if (!bundle.snapshot) throw new Forbidden('The pooled report is not published yet');
       const stored = await storedPooled(bundle.snapshot.id);
-      const body = hasQuery(query) ? buildPooledReport(stored.input, query) : stored.report;
-      return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish: false, publicLinkToken: null };
+      const key = digestOf('pooled-published', bundle.snapshot.id, query, published, changed);
+      return (await responses.getOrCompute(key, async () => {
+        const body = hasQuery(query) ? buildPooledReport(stored.input, query) : stored.report;
+        return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish: false, publicLinkToken: null };
+      })) as PooledReport;
     }
-    const body = await pooledBodies.getOrCompute(digestOf('pooled', bundle.trial, bundle.sites, query), async () =>
-      buildPooledReport(await livePooledInput(dataSource, bundle), query),
-    );
-    return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish: true, publicLinkToken: bundle.trial.publicLinkToken };
+    const bodyKey = digestOf('pooled', bundle.trial, bundle.sites, query);
+    const body = await pooledBodies.getOrCompute(bodyKey, async () => buildPooledReport(await livePooledInput(dataSource, bundle), query));
+    const key = digestOf('pooled-response', bodyKey, published, changed);
+    return (await responses.getOrCompute(key, async () => ({
+      ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish: true, publicLinkToken: bundle.trial.publicLinkToken,
+    }))) as PooledReport;
   }
 
   async function publicReport(token: string, query: PooledQuery): Promise<PooledReport> {
