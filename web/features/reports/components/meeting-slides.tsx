@@ -2,7 +2,13 @@
 // keys or clicks, in large type for a projector, light or dark.
 import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { DARK_CHART_THEME, forestSpec, LIGHT_CHART_THEME, pooledMeansSpec, responseCurveSpec } from '../../../../shared/reports/chart-specs';
+import {
+  DARK_CHART_THEME,
+  forestSpec,
+  LIGHT_CHART_THEME,
+  pooledMeansSpec,
+  responseCurveSpec,
+} from '../../../../shared/reports/chart-specs';
 import { rateName } from '../../../../shared/reports/findings';
 import { decimalsFor, formatMoney, formatNumber } from '../../../../shared/reports/format-numbers';
 import type { PooledReport } from '../../../../shared/schemas/report';
@@ -37,9 +43,14 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
   const theme = dark ? DARK_CHART_THEME : LIGHT_CHART_THEME;
   const unit = trial.units.yield;
   const digits = decimalsFor(analysis?.grandMean ?? 50);
-  const label = useCallback((rate: string) => trial.rates.find((r) => r.key === rate)?.label ?? rate, [trial.rates]);
+  const label = useCallback(
+    (rate: string) => trial.rates.find((r) => r.key === rate)?.label ?? rate,
+    [trial.rates],
+  );
   const referenceLabel = label(trial.reference);
-  const keyRate = analysis?.differences.some((d) => d.rate === '0.5') ? '0.5' : analysis?.differences[0]?.rate;
+  const keyRate = analysis?.differences.some((d) => d.rate === '0.5')
+    ? '0.5'
+    : analysis?.differences[0]?.rate;
 
   const slides = useMemo<Slide[]>(() => {
     const list: Slide[] = [
@@ -49,16 +60,23 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
         body: (
           <div className="space-y-6">
             <p className="text-[clamp(1.5rem,3vw,2.6rem)] text-ink-muted">
-              {[trial.cropName, trial.season].filter(Boolean).join(' · ')} · {report.sitesIncluded.length} sites
+              {[trial.cropName, trial.season].filter(Boolean).join(' · ')} ·{' '}
+              {report.sitesIncluded.length} sites
             </p>
-            <p className="text-[clamp(1.1rem,2vw,1.6rem)] text-ink-muted">Seeding-rate strip trial, randomized complete blocks at every farm.</p>
+            <p className="text-[clamp(1.1rem,2vw,1.6rem)] text-ink-muted">
+              Seeding-rate strip trial, randomized complete blocks at every farm.
+            </p>
           </div>
         ),
       },
       {
         id: 'question',
         title: 'The question',
-        body: <p className="max-w-[40ch] text-[clamp(1.8rem,4vw,3.4rem)] font-semibold leading-tight">{trial.question || 'How much seed do we really need?'}</p>,
+        body: (
+          <p className="max-w-[40ch] text-[clamp(1.8rem,4vw,3.4rem)] font-semibold leading-tight">
+            {trial.question || 'How much seed do we really need?'}
+          </p>
+        ),
       },
       {
         id: 'sites',
@@ -69,14 +87,20 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
               {report.sitesIncluded.map((s) => (
                 <li key={s.id} className="rounded-card border border-line bg-surface px-4 py-3">
                   <p className="font-semibold">{s.fieldName}</p>
-                  <p className="text-[0.75em] text-ink-muted">{[s.soil, s.previousCrop && `after ${s.previousCrop}`].filter(Boolean).join(', ')}</p>
+                  <p className="text-[0.75em] text-ink-muted">
+                    {[s.soil, s.previousCrop && `after ${s.previousCrop}`]
+                      .filter(Boolean)
+                      .join(', ')}
+                  </p>
                 </li>
               ))}
             </ul>
             {report.sitesExcluded.length > 0 ? (
               <div>
                 <p className="mb-3 font-semibold">Left out</p>
-                <Lines items={report.sitesExcluded.map((e) => `${e.site.fieldName}: ${e.reason}`)} />
+                <Lines
+                  items={report.sitesExcluded.map((e) => `${e.site.fieldName}: ${e.reason}`)}
+                />
               </div>
             ) : (
               <p className="text-ink-muted">Every enrolled site had complete data.</p>
@@ -93,7 +117,9 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
       if (keyRate) {
         const perSite = report.siteDifferences.filter((d) => d.rate === keyRate);
         const within = perSite.filter((d) => d.p >= analysis.alpha).length;
-        answerLines.push(`At ${within} of ${perSite.length} farms ${rateName(label(keyRate))} was within the LSD of ${rateName(referenceLabel)}.`);
+        answerLines.push(
+          `At ${within} of ${perSite.length} farms ${rateName(label(keyRate))} was within the LSD of ${rateName(referenceLabel)}.`,
+        );
       }
       list.push({
         id: 'answer',
@@ -101,7 +127,18 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
         body: (
           <div className="grid items-start gap-8 lg:grid-cols-[3fr_2fr]">
             <VegaChart
-              spec={pooledMeansSpec({ means: analysis.means.map((m) => ({ label: label(m.rate), mean: m.mean, ciLow: m.ciLow, ciHigh: m.ciHigh })), yieldUnit: unit }, { theme, scale: 1.5 })}
+              spec={pooledMeansSpec(
+                {
+                  means: analysis.means.map((m) => ({
+                    label: label(m.rate),
+                    mean: m.mean,
+                    ciLow: m.ciLow,
+                    ciHigh: m.ciHigh,
+                  })),
+                  yieldUnit: unit,
+                },
+                { theme, scale: 1.5 },
+              )}
               title="Network rate means"
               description="Mean yield over sites with 95 % confidence intervals."
               downloads={false}
@@ -144,7 +181,11 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
             <VegaChart
               spec={responseCurveSpec(
                 {
-                  points: report.siteMeans.map((p) => ({ site: p.site, seedRate: p.seedRate ?? Number(p.rate), mean: p.mean })),
+                  points: report.siteMeans.map((p) => ({
+                    site: p.site,
+                    seedRate: p.seedRate ?? Number(p.rate),
+                    mean: p.mean,
+                  })),
                   curve: curve ?? null,
                   agronomicOptimum: curve?.agronomicOptimum ?? null,
                   economicOptimum: curve?.economicOptimum ?? null,
@@ -158,7 +199,8 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
             />
             <table className="figures w-full text-[clamp(1rem,1.7vw,1.5rem)]">
               <caption className="pb-3 text-left text-[0.8em] text-ink-muted">
-                Seed {formatMoney(report.prices.seedPricePerLb)}/lb, grain {formatMoney(report.prices.grainPricePerBu)}/bu, per acre
+                Seed {formatMoney(report.prices.seedPricePerLb)}/lb, grain{' '}
+                {formatMoney(report.prices.grainPricePerBu)}/bu, per acre
               </caption>
               <thead>
                 <tr className="text-left text-ink-muted">
@@ -170,13 +212,23 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
               </thead>
               <tbody>
                 {report.economics.map((e) => (
-                  <tr key={e.rate} className={cn('border-t border-line', e.rate === trial.reference && 'text-ink-muted')}>
+                  <tr
+                    key={e.rate}
+                    className={cn(
+                      'border-t border-line',
+                      e.rate === trial.reference && 'text-ink-muted',
+                    )}
+                  >
                     <th scope="row" className="py-2 text-left font-semibold">
                       {e.label}
                     </th>
                     <td className="py-2 text-right">{formatNumber(e.meanYield, digits)}</td>
                     <td className="py-2 text-right">{formatMoney(e.returnOverSeedCost)}</td>
-                    <td className="py-2 text-right">{e.versusReference === null ? '–' : `${e.versusReference > 0.005 ? '+' : ''}${formatMoney(e.versusReference)}`}</td>
+                    <td className="py-2 text-right">
+                      {e.versusReference === null
+                        ? '–'
+                        : `${e.versusReference > 0.005 ? '+' : ''}${formatMoney(e.versusReference)}`}
+                    </td>
                   </tr>
                 ))}
               </tbody>
@@ -192,7 +244,9 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
       body: (
         <Lines
           items={[
-            ...(couldNot ? [couldNot.replace('What the network could not tell: ', 'We could not tell ')] : []),
+            ...(couldNot
+              ? [couldNot.replace('What the network could not tell: ', 'We could not tell ')]
+              : []),
             'Repeat the trial next season, ideally on the same farms, before anyone changes rates on every field.',
             'Growers: read your own site report and compare it with the network.',
             'Rates in a trial are treatments to compare, not recommendations; local extension advice and the seed label come first.',
@@ -204,7 +258,10 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
   }, [analysis, report, trial, theme, unit, digits, label, referenceLabel, keyRate]);
 
   const last = slides.length - 1;
-  const go = useCallback((step: number) => setIndex((i) => Math.min(last, Math.max(0, i + step))), [last]);
+  const go = useCallback(
+    (step: number) => setIndex((i) => Math.min(last, Math.max(0, i + step))),
+    [last],
+  );
   useEffect(() => {
     const onKey = (event: KeyboardEvent) => {
       if (event.target instanceof HTMLInputElement) return;
@@ -230,7 +287,11 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
           ← Back to the report
         </Link>
         <span className="flex items-center gap-3">
-          <button type="button" onClick={() => setDark((d) => !d)} className="rounded-field border border-line px-3 py-1 font-semibold text-ink">
+          <button
+            type="button"
+            onClick={() => setDark((d) => !d)}
+            className="rounded-field border border-line px-3 py-1 font-semibold text-ink"
+          >
             {dark ? 'Light' : 'Dark'}
           </button>
           <span aria-live="polite" data-testid="slide-counter">
@@ -246,21 +307,41 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
           go(event.clientX - box.left < box.width / 3 ? -1 : 1);
         }}
       >
-        <section aria-roledescription="slide" aria-label={`${index + 1} of ${slides.length}: ${slide.title}`} data-slide={slide.id} className="flex flex-1 flex-col justify-center gap-[4vh] text-[clamp(1.2rem,2.2vw,2rem)] leading-snug">
-          <h1 className="text-[clamp(2rem,4.6vw,4.2rem)] font-bold leading-tight tracking-tight text-ink">{slide.title}</h1>
+        <section
+          aria-roledescription="slide"
+          aria-label={`${index + 1} of ${slides.length}: ${slide.title}`}
+          data-slide={slide.id}
+          className="flex flex-1 flex-col justify-center gap-[4vh] text-[clamp(1.2rem,2.2vw,2rem)] leading-snug"
+        >
+          <h1 className="text-[clamp(2rem,4.6vw,4.2rem)] font-bold leading-tight tracking-tight text-ink">
+            {slide.title}
+          </h1>
           <div>{slide.body}</div>
         </section>
       </main>
-      <div className="no-print flex items-center justify-between px-6 pb-4">
-        <button type="button" onClick={() => go(-1)} disabled={index === 0} className="min-h-12 rounded-field px-5 text-body font-semibold text-accent disabled:opacity-40">
+      <div className="no-print flex items-center justify-between gap-2 px-2 pb-4 sm:px-6">
+        <button
+          type="button"
+          onClick={() => go(-1)}
+          disabled={index === 0}
+          className="min-h-12 shrink-0 whitespace-nowrap rounded-field px-3 text-body font-semibold text-accent disabled:opacity-40 sm:px-5"
+        >
           ← Previous
         </button>
-        <div aria-hidden="true" className="flex gap-2">
+        <div aria-hidden="true" className="flex min-w-0 gap-1 sm:gap-2">
           {slides.map((s, i) => (
-            <span key={s.id} className={cn('h-2 w-6 rounded-full', i === index ? 'bg-accent' : 'bg-line')} />
+            <span
+              key={s.id}
+              className={cn('h-2 w-3 rounded-full sm:w-6', i === index ? 'bg-accent' : 'bg-line')}
+            />
           ))}
         </div>
-        <button type="button" onClick={() => go(1)} disabled={index === last} className="min-h-12 rounded-field px-5 text-body font-semibold text-accent disabled:opacity-40">
+        <button
+          type="button"
+          onClick={() => go(1)}
+          disabled={index === last}
+          className="min-h-12 shrink-0 whitespace-nowrap rounded-field px-3 text-body font-semibold text-accent disabled:opacity-40 sm:px-5"
+        >
           Next →
         </button>
       </div>
