@@ -1,7 +1,7 @@
 // Invitation routes: create (coordinators), preview and accept (the invited person).
 import { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
-import { AppError } from '../errors';
+import { AppError, NotFound } from '../errors';
 import { z } from 'zod';
 import { InvitationAcceptSchema, InvitationCreateSchema } from '../../shared/schemas/auth';
 import type { AuthService } from '../auth/auth.service';
@@ -35,7 +35,10 @@ export function createInvitationsRouter(deps: { invitations: InvitationsService;
   });
 
   routes.get('/invitations/:token', policies.public, async (req, res) => {
-    const token = z.string().min(10).max(200).parse(req.params.token);
+    // A malformed token is just an invitation that does not exist.
+    const parsed = z.string().min(10).max(200).safeParse(req.params.token);
+    if (!parsed.success) throw new NotFound('Invitation');
+    const token = parsed.data;
     res.json(await invitations.preview(token));
   });
 
