@@ -44,7 +44,7 @@ const S = {
   filter: `${SVG}clay`,
 };
 
-// The smallest valid PNG (1×1 transparent): Common practice, no published source.
+// A minimal valid PNG (one pixel): Common practice, no published source.
 const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==', 'base64');
 const PASSWORD = 'hostile-grower-password';
 
