@@ -3,8 +3,12 @@ import '@fontsource-variable/inter';
 import './styles/app.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
+import { z } from 'zod';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
+
+// zod probes for eval support once at start-up; the CSP forbids eval, so tell zod not to try.
+z.config({ jitless: true });
 
 const container = document.getElementById('root');
 if (!container) throw new Error('Sheaf needs an element with id "root" in index.html');

@@ -95,11 +95,6 @@ export function clientFor(app: Express) {
       const token = await csrf();
       return agent.delete(url).set('X-CSRF-Token', token);
     },
-    /** For multipart uploads: returns a request with the CSRF header set. */
-    upload: async (url: string) => {
-      const token = await csrf();
-      return agent.post(url).set('X-CSRF-Token', token);
-    },
   };
 }
 
