@@ -22,6 +22,9 @@ function cleanup() {
   cluster.stop();
   fs.rmSync(dataDir, { recursive: true, force: true });
   fs.rmSync(`${dataDir}.secrets.json`, { force: true });
+  for (const entry of fs.existsSync(DATA_DIR) ? fs.readdirSync(DATA_DIR) : []) {
+    if (entry.startsWith('test-uploads-')) fs.rmSync(path.join(DATA_DIR, entry), { recursive: true, force: true });
+  }
 }
 process.on('SIGINT', () => { cleanup(); process.exit(130); });
 process.on('SIGTERM', () => { cleanup(); process.exit(143); });
