@@ -4,10 +4,10 @@ import type { DataSource } from 'typeorm';
 import { buildImportTemplate } from '../../shared/import/build-template';
 import { parseImportCsv } from '../../shared/import/parse-import';
 import type { ImportResult } from '../../shared/schemas/import';
-import { ObservationValuesSchema } from '../../shared/schemas/observation';
-import { recordAudit } from '../audit/audit.service';
+import { ObservationValuesSchema, type ObservationValues } from '../../shared/schemas/observation';
+import { recordAuditsInBulk, type AuditInput } from '../audit/audit.service';
 import { AppError, InvalidRows } from '../errors';
-import { bumpDataVersion, changedFields, loadSite, loadSiteStrips, lockSiteForChange, writeObservation } from '../lib/strip-data';
+import { bumpDataVersion, changedFields, loadSite, loadSiteStrips, lockSiteForChange, writeObservationsInBulk } from '../lib/strip-data';
 
 /** Reads an uploaded file as CSV text, refusing anything that is not text by its content. */
 export async function csvText(buffer: Buffer, declaredType: string): Promise<string> {
@@ -61,15 +61,17 @@ export function createImportsService(deps: { dataSource: DataSource }) {
           errors.sort((a, b) => a.row - b.row);
           throw new InvalidRows(`${errors.length === 1 ? 'One problem' : `${errors.length} problems`} in the file; nothing was saved. Fix ${errors.length === 1 ? 'it' : 'them'} and upload again.`, errors);
         }
-        let changed = 0;
+        const writes: { stripId: string; values: ObservationValues }[] = [];
+        const audits: AuditInput[] = [];
         for (const { strip, values } of planned) {
           const diff = changedFields(strip.values, values);
           if (!diff) continue;
-          await manager.query('UPDATE strips SET version = version + 1 WHERE id = $1', [strip.stripId]);
-          await writeObservation(manager, strip.stripId, values, actorUserId);
-          await recordAudit(manager, { actorUserId, entityType: 'strip', entityId: strip.stripId, siteId, action: 'import', before: diff.before, after: diff.after });
-          changed += 1;
+          writes.push({ stripId: strip.stripId, values });
+          audits.push({ actorUserId, entityType: 'strip', entityId: strip.stripId, siteId, action: 'import', before: diff.before, after: diff.after });
         }
+        await writeObservationsInBulk(manager, writes, actorUserId);
+        await recordAuditsInBulk(manager, audits);
+        const changed = writes.length;
         const dataVersion = changed > 0 ? await bumpDataVersion(manager, siteId) : site.dataVersion;
         return { rows: parsed.rows.length, changedStrips: changed, unchangedStrips: parsed.rows.length - changed, dataVersion };
       });

@@ -244,3 +244,63 @@ export async function writeObservation(manager: EntityManager, stripId: string, 
     ],
   );
 }
+
+const OBSERVATION_RECORD = `strip_id uuid, seeds_sown integer, stand_counts jsonb, stand_row_length numeric, tiller_plants integer,
+  tiller_count integer, head_counts jsonb, head_row_length numeric, grain_weight numeric, harvest_rows integer,
+  harvest_length numeric, harvest_area numeric, moisture_pct numeric, test_weight numeric, sowing_date date,
+  emergence_date date, heading_date date, harvest_date date, notes text`;
+
+/**
+ * Writes many strips' observations and bumps their versions in a few statements (a CSV
+ * import of 5,000 rows would otherwise make 10,000 round trips). Same effect as calling
+ * writeObservation and bumping the version once per strip.
+ */
+export async function writeObservationsInBulk(
+  manager: EntityManager,
+  rows: readonly { stripId: string; values: ObservationValues }[],
+  actorUserId: string | null,
+): Promise<void> {
+  for (let start = 0; start < rows.length; start += 1000) {
+    const chunk = rows.slice(start, start + 1000);
+    const records = chunk.map(({ stripId, values }) => ({
+      strip_id: stripId,
+      seeds_sown: values.seedsSown,
+      stand_counts: values.standCounts,
+      stand_row_length: values.standRowLength,
+      tiller_plants: values.tillerPlants,
+      tiller_count: values.tillerCount,
+      head_counts: values.headCounts,
+      head_row_length: values.headRowLength,
+      grain_weight: values.grainWeight,
+      harvest_rows: values.harvestRows,
+      harvest_length: values.harvestLength,
+      harvest_area: values.harvestArea,
+      moisture_pct: values.moisturePct,
+      test_weight: values.testWeight,
+      sowing_date: values.sowingDate,
+      emergence_date: values.emergenceDate,
+      heading_date: values.headingDate,
+      harvest_date: values.harvestDate,
+      notes: values.notes,
+    }));
+    await manager.query('UPDATE strips SET version = version + 1 WHERE id = ANY($1::uuid[])', [chunk.map((r) => r.stripId)]);
+    await manager.query(
+      `INSERT INTO observations (strip_id, seeds_sown, stand_counts, stand_row_length, tiller_plants, tiller_count,
+          head_counts, head_row_length, grain_weight, harvest_rows, harvest_length, harvest_area, moisture_pct,
+          test_weight, sowing_date, emergence_date, heading_date, harvest_date, notes, updated_by, updated_at)
+       SELECT x.strip_id, x.seeds_sown, coalesce(x.stand_counts, '[]'), x.stand_row_length, x.tiller_plants, x.tiller_count,
+              coalesce(x.head_counts, '[]'), x.head_row_length, x.grain_weight, x.harvest_rows, x.harvest_length, x.harvest_area,
+              x.moisture_pct, x.test_weight, x.sowing_date, x.emergence_date, x.heading_date, x.harvest_date, coalesce(x.notes, ''), $2, now()
+         FROM jsonb_to_recordset($1::jsonb) AS x(${OBSERVATION_RECORD})
+       ON CONFLICT (strip_id) DO UPDATE SET
+          seeds_sown = EXCLUDED.seeds_sown, stand_counts = EXCLUDED.stand_counts, stand_row_length = EXCLUDED.stand_row_length,
+          tiller_plants = EXCLUDED.tiller_plants, tiller_count = EXCLUDED.tiller_count, head_counts = EXCLUDED.head_counts,
+          head_row_length = EXCLUDED.head_row_length, grain_weight = EXCLUDED.grain_weight, harvest_rows = EXCLUDED.harvest_rows,
+          harvest_length = EXCLUDED.harvest_length, harvest_area = EXCLUDED.harvest_area, moisture_pct = EXCLUDED.moisture_pct,
+          test_weight = EXCLUDED.test_weight, sowing_date = EXCLUDED.sowing_date, emergence_date = EXCLUDED.emergence_date,
+          heading_date = EXCLUDED.heading_date, harvest_date = EXCLUDED.harvest_date, notes = EXCLUDED.notes,
+          updated_by = EXCLUDED.updated_by, updated_at = now()`,
+      [JSON.stringify(records), actorUserId],
+    );
+  }
+}
