@@ -69,6 +69,7 @@ export function createImportsService(deps: { dataSource: DataSource }) {
           writes.push({ stripId: strip.stripId, values });
           audits.push({ actorUserId, entityType: 'strip', entityId: strip.stripId, siteId, action: 'import', before: diff.before, after: diff.after });
         }
+        await manager.query('UPDATE strips SET version = version + 1 WHERE id = ANY($1::uuid[])', [writes.map((w) => w.stripId)]);
         await writeObservationsInBulk(manager, writes, actorUserId);
         await recordAuditsInBulk(manager, audits);
         const changed = writes.length;

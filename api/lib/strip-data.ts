@@ -207,42 +207,7 @@ export function patchAlreadyApplied(current: ObservationValues, patch: Partial<O
 
 /** Inserts or replaces the observations row of a strip. */
 export async function writeObservation(manager: EntityManager, stripId: string, values: ObservationValues, actorUserId: string | null): Promise<void> {
-  await manager.query(
-    `INSERT INTO observations (strip_id, seeds_sown, stand_counts, stand_row_length, tiller_plants, tiller_count,
-        head_counts, head_row_length, grain_weight, harvest_rows, harvest_length, harvest_area, moisture_pct,
-        test_weight, sowing_date, emergence_date, heading_date, harvest_date, notes, updated_by, updated_at)
-     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, $15, $16, $17, $18, $19, $20, now())
-     ON CONFLICT (strip_id) DO UPDATE SET
-        seeds_sown = EXCLUDED.seeds_sown, stand_counts = EXCLUDED.stand_counts, stand_row_length = EXCLUDED.stand_row_length,
-        tiller_plants = EXCLUDED.tiller_plants, tiller_count = EXCLUDED.tiller_count, head_counts = EXCLUDED.head_counts,
-        head_row_length = EXCLUDED.head_row_length, grain_weight = EXCLUDED.grain_weight, harvest_rows = EXCLUDED.harvest_rows,
-        harvest_length = EXCLUDED.harvest_length, harvest_area = EXCLUDED.harvest_area, moisture_pct = EXCLUDED.moisture_pct,
-        test_weight = EXCLUDED.test_weight, sowing_date = EXCLUDED.sowing_date, emergence_date = EXCLUDED.emergence_date,
-        heading_date = EXCLUDED.heading_date, harvest_date = EXCLUDED.harvest_date, notes = EXCLUDED.notes,
-        updated_by = EXCLUDED.updated_by, updated_at = now()`,
-    [
-      stripId,
-      values.seedsSown,
-      JSON.stringify(values.standCounts),
-      values.standRowLength,
-      values.tillerPlants,
-      values.tillerCount,
-      JSON.stringify(values.headCounts),
-      values.headRowLength,
-      values.grainWeight,
-      values.harvestRows,
-      values.harvestLength,
-      values.harvestArea,
-      values.moisturePct,
-      values.testWeight,
-      values.sowingDate,
-      values.emergenceDate,
-      values.headingDate,
-      values.harvestDate,
-      values.notes,
-      actorUserId,
-    ],
-  );
+  await writeObservationsInBulk(manager, [{ stripId, values }], actorUserId);
 }
 
 const OBSERVATION_RECORD = `strip_id uuid, seeds_sown integer, stand_counts jsonb, stand_row_length numeric, tiller_plants integer,
@@ -251,9 +216,8 @@ const OBSERVATION_RECORD = `strip_id uuid, seeds_sown integer, stand_counts json
   emergence_date date, heading_date date, harvest_date date, notes text`;
 
 /**
- * Writes many strips' observations and bumps their versions in a few statements (a CSV
- * import of 5,000 rows would otherwise make 10,000 round trips). Same effect as calling
- * writeObservation and bumping the version once per strip.
+ * Inserts or replaces the observations of many strips in one statement per thousand (a CSV
+ * import of 5,000 rows would otherwise make 5,000 round trips). Versions are the caller's.
  */
 export async function writeObservationsInBulk(
   manager: EntityManager,
@@ -283,7 +247,6 @@ export async function writeObservationsInBulk(
       harvest_date: values.harvestDate,
       notes: values.notes,
     }));
-    await manager.query('UPDATE strips SET version = version + 1 WHERE id = ANY($1::uuid[])', [chunk.map((r) => r.stripId)]);
     await manager.query(
       `INSERT INTO observations (strip_id, seeds_sown, stand_counts, stand_row_length, tiller_plants, tiller_count,
           head_counts, head_row_length, grain_weight, harvest_rows, harvest_length, harvest_area, moisture_pct,
