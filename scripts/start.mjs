@@ -46,7 +46,7 @@ try {
 if (!stopping) {
   const publicUrl = process.env.PUBLIC_URL ?? `http://127.0.0.1:${PORT}`;
   server = spawn(process.execPath, ['--import', 'tsx', 'api/server.ts'], {
-    stdio: 'inherit',
+    stdio: ['inherit', 'pipe', 'inherit'],
     env: {
       ...process.env,
       NODE_ENV: process.env.NODE_ENV ?? 'development',
@@ -61,8 +61,11 @@ if (!stopping) {
   server.on('exit', (code) => {
     if (!stopping) stopAll(code ?? 1);
   });
-  setTimeout(() => {
-    if (stopping) return;
+  let announced = false;
+  server.stdout.on('data', (chunk) => {
+    process.stdout.write(chunk);
+    if (announced || !chunk.toString().includes('listening on')) return;
+    announced = true;
     console.log(`
   Sheaf is running at ${publicUrl}
   Demo sign-ins (invented demo data; password for all: sheaf-demo):
@@ -71,5 +74,5 @@ if (!stopping) {
   E-mail is caught locally; admins read it at ${publicUrl}/admin/mail
   Press Ctrl-C to stop (PostgreSQL stops too).
 `);
-  }, 2500);
+  });
 }

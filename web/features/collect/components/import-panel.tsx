@@ -12,6 +12,7 @@ import { isApiError } from '../../../lib/api-client';
 import { errorSummary } from '../../../lib/form-errors';
 import { plural } from '../../../lib/format';
 import { templateUrl, useImportCsv } from '../api/import-csv';
+import Papa from 'papaparse';
 
 const PREVIEW_ROWS = 40;
 
@@ -50,7 +51,6 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
     setFile(chosen ?? null);
     if (!chosen) return setPreview(null);
     const text = await chosen.text();
-    const { default: Papa } = await import('papaparse');
     const table = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy' }).data;
     const parsed = parseImportCsv(text, { unitSystem: site.unitSystem, fieldName: site.fieldName, strips: data.strips });
     setPreview({ table, parsed });
