@@ -142,9 +142,9 @@ describe('trial design in the browser', () => {
       '5. Recording sheet',
       '6. Work safely',
     ]) {
-      await expect(page.getByRole('heading', { name: heading }).isVisible()).resolves.toBe(true);
+      await page.getByRole('heading', { name: heading }).waitFor({ state: 'visible', timeout: 15_000 });
     }
-    await expect(page.getByText(/Zadoks 12–13/).isVisible()).resolves.toBe(true);
+    await page.getByText(/Zadoks 12–13/).waitFor({ state: 'visible', timeout: 15_000 });
     await screenshot(page, 'design-packet-1280');
     await page
       .locator('figure.strip-map')

@@ -135,7 +135,7 @@ describe('journeys through the navigation', () => {
         await screenshot(page, `journeys-${stop.name}-${width}`);
         // No dead ends: every page leads back up (the meeting view back to its report).
         const up = page.getByRole('link', { name: stop.back }).first();
-        await expect(up.isVisible(), `${stop.name} links back`).resolves.toBe(true);
+        await up.waitFor({ state: 'visible', timeout: 15_000 });
         await up.click();
         if (stop.name === 'meeting') {
           await page.waitForURL(`**/trials/${ids.oatTrialId}/report`);
@@ -212,9 +212,7 @@ describe('journeys through the navigation', () => {
       await expectMainHeading(page, 'Reports');
       const reports = page.getByTestId('trial-reports');
       await expect(reports.count()).resolves.toBe(1);
-      await expect(
-        reports.getByRole('heading', { name: 'Journey barley trial' }).isVisible(),
-      ).resolves.toBe(true);
+      await reports.getByRole('heading', { name: 'Journey barley trial' }).waitFor({ state: 'visible', timeout: 15_000 });
       await expect(reports.getByRole('link').allTextContents()).resolves.toEqual([
         expect.stringContaining('Network report'),
         expect.stringContaining('Site report: East bank'),

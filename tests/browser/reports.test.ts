@@ -75,7 +75,7 @@ describe('reports in the browser', () => {
       await page.getByRole('heading', { name: 'What the network found' }).waitFor();
       const charts = await expectChartsDrawn(page, 3);
       expect(charts.map((c) => c.name)).toEqual(expect.arrayContaining(['response-curve', 'network-rate-means']));
-      await expect(page.getByText('8 in, 0 left out').isVisible()).resolves.toBe(true);
+      await page.getByText('8 in, 0 left out').waitFor({ state: 'visible', timeout: 15_000 });
       const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
       expect(overflow).toBeLessThanOrEqual(1);
       await screenshot(page, `reports-pooled-${width}`);

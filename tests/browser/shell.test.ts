@@ -45,9 +45,7 @@ describe('web shell', () => {
     await page.getByLabel(/password/i).fill('sheaf-demo');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL((url) => url.pathname === '/admin/mail');
-    await expect(page.getByRole('heading', { name: 'Caught e-mail' }).isVisible()).resolves.toBe(
-      true,
-    );
+    await page.getByRole('heading', { name: 'Caught e-mail' }).waitFor({ state: 'visible', timeout: 15_000 });
     expect(errors).toEqual([]);
     await close();
   });
@@ -63,17 +61,15 @@ describe('web shell', () => {
       expect(await oat.getAttribute('href')).toMatch(/^\/trials\/[0-9a-f-]{36}$/);
       const wheat = page.getByRole('link', { name: /winter wheat/i });
       await expect(wheat.first().textContent()).resolves.toMatch(/Draft/);
-      await expect(page.getByText('Demo data is invented').isVisible()).resolves.toBe(true);
+      await page.getByText('Demo data is invented').waitFor({ state: 'visible', timeout: 15_000 });
 
       await screenshot(page, `shell-coordinator-home-${width}`);
       if (width < 768) {
         await page.getByRole('button', { name: 'Menu' }).click();
       }
       const nav = page.getByRole('navigation', { name: 'Main' }).filter({ visible: true });
-      await expect(nav.getByRole('link', { name: 'New trial' }).isVisible()).resolves.toBe(true);
-      await expect(nav.getByRole('link', { name: 'Seed calculator' }).isVisible()).resolves.toBe(
-        true,
-      );
+      await nav.getByRole('link', { name: 'New trial' }).waitFor({ state: 'visible', timeout: 15_000 });
+      await nav.getByRole('link', { name: 'Seed calculator' }).waitFor({ state: 'visible', timeout: 15_000 });
       await expect(nav.getByRole('link', { name: 'Caught e-mail' }).count()).resolves.toBe(0);
 
       if (width < 768) await screenshot(page, `shell-coordinator-menu-${width}`);
