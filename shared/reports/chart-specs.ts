@@ -88,6 +88,7 @@ export function rateMeansSpec(
   const order = input.means.map((m) => m.label);
   const x = { field: 'label', type: 'nominal', title: 'Seeding rate', sort: order, axis: { labelAngle: 0 } };
   const y = { type: 'quantitative', title: `Yield (${input.yieldUnit})`, scale: { zero: false } };
+  const stripPoints = input.strips.filter((s) => s.yield !== null).map((s) => ({ label: s.label, yield: s.yield, block: s.block }));
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
@@ -96,8 +97,9 @@ export function rateMeansSpec(
     autosize: { type: 'fit-x', contains: 'padding' },
     config: chartConfig(theme, options.scale),
     layer: [
-      {
-        data: { values: input.strips.filter((s) => s.yield !== null).map((s) => ({ label: s.label, yield: s.yield, block: s.block })) },
+      // The pooled report has no individual strips: leave the layer out rather than draw an empty one.
+      ...(stripPoints.length === 0 ? [] : [{
+        data: { values: stripPoints },
         mark: { type: 'point', filled: false, size: 50 * (options.scale ?? 1), color: theme.muted, opacity: 0.9, xOffset: 14 },
         encoding: {
           x,
@@ -108,7 +110,7 @@ export function rateMeansSpec(
             { field: 'yield', title: 'Strip yield', format: '.1f' },
           ],
         },
-      },
+      }]),
       {
         data: { values: input.means.map((m) => ({ ...m })) },
         layer: [
@@ -297,7 +299,8 @@ export function forestSpec(
               y,
               x: { ...x, field: 'ciLow' },
               x2: { field: 'ciHigh' },
-              color: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: [theme.muted, theme.accent] } },
+              // Conditions rather than a second colour scale: the point layer colours by kind too.
+              color: { condition: { test: "datum.kind === 'pooled'", value: theme.accent }, value: theme.muted },
             },
           },
           {
@@ -306,8 +309,8 @@ export function forestSpec(
               y,
               x: { ...x, field: 'diff' },
               shape: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: ['square', 'diamond'] } },
-              size: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: [70 * (options.scale ?? 1), 220 * (options.scale ?? 1)] } },
-              color: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: [theme.ink, theme.accent] } },
+              size: { condition: { test: "datum.kind === 'pooled'", value: 220 * (options.scale ?? 1) }, value: 70 * (options.scale ?? 1) },
+              color: { condition: { test: "datum.kind === 'pooled'", value: theme.accent }, value: theme.ink },
               tooltip: [
                 { field: 'site', title: 'Site' },
                 { field: 'diff', title: 'Difference', format: '.1f' },

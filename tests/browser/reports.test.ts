@@ -70,6 +70,11 @@ describe('reports in the browser', () => {
 
     it(`draws the pooled report's charts at ${width} px`, async () => {
       const { page, errors, close } = await openPage(width);
+      // Vega logs spec problems (empty layers, clashing scales) as console warnings.
+      const chartWarnings: string[] = [];
+      page.on('console', (message) => {
+        if (message.type() === 'warning' && /WARN/.test(message.text())) chartWarnings.push(message.text());
+      });
       await signInThroughUi(page, server.baseUrl, COORDINATOR);
       await page.goto(`${server.baseUrl}/trials/${ids.oatTrialId}/report`);
       await page.getByRole('heading', { name: 'What the network found' }).waitFor();
@@ -80,6 +85,7 @@ describe('reports in the browser', () => {
       expect(overflow).toBeLessThanOrEqual(1);
       await screenshot(page, `reports-pooled-${width}`);
       expect(errors).toEqual([]);
+      expect(chartWarnings).toEqual([]);
       await close();
     });
   }
