@@ -1,11 +1,11 @@
-// Select and multi-line fields styled like the shared TextField, for the trial forms.
+// Select and multi-line fields styled like the shared TextField, with hint and error text wired up.
 import {
   useId,
   type ReactNode,
   type SelectHTMLAttributes,
   type TextareaHTMLAttributes,
 } from 'react';
-import { cn } from '../../../lib/cn';
+import { cn } from '../../lib/cn';
 
 const control =
   'block min-h-11 w-full rounded-field border bg-surface px-3 text-body text-ink focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30';

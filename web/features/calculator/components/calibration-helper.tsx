@@ -8,6 +8,7 @@ import { rateTable } from '../../../../shared/design/rate-table';
 import { calibrateSeeder } from '../../../../shared/units/calibration';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { SelectField } from '../../../components/ui/form-fields';
 import { TextField } from '../../../components/ui/text-field';
 import { errorSummary } from '../../../lib/form-errors';
 import { cn } from '../../../lib/cn';
@@ -16,17 +17,9 @@ import {
   useMySitesForCalibration,
   useSaveCalibration,
 } from '../api/calibration';
+import { numberFieldErrors, parseNumberInput as num } from '../lib/number-input';
 
-const selectClass =
-  'block min-h-11 w-full rounded-field border border-line-strong bg-surface px-3 text-body text-ink focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30';
 const f1 = new Intl.NumberFormat('en', { maximumFractionDigits: 1 });
-
-function num(value: string): number | undefined {
-  const t = value.trim();
-  if (t === '') return undefined;
-  const n = Number(t);
-  return Number.isFinite(n) ? n : Number.NaN;
-}
 
 export function CalibrationHelper({
   user,
@@ -75,18 +68,7 @@ export function CalibrationHelper({
       rowSpacingIn: num(v.rowSpacingIn),
       targetSeedsPerFootOfRow: num(v.targetSeedsPerFootOfRow),
     });
-    if (!parsed.success) {
-      const fields: Record<string, string> = {};
-      for (const issue of parsed.error.issues) {
-        fields[String(issue.path[0])] ??=
-          issue.code === 'invalid_type'
-            ? issue.input === undefined
-              ? 'Fill this in'
-              : 'Enter a number'
-            : issue.message;
-      }
-      return { result: null, errors: fields };
-    }
+    if (!parsed.success) return { result: null, errors: numberFieldErrors(parsed.error) };
     const r = calibrateSeeder({
       seedsCounted: parsed.data.seedsCounted,
       wheelTurns: parsed.data.wheelTurns,
@@ -112,43 +94,31 @@ export function CalibrationHelper({
       >
         {user && growerSites.length > 0 ? (
           <div className="grid gap-3 rounded-card border border-line bg-surface p-4 sm:grid-cols-2">
-            <div className="flex flex-col gap-1.5">
-              <label htmlFor="cal-site" className="text-label text-ink">
-                Your site
-              </label>
-              <select
-                id="cal-site"
-                className={selectClass}
-                value={siteId ?? ''}
-                onChange={(e) => setSiteId(e.target.value || null)}
+            <SelectField
+              label="Your site"
+              value={siteId ?? ''}
+              onChange={(e) => setSiteId(e.target.value || null)}
+            >
+              <option value="">No site (just calculate)</option>
+              {growerSites.map((s) => (
+                <option key={s.id} value={s.id}>
+                  {s.fieldName} — {s.trialName}
+                </option>
+              ))}
+            </SelectField>
+            {targets.length > 0 ? (
+              <SelectField
+                label="Rate you are setting"
+                value={rateLabel}
+                onChange={(e) => chooseRate(e.target.value)}
               >
-                <option value="">No site (just calculate)</option>
-                {growerSites.map((s) => (
-                  <option key={s.id} value={s.id}>
-                    {s.fieldName} — {s.trialName}
+                <option value="">Choose a rate…</option>
+                {targets.map((r) => (
+                  <option key={r.label} value={r.label}>
+                    {r.label} ×{r.multiplier} — {f1.format(r.seedsPerFootOfRow)} seeds/ft
                   </option>
                 ))}
-              </select>
-            </div>
-            {targets.length > 0 ? (
-              <div className="flex flex-col gap-1.5">
-                <label htmlFor="cal-rate" className="text-label text-ink">
-                  Rate you are setting
-                </label>
-                <select
-                  id="cal-rate"
-                  className={selectClass}
-                  value={rateLabel}
-                  onChange={(e) => chooseRate(e.target.value)}
-                >
-                  <option value="">Choose a rate…</option>
-                  {targets.map((r) => (
-                    <option key={r.label} value={r.label}>
-                      {r.label} ×{r.multiplier} — {f1.format(r.seedsPerFootOfRow)} seeds/ft
-                    </option>
-                  ))}
-                </select>
-              </div>
+              </SelectField>
             ) : null}
           </div>
         ) : null}

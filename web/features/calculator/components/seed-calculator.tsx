@@ -3,8 +3,10 @@
 import { useMemo, useState } from 'react';
 import { CALC_UNITS, SeedingCalcInputSchema, type CalcUnit } from '../../../../shared/schemas/calc';
 import { calculateSeeding } from '../../../../shared/design/seeding-calc';
+import { SelectField } from '../../../components/ui/form-fields';
 import { TextField } from '../../../components/ui/text-field';
 import { cn } from '../../../lib/cn';
+import { numberFieldErrors, parseNumberInput } from '../lib/number-input';
 
 const UNIT_NAMES: Record<CalcUnit, string> = {
   'lb/acre': 'lb per acre',
@@ -17,19 +19,12 @@ const UNIT_NAMES: Record<CalcUnit, string> = {
   'plants/acre': 'target plants per acre',
 };
 
-const selectClass =
-  'block min-h-11 w-full rounded-field border border-line-strong bg-surface px-3 text-body text-ink focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30';
-
 const fmt = (digits: number) => new Intl.NumberFormat('en', { maximumFractionDigits: digits });
 const f1 = fmt(1);
 const f0 = fmt(0);
 
-function num(value: string): number | undefined {
-  const t = value.trim().replace(/,/g, '');
-  if (t === '') return undefined;
-  const n = Number(t);
-  return Number.isFinite(n) ? n : Number.NaN;
-}
+// Commas are read as thousands separators here: "12,000" is 12000.
+const num = (value: string) => parseNumberInput(value.replace(/,/g, ''));
 
 export function SeedCalculator() {
   const [v, setV] = useState({
@@ -61,19 +56,7 @@ export function SeedCalculator() {
       wheelCircumferenceFt: num(v.wheelCircumferenceFt),
     };
     const parsed = SeedingCalcInputSchema.safeParse(candidate);
-    if (!parsed.success) {
-      const fields: Record<string, string> = {};
-      for (const issue of parsed.error.issues) {
-        const key = String(issue.path[0] ?? 'form');
-        fields[key] ??=
-          issue.code === 'invalid_type'
-            ? issue.input === undefined
-              ? 'Fill this in'
-              : 'Enter a number'
-            : issue.message;
-      }
-      return { result: null, errors: fields };
-    }
+    if (!parsed.success) return { result: null, errors: numberFieldErrors(parsed.error) };
     try {
       return { result: calculateSeeding(parsed.data), errors: {} as Record<string, string> };
     } catch (error) {
@@ -103,23 +86,17 @@ export function SeedCalculator() {
             onChange={(e) => set({ value: e.target.value })}
             error={errors.value}
           />
-          <div className="flex flex-col gap-1.5">
-            <label htmlFor="calc-unit" className="text-label text-ink">
-              Unit
-            </label>
-            <select
-              id="calc-unit"
-              className={selectClass}
-              value={v.unit}
-              onChange={(e) => set({ unit: e.target.value as CalcUnit })}
-            >
-              {CALC_UNITS.map((u) => (
-                <option key={u} value={u}>
-                  {UNIT_NAMES[u]}
-                </option>
-              ))}
-            </select>
-          </div>
+          <SelectField
+            label="Unit"
+            value={v.unit}
+            onChange={(e) => set({ unit: e.target.value as CalcUnit })}
+          >
+            {CALC_UNITS.map((u) => (
+              <option key={u} value={u}>
+                {UNIT_NAMES[u]}
+              </option>
+            ))}
+          </SelectField>
         </fieldset>
         <fieldset className="space-y-3">
           <legend className="mb-1.5 text-label text-ink">Seed lot</legend>

@@ -7,7 +7,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { apiFieldErrors, errorSummary } from '../../../lib/form-errors';
 import { useTrialPeople } from '../api/get-trial';
 import { useEnrolSite } from '../api/trial-mutations';
-import { SelectField, TextAreaField } from './fields';
+import { SelectField, TextAreaField } from '../../../components/ui/form-fields';
 
 const EMPTY = {
   growerUserId: '',

@@ -23,7 +23,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { apiFieldErrors, errorSummary } from '../../../lib/form-errors';
 import { cn } from '../../../lib/cn';
 import { useCreateTrial, useUpdateTrial } from '../api/trial-mutations';
-import { SelectField, TextAreaField } from './fields';
+import { SelectField, TextAreaField } from '../../../components/ui/form-fields';
 import { PowerPlanner } from './power-planner';
 import { RateSummaryTable } from './rate-summary-table';
 
