@@ -1,53 +1,38 @@
 // `/sites/:siteId/map`: the site's strip map on its own, with a link to the printable packet.
-import type { QueryClient } from '@tanstack/react-query';
-import { useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { ButtonLink } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
-import {
-  layoutQueryOptions,
-  siteQueryOptions,
-  useLayout,
-  useSite,
-} from '../../../features/packets/api/get-site';
 import { StripMap } from '../../../features/packets/components/strip-map';
-import { isNotFound, NotFoundPanel } from '../../route-errors';
+import {
+  siteBackLink,
+  SiteLayoutErrorBoundary,
+  siteLayoutLoader,
+  useSiteWithLayout,
+} from './site-layout-route';
 
-export const clientLoader =
-  (queryClient: QueryClient) =>
-  async ({ params }: LoaderFunctionArgs) => {
-    await Promise.all([
-      queryClient.ensureQueryData(siteQueryOptions(params.siteId!)),
-      queryClient.ensureQueryData(layoutQueryOptions(params.siteId!)),
-    ]);
-    return null;
-  };
+export const clientLoader = siteLayoutLoader;
+export const ErrorBoundary = SiteLayoutErrorBoundary;
 
 export default function SiteMapPage() {
-  const { siteId } = useParams();
-  const site = useSite(siteId!);
-  const layout = useLayout(siteId!);
-  if (!site.data || !layout.data) return <LoadingBlock />;
+  const loaded = useSiteWithLayout();
+  if (!loaded) return <LoadingBlock />;
+  const { site, layout } = loaded;
   return (
     <>
       <PageHeader
-        back={
-          site.data.canCoordinate
-            ? { to: `/trials/${site.data.trialId}`, label: site.data.trial.name }
-            : { to: `/sites/${site.data.id}`, label: site.data.fieldName }
-        }
-        eyebrow={site.data.trial.name}
-        title={`Strip map: ${site.data.fieldName}`}
-        description={`${site.data.trial.blocksPerSite ?? '?'} blocks, each with every rate once in its own random order.`}
+        back={siteBackLink(site)}
+        eyebrow={site.trial.name}
+        title={`Strip map: ${site.fieldName}`}
+        description={`${site.trial.blocksPerSite ?? '?'} blocks, each with every rate once in its own random order.`}
         actions={
-          site.data.randomized ? (
-            <ButtonLink to={`/sites/${site.data.id}/packet`}>Field packet</ButtonLink>
+          site.randomized ? (
+            <ButtonLink to={`/sites/${site.id}/packet`}>Field packet</ButtonLink>
           ) : null
         }
       />
-      {site.data.randomized ? (
-        <StripMap layout={layout.data} title={`Strip map for ${site.data.fieldName}`} />
+      {site.randomized ? (
+        <StripMap layout={layout} title={`Strip map for ${site.fieldName}`} />
       ) : (
         <EmptyState title="Not randomized yet">
           The coordinator draws the map from the trial page.
@@ -55,10 +40,4 @@ export default function SiteMapPage() {
       )}
     </>
   );
-}
-
-export function ErrorBoundary() {
-  const error = useRouteError();
-  if (!isNotFound(error)) throw error;
-  return <NotFoundPanel title="No such site" />;
 }

@@ -1,37 +1,25 @@
 // `/sites/:siteId/packet`: the printable field packet (print or "Save as PDF" from the browser).
-import type { QueryClient } from '@tanstack/react-query';
-import { Link, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import { Button, ButtonLink } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { LoadingBlock } from '../../../components/ui/spinner';
-import {
-  layoutQueryOptions,
-  siteQueryOptions,
-  useLayout,
-  useSite,
-} from '../../../features/packets/api/get-site';
 import { FieldPacket } from '../../../features/packets/components/field-packet';
-import { isNotFound, NotFoundPanel } from '../../route-errors';
+import {
+  siteBackLink,
+  SiteLayoutErrorBoundary,
+  siteLayoutLoader,
+  useSiteWithLayout,
+} from './site-layout-route';
 
-export const clientLoader =
-  (queryClient: QueryClient) =>
-  async ({ params }: LoaderFunctionArgs) => {
-    await Promise.all([
-      queryClient.ensureQueryData(siteQueryOptions(params.siteId!)),
-      queryClient.ensureQueryData(layoutQueryOptions(params.siteId!)),
-    ]);
-    return null;
-  };
+export const clientLoader = siteLayoutLoader;
+export const ErrorBoundary = SiteLayoutErrorBoundary;
 
 export default function PacketPage() {
-  const { siteId } = useParams();
-  const site = useSite(siteId!);
-  const layout = useLayout(siteId!);
-  if (!site.data || !layout.data) return <LoadingBlock />;
-  const back = site.data.canCoordinate
-    ? { to: `/trials/${site.data.trialId}`, label: site.data.trial.name }
-    : { to: `/sites/${site.data.id}`, label: site.data.fieldName };
-  if (!site.data.randomized) {
+  const loaded = useSiteWithLayout();
+  if (!loaded) return <LoadingBlock />;
+  const { site, layout } = loaded;
+  const back = siteBackLink(site);
+  if (!site.randomized) {
     return (
       <EmptyState
         titleAs="h1"
@@ -63,13 +51,7 @@ export default function PacketPage() {
           <Button onClick={() => window.print()}>Print the packet</Button>
         </div>
       </div>
-      <FieldPacket site={site.data} layout={layout.data} />
+      <FieldPacket site={site} layout={layout} />
     </>
   );
-}
-
-export function ErrorBoundary() {
-  const error = useRouteError();
-  if (!isNotFound(error)) throw error;
-  return <NotFoundPanel title="No such site" />;
 }
