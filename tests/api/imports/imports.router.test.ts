@@ -1,8 +1,8 @@
 import fs from 'node:fs';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
-import { buildCollectSite, dataVersion, publishSite, type CollectSite } from '../strips/collect-builders';
+import { buildNetwork, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
+import { buildCollectSite, dataVersion, openCollectSite, publishSite, type CollectSite } from '../strips/collect-builders';
 
 const fixture = (name: string) => fs.readFileSync(`fixtures/imports/${name}`);
 
@@ -23,10 +23,7 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
     Number((await t.dataSource.query('SELECT count(*) FROM observations o JOIN strips s ON s.id = o.strip_id WHERE s.site_id = $1', [siteId]))[0].count);
 
   beforeAll(async () => {
-    t = await createTestApp();
-    net = await buildNetwork(t.dataSource, 'Imports');
-    site = await buildCollectSite(t.dataSource, net, { fieldName: 'Fixture field' });
-    grower = await signIn(t.app, net.emails.grower);
+    ({ t, net, site, grower } = await openCollectSite('Imports', { fieldName: 'Fixture field' }));
   });
   afterAll(() => t.close());
 

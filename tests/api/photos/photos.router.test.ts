@@ -1,8 +1,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
-import { buildCollectSite, publishSite, type CollectSite } from '../strips/collect-builders';
+import { buildNetwork, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
+import { buildCollectSite, openCollectSite, publishSite, type CollectSite } from '../strips/collect-builders';
 
 // A 1 × 1 PNG (the smallest valid file) and a JPEG header: real image bytes for the content check.
 const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f3e3f00000000049454e44ae426082', 'hex');
@@ -21,10 +21,7 @@ describe('photos: POST /api/sites/:siteId/photos, GET /api/sites/:siteId/photos,
   };
 
   beforeAll(async () => {
-    t = await createTestApp();
-    net = await buildNetwork(t.dataSource, 'Photos');
-    site = await buildCollectSite(t.dataSource, net);
-    grower = await signIn(t.app, net.emails.grower);
+    ({ t, net, site, grower } = await openCollectSite('Photos'));
   });
   afterAll(() => t.close());
 

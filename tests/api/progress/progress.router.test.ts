@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
-import { buildCollectSite, type CollectSite } from '../strips/collect-builders';
+import { signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
+import { openCollectSite, type CollectSite } from '../strips/collect-builders';
 
 describe('coordination: GET /api/trials/:trialId/progress and POST /api/trials/:trialId/reminders', () => {
   let t: TestApp;
@@ -9,11 +9,8 @@ describe('coordination: GET /api/trials/:trialId/progress and POST /api/trials/:
   let coordinator: Client;
 
   beforeAll(async () => {
-    t = await createTestApp();
-    net = await buildNetwork(t.dataSource, 'Progress');
-    site = await buildCollectSite(t.dataSource, net);
-    coordinator = await signIn(t.app, net.emails.coordinator);
-    const grower = await signIn(t.app, net.emails.grower);
+    let grower: Client;
+    ({ t, net, site, grower, coordinator } = await openCollectSite('Progress'));
     // Stand counts on every strip of the grower's site, a yield on one.
     for (const strip of site.strips) {
       const res = await grower.patch(`/api/strips/${strip.id}`, { version: 1, values: { standCounts: [30, 31], standRowLength: 3 } });

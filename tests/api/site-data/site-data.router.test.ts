@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
-import { buildCollectSite, dataVersion, publishSite, type CollectSite } from '../strips/collect-builders';
+import { signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
+import { dataVersion, openCollectSite, publishSite, type CollectSite } from '../strips/collect-builders';
 
 describe('site data: PATCH /api/sites/:siteId and GET /api/sites/:siteId/audit', () => {
   let t: TestApp;
@@ -10,11 +10,7 @@ describe('site data: PATCH /api/sites/:siteId and GET /api/sites/:siteId/audit',
   let coordinator: Client;
 
   beforeAll(async () => {
-    t = await createTestApp();
-    net = await buildNetwork(t.dataSource, 'Site data');
-    site = await buildCollectSite(t.dataSource, net);
-    grower = await signIn(t.app, net.emails.grower);
-    coordinator = await signIn(t.app, net.emails.coordinator);
+    ({ t, net, site, grower, coordinator } = await openCollectSite('Site data'));
   });
   afterAll(() => t.close());
 

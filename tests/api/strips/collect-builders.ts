@@ -1,7 +1,7 @@
 // Builders for collection tests: a fresh trial with one site per grower of a built network,
 // strips in blocks, and optional complete observations; nothing touches the demo data.
 import type { DataSource } from 'typeorm';
-import type { BuiltNetwork } from '../../helpers/app';
+import { buildNetwork, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
 
 export interface CollectStrip {
   id: string;
@@ -69,6 +69,24 @@ export async function buildCollectSite(dataSource: DataSource, net: BuiltNetwork
   const own = await makeSite(net.userIds.grower, fieldName);
   const other = await makeSite(net.userIds.grower2, `Other field ${net.suffix}`);
   return { trialId: trial.id, siteId: own.siteId, otherSiteId: other.siteId, strips: own.strips, fieldName };
+}
+
+export interface OpenedCollectSite {
+  t: TestApp;
+  net: BuiltNetwork;
+  site: CollectSite;
+  grower: Client;
+  coordinator: Client;
+}
+
+/** A test app with a fresh network and collect site, and its grower and coordinator signed in. */
+export async function openCollectSite(networkLabel: string, options: CollectOptions = {}): Promise<OpenedCollectSite> {
+  const t = await createTestApp();
+  const net = await buildNetwork(t.dataSource, networkLabel);
+  const site = await buildCollectSite(t.dataSource, net, options);
+  const grower = await signIn(t.app, net.emails.grower);
+  const coordinator = await signIn(t.app, net.emails.coordinator);
+  return { t, net, site, grower, coordinator };
 }
 
 export async function stripVersion(dataSource: DataSource, stripId: string): Promise<number> {

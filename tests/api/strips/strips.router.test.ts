@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
-import { buildCollectSite, dataVersion, publishSite, stripVersion, type CollectSite } from './collect-builders';
+import { buildNetwork, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
+import { buildCollectSite, dataVersion, openCollectSite, publishSite, stripVersion, type CollectSite } from './collect-builders';
 
 describe('strip data: GET /api/sites/:siteId/strips and PATCH /api/strips/:stripId', () => {
   let t: TestApp;
@@ -10,11 +10,7 @@ describe('strip data: GET /api/sites/:siteId/strips and PATCH /api/strips/:strip
   let coordinator: Client;
 
   beforeAll(async () => {
-    t = await createTestApp();
-    net = await buildNetwork(t.dataSource, 'Strips');
-    site = await buildCollectSite(t.dataSource, net);
-    grower = await signIn(t.app, net.emails.grower);
-    coordinator = await signIn(t.app, net.emails.coordinator);
+    ({ t, net, site, grower, coordinator } = await openCollectSite('Strips'));
   });
   afterAll(() => t.close());
 
