@@ -1,14 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { rateTable } from '../../../shared/design/rate-table';
-import {
-  buildNetwork,
-  createTestApp,
-  signIn,
-  type BuiltNetwork,
-  type Client,
-  type TestApp,
-} from '../../helpers/app';
-import { buildActiveTrial, completeDesign, enrol } from '../trials/builders';
+import type { BuiltNetwork, Client, TestApp } from '../../helpers/app';
+import { buildActiveTrial, completeDesign, enrol, openDesignNetwork } from '../trials/builders';
 
 interface LayoutBody {
   seed: string;
@@ -24,7 +17,6 @@ const orders = (layout: LayoutBody) =>
 describe('site design API', () => {
   let t: TestApp;
   let net: BuiltNetwork;
-  let other: BuiltNetwork;
   let coordinator: Client;
   let grower: Client;
   let grower2: Client;
@@ -33,14 +25,10 @@ describe('site design API', () => {
   let trialId: string;
 
   beforeAll(async () => {
-    t = await createTestApp();
-    net = await buildNetwork(t.dataSource, 'Site design');
-    other = await buildNetwork(t.dataSource, 'Far away');
-    coordinator = await signIn(t.app, net.emails.coordinator);
-    grower = await signIn(t.app, net.emails.grower);
-    grower2 = await signIn(t.app, net.emails.grower2);
-    member = await signIn(t.app, net.emails.member);
-    outsider = await signIn(t.app, other.emails.coordinator);
+    ({ t, net, coordinator, grower, grower2, member, outsider } = await openDesignNetwork(
+      'Site design',
+      'Far away',
+    ));
     trialId = await buildActiveTrial(coordinator, net.networkId, { name: 'Site tests' });
   });
   afterAll(() => t.close());

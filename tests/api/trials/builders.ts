@@ -1,5 +1,47 @@
-// Builders for trial-design API tests: a complete design and an active trial with sites.
-import type { Client } from '../../helpers/app';
+// Builders for trial-design API tests: a signed-in network, a complete design and an active
+// trial with sites.
+import {
+  buildNetwork,
+  createTestApp,
+  signIn,
+  type BuiltNetwork,
+  type Client,
+  type TestApp,
+} from '../../helpers/app';
+
+export interface DesignTestNetwork {
+  t: TestApp;
+  net: BuiltNetwork;
+  other: BuiltNetwork;
+  admin: Client;
+  coordinator: Client;
+  grower: Client;
+  grower2: Client;
+  member: Client;
+  /** The coordinator of the other network. */
+  outsider: Client;
+}
+
+/** A test app with a fresh network, each of its roles signed in, and a second network's coordinator. */
+export async function openDesignNetwork(
+  label: string,
+  otherLabel: string,
+): Promise<DesignTestNetwork> {
+  const t = await createTestApp();
+  const net = await buildNetwork(t.dataSource, label);
+  const other = await buildNetwork(t.dataSource, otherLabel);
+  return {
+    t,
+    net,
+    other,
+    admin: await signIn(t.app, net.emails.admin),
+    coordinator: await signIn(t.app, net.emails.coordinator),
+    grower: await signIn(t.app, net.emails.grower),
+    grower2: await signIn(t.app, net.emails.grower2),
+    member: await signIn(t.app, net.emails.member),
+    outsider: await signIn(t.app, other.emails.coordinator),
+  };
+}
 
 export function completeDesign(overrides: Record<string, unknown> = {}) {
   return {

@@ -1,13 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import {
-  buildNetwork,
-  createTestApp,
-  signIn,
-  type BuiltNetwork,
-  type Client,
-  type TestApp,
-} from '../../helpers/app';
-import { buildActiveTrial, completeDesign, enrol } from './builders';
+import type { BuiltNetwork, Client, TestApp } from '../../helpers/app';
+import { buildActiveTrial, completeDesign, enrol, openDesignNetwork } from './builders';
 
 describe('trial design API', () => {
   let t: TestApp;
@@ -20,14 +13,10 @@ describe('trial design API', () => {
   let outsider: Client;
 
   beforeAll(async () => {
-    t = await createTestApp();
-    net = await buildNetwork(t.dataSource, 'Trial design');
-    other = await buildNetwork(t.dataSource, 'Elsewhere');
-    coordinator = await signIn(t.app, net.emails.coordinator);
-    admin = await signIn(t.app, net.emails.admin);
-    grower = await signIn(t.app, net.emails.grower);
-    member = await signIn(t.app, net.emails.member);
-    outsider = await signIn(t.app, other.emails.coordinator);
+    ({ t, net, other, coordinator, admin, grower, member, outsider } = await openDesignNetwork(
+      'Trial design',
+      'Elsewhere',
+    ));
   });
   afterAll(() => t.close());
 
