@@ -11,6 +11,7 @@ import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildNetwork, clientFor, signIn, type BuiltNetwork, type Client } from '../helpers/app';
 import { launchBrowser, screenshot, signInThroughUi, startTestServer } from '../helpers/browser';
+import { buildActiveTrial } from '../api/trials/builders';
 import { pooledReportHtml, siteReportHtml } from '../../api/reports/reports.pdf';
 
 // Source: OWASP XSS Filter Evasion Cheat Sheet (script tag, img onerror, attribute break-out with
@@ -132,36 +133,16 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     coordinator = await signIn(app, net.emails.coordinator);
     const grower = await signIn(app, net.emails.grower);
 
-    const created = await ok(
-      'create trial',
-      coordinator.post('/api/trials', {
-        networkId: net.networkId,
-        name: S.trialName,
-        question: S.question,
-        crop: 'oats',
-        season: '2027',
-        referenceRate: 96,
-        referenceUnit: 'lb/acre',
-        rateLevels: [
-          { multiplier: 0.5, label: S.rateLabel },
-          { multiplier: 1, label: 'full' },
-          { multiplier: 2, label: 'double' },
-        ],
-        blocksPerSite: 3,
-        rowsPerStrip: 6,
-        rowSpacingIn: 8,
-        stripLengthFt: 100,
-        borderRows: 1,
-        thousandKernelWeightG: 32,
-        germinationPct: 95,
-        emergencePct: 85,
-        seedPricePerLb: 0.4,
-        grainPricePerBu: 4.5,
-      }),
-      201,
-    );
-    trialId = created.body.id;
-    await ok('activate', coordinator.patch(`/api/trials/${trialId}`, { status: 'active' }));
+    trialId = await buildActiveTrial(coordinator, net.networkId, {
+      name: S.trialName,
+      question: S.question,
+      rateLevels: [
+        { multiplier: 0.5, label: S.rateLabel },
+        { multiplier: 1, label: 'full' },
+        { multiplier: 2, label: 'double' },
+      ],
+      blocksPerSite: 3,
+    });
 
     const s1 = await ok(
       'enrol site 1',
