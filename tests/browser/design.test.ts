@@ -2,15 +2,15 @@
 // sites, randomizes them and opens a field packet; screenshots at 390 and 1280 px.
 import fs from 'node:fs';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   ARTIFACTS,
   launchBrowser,
+  openPage,
   screenshot,
   signInThroughUi,
   startTestServer,
-  watchErrors,
 } from '../helpers/browser';
 
 const COORDINATOR = 'coordinator@millbrook.example';
@@ -46,18 +46,8 @@ describe('trial design in the browser', () => {
     }
   });
 
-  async function openPage(
-    width: number,
-  ): Promise<{ page: Page; errors: string[]; close: () => Promise<void> }> {
-    const context = await browser.newContext({
-      viewport: { width, height: width < 500 ? 844 : 900 },
-    });
-    const page = await context.newPage();
-    return { page, errors: watchErrors(page), close: () => context.close() };
-  }
-
   it('creates a trial with the wizard, enrols two sites, randomizes and opens a packet at 1280 px', async () => {
-    const { page, errors, close } = await openPage(1280);
+    const { page, errors, close } = await openPage(browser, 1280);
     await signInThroughUi(page, server.baseUrl, COORDINATOR);
     await page.goto(`${server.baseUrl}/trials/new`);
 
@@ -161,7 +151,7 @@ describe('trial design in the browser', () => {
 
   it('shows the trial page, packet, wizard summary and calculators at 390 px', async () => {
     expect(trialPath).not.toBe('');
-    const { page, errors, close } = await openPage(390);
+    const { page, errors, close } = await openPage(browser, 390);
     await signInThroughUi(page, server.baseUrl, COORDINATOR);
     await page.goto(`${server.baseUrl}${trialPath}`);
     await page.getByRole('heading', { name: /Sites \(2\)/ }).waitFor();

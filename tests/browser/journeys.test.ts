@@ -6,10 +6,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildNetwork, demoIds } from '../helpers/app';
 import {
   launchBrowser,
+  openPage,
   screenshot,
   signInThroughUi,
   startTestServer,
-  watchErrors,
 } from '../helpers/browser';
 import { buildReportTrial, rcbdStrips } from '../api/reports/build-report-trial';
 
@@ -31,14 +31,6 @@ describe('journeys through the navigation', () => {
     await browser?.close();
     await server?.close();
   });
-
-  async function openPage(width: number) {
-    const context = await browser.newContext({
-      viewport: { width, height: width < 500 ? 844 : 900 },
-    });
-    const page = await context.newPage();
-    return { page, errors: watchErrors(page), close: () => context.close() };
-  }
 
   /** Waits until the page's one main heading matches (a click navigates asynchronously). */
   async function expectMainHeading(page: Page, name: string | RegExp, because = '') {
@@ -62,7 +54,7 @@ describe('journeys through the navigation', () => {
 
   for (const width of [390, 1280]) {
     it(`walks the coordinator from home through the trial page to every linked page at ${width} px`, async () => {
-      const { page, errors, close } = await openPage(width);
+      const { page, errors, close } = await openPage(browser, width);
       await signInThroughUi(page, server.baseUrl, COORDINATOR);
       await openTrialFromHome(page);
       await screenshot(page, `journeys-trial-${width}`);
@@ -195,7 +187,7 @@ describe('journeys through the navigation', () => {
     });
 
     // The coordinator publishes the pooled report and one site's report through the pages.
-    const coordinator = await openPage(1280);
+    const coordinator = await openPage(browser, 1280);
     await signInThroughUi(coordinator.page, server.baseUrl, net.emails.coordinator);
     await coordinator.page.goto(`${server.baseUrl}/trials/${published.trialId}/report`);
     await coordinator.page.getByRole('button', { name: 'Publish network report' }).click();
@@ -207,7 +199,7 @@ describe('journeys through the navigation', () => {
     await coordinator.close();
 
     for (const width of [390, 1280]) {
-      const { page, errors, close } = await openPage(width);
+      const { page, errors, close } = await openPage(browser, width);
       await signInThroughUi(page, server.baseUrl, net.emails.member);
       await expectMainHeading(page, 'Reports');
       const reports = page.getByTestId('trial-reports');

@@ -7,7 +7,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildNetwork, demoIds } from '../helpers/app';
-import { ARTIFACTS, launchBrowser, screenshot, signInThroughUi, startTestServer, watchErrors } from '../helpers/browser';
+import { ARTIFACTS, launchBrowser, openPage, screenshot, signInThroughUi, startTestServer } from '../helpers/browser';
 import { buildReportTrial, rcbdStrips } from '../api/reports/build-report-trial';
 
 const COORDINATOR = 'coordinator@millbrook.example';
@@ -27,12 +27,6 @@ describe('reports in the browser', () => {
     await browser?.close();
     await server?.close();
   });
-
-  async function openPage(width: number) {
-    const context = await browser.newContext({ viewport: { width, height: width < 500 ? 844 : 900 }, acceptDownloads: true });
-    const page = await context.newPage();
-    return { page, context, errors: watchErrors(page), close: () => context.close() };
-  }
 
   /** Waits for every chart on the page to be drawn and checks each SVG has visible marks. */
   async function expectChartsDrawn(page: Page, atLeast: number) {
@@ -55,7 +49,7 @@ describe('reports in the browser', () => {
 
   for (const width of [390, 1280]) {
     it(`draws the site report's charts at ${width} px`, async () => {
-      const { page, errors, close } = await openPage(width);
+      const { page, errors, close } = await openPage(browser, width);
       await signInThroughUi(page, server.baseUrl, COORDINATOR);
       await page.goto(`${server.baseUrl}/sites/${ids.sites[0]!.id}/report`);
       await page.getByRole('heading', { name: 'What this means' }).waitFor();
@@ -69,7 +63,7 @@ describe('reports in the browser', () => {
     });
 
     it(`draws the pooled report's charts at ${width} px`, async () => {
-      const { page, errors, close } = await openPage(width);
+      const { page, errors, close } = await openPage(browser, width);
       // Vega logs spec problems (empty layers, clashing scales) as console warnings.
       const chartWarnings: string[] = [];
       page.on('console', (message) => {
@@ -91,7 +85,7 @@ describe('reports in the browser', () => {
   }
 
   it('moves through the meeting view with the arrow keys', async () => {
-    const { page, errors, close } = await openPage(1280);
+    const { page, errors, close } = await openPage(browser, 1280);
     await signInThroughUi(page, server.baseUrl, COORDINATOR);
     await page.goto(`${server.baseUrl}/trials/${ids.oatTrialId}/meeting`);
     const counter = page.getByTestId('slide-counter');
@@ -122,7 +116,7 @@ describe('reports in the browser', () => {
   });
 
   it('downloads a site report PDF that opens', async () => {
-    const { page, close } = await openPage(1280);
+    const { page, close } = await openPage(browser, 1280, { acceptDownloads: true });
     await signInThroughUi(page, server.baseUrl, COORDINATOR);
     await page.goto(`${server.baseUrl}/sites/${ids.sites[1]!.id}/report`);
     await page.getByRole('heading', { name: 'What this means' }).waitFor();
@@ -136,7 +130,7 @@ describe('reports in the browser', () => {
   });
 
   it('keeps the charting chunk off the first page a grower opens', async () => {
-    const { page, close } = await openPage(390);
+    const { page, close } = await openPage(browser, 390);
     const scripts: string[] = [];
     page.on('request', (request) => {
       if (request.resourceType() === 'script') scripts.push(request.url());
@@ -164,7 +158,7 @@ describe('reports in the browser', () => {
       ].map((row, b) => row.map((v, l) => v + shift + (((b * 3 + l * 7 + shift * 5) % 5) - 2) * 0.7))),
     });
     const built = await buildReportTrial(dataSource, net, { name: 'Public wheat trial', sites: [site(0, 'East bank'), site(5, 'West bank'), site(-3, 'Mill lane')] });
-    const coordinator = await openPage(1280);
+    const coordinator = await openPage(browser, 1280);
     await signInThroughUi(coordinator.page, server.baseUrl, net.emails.coordinator);
     await coordinator.page.goto(`${server.baseUrl}/trials/${built.trialId}/report`);
     await coordinator.page.getByRole('button', { name: 'Publish network report' }).click();
@@ -175,7 +169,7 @@ describe('reports in the browser', () => {
     await screenshot(coordinator.page, 'reports-pooled-published-1280');
     await coordinator.close();
 
-    const visitor = await openPage(390);
+    const visitor = await openPage(browser, 390);
     await visitor.page.goto(href);
     await visitor.page.getByRole('heading', { name: 'Public wheat trial' }).waitFor();
     await expectChartsDrawn(visitor.page, 2);

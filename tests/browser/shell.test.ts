@@ -1,12 +1,12 @@
 // The web shell in a real browser: sign-in redirect, the coordinator's trial list and the phone menu.
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   launchBrowser,
+  openPage,
   screenshot,
   signInThroughUi,
   startTestServer,
-  watchErrors,
 } from '../helpers/browser';
 
 const COORDINATOR = 'coordinator@millbrook.example';
@@ -25,18 +25,8 @@ describe('web shell', () => {
     await server?.close();
   });
 
-  async function openPage(
-    width: number,
-  ): Promise<{ page: Page; errors: string[]; close: () => Promise<void> }> {
-    const context = await browser.newContext({
-      viewport: { width, height: width < 500 ? 844 : 900 },
-    });
-    const page = await context.newPage();
-    return { page, errors: watchErrors(page), close: () => context.close() };
-  }
-
   it('sends a signed-out visitor to sign-in and back to the page they asked for', async () => {
-    const { page, errors, close } = await openPage(390);
+    const { page, errors, close } = await openPage(browser, 390);
     await page.goto(`${server.baseUrl}/admin/mail`);
     await page.waitForURL((url) => url.pathname === '/sign-in');
 
@@ -52,7 +42,7 @@ describe('web shell', () => {
 
   for (const width of [390, 1280]) {
     it(`shows the coordinator's trials at ${width} px`, async () => {
-      const { page, errors, close } = await openPage(width);
+      const { page, errors, close } = await openPage(browser, width);
 
       await signInThroughUi(page, server.baseUrl, COORDINATOR);
       await page.getByRole('heading', { name: 'Hulless oat seeding rate 2027' }).waitFor();

@@ -3,7 +3,7 @@
 import fs from 'node:fs';
 import http from 'node:http';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
 import { createTestApp, type TestApp } from './app';
 
 export const ARTIFACTS = path.resolve('.test-artifacts');
@@ -39,6 +39,13 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const file = path.join(ARTIFACTS, `${name}.png`);
   await page.screenshot({ path: file, fullPage: true });
   return file;
+}
+
+/** A page in a fresh context at `width` px (844 px high below 500 px wide, else 900), with its errors collected. */
+export async function openPage(browser: Browser, width: number, options: BrowserContextOptions = {}) {
+  const context = await browser.newContext({ viewport: { width, height: width < 500 ? 844 : 900 }, ...options });
+  const page = await context.newPage();
+  return { page, context, errors: watchErrors(page), close: () => context.close() };
 }
 
 /** Signs in through the sign-in page and waits for the home page. */
