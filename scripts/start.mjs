@@ -4,7 +4,7 @@
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { ensureNodeModules } from './lib/deps.mjs';
-import { DATA_DIR, buildWeb, runTs, sessionSecret } from './lib/env.mjs';
+import { DATA_DIR, buildWeb, runTs, sessionSecret, stopWhenOrphaned } from './lib/env.mjs';
 import { startCluster } from './lib/postgres.mjs';
 
 const PORT = Number(process.env.PORT ?? 3000);
@@ -32,6 +32,7 @@ function stopAll(code) {
 }
 process.on('SIGINT', () => stopAll(0));
 process.on('SIGTERM', () => stopAll(0));
+stopWhenOrphaned(() => stopAll(0));
 
 try {
   const env = { DATABASE_URL: cluster.databaseUrl };

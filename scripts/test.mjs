@@ -4,7 +4,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { ensureDebianPackage, ensureNodeModules } from './lib/deps.mjs';
-import { DATA_DIR, buildWeb, runChild, runTs } from './lib/env.mjs';
+import { DATA_DIR, buildWeb, runChild, runTs, runningChildren, stopWhenOrphaned } from './lib/env.mjs';
 import { freePort, startCluster } from './lib/postgres.mjs';
 
 const extraArgs = process.argv.slice(2);
@@ -26,8 +26,14 @@ function cleanup() {
     if (entry.startsWith('test-uploads-')) fs.rmSync(path.join(DATA_DIR, entry), { recursive: true, force: true });
   }
 }
-process.on('SIGINT', () => { cleanup(); process.exit(130); });
-process.on('SIGTERM', () => { cleanup(); process.exit(143); });
+function abort(code) {
+  for (const child of runningChildren) child.kill('SIGTERM');
+  cleanup();
+  process.exit(code);
+}
+process.on('SIGINT', () => abort(130));
+process.on('SIGTERM', () => abort(143));
+stopWhenOrphaned(() => abort(143));
 
 let code = 1;
 try {

@@ -30,10 +30,28 @@ export function buildWeb(outDir = process.env.WEB_DIST_DIR ?? 'dist/web') {
   return outDir;
 }
 
+/** Children started by runChild that are still running, so a stopping script can end them. */
+export const runningChildren = new Set();
+
 /** Spawns a child and resolves with its exit code. */
 export function runChild(cmd, args, env) {
   return new Promise((resolve) => {
     const child = spawn(cmd, args, { stdio: 'inherit', env: { ...process.env, ...env } });
-    child.on('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));
+    runningChildren.add(child);
+    child.on('exit', (code, signal) => {
+      runningChildren.delete(child);
+      resolve(code ?? (signal ? 1 : 0));
+    });
   });
+}
+
+/**
+ * Calls stop() when this script loses its parent: npm runs scripts under `sh -c`, and a
+ * SIGTERM sent to npm alone does not reach them.
+ */
+export function stopWhenOrphaned(stop) {
+  const parentAtStart = process.ppid;
+  setInterval(() => {
+    if (process.ppid !== parentAtStart) stop();
+  }, 500).unref();
 }
