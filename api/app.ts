@@ -12,6 +12,7 @@ import { createAuthService } from './auth/auth.service';
 import { createCalcRouter } from './calc/calc.router';
 import { createHealthRouter } from './health/health.router';
 import { createImportsRouter } from './imports/imports.router';
+import { createPeopleRouter } from './people/people.router';
 import { createPhotosRouter } from './photos/photos.router';
 import { createProgressRouter } from './progress/progress.router';
 import { createSiteDataRouter } from './site-data/site-data.router';
@@ -51,6 +52,7 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createPhotosRouter,
   createProgressRouter,
   createSiteDataRouter,
+  createPeopleRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {

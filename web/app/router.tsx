@@ -38,6 +38,7 @@ export function routeModule(load: () => Promise<RouteModule>) {
 export const appRoutes: RouteObject[] = [
   { index: true, lazy: routeModule(() => import('./routes/app/home')) },
   { path: 'admin/mail', lazy: routeModule(() => import('./routes/admin/mail')) },
+  { path: 'people', lazy: routeModule(() => import('./routes/people/people')) },
   { path: 'sites/:siteId', lazy: routeModule(() => import('./routes/sites/site')) },
   { path: 'sites/:siteId/strips/:stripId', lazy: routeModule(() => import('./routes/sites/strip')) },
   { path: 'sites/:siteId/grid', lazy: routeModule(() => import('./routes/sites/grid')) },

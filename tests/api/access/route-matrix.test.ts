@@ -35,9 +35,11 @@ interface Fixture {
   siteId: string;
   stripId: string;
   photoId: string;
+  memberUserId: string;
+  invitationId: string;
 }
 
-/** A fresh unpublished trial with one randomized site (owned by the grower), strips and a photo record. */
+/** A fresh unpublished trial with one randomized site (owned by the grower), strips, a photo record and an open invitation. */
 async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
   const q = (sql: string, params: unknown[]) => t.dataSource.query(sql, params);
   const [trial] = await q(
@@ -66,7 +68,12 @@ async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
     `INSERT INTO attachments (site_id, strip_id, stored_name, original_name, mime_type, size_bytes) VALUES ($1, $2, $3, 'x.png', 'image/png', 1) RETURNING id`,
     [site.id, stripId, `matrix-${crypto.randomUUID()}.png`],
   );
-  return { networkId: net.networkId, trialId: trial.id, siteId: site.id, stripId, photoId: photo.id };
+  const [invitation] = await q(
+    `INSERT INTO invitations (network_id, email, role, token_hash, invited_by, expires_at)
+     VALUES ($1, $2, 'member', $3, $4, now() + interval '14 days') RETURNING id`,
+    [net.networkId, `matrix-invite-${crypto.randomUUID()}@test.example`, crypto.randomUUID(), net.userIds.coordinator],
+  );
+  return { networkId: net.networkId, trialId: trial.id, siteId: site.id, stripId, photoId: photo.id, memberUserId: net.userIds.member, invitationId: invitation.id };
 }
 
 function concretePath(route: RouteEntry, fixture: Fixture): string {
@@ -78,6 +85,8 @@ function concretePath(route: RouteEntry, fixture: Fixture): string {
       case 'stripId': return fixture.stripId;
       case 'photoId':
       case 'attachmentId': return fixture.photoId;
+      case 'userId': return fixture.memberUserId;
+      case 'invitationId': return fixture.invitationId;
       case 'token': return 'not-a-real-token-for-the-matrix';
       default: throw new Error(`route-matrix: no fixture value for :${name} in ${route.path}; add one`);
     }

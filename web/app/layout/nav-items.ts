@@ -15,6 +15,7 @@ export function navItemsFor(user: SessionUser): NavItem[] {
     items.push(
       { to: '/', label: 'Trials', end: true },
       { to: '/trials/new', label: 'New trial', end: true },
+      { to: '/people', label: 'People' },
       { to: '/calculator', label: 'Seed calculator' },
     );
   } else if (isGrower(user)) {
