@@ -52,14 +52,15 @@ describe('SQL only through parameters', () => {
   let t: TestApp;
   let coordinator: Client;
   let routes: RouteEntry[];
-  let ids: { networkId: string; trialId: string; siteId: string; stripId: string; photoId: string };
+  let ids: { memberUserId: string; networkId: string; trialId: string; siteId: string; stripId: string; photoId: string };
   let before: Record<string, number>;
 
   async function counts(): Promise<Record<string, number>> {
     const q = async (sql: string, params: unknown[] = []) => Number((await t.dataSource.query(sql, params))[0].n);
     return {
-      users: await q('SELECT count(*) AS n FROM users'),
-      memberships: await q('SELECT count(*) AS n FROM memberships'),
+      // Only the demo's own rows: other test files add users and networks in parallel.
+      users: await q(`SELECT count(*) AS n FROM users WHERE email LIKE '%@millbrook.example'`),
+      memberships: await q('SELECT count(*) AS n FROM memberships WHERE network_id = $1', [ids.networkId]),
       demoSites: await q('SELECT count(*) AS n FROM sites WHERE trial_id = $1', [ids.trialId]),
       demoStrips: await q('SELECT count(*) AS n FROM strips st JOIN sites s ON s.id = st.site_id WHERE s.trial_id = $1', [ids.trialId]),
       demoObservations: await q(
@@ -79,7 +80,9 @@ describe('SQL only through parameters', () => {
     const siteId = demo.sites[0]!.id;
     const [strip] = await t.dataSource.query('SELECT id FROM strips WHERE site_id = $1 ORDER BY block, position LIMIT 1', [siteId]);
     const [photo] = await t.dataSource.query('SELECT id FROM attachments LIMIT 1');
+    const [member] = await t.dataSource.query(`SELECT id FROM users WHERE email = 'member@millbrook.example'`);
     ids = {
+      memberUserId: member.id,
       networkId: trial.network_id,
       trialId: demo.oatTrialId,
       siteId,
@@ -100,6 +103,8 @@ describe('SQL only through parameters', () => {
         case 'stripId': return ids.stripId;
         case 'photoId':
         case 'attachmentId': return ids.photoId;
+        case 'userId': return ids.memberUserId;
+        case 'invitationId': return '00000000-0000-4000-8000-000000000000';
         case 'token': return 'not-a-real-token-0000000000';
         default: throw new Error(`injection test: no value for :${name} in ${route.path}; add one`);
       }
