@@ -52,9 +52,9 @@ try {
   if (extraArgs.length > 0) {
     code = await runChild(process.execPath, [vitest, 'run', ...extraArgs], env);
   } else {
-    // Fault tests stop and start PostgreSQL, so they run after everything else.
+    // Fault tests stop and start PostgreSQL, so they run after everything else, one file at a time.
     code = await runChild(process.execPath, [vitest, 'run', '--exclude', 'tests/faults/**'], env);
-    const faults = fs.existsSync('tests/faults') ? await runChild(process.execPath, [vitest, 'run', 'tests/faults'], env) : 0;
+    const faults = fs.existsSync('tests/faults') ? await runChild(process.execPath, [vitest, 'run', '--no-file-parallelism', 'tests/faults'], env) : 0;
     code = code || faults;
   }
 } catch (error) {
