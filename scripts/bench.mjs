@@ -28,6 +28,7 @@ let server = null;
 const cleanup = () => {
   if (server && server.exitCode === null) server.kill('SIGTERM');
   cluster.stop();
+  fs.rmSync(cluster.dataDir, { recursive: true, force: true });
   fs.rmSync(dataDir, { recursive: true, force: true });
   fs.rmSync(`${dataDir}.secrets.json`, { force: true });
 };

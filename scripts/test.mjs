@@ -20,6 +20,7 @@ function cleanup() {
   if (cleaned) return;
   cleaned = true;
   cluster.stop();
+  fs.rmSync(cluster.dataDir, { recursive: true, force: true });
   fs.rmSync(dataDir, { recursive: true, force: true });
   fs.rmSync(`${dataDir}.secrets.json`, { force: true });
   for (const entry of fs.existsSync(DATA_DIR) ? fs.readdirSync(DATA_DIR) : []) {

@@ -38,6 +38,23 @@ function run(cmd, args, options = {}) {
   if (result.status !== 0) throw new Error(`${cmd} ${args.join(' ')} exited with ${result.status}`);
 }
 
+/**
+ * As root the cluster belongs to the unprivileged `postgres` user, who cannot reach a project
+ * checked out under a private folder such as /root. Then the cluster lives in the system's
+ * temporary folder instead (one folder per project path), and we say so.
+ */
+function reachableByOwner(dataDir) {
+  fs.mkdirSync(dataDir, { recursive: true, mode: 0o700 });
+  execFileSync('chown', ['postgres:postgres', dataDir]);
+  const ok = spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-w', dataDir]).status === 0;
+  if (ok) return dataDir;
+  const key = crypto.createHash('sha1').update(path.resolve(dataDir)).digest('hex').slice(0, 10);
+  const fallback = path.join(os.tmpdir(), `sheaf-pg-${key}`, path.basename(dataDir));
+  fs.mkdirSync(path.dirname(fallback), { recursive: true, mode: 0o755 });
+  console.log(`[sheaf] the postgres user cannot reach ${dataDir}; keeping the cluster in ${fallback}`);
+  return fallback;
+}
+
 /** Runs a PostgreSQL tool as the cluster's owner (initdb refuses root). */
 function asOwner(bin, tool, args, options = {}) {
   const exe = path.join(bin, tool);
@@ -60,12 +77,13 @@ export async function freePort() {
  * Creates (when missing) and starts a cluster in dataDir listening on 127.0.0.1:port only.
  * Returns a handle with the app's DATABASE_URL and stop().
  */
-export async function startCluster({ dataDir, port, database = 'sheaf', throwAway = false }) {
+export async function startCluster({ dataDir: requestedDir, port, database = 'sheaf', throwAway = false }) {
   const bin = findPostgresBin();
-  const parent = path.dirname(dataDir);
+  const parent = path.dirname(requestedDir);
   fs.mkdirSync(parent, { recursive: true });
-  const secretsFile = path.join(parent, `${path.basename(dataDir)}.secrets.json`);
-  if (!fs.existsSync(path.join(dataDir, 'PG_VERSION'))) {
+  const secretsFile = path.join(parent, `${path.basename(requestedDir)}.secrets.json`);
+  const dataDir = isRoot ? reachableByOwner(requestedDir) : requestedDir;
+  if (!fs.existsSync(path.join(dataDir, 'PG_VERSION')) || !fs.existsSync(secretsFile)) {
     fs.rmSync(dataDir, { recursive: true, force: true });
     fs.mkdirSync(dataDir, { recursive: true, mode: 0o700 });
     const secrets = {
