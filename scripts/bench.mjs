@@ -29,6 +29,8 @@ const cleanup = () => {
   if (server && server.exitCode === null) server.kill('SIGTERM');
   cluster.stop();
   fs.rmSync(cluster.dataDir, { recursive: true, force: true });
+  // A cluster moved to the temporary folder leaves an empty folder behind: remove it too.
+  if (path.basename(path.dirname(cluster.dataDir)).startsWith('sheaf-pg-')) fs.rmSync(path.dirname(cluster.dataDir), { recursive: true, force: true });
   fs.rmSync(dataDir, { recursive: true, force: true });
   fs.rmSync(`${dataDir}.secrets.json`, { force: true });
 };

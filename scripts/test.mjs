@@ -21,6 +21,8 @@ function cleanup() {
   cleaned = true;
   cluster.stop();
   fs.rmSync(cluster.dataDir, { recursive: true, force: true });
+  // A cluster moved to the temporary folder leaves an empty folder behind: remove it too.
+  if (path.basename(path.dirname(cluster.dataDir)).startsWith('sheaf-pg-')) fs.rmSync(path.dirname(cluster.dataDir), { recursive: true, force: true });
   fs.rmSync(dataDir, { recursive: true, force: true });
   fs.rmSync(`${dataDir}.secrets.json`, { force: true });
   for (const entry of fs.existsSync(DATA_DIR) ? fs.readdirSync(DATA_DIR) : []) {
