@@ -94,13 +94,15 @@ export function createPolicies(dataSource: DataSource) {
     return rows[0].site_id;
   }
 
-  async function trialHasPublished(trialId: string): Promise<boolean> {
+  /** Whether the trial has a live published report: any scope, or only the pooled one. */
+  async function trialHasPublished(trialId: string, scope?: 'pooled'): Promise<boolean> {
     const rows = await dataSource.query(
-      `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND withdrawn_at IS NULL LIMIT 1`,
-      [trialId],
+      `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND ($2::text IS NULL OR scope = $2) AND withdrawn_at IS NULL LIMIT 1`,
+      [trialId, scope ?? null],
     );
     return rows.length > 0;
   }
+
 
   function policy(kind: PolicyKind, check: (req: Request) => Promise<void>, param?: string): Policy {
     const middleware = (req: Request, _res: Response, next: NextFunction) => {
@@ -169,11 +171,7 @@ export function createPolicies(dataSource: DataSource) {
         const role = ctx.roles.get(await trialNetwork(trialId));
         if (!role) throw new NotFound('Trial');
         if (isCoordinating(role)) return;
-        const live = await dataSource.query(
-          `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND scope = 'pooled' AND withdrawn_at IS NULL LIMIT 1`,
-          [trialId],
-        );
-        if (live.length === 0) throw new Forbidden('The pooled report is not published yet');
+        if (!(await trialHasPublished(trialId, 'pooled'))) throw new Forbidden('The pooled report is not published yet');
       }, param),
     siteCoordinator: (param = 'siteId') =>
       policy('site-coordinator', (req) => checkSite(req, uuidParam(req, param, 'Site'), false, false), param),

@@ -225,8 +225,9 @@ export function createReportsService(deps: ReportsServiceDeps) {
     return rows.map((r) => ({ id: r.id, caption: r.caption ?? '', stripId: r.strip_id, url: `/api/photos/${r.id}` }));
   }
 
-  async function liveSiteBody(db: Queryable, bundle: Awaited<ReturnType<typeof loadSiteBundle>>) {
-    const [strips, photos] = await Promise.all([loadStrips(db, { siteId: bundle.site.id }), loadPhotos(db, bundle.site.id)]);
+  /** The live site report; pass the photos when the caller has loaded them already. */
+  async function liveSiteBody(db: Queryable, bundle: Awaited<ReturnType<typeof loadSiteBundle>>, knownPhotos?: ReportPhoto[]) {
+    const [strips, photos] = await Promise.all([loadStrips(db, { siteId: bundle.site.id }), knownPhotos ?? loadPhotos(db, bundle.site.id)]);
     return buildSiteReport({ trial: bundle.trial, levels: bundle.trial.levels, site: bundle.site, strips, photos });
   }
 
@@ -241,11 +242,9 @@ export function createReportsService(deps: ReportsServiceDeps) {
       return { ...stored, published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish };
     }
     const photos = await loadPhotos(dataSource, bundle.site.id);
-    const body = await siteBodies.getOrCompute(digestOf('site', bundle.trial, bundle.site, photos), async () => {
-      const strips = await loadStrips(dataSource, { siteId: bundle.site.id });
-      return buildSiteReport({ trial: bundle.trial, levels: bundle.trial.levels, site: bundle.site, strips, photos });
-    });
-    const key = digestOf('site-response', bundle.trial, bundle.site, photos, published, changed, canPublish);
+    const bodyKey = digestOf('site', bundle.trial, bundle.site, photos);
+    const body = await siteBodies.getOrCompute(bodyKey, () => liveSiteBody(dataSource, bundle, photos));
+    const key = digestOf('site-response', bodyKey, published, changed, canPublish);
     return (await responses.getOrCompute(key, async () => ({ ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish }))) as SiteReport;
   }
 
