@@ -1,6 +1,8 @@
 // npm run bench: analysis timings, an HTTP load test against the real server and a
 // throw-away PostgreSQL, a 5,000-row CSV import, and the web bundle sizes a first visit loads.
 // BENCH_DURATION (seconds per endpoint, default 20) and BENCH_CONNECTIONS (default 50).
+// BENCH_ONLY=site,pooled,patch,import,bundle,analysis runs only those parts; BENCH_PROFILE=folder
+// starts the server with --cpu-prof and leaves its CPU profile there for profiling.
 import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -11,15 +13,20 @@ import { freePort, startCluster } from './lib/postgres.mjs';
 
 const DURATION = Number(process.env.BENCH_DURATION ?? 20);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
+const ONLY = process.env.BENCH_ONLY ? new Set(process.env.BENCH_ONLY.split(',').map((s) => s.trim())) : null;
+const runs = (part) => !ONLY || ONLY.has(part);
+const PROFILE_DIR = process.env.BENCH_PROFILE ? path.resolve(process.env.BENCH_PROFILE) : null;
 const results = { date: new Date().toISOString(), duration: DURATION, connections: CONNECTIONS };
 
 ensureNodeModules();
 const { default: autocannon } = await import('autocannon');
 
-console.log('\n== Analysis engine ==');
-const analysis = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/bench-analysis.ts'], { encoding: 'utf8' });
-process.stdout.write(analysis.stdout);
-results.analysis = analysis.stdout.trim();
+if (runs('analysis')) {
+  console.log('\n== Analysis engine ==');
+  const analysis = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/bench-analysis.ts'], { encoding: 'utf8' });
+  process.stdout.write(analysis.stdout);
+  results.analysis = analysis.stdout.trim();
+}
 
 const webDist = buildWeb(path.join(DATA_DIR, 'bench-web'));
 const dataDir = path.join(DATA_DIR, `bench-pg-${process.pid}`);
@@ -45,7 +52,8 @@ try {
   const ids = JSON.parse(seeded.stdout.trim().split('\n').pop());
 
   const port = await freePort();
-  server = spawn(process.execPath, ['--import', 'tsx', 'api/server.ts'], {
+  const profileArgs = PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`] : [];
+  server = spawn(process.execPath, [...profileArgs, '--import', 'tsx', 'api/server.ts'], {
     env: { ...process.env, NODE_ENV: 'test', HOST: '127.0.0.1', PORT: String(port), DATABASE_URL: cluster.databaseUrl, SESSION_SECRET: 'bench-session-secret-0123456789', SMTP_PORT: '0', WEB_DIST: webDist, UPLOAD_DIR: path.join(dataDir, 'uploads'), RATE_LIMIT_LOGIN: '100000' },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
@@ -78,8 +86,8 @@ try {
   // Warm both reports once (the engine caches distribution quantiles per process).
   await fetch(`${base}/api/sites/${ids.siteId}/report`, { headers });
   await fetch(`${base}/api/trials/${ids.trialId}/pooled-report`, { headers });
-  results.http.push(summarize('GET /api/sites/:siteId/report', await load({ url: `${base}/api/sites/${ids.siteId}/report` })));
-  results.http.push(summarize('GET /api/trials/:trialId/pooled-report (200 sites)', await load({ url: `${base}/api/trials/${ids.trialId}/pooled-report` })));
+  if (runs('site')) results.http.push(summarize('GET /api/sites/:siteId/report', await load({ url: `${base}/api/sites/${ids.siteId}/report` })));
+  if (runs('pooled')) results.http.push(summarize('GET /api/trials/:trialId/pooled-report (200 sites)', await load({ url: `${base}/api/trials/${ids.trialId}/pooled-report` })));
 
   // PATCH: rotate over the first strip of every block of every site, tracking versions.
   const { default: pg } = await import('pg');
@@ -93,7 +101,9 @@ try {
     )
   ).rows;
   await db.end();
-  if (stripRows.length > 0) {
+  if (!runs('patch')) {
+    // skipped by BENCH_ONLY
+  } else if (stripRows.length > 0) {
     let next = 0;
     const versions = new Map(stripRows.map((s) => [s.id, s.version]));
     const r = await load({
@@ -123,9 +133,11 @@ try {
     console.log('PATCH /api/strips/:stripId: skipped (no strips listed)');
   }
 
-  console.log('\n== CSV import of 5,000 rows ==');
-  const template = await fetch(`${base}/api/sites/${ids.importSiteId}/import-template.csv`, { headers });
-  if (template.status === 200) {
+  const template = runs('import') ? await fetch(`${base}/api/sites/${ids.importSiteId}/import-template.csv`, { headers }) : null;
+  if (template) console.log('\n== CSV import of 5,000 rows ==');
+  if (!template) {
+    // skipped by BENCH_ONLY
+  } else if (template.status === 200) {
     const text = await template.text();
     const lines = text.trim().split(/\r?\n/);
     const header = lines[0].split(',');
@@ -154,38 +166,40 @@ try {
     console.log(`import: template route answered ${template.status}; skipped`);
   }
 
-  console.log('\n== Web bundle: JavaScript a first visit loads (gzip) ==');
-  const { chromium } = await import('playwright-core');
-  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking'] });
-  const measure = async (label, steps) => {
-    const page = await browser.newPage();
-    const files = new Set();
-    page.on('request', (req) => { if (req.url().endsWith('.js')) files.add(new URL(req.url()).pathname); });
-    await steps(page);
-    await page.waitForLoadState('networkidle');
-    await page.close();
-    let raw = 0;
-    let gzip = 0;
-    for (const file of files) {
-      const buf = fs.readFileSync(path.join(webDist, file));
-      raw += buf.length;
-      gzip += zlib.gzipSync(buf, { level: 9 }).length;
-    }
-    const row = { page: label, files: files.size, kilobytes: Math.round(raw / 1024), gzipKilobytes: Math.round(gzip / 1024), loadsCharts: [...files].some((f) => /vega/.test(f)) };
-    console.log(`${label}: ${row.files} files, ${row.kilobytes} kB, ${row.gzipKilobytes} kB gzip, chart chunk loaded: ${row.loadsCharts}`);
-    return row;
-  };
-  results.bundle = [
-    await measure('sign-in page', (page) => page.goto(`${base}/sign-in`)),
-    await measure('sign-in then grower home', async (page) => {
-      await page.goto(`${base}/sign-in`);
-      await page.getByLabel(/e-?mail/i).fill('grower1@millbrook.example');
-      await page.getByLabel(/password/i).fill('sheaf-demo');
-      await page.getByRole('button', { name: /sign in/i }).click();
-      await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-    }),
-  ];
-  await browser.close();
+  if (runs('bundle')) {
+    console.log('\n== Web bundle: JavaScript a first visit loads (gzip) ==');
+    const { chromium } = await import('playwright-core');
+    const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking'] });
+    const measure = async (label, steps) => {
+      const page = await browser.newPage();
+      const files = new Set();
+      page.on('request', (req) => { if (req.url().endsWith('.js')) files.add(new URL(req.url()).pathname); });
+      await steps(page);
+      await page.waitForLoadState('networkidle');
+      await page.close();
+      let raw = 0;
+      let gzip = 0;
+      for (const file of files) {
+        const buf = fs.readFileSync(path.join(webDist, file));
+        raw += buf.length;
+        gzip += zlib.gzipSync(buf, { level: 9 }).length;
+      }
+      const row = { page: label, files: files.size, kilobytes: Math.round(raw / 1024), gzipKilobytes: Math.round(gzip / 1024), loadsCharts: [...files].some((f) => /vega/.test(f)) };
+      console.log(`${label}: ${row.files} files, ${row.kilobytes} kB, ${row.gzipKilobytes} kB gzip, chart chunk loaded: ${row.loadsCharts}`);
+      return row;
+    };
+    results.bundle = [
+      await measure('sign-in page', (page) => page.goto(`${base}/sign-in`)),
+      await measure('sign-in then grower home', async (page) => {
+        await page.goto(`${base}/sign-in`);
+        await page.getByLabel(/e-?mail/i).fill('grower1@millbrook.example');
+        await page.getByLabel(/password/i).fill('sheaf-demo');
+        await page.getByRole('button', { name: /sign in/i }).click();
+        await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+      }),
+    ];
+    await browser.close();
+  }
 } catch (error) {
   console.error(`[bench] ${error.stack ?? error}`);
   process.exitCode = 1;
@@ -193,5 +207,11 @@ try {
   fs.mkdirSync(DATA_DIR, { recursive: true });
   fs.writeFileSync(path.join(DATA_DIR, 'bench-results.json'), JSON.stringify(results, null, 2));
   console.log(`\nresults written to .data/bench-results.json`);
+  if (PROFILE_DIR && server && server.exitCode === null) {
+    // The profile is written as the server exits: wait for it before PostgreSQL stops.
+    server.kill('SIGTERM');
+    await new Promise((resolve) => server.once('exit', resolve));
+    console.log(`CPU profile of the server written to ${PROFILE_DIR}`);
+  }
   cleanup();
 }

@@ -3,7 +3,7 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { DataSource } from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
 import { Forbidden, NotFound, Unauthenticated } from '../errors';
-import { createTtlCache } from '../lib/ttl-cache';
+import { createFreshCache, SHORT_LIVED } from '../lib/fresh-cache';
 
 export type PolicyKind =
   | 'public'
@@ -45,20 +45,18 @@ export function isCoordinating(role: Role | undefined): boolean {
 
 /** Builds the policies against one DataSource. */
 export function createPolicies(dataSource: DataSource) {
-  const membershipCache = createTtlCache<Map<string, Role>>();
+  const memberships = createFreshCache<Map<string, Role>>(SHORT_LIVED);
   async function context(req: Request): Promise<AccessContext> {
     const userId = req.user?.id;
     if (!userId) throw new Unauthenticated();
     if (req.access) return req.access;
-    let roles = membershipCache.get(userId);
-    if (!roles) {
+    const roles = await memberships.get(userId, async () => {
       const rows: { network_id: string; role: Role }[] = await dataSource.query(
         'SELECT network_id, role FROM memberships WHERE user_id = $1',
         [userId],
       );
-      roles = new Map(rows.map((r) => [r.network_id, r.role]));
-      membershipCache.set(userId, roles);
-    }
+      return new Map(rows.map((r) => [r.network_id, r.role]));
+    });
     req.access = { userId, roles };
     return req.access;
   }
@@ -71,38 +69,79 @@ export function createPolicies(dataSource: DataSource) {
     return value;
   }
 
-  async function trialNetwork(trialId: string): Promise<string> {
-    const rows: { network_id: string }[] = await dataSource.query('SELECT network_id FROM trials WHERE id = $1', [trialId]);
-    if (!rows[0]) throw new NotFound('Trial');
-    return rows[0].network_id;
+  // Which network a trial belongs to, which trial and network a site belongs to, and which site
+  // a strip or photo belongs to never change once written: kept across writes. What can change
+  // (grower, published, what is published) is kept only until this process writes anything.
+  const forever = { keepAcrossWrites: true, maxAgeMs: 10 * 60_000, maxEntries: 20_000 };
+  const trialNetworks = createFreshCache<string>(forever);
+  const siteHomes = createFreshCache<SiteHome>(forever);
+  const parentSites = createFreshCache<string>(forever);
+  const siteStates = createFreshCache<SiteState>();
+  const publishedTrials = createFreshCache<boolean>();
+  const growersInTrial = createFreshCache<boolean>();
+
+  function trialNetwork(trialId: string): Promise<string> {
+    return trialNetworks.get(trialId, async () => {
+      const rows: { network_id: string }[] = await dataSource.query('SELECT network_id FROM trials WHERE id = $1', [trialId]);
+      if (!rows[0]) throw new NotFound('Trial');
+      return rows[0].network_id;
+    });
   }
 
-  interface SiteFacts { network_id: string; grower_user_id: string | null; published: boolean; trial_id: string }
-  async function siteFacts(siteId: string): Promise<SiteFacts> {
-    const rows: SiteFacts[] = await dataSource.query(
-      `SELECT t.network_id, s.grower_user_id, s.published_at IS NOT NULL AS published, s.trial_id
-         FROM sites s JOIN trials t ON t.id = s.trial_id WHERE s.id = $1`,
-      [siteId],
-    );
-    if (!rows[0]) throw new NotFound('Site');
-    return rows[0];
+  interface SiteHome { networkId: string; trialId: string }
+  function siteHome(siteId: string): Promise<SiteHome> {
+    return siteHomes.get(siteId, async () => {
+      const rows: { network_id: string; trial_id: string }[] = await dataSource.query(
+        'SELECT t.network_id, s.trial_id FROM sites s JOIN trials t ON t.id = s.trial_id WHERE s.id = $1',
+        [siteId],
+      );
+      if (!rows[0]) throw new NotFound('Site');
+      return { networkId: rows[0].network_id, trialId: rows[0].trial_id };
+    });
   }
 
-  async function stripSite(stripId: string): Promise<string> {
-    const rows: { site_id: string }[] = await dataSource.query('SELECT site_id FROM strips WHERE id = $1', [stripId]);
-    if (!rows[0]) throw new NotFound('Strip');
-    return rows[0].site_id;
+  interface SiteState { growerUserId: string | null; published: boolean }
+  function siteState(siteId: string): Promise<SiteState> {
+    return siteStates.get(siteId, async () => {
+      const rows: { grower_user_id: string | null; published: boolean }[] = await dataSource.query(
+        'SELECT grower_user_id, published_at IS NOT NULL AS published FROM sites WHERE id = $1',
+        [siteId],
+      );
+      if (!rows[0]) throw new NotFound('Site');
+      return { growerUserId: rows[0].grower_user_id, published: rows[0].published };
+    });
+  }
+
+  const PARENT_SITE_SQL = {
+    strips: 'SELECT site_id FROM strips WHERE id = $1',
+    attachments: 'SELECT site_id FROM attachments WHERE id = $1',
+  };
+  /** The site a strip or a photo belongs to. */
+  function parentSite(table: keyof typeof PARENT_SITE_SQL, id: string, what: string): Promise<string> {
+    return parentSites.get(`${table}:${id}`, async () => {
+      const rows: { site_id: string }[] = await dataSource.query(PARENT_SITE_SQL[table], [id]);
+      if (!rows[0]) throw new NotFound(what);
+      return rows[0].site_id;
+    });
   }
 
   /** Whether the trial has a live published report: any scope, or only the pooled one. */
-  async function trialHasPublished(trialId: string, scope?: 'pooled'): Promise<boolean> {
-    const rows = await dataSource.query(
-      `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND ($2::text IS NULL OR scope = $2) AND withdrawn_at IS NULL LIMIT 1`,
-      [trialId, scope ?? null],
-    );
-    return rows.length > 0;
+  function trialHasPublished(trialId: string, scope?: 'pooled'): Promise<boolean> {
+    return publishedTrials.get(`${trialId}:${scope ?? 'any'}`, async () => {
+      const rows = await dataSource.query(
+        `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND ($2::text IS NULL OR scope = $2) AND withdrawn_at IS NULL LIMIT 1`,
+        [trialId, scope ?? null],
+      );
+      return rows.length > 0;
+    });
   }
 
+  function growsInTrial(trialId: string, userId: string): Promise<boolean> {
+    return growersInTrial.get(`${trialId}:${userId}`, async () => {
+      const rows = await dataSource.query('SELECT 1 FROM sites WHERE trial_id = $1 AND grower_user_id = $2 LIMIT 1', [trialId, userId]);
+      return rows.length > 0;
+    });
+  }
 
   function policy(kind: PolicyKind, check: (req: Request) => Promise<void>, param?: string): Policy {
     const middleware = (req: Request, _res: Response, next: NextFunction) => {
@@ -113,12 +152,12 @@ export function createPolicies(dataSource: DataSource) {
 
   async function checkSite(req: Request, siteId: string, allowGrower: boolean, allowMemberWhenPublished: boolean) {
     const ctx = await context(req);
-    const site = await siteFacts(siteId);
-    const role = ctx.roles.get(site.network_id);
+    const role = ctx.roles.get((await siteHome(siteId)).networkId);
     if (isCoordinating(role)) return;
-    if (allowGrower && role && site.grower_user_id === ctx.userId) return;
-    if (allowMemberWhenPublished && role && site.published) return;
     if (!role) throw new NotFound('Site');
+    const site = await siteState(siteId);
+    if (allowGrower && site.growerUserId === ctx.userId) return;
+    if (allowMemberWhenPublished && site.published) return;
     throw new Forbidden();
   }
 
@@ -156,10 +195,7 @@ export function createPolicies(dataSource: DataSource) {
         const role = ctx.roles.get(networkId);
         if (!role) throw new NotFound('Trial');
         if (isCoordinating(role)) return;
-        if (role === 'grower') {
-          const own = await dataSource.query('SELECT 1 FROM sites WHERE trial_id = $1 AND grower_user_id = $2 LIMIT 1', [trialId, ctx.userId]);
-          if (own.length > 0) return;
-        }
+        if (role === 'grower' && (await growsInTrial(trialId, ctx.userId))) return;
         if (await trialHasPublished(trialId)) return;
         throw new Forbidden('This trial has nothing published yet');
       }, param),
@@ -181,15 +217,13 @@ export function createPolicies(dataSource: DataSource) {
       policy('site-reader', (req) => checkSite(req, uuidParam(req, param, 'Site'), true, true), param),
     stripGrower: (param = 'stripId') =>
       policy('strip-grower', async (req) => {
-        const siteId = await stripSite(uuidParam(req, param, 'Strip'));
+        const siteId = await parentSite('strips', uuidParam(req, param, 'Strip'), 'Strip');
         await checkSite(req, siteId, true, false);
       }, param),
     attachmentReader: (param = 'attachmentId') =>
       policy('attachment-reader', async (req) => {
-        const id = uuidParam(req, param, 'Photo');
-        const rows: { site_id: string }[] = await dataSource.query('SELECT site_id FROM attachments WHERE id = $1', [id]);
-        if (!rows[0]) throw new NotFound('Photo');
-        await checkSite(req, rows[0].site_id, true, true);
+        const siteId = await parentSite('attachments', uuidParam(req, param, 'Photo'), 'Photo');
+        await checkSite(req, siteId, true, true);
       }, param),
   };
 }

@@ -6,7 +6,7 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type pg from 'pg';
 import type { AppConfig } from '../config/env';
 import type { AuthService } from '../auth/auth.service';
-import { createTtlCache } from '../lib/ttl-cache';
+import { createFreshCache, SHORT_LIVED } from '../lib/fresh-cache';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -23,16 +23,19 @@ type SessionCallback = (err: unknown, session?: session.SessionData | null) => v
 
 export function createSessionMiddleware(config: AppConfig, pool: pg.Pool) {
   const PgStore = connectPgSimple(session);
-  const recent = createTtlCache<string>();
+  const recent = createFreshCache<string | null>(SHORT_LIVED);
   /** PostgreSQL session store that answers repeated reads of one session from memory for 2 s. */
   class CachedPgStore extends PgStore {
     override get(sid: string, callback: SessionCallback) {
-      const hit = recent.get(sid);
-      if (hit) return callback(null, JSON.parse(hit));
-      super.get(sid, (err: unknown, data?: session.SessionData | null) => {
-        if (!err && data) recent.set(sid, JSON.stringify(data));
-        callback(err, data);
-      });
+      const stored = recent.get(
+        sid,
+        () =>
+          new Promise<string | null>((resolve, reject) => {
+            super.get(sid, (err: unknown, data?: session.SessionData | null) => (err ? reject(err) : resolve(data ? JSON.stringify(data) : null)));
+          }),
+      );
+      // Each request gets its own copy: express-session changes the object it is given.
+      stored.then((text) => callback(null, text === null ? null : JSON.parse(text)), (err: unknown) => callback(err));
     }
     override set(sid: string, data: session.SessionData, callback?: (err?: unknown) => void) {
       recent.delete(sid);
@@ -69,14 +72,9 @@ export function createPassport(auth: AuthService) {
     }),
   );
   instance.serializeUser((user, done) => done(null, user.id));
-  const users = createTtlCache<Express.User>();
+  const users = createFreshCache<Express.User | null>(SHORT_LIVED);
   instance.deserializeUser((id: string, done) => {
-    const cached = users.get(id);
-    if (cached) return done(null, cached);
-    auth.findSessionUser(id).then((user) => {
-      if (user) users.set(id, user);
-      done(null, user ?? false);
-    }, done);
+    users.get(id, async () => (await auth.findSessionUser(id)) ?? null).then((user) => done(null, user ?? false), done);
   });
   return instance;
 }

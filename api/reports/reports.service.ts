@@ -9,6 +9,7 @@ import { recordAudit } from '../audit/audit.service';
 import { Conflict, Forbidden, NotFound } from '../errors';
 import { composeMail, type Mailer } from '../mail/mailer';
 import { isCoordinating, type AccessContext } from '../middleware/access';
+import { createFreshCache } from '../lib/fresh-cache';
 import { createReportCache, digestOf } from './report-cache';
 import { stripsCsv } from './reports.csv';
 import {
@@ -171,6 +172,14 @@ function readsLive(access: AccessContext | null, networkId: string, growerUserId
 
 const hasQuery = (query: PooledQuery) => Object.values(query).some((v) => v !== undefined);
 
+/** Who is asking, as a cache key: the answer depends on the user and their roles. */
+function accessKey(access: AccessContext | null): string {
+  if (!access) return 'public';
+  let key = access.userId;
+  for (const [network, role] of access.roles) key += `|${network}=${role}`;
+  return key;
+}
+
 export function createReportsService(deps: ReportsServiceDeps) {
   const { dataSource } = deps;
   const siteBodies = createReportCache<Awaited<ReturnType<typeof buildSiteReport>>>();
@@ -179,6 +188,9 @@ export function createReportsService(deps: ReportsServiceDeps) {
   const responses = createReportCache<SiteReport | PooledReport>(300);
   // Published snapshots never change: read each one from PostgreSQL once.
   const snapshots = createReportCache<Record<string, unknown>>(300);
+  // Finished answers per caller, until this process next writes anything (see fresh-cache.ts):
+  // a repeated report request then costs no query at all.
+  const answers = createFreshCache<SiteReport | PooledReport>({ maxEntries: 1000 });
   const storedSnapshot = (id: string) =>
     snapshots.getOrCompute(id, async () => {
       const [row] = await dataSource.query('SELECT report FROM report_snapshots WHERE id = $1', [id]);
@@ -231,7 +243,11 @@ export function createReportsService(deps: ReportsServiceDeps) {
     return buildSiteReport({ trial: bundle.trial, levels: bundle.trial.levels, site: bundle.site, strips, photos });
   }
 
-  async function siteReport(siteId: string, access: AccessContext | null): Promise<SiteReport> {
+  function siteReport(siteId: string, access: AccessContext | null): Promise<SiteReport> {
+    return answers.get(`site:${siteId}:${accessKey(access)}`, () => computeSiteReport(siteId, access)) as Promise<SiteReport>;
+  }
+
+  async function computeSiteReport(siteId: string, access: AccessContext | null): Promise<SiteReport> {
     const bundle = await loadSiteBundle(dataSource, siteId);
     const published = toPublished(bundle.snapshot);
     const changed = !!bundle.snapshot && bundle.snapshot.data_version !== String(bundle.site.dataVersion);
@@ -274,7 +290,12 @@ export function createReportsService(deps: ReportsServiceDeps) {
     return (await storedSnapshot(snapshotId)) as unknown as { report: PooledReport; input: PooledInput };
   }
 
-  async function pooledReport(trialId: string, access: AccessContext | null, query: PooledQuery): Promise<PooledReport> {
+  function pooledReport(trialId: string, access: AccessContext | null, query: PooledQuery): Promise<PooledReport> {
+    const key = `pooled:${trialId}:${accessKey(access)}:${JSON.stringify(query)}`;
+    return answers.get(key, () => computePooledReport(trialId, access, query)) as Promise<PooledReport>;
+  }
+
+  async function computePooledReport(trialId: string, access: AccessContext | null, query: PooledQuery): Promise<PooledReport> {
     const bundle = await loadTrialBundle(dataSource, trialId);
     const published = toPublished(bundle.snapshot);
     const changed = !!bundle.snapshot && bundle.snapshot.data_version !== bundle.digest;
