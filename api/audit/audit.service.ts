@@ -11,10 +11,12 @@ export interface AuditInput {
   after?: Record<string, unknown> | null;
 }
 
+/** The column list every audit write uses (also inside the single-statement strip change). */
+export const AUDIT_INSERT = `INSERT INTO audit_events (actor_user_id, entity_type, entity_id, site_id, action, before, after)`;
+
 export async function recordAudit(manager: EntityManager, event: AuditInput): Promise<void> {
   await manager.query(
-    `INSERT INTO audit_events (actor_user_id, entity_type, entity_id, site_id, action, before, after)
-     VALUES ($1, $2, $3, $4, $5, $6, $7)`,
+    `${AUDIT_INSERT} VALUES ($1, $2, $3, $4, $5, $6, $7)`,
     [
       event.actorUserId,
       event.entityType,
@@ -40,7 +42,7 @@ export async function recordAuditsInBulk(manager: EntityManager, events: readonl
       after: e.after ?? null,
     }));
     await manager.query(
-      `INSERT INTO audit_events (actor_user_id, entity_type, entity_id, site_id, action, before, after)
+      `${AUDIT_INSERT}
        SELECT x.actor_user_id, x.entity_type, x.entity_id, x.site_id, x.action, x.before, x.after
          FROM jsonb_to_recordset($1::jsonb)
            AS x(actor_user_id uuid, entity_type text, entity_id uuid, site_id uuid, action text, before jsonb, after jsonb)`,

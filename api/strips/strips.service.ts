@@ -3,17 +3,8 @@ import type { DataSource } from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
 import { ObservationValuesSchema } from '../../shared/schemas/observation';
 import type { SiteStrips, StripDto, UpdateStripInput } from '../../shared/schemas/strip';
-import { recordAudit } from '../audit/audit.service';
-import { Conflict } from '../errors';
-import {
-  bumpDataVersion,
-  changedFields,
-  loadSite,
-  loadSiteStrips,
-  loadStrip,
-  lockSiteForChange,
-  writeObservation,
-} from '../lib/strip-data';
+import { Conflict, NotFound } from '../errors';
+import { changedFields, changeStrip, loadSite, loadSiteStrips, publishedSiteLocked, type SiteKey, type StripRecord } from '../lib/strip-data';
 import { isCoordinating } from '../middleware/access';
 import { presentSite, presentStrips } from '../lib/strip-presenter';
 
@@ -25,18 +16,21 @@ export interface Caller {
 export function createStripsService(deps: { dataSource: DataSource }) {
   const { dataSource } = deps;
 
-  async function present(stripId: string, siteId: string): Promise<StripDto> {
-    const manager = dataSource.manager;
-    const site = await loadSite(manager, siteId);
-    const all = await loadSiteStrips(manager, siteId);
-    return presentStrips(site, all.filter((s) => s.stripId === stripId), all)[0]!;
+  /** The site and all its strips: the outlier warning of one strip looks at the whole site. */
+  async function loadWholeSite(key: SiteKey) {
+    const [site, strips] = await Promise.all([loadSite(dataSource.manager, key), loadSiteStrips(dataSource.manager, key)]);
+    return { site, strips };
+  }
+
+  function presentOne(whole: Awaited<ReturnType<typeof loadWholeSite>>, stripId: string): StripDto {
+    const strip = whole.strips.find((s) => s.stripId === stripId);
+    if (!strip) throw new NotFound('Strip');
+    return presentStrips(whole.site, [strip], whole.strips)[0]!;
   }
 
   return {
     async listSiteStrips(siteId: string, caller: Caller): Promise<SiteStrips> {
-      const manager = dataSource.manager;
-      const site = await loadSite(manager, siteId);
-      const strips = await loadSiteStrips(manager, siteId);
+      const { site, strips } = await loadWholeSite(siteId);
       const coordinating = isCoordinating(caller.roles.get(site.networkId));
       return {
         site: presentSite(site, { canEdit: coordinating || site.growerUserId === caller.userId, isCoordinator: coordinating }),
@@ -45,50 +39,43 @@ export function createStripsService(deps: { dataSource: DataSource }) {
     },
 
     async getStrip(stripId: string): Promise<StripDto> {
-      const strip = await loadStrip(dataSource.manager, stripId);
-      return present(stripId, strip.siteId);
+      return presentOne(await loadWholeSite({ stripId }), stripId);
     },
 
     /**
      * Applies a partial update made on `input.version`. A stale version gets 409 with the
      * current strip, unless the values sent are already stored (a retried send); equal values
-     * change nothing and keep the version.
+     * change nothing and keep the version. Two reads side by side, then one statement that
+     * writes only if the strip is still at the version read (see changeStrip).
      */
     async updateStrip(stripId: string, input: UpdateStripInput, actorUserId: string): Promise<StripDto> {
-      const { siteId } = await loadStrip(dataSource.manager, stripId);
-      const outcome = await dataSource.transaction(async (manager) => {
-        const site = await lockSiteForChange(manager, siteId);
-        const current = await loadStrip(manager, stripId);
-        const merged = ObservationValuesSchema.parse({ ...current.values, ...input.values });
-        const diff = changedFields(current.values, merged);
-        if (!diff) return { changed: false as const };
-        const updated: unknown[] = await manager.query(
-          // The CTE makes the driver return the updated rows; none means the version was stale.
-          'WITH bumped AS (UPDATE strips SET version = version + 1 WHERE id = $1 AND version = $2 RETURNING version) SELECT version FROM bumped',
-          [stripId, input.version],
-        );
-        if (updated.length === 0) return { changed: false as const, stale: true as const };
-        await writeObservation(manager, stripId, merged, actorUserId);
-        await recordAudit(manager, {
-          actorUserId,
-          entityType: 'strip',
-          entityId: stripId,
-          siteId: site.siteId,
-          action: 'update',
-          before: diff.before,
-          after: diff.after,
-        });
-        await bumpDataVersion(manager, site.siteId);
-        return { changed: true as const };
+      const whole = await loadWholeSite({ stripId });
+      const current = whole.strips.find((s) => s.stripId === stripId);
+      if (!current) throw new NotFound('Strip');
+      // Checked again, under the row lock, by the statement that writes.
+      if (whole.site.publishedAt) throw publishedSiteLocked();
+      const merged = ObservationValuesSchema.parse({ ...current.values, ...input.values });
+      const diff = changedFields(current.values, merged);
+      if (!diff) return presentOne(whole, stripId);
+      const outcome = await changeStrip(dataSource.manager, {
+        siteId: whole.site.siteId,
+        stripId,
+        version: input.version,
+        values: merged,
+        actorUserId,
+        before: diff.before,
+        after: diff.after,
       });
-      const strip = await present(stripId, siteId);
-      if ('stale' in outcome) {
+      if (outcome.kind === 'published') throw publishedSiteLocked();
+      if (outcome.kind === 'stale') {
+        const fresh = presentOne(await loadWholeSite({ stripId }), stripId);
         throw new Conflict(
-          `Someone saved this strip after you opened it (now version ${strip.version}). Reload their values, or save yours over them.`,
-          strip,
+          `Someone saved this strip after you opened it (now version ${fresh.version}). Reload their values, or save yours over them.`,
+          fresh,
         );
       }
-      return strip;
+      const saved: StripRecord = { ...current, values: merged, version: outcome.version, hasObservation: true, updatedAt: outcome.updatedAt };
+      return presentOne({ ...whole, strips: whole.strips.map((s) => (s.stripId === stripId ? saved : s)) }, stripId);
     },
   };
 }

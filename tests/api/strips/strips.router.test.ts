@@ -1,4 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { EMPTY_OBSERVATION } from '../../../shared/schemas/observation';
+import { changeStrip } from '../../../api/lib/strip-data';
 import { buildNetwork, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
 import { buildCollectSite, dataVersion, openCollectSite, publishSite, stripVersion, type CollectSite } from './collect-builders';
 
@@ -122,6 +124,31 @@ describe('strip data: GET /api/sites/:siteId/strips and PATCH /api/strips/:strip
     // Unpublishing opens the data again.
     await t.dataSource.query('UPDATE sites SET published_at = NULL WHERE id = $1', [locked.siteId]);
     expect((await owner.patch(`/api/strips/${locked.strips[0]!.id}`, { version: 1, values: { notes: 'late' } })).status).toBe(200);
+  });
+
+  it('refuses inside the writing statement when publishing lands between the read and the write', async () => {
+    const net3 = await buildNetwork(t.dataSource, 'Strips race');
+    const racing = await buildCollectSite(t.dataSource, net3);
+    const strip = racing.strips[0]!;
+    // The service has read the site as open; the coordinator publishes before the write arrives.
+    await publishSite(t.dataSource, racing.siteId);
+    const versionBefore = await dataVersion(t.dataSource, racing.siteId);
+    const outcome = await changeStrip(t.dataSource.manager, {
+      siteId: racing.siteId,
+      stripId: strip.id,
+      version: 1,
+      values: { ...EMPTY_OBSERVATION, standCounts: [], headCounts: [], notes: 'too late' },
+      actorUserId: net3.userIds.grower,
+      before: { notes: '' },
+      after: { notes: 'too late' },
+    });
+    expect(outcome).toEqual({ kind: 'published' });
+    expect(await stripVersion(t.dataSource, strip.id)).toBe(1);
+    expect(await dataVersion(t.dataSource, racing.siteId)).toBe(versionBefore);
+    const audits = await t.dataSource.query(`SELECT 1 FROM audit_events WHERE entity_id = $1`, [strip.id]);
+    expect(audits).toHaveLength(0);
+    const notes = await t.dataSource.query('SELECT notes FROM observations WHERE strip_id = $1', [strip.id]);
+    expect(notes.map((r: { notes: string }) => r.notes)).not.toContain('too late');
   });
 
   it('warns about a yield outlier using the site analysis residuals', async () => {
