@@ -41,13 +41,16 @@ export interface AppDeps {
   mailCatcher: MailCatcher | null;
 }
 
-/** Feature routers, mounted under /api in this order. */
+/**
+ * Feature routers, mounted under /api in this order. Express tries them one after another, so
+ * the busiest (reports, strip entry) come first; no two routers answer the same path.
+ */
 const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
+  createReportsRouter,
+  createStripsRouter,
   createTrialsRouter,
   createSitesRouter,
   createCalcRouter,
-  createReportsRouter,
-  createStripsRouter,
   createImportsRouter,
   createPhotosRouter,
   createProgressRouter,

@@ -1,6 +1,7 @@
 // npm run bench: analysis timings, an HTTP load test against the real server and a
 // throw-away PostgreSQL, a 5,000-row CSV import, and the web bundle sizes a first visit loads.
-// BENCH_DURATION (seconds per endpoint, default 20) and BENCH_CONNECTIONS (default 50).
+// BENCH_DURATION (seconds per endpoint, default 20), BENCH_WARMUP (unrecorded seconds before
+// each, default 3) and BENCH_CONNECTIONS (default 50).
 // BENCH_ONLY=site,pooled,patch,import,bundle,analysis runs only those parts; BENCH_PROFILE=folder
 // starts the server with --cpu-prof and leaves its CPU profile there for profiling.
 import { spawn, spawnSync } from 'node:child_process';
@@ -12,11 +13,13 @@ import { DATA_DIR, buildWeb, runTs } from './lib/env.mjs';
 import { freePort, startCluster } from './lib/postgres.mjs';
 
 const DURATION = Number(process.env.BENCH_DURATION ?? 20);
+// Seconds of unrecorded load before each measurement, so the JIT has compiled the request path.
+const WARMUP = Number(process.env.BENCH_WARMUP ?? 3);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
 const ONLY = process.env.BENCH_ONLY ? new Set(process.env.BENCH_ONLY.split(',').map((s) => s.trim())) : null;
 const runs = (part) => !ONLY || ONLY.has(part);
 const PROFILE_DIR = process.env.BENCH_PROFILE ? path.resolve(process.env.BENCH_PROFILE) : null;
-const results = { date: new Date().toISOString(), duration: DURATION, connections: CONNECTIONS };
+const results = { date: new Date().toISOString(), duration: DURATION, warmup: WARMUP, connections: CONNECTIONS };
 
 ensureNodeModules();
 const { default: autocannon } = await import('autocannon');
@@ -79,7 +82,11 @@ try {
     console.log(`${name}: ${row.requestsPerSecond} req/s, p50 ${row.p50} ms, p99 ${row.p99} ms, ${row.total} requests, non-2xx ${non2xx}, unintended errors ${row.unintendedErrors}`);
     return row;
   };
-  const load = (opts) => autocannon({ connections: CONNECTIONS, duration: DURATION, headers, ...opts });
+  const load = async (opts, afterWarmup = async () => {}) => {
+    if (WARMUP > 0) await autocannon({ connections: CONNECTIONS, duration: WARMUP, headers, ...opts });
+    await afterWarmup();
+    return autocannon({ connections: CONNECTIONS, duration: DURATION, headers, ...opts });
+  };
 
   console.log(`\n== HTTP load: ${CONNECTIONS} connections × ${DURATION} s each ==`);
   results.http = [];
@@ -93,14 +100,15 @@ try {
   const { default: pg } = await import('pg');
   const db = new pg.Client({ connectionString: cluster.databaseUrl });
   await db.connect();
-  const stripRows = (
-    await db.query(
-      `SELECT st.id, st.version FROM strips st JOIN sites s ON s.id = st.site_id
-        WHERE s.trial_id = $1 AND st.position = 1 ORDER BY st.block, s.field_name`,
-      [ids.trialId],
-    )
-  ).rows;
-  await db.end();
+  const listStrips = async () =>
+    (
+      await db.query(
+        `SELECT st.id, st.version FROM strips st JOIN sites s ON s.id = st.site_id
+          WHERE s.trial_id = $1 AND st.position = 1 ORDER BY st.block, s.field_name`,
+        [ids.trialId],
+      )
+    ).rows;
+  const stripRows = await listStrips();
   if (!runs('patch')) {
     // skipped by BENCH_ONLY
   } else if (stripRows.length > 0) {
@@ -127,11 +135,17 @@ try {
         },
       ],
       url: base,
+    }, async () => {
+      // Requests cut off at the end of the warm-up never reported their new versions: let the
+      // server finish them, then read every version afresh.
+      await new Promise((resolve) => setTimeout(resolve, 500));
+      for (const row of await listStrips()) versions.set(row.id, row.version);
     });
     results.http.push(summarize('PATCH /api/strips/:stripId (rotating)', r, [409]));
   } else {
     console.log('PATCH /api/strips/:stripId: skipped (no strips listed)');
   }
+  await db.end();
 
   const template = runs('import') ? await fetch(`${base}/api/sites/${ids.importSiteId}/import-template.csv`, { headers }) : null;
   if (template) console.log('\n== CSV import of 5,000 rows ==');
