@@ -57,24 +57,27 @@ export type SiteKey = string | { stripId: string };
 const siteIdSql = (key: SiteKey) => (typeof key === 'string' ? '$1' : '(SELECT site_id FROM strips WHERE id = $1)');
 const siteKeyParam = (key: SiteKey) => (typeof key === 'string' ? key : key.stripId);
 
+const SITE_SELECT = `
+  SELECT s.id, s.trial_id, t.network_id, t.name AS trial_name, s.field_name, s.notes, s.grower_user_id,
+         u.name AS grower_name, COALESCE(u.email, s.grower_email) AS grower_email,
+         t.unit_system, t.crop, t.custom_crop, t.blocks_per_site, t.rows_per_strip, t.row_spacing_in,
+         t.strip_length_ft, t.thousand_kernel_weight_g, t.reference_rate, t.reference_unit,
+         t.seed_price_per_lb, t.grain_price_per_bu, s.published_at, s.data_version,
+         s.sowing_date::text AS sowing_date, s.emergence_date::text AS emergence_date,
+         s.heading_date::text AS heading_date, s.harvest_date::text AS harvest_date,
+         (SELECT coalesce(json_agg(json_build_object('id', r.id, 'multiplier', r.multiplier, 'label', r.label) ORDER BY r.multiplier), '[]')
+            FROM rate_levels r WHERE r.trial_id = t.id) AS levels
+    FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id`;
+
 /** The site with its trial's layout and rate levels, in one query; `lock` takes the row lock writers need. */
 export async function loadSite(manager: EntityManager, key: SiteKey, options: { lock?: boolean } = {}): Promise<SiteRecord> {
-  const rows = await manager.query(
-    `SELECT s.id, s.trial_id, t.network_id, t.name AS trial_name, s.field_name, s.notes, s.grower_user_id,
-            u.name AS grower_name, COALESCE(u.email, s.grower_email) AS grower_email,
-            t.unit_system, t.crop, t.custom_crop, t.blocks_per_site, t.rows_per_strip, t.row_spacing_in,
-            t.strip_length_ft, t.thousand_kernel_weight_g, t.reference_rate, t.reference_unit,
-            t.seed_price_per_lb, t.grain_price_per_bu, s.published_at, s.data_version,
-            s.sowing_date::text AS sowing_date, s.emergence_date::text AS emergence_date,
-            s.heading_date::text AS heading_date, s.harvest_date::text AS harvest_date,
-            (SELECT coalesce(json_agg(json_build_object('id', r.id, 'multiplier', r.multiplier, 'label', r.label) ORDER BY r.multiplier), '[]')
-               FROM rate_levels r WHERE r.trial_id = t.id) AS levels
-       FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id
-      WHERE s.id = ${siteIdSql(key)}${options.lock ? ' FOR UPDATE OF s' : ''}`,
-    [siteKeyParam(key)],
-  );
-  const row = rows[0];
-  if (!row) throw new NotFound(typeof key === 'string' ? 'Site' : 'Strip');
+  const rows = await manager.query(`${SITE_SELECT} WHERE s.id = ${siteIdSql(key)}${options.lock ? ' FOR UPDATE OF s' : ''}`, [siteKeyParam(key)]);
+  if (!rows[0]) throw new NotFound(typeof key === 'string' ? 'Site' : 'Strip');
+  return toSiteRecord(rows[0]);
+}
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+function toSiteRecord(row: any): SiteRecord {
   const levels: { id: string; multiplier: string | number; label: string }[] = row.levels;
   return {
     siteId: row.id,
