@@ -24,7 +24,9 @@ const WRITE_WORD = /\b(INSERT|UPDATE|DELETE|TRUNCATE|MERGE|COPY|CREATE|ALTER|DRO
  * Whether a statement may change data. Errs towards "yes": a false yes only costs a cache miss,
  * a false no would serve stale data. Row locks (FOR UPDATE) are reads.
  */
-export function mayWrite(sql: string): boolean {
+export function mayWrite(query: string | { text: string }): boolean {
+  // db/prepared.ts passes node-postgres query configs through TypeORM.
+  const sql = typeof query === 'string' ? query : query.text;
   if (!READ_ONLY.test(sql)) return true;
   return WRITE_WORD.test(sql.replace(/\bFOR\s+(NO\s+KEY\s+)?UPDATE\b/gi, ''));
 }

@@ -53,7 +53,9 @@ try {
   runTs('db/cli.ts', ['seed'], env);
   const vitest = 'node_modules/vitest/vitest.mjs';
   if (extraArgs.length > 0) {
-    code = await runChild(process.execPath, [vitest, 'run', ...extraArgs], env);
+    // A chosen set that includes fault tests runs one file at a time, like the full run.
+    const serial = extraArgs.some((arg) => arg.replace(/^\.\//, '').startsWith('tests/faults')) ? ['--no-file-parallelism'] : [];
+    code = await runChild(process.execPath, [vitest, 'run', ...serial, ...extraArgs], env);
   } else {
     // Fault tests stop and start PostgreSQL, so they run after everything else, one file at a time.
     code = await runChild(process.execPath, [vitest, 'run', '--exclude', 'tests/faults/**'], env);

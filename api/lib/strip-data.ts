@@ -4,6 +4,7 @@ import type { EntityManager } from 'typeorm';
 import { EMPTY_OBSERVATION, type ObservationValues } from '../../shared/schemas/observation';
 import type { SiteDates } from '../../shared/schemas/strip';
 import type { CropKey, CustomCrop, RateUnit, UnitSystem } from '../../shared/schemas/trial';
+import { preparedQuery } from '../../db/prepared';
 import { AUDIT_INSERT } from '../audit/audit.service';
 import { Locked, NotFound } from '../errors';
 
@@ -71,7 +72,7 @@ const SITE_SELECT = `
 
 /** The site with its trial's layout and rate levels, in one query; `lock` takes the row lock writers need. */
 export async function loadSite(manager: EntityManager, key: SiteKey, options: { lock?: boolean } = {}): Promise<SiteRecord> {
-  const rows = await manager.query(`${SITE_SELECT} WHERE s.id = ${siteIdSql(key)}${options.lock ? ' FOR UPDATE OF s' : ''}`, [siteKeyParam(key)]);
+  const rows = await preparedQuery(manager, `${SITE_SELECT} WHERE s.id = ${siteIdSql(key)}${options.lock ? ' FOR UPDATE OF s' : ''}`, [siteKeyParam(key)]);
   if (!rows[0]) throw new NotFound(typeof key === 'string' ? 'Site' : 'Strip');
   return toSiteRecord(rows[0]);
 }
@@ -181,7 +182,8 @@ function toStripRecord(row: any): StripRecord {
 }
 
 export async function loadSiteStrips(manager: EntityManager, key: SiteKey, options: { lock?: boolean } = {}): Promise<StripRecord[]> {
-  const rows = await manager.query(
+  const rows = await preparedQuery(
+    manager,
     `${STRIP_SELECT} WHERE st.site_id = ${siteIdSql(key)} ORDER BY st.block, st.position${options.lock ? ' FOR UPDATE OF st' : ''}`,
     [siteKeyParam(key)],
   );
@@ -189,7 +191,7 @@ export async function loadSiteStrips(manager: EntityManager, key: SiteKey, optio
 }
 
 export async function loadStrip(manager: EntityManager, stripId: string, options: { lock?: boolean } = {}): Promise<StripRecord> {
-  const rows = await manager.query(`${STRIP_SELECT} WHERE st.id = $1${options.lock ? ' FOR UPDATE OF st' : ''}`, [stripId]);
+  const rows = await preparedQuery(manager, `${STRIP_SELECT} WHERE st.id = $1${options.lock ? ' FOR UPDATE OF st' : ''}`, [stripId]);
   if (!rows[0]) throw new NotFound('Strip');
   return toStripRecord(rows[0]);
 }
@@ -316,7 +318,7 @@ export async function changeStrip(
   manager: EntityManager,
   change: { siteId: string; stripId: string; version: number; values: ObservationValues; actorUserId: string; before: Record<string, unknown>; after: Record<string, unknown> },
 ): Promise<StripChangeOutcome> {
-  const [row] = await manager.query(STRIP_CHANGE, [
+  const [row] = await preparedQuery<{ open: boolean; version: string | null; updated_at: Date | null }>(manager, STRIP_CHANGE, [
     change.siteId,
     change.stripId,
     change.version,
@@ -325,7 +327,7 @@ export async function changeStrip(
     JSON.stringify(change.before),
     JSON.stringify(change.after),
   ]);
-  if (!row.open) return { kind: 'published' };
+  if (!row?.open) return { kind: 'published' };
   if (row.version === null) return { kind: 'stale' };
   return { kind: 'saved', version: Number(row.version), updatedAt: iso(row.updated_at)! };
 }

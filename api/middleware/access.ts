@@ -3,6 +3,7 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { DataSource } from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
 import { Forbidden, NotFound, Unauthenticated } from '../errors';
+import { preparedQuery } from '../../db/prepared';
 import { createFreshCache, SHORT_LIVED } from '../lib/fresh-cache';
 
 export type PolicyKind =
@@ -51,7 +52,8 @@ export function createPolicies(dataSource: DataSource) {
     if (!userId) throw new Unauthenticated();
     if (req.access) return req.access;
     const roles = await memberships.get(userId, async () => {
-      const rows: { network_id: string; role: Role }[] = await dataSource.query(
+      const rows = await preparedQuery<{ network_id: string; role: Role }>(
+        dataSource,
         'SELECT network_id, role FROM memberships WHERE user_id = $1',
         [userId],
       );
@@ -82,7 +84,7 @@ export function createPolicies(dataSource: DataSource) {
 
   function trialNetwork(trialId: string): Promise<string> {
     return trialNetworks.get(trialId, async () => {
-      const rows: { network_id: string }[] = await dataSource.query('SELECT network_id FROM trials WHERE id = $1', [trialId]);
+      const rows = await preparedQuery<{ network_id: string }>(dataSource, 'SELECT network_id FROM trials WHERE id = $1', [trialId]);
       if (!rows[0]) throw new NotFound('Trial');
       return rows[0].network_id;
     });
@@ -91,7 +93,8 @@ export function createPolicies(dataSource: DataSource) {
   interface SiteHome { networkId: string; trialId: string }
   function siteHome(siteId: string): Promise<SiteHome> {
     return siteHomes.get(siteId, async () => {
-      const rows: { network_id: string; trial_id: string }[] = await dataSource.query(
+      const rows = await preparedQuery<{ network_id: string; trial_id: string }>(
+        dataSource,
         'SELECT t.network_id, s.trial_id FROM sites s JOIN trials t ON t.id = s.trial_id WHERE s.id = $1',
         [siteId],
       );
@@ -103,7 +106,8 @@ export function createPolicies(dataSource: DataSource) {
   interface SiteState { growerUserId: string | null; published: boolean }
   function siteState(siteId: string): Promise<SiteState> {
     return siteStates.get(siteId, async () => {
-      const rows: { grower_user_id: string | null; published: boolean }[] = await dataSource.query(
+      const rows = await preparedQuery<{ grower_user_id: string | null; published: boolean }>(
+        dataSource,
         'SELECT grower_user_id, published_at IS NOT NULL AS published FROM sites WHERE id = $1',
         [siteId],
       );
@@ -119,7 +123,7 @@ export function createPolicies(dataSource: DataSource) {
   /** The site a strip or a photo belongs to. */
   function parentSite(table: keyof typeof PARENT_SITE_SQL, id: string, what: string): Promise<string> {
     return parentSites.get(`${table}:${id}`, async () => {
-      const rows: { site_id: string }[] = await dataSource.query(PARENT_SITE_SQL[table], [id]);
+      const rows = await preparedQuery<{ site_id: string }>(dataSource, PARENT_SITE_SQL[table], [id]);
       if (!rows[0]) throw new NotFound(what);
       return rows[0].site_id;
     });

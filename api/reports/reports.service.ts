@@ -9,6 +9,7 @@ import { recordAudit } from '../audit/audit.service';
 import { Conflict, Forbidden, NotFound } from '../errors';
 import { composeMail, type Mailer } from '../mail/mailer';
 import { isCoordinating, type AccessContext } from '../middleware/access';
+import { preparedQuery } from '../../db/prepared';
 import { createFreshCache } from '../lib/fresh-cache';
 import { createReportCache, digestOf } from './report-cache';
 import { stripsCsv } from './reports.csv';
@@ -198,7 +199,8 @@ export function createReportsService(deps: ReportsServiceDeps) {
     });
 
   async function loadSiteBundle(db: Queryable, siteId: string) {
-    const rows: Record<string, unknown>[] = await db.query(
+    const rows = await preparedQuery(
+      db,
       `SELECT ${SITE_COLUMNS}, ${TRIAL_COLUMNS},
               snap.id AS snap_id, snap.data_version AS snap_version, snap.published_at AS snap_at, pub.name AS snap_by
          FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id
@@ -225,12 +227,13 @@ export function createReportsService(deps: ReportsServiceDeps) {
 
   async function loadStrips(db: Queryable, where: { siteId: string } | { trialId: string }): Promise<StripRow[]> {
     const [clause, id] = 'siteId' in where ? ['st.site_id = $1', where.siteId] : ['s.trial_id = $1', where.trialId];
-    const rows: Record<string, unknown>[] = await db.query(`${STRIP_SQL} WHERE ${clause} ORDER BY s.id, st.block, st.position`, [id]);
+    const rows = await preparedQuery(db, `${STRIP_SQL} WHERE ${clause} ORDER BY s.id, st.block, st.position`, [id]);
     return rows.map(toStrip);
   }
 
   async function loadPhotos(db: Queryable, siteId: string): Promise<ReportPhoto[]> {
-    const rows: { id: string; caption: string; strip_id: string | null }[] = await db.query(
+    const rows = await preparedQuery<{ id: string; caption: string; strip_id: string | null }>(
+      db,
       'SELECT id, caption, strip_id FROM attachments WHERE site_id = $1 ORDER BY created_at',
       [siteId],
     );
@@ -266,14 +269,15 @@ export function createReportsService(deps: ReportsServiceDeps) {
 
   async function loadTrialBundle(db: Queryable, trialId: string) {
     const [trialRows, siteRows, snapshots] = await Promise.all([
-      db.query(`SELECT ${TRIAL_COLUMNS} FROM trials t WHERE t.id = $1`, [trialId]) as Promise<Record<string, unknown>[]>,
-      db.query(`SELECT ${SITE_COLUMNS} FROM sites s LEFT JOIN users u ON u.id = s.grower_user_id WHERE s.trial_id = $1 ORDER BY s.created_at, s.field_name`, [trialId]) as Promise<Record<string, unknown>[]>,
-      db.query(
+      preparedQuery(db, `SELECT ${TRIAL_COLUMNS} FROM trials t WHERE t.id = $1`, [trialId]),
+      preparedQuery(db, `SELECT ${SITE_COLUMNS} FROM sites s LEFT JOIN users u ON u.id = s.grower_user_id WHERE s.trial_id = $1 ORDER BY s.created_at, s.field_name`, [trialId]),
+      preparedQuery<SnapshotRow>(
+        db,
         `SELECT r.id, r.data_version, r.published_at, u.name AS published_by_name FROM report_snapshots r
            LEFT JOIN users u ON u.id = r.published_by
           WHERE r.trial_id = $1 AND r.scope = 'pooled' AND r.withdrawn_at IS NULL ORDER BY r.published_at DESC LIMIT 1`,
         [trialId],
-      ) as Promise<SnapshotRow[]>,
+      ),
     ]);
     if (!trialRows[0]) throw new NotFound('Trial');
     const trial = toTrial(trialRows[0]);

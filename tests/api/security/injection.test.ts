@@ -240,14 +240,15 @@ describe('SQL only through parameters', () => {
       const rel = path.relative('api', file);
       const line = (index: number) => source.slice(0, index).split('\n').length;
       // Concatenated SQL: .query('…' + x) or .query(x + '…').
-      for (const m of source.matchAll(/\.query\s*(?:<[^>]*>)?\(\s*(?:['"`][^'"`]*['"`]\s*\+|[A-Za-z_][\w.]*\s*\+)/g)) {
+      for (const m of source.matchAll(/(?:\.query|\bpreparedQuery)\s*(?:<[^>]*>)?\(\s*(?:[\w.]+\s*,\s*)?(?:['"`][^'"`]*['"`]\s*\+|[A-Za-z_][\w.]*\s*\+)/g)) {
         offenders.push(`${rel}:${line(m.index!)} concatenates SQL`);
       }
       // Query builder conditions must not be template literals with interpolation either.
       for (const m of source.matchAll(/\.(?:where|andWhere|orWhere|having|orderBy|select|addSelect)\(\s*`[^`]*\$\{/g)) {
         offenders.push(`${rel}:${line(m.index!)} interpolates into a query-builder clause`);
       }
-      for (const m of source.matchAll(/\.query\s*(?:<[^>]*>)?\(\s*`/g)) {
+      // db.query(`…`) and preparedQuery(db, `…`) (db/prepared.ts).
+      for (const m of source.matchAll(/(?:\.query|\bpreparedQuery)\s*(?:<[^>]*>)?\(\s*(?:[\w.]+\s*,\s*)?`/g)) {
         for (const expr of interpolations(source, m.index! + m[0].length)) {
           templated += 1;
           const constant = /^[A-Z][A-Z0-9_]*$/.test(expr) ? constants.get(expr) : undefined;
