@@ -29,6 +29,9 @@ export function createFreshCache<V>(options: FreshCacheOptions = {}) {
   const refreshAfterMs = options.refreshAfterMs ?? maxAgeMs / 2;
   const entries = new Map<string, Entry<V>>();
   const current = (entry: Entry<V>) => keepAcrossWrites || entry.generation === dataGeneration();
+  // Counts delete() calls: a background refresh that started before one (a session read racing a
+  // sign-in that rewrote the session) must not put the old value back.
+  let deletions = 0;
 
   function store(key: string, entry: Entry<V>) {
     entries.delete(key);
@@ -38,13 +41,14 @@ export function createFreshCache<V>(options: FreshCacheOptions = {}) {
 
   /** Computes a value; in the foreground it is shared at once, in the background only once done. */
   function load(key: string, compute: () => Promise<V>, previous?: Entry<V>): Entry<V> {
+    const deletionsAtStart = deletions;
     const entry: Entry<V> = { value: compute(), generation: dataGeneration(), created: Date.now(), refreshing: false };
     if (!previous) store(key, entry);
     entry.value.then(
       () => {
         // A write during the computation may or may not be in the value: do not keep it.
         if (previous) {
-          if (current(entry)) store(key, entry);
+          if (current(entry) && deletions === deletionsAtStart) store(key, entry);
         } else if (!current(entry) && entries.get(key) === entry) entries.delete(key);
       },
       () => {
@@ -68,8 +72,14 @@ export function createFreshCache<V>(options: FreshCacheOptions = {}) {
       }
       return load(key, compute).value;
     },
-    delete: (key: string) => entries.delete(key),
-    clear: () => entries.clear(),
+    delete(key: string) {
+      deletions += 1;
+      entries.delete(key);
+    },
+    clear() {
+      deletions += 1;
+      entries.clear();
+    },
   };
 }
 

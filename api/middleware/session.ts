@@ -37,13 +37,20 @@ export function createSessionMiddleware(config: AppConfig, pool: pg.Pool) {
       // Each request gets its own copy: express-session changes the object it is given.
       stored.then((text) => callback(null, text === null ? null : JSON.parse(text)), (err: unknown) => callback(err));
     }
+    // Forget the session before and after the write: a read in between would cache the old row.
     override set(sid: string, data: session.SessionData, callback?: (err?: unknown) => void) {
       recent.delete(sid);
-      super.set(sid, data, callback);
+      super.set(sid, data, (err?: unknown) => {
+        recent.delete(sid);
+        callback?.(err);
+      });
     }
     override destroy(sid: string, callback?: (err?: unknown) => void) {
       recent.delete(sid);
-      super.destroy(sid, callback);
+      super.destroy(sid, (err?: unknown) => {
+        recent.delete(sid);
+        callback?.(err);
+      });
     }
   }
   return session({

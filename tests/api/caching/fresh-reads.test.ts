@@ -115,6 +115,24 @@ describe('fresh caches', () => {
     expect(await read()).toBe(2);
   });
 
+  it('does not let a background refresh that started before a delete put the old value back', async () => {
+    const cache = createFreshCache<string>({ keepAcrossWrites: true, maxAgeMs: 1000, refreshAfterMs: 20 });
+    let stored = 'old';
+    const read = () => cache.get('session', async () => {
+      const seen = stored;
+      await sleep(30);
+      return seen;
+    });
+    expect(await read()).toBe('old');
+    await sleep(30);
+    const served = read(); // starts a background refresh that will see 'old'
+    stored = 'new';
+    cache.delete('session'); // the session was rewritten meanwhile
+    expect(await served).toBe('old');
+    await sleep(40); // the refresh finishes and must be dropped
+    expect(await read()).toBe('new');
+  });
+
   it('refreshes an ageing entry in the background and serves the old value meanwhile', async () => {
     const cache = createFreshCache<number>({ maxAgeMs: 1000, refreshAfterMs: 30 });
     let computed = 0;
