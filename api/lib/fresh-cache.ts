@@ -2,7 +2,9 @@
 // the data generation (db/data-changes.ts) is the one it was computed in, so the next read after
 // any write recomputes. maxAgeMs bounds how long a write from another process (psql, a restore)
 // can go unseen. Concurrent misses for one key share one computation. A Map in insertion order
-// is the eviction list; ~40 lines, so no package.
+// is the eviction list. Written here rather than taken from lru-cache: its fetch() shares
+// concurrent misses and refreshes stale entries, but has no notion of a write generation and no
+// hard age limit beside an earlier background refresh, and those two rules are the point here.
 import { dataGeneration } from '../../db/data-changes';
 
 export interface FreshCacheOptions {
