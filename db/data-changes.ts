@@ -18,6 +18,8 @@ export function noteDataChange(): void {
 }
 
 const READ_ONLY = /^\s*(SELECT|WITH|SHOW|BEGIN|START TRANSACTION|COMMIT|ROLLBACK|SET|SAVEPOINT|RELEASE|EXPLAIN)\b/i;
+/** Each statement is classified once: the subscriber asks before and after every query. */
+const verdicts = new Map<string, boolean>();
 const WRITE_WORD = /\b(INSERT|UPDATE|DELETE|TRUNCATE|MERGE|COPY|CREATE|ALTER|DROP|nextval|setval|pg_notify)\b/i;
 
 /**
@@ -27,8 +29,14 @@ const WRITE_WORD = /\b(INSERT|UPDATE|DELETE|TRUNCATE|MERGE|COPY|CREATE|ALTER|DRO
 export function mayWrite(query: string | { text: string }): boolean {
   // db/prepared.ts passes node-postgres query configs through TypeORM.
   const sql = typeof query === 'string' ? query : query.text;
-  if (!READ_ONLY.test(sql)) return true;
-  return WRITE_WORD.test(sql.replace(/\bFOR\s+(NO\s+KEY\s+)?UPDATE\b/gi, ''));
+  let answer = verdicts.get(sql);
+  if (answer === undefined) {
+    answer = !READ_ONLY.test(sql) || WRITE_WORD.test(sql.replace(/\bFOR\s+(NO\s+KEY\s+)?UPDATE\b/gi, ''));
+    // The SQL texts are the program's own, so few; the cap only guards against a runaway.
+    if (verdicts.size >= 5000) verdicts.clear();
+    verdicts.set(sql, answer);
+  }
+  return answer;
 }
 
 @EventSubscriber()

@@ -78,10 +78,6 @@ export function createFreshCache<V>(options: FreshCacheOptions = {}) {
       deletions += 1;
       entries.delete(key);
     },
-    clear() {
-      deletions += 1;
-      entries.clear();
-    },
   };
 }
 
@@ -91,5 +87,3 @@ export function createFreshCache<V>(options: FreshCacheOptions = {}) {
  * a busy page does not ask PostgreSQL the same question on every request.
  */
 export const SHORT_LIVED: FreshCacheOptions = { keepAcrossWrites: true, maxAgeMs: 2000, maxEntries: 5000 };
-
-export type FreshCache<V> = ReturnType<typeof createFreshCache<V>>;

@@ -18,6 +18,7 @@ import {
   useSaveCalibration,
 } from '../api/calibration';
 import { numberFieldErrors, parseNumberInput as num } from '../lib/number-input';
+import { fieldBinder } from '../../../lib/bind-field';
 
 const f1 = new Intl.NumberFormat('en', { maximumFractionDigits: 1 });
 
@@ -81,6 +82,7 @@ export function CalibrationHelper({
       errors: {} as Record<string, string>,
     };
   }, [v]);
+  const field = fieldBinder(v, set, errors);
 
   const onTarget = result ? Math.abs(result.percentOfTarget - 100) <= 5 : false;
   const growerSites = mySites.data ?? [];
@@ -134,39 +136,29 @@ export function CalibrationHelper({
             label="Wheel circumference"
             suffix="ft"
             inputMode="decimal"
-            value={v.wheelCircumferenceFt}
-            onChange={(e) => set({ wheelCircumferenceFt: e.target.value })}
-            error={errors.wheelCircumferenceFt}
+            {...field('wheelCircumferenceFt')}
           />
           <TextField
             label="Wheel turns"
             inputMode="numeric"
-            value={v.wheelTurns}
-            onChange={(e) => set({ wheelTurns: e.target.value })}
-            error={errors.wheelTurns}
+            {...field('wheelTurns')}
           />
           <TextField
             label="Seeds counted"
             inputMode="numeric"
-            value={v.seedsCounted}
-            onChange={(e) => set({ seedsCounted: e.target.value })}
-            error={errors.seedsCounted}
+            {...field('seedsCounted')}
           />
           <TextField
             label="Row spacing"
             suffix="in"
             inputMode="decimal"
-            value={v.rowSpacingIn}
-            onChange={(e) => set({ rowSpacingIn: e.target.value })}
-            error={errors.rowSpacingIn}
+            {...field('rowSpacingIn')}
           />
           <TextField
             label="Target"
             suffix="seeds/ft"
             inputMode="decimal"
-            value={v.targetSeedsPerFootOfRow}
-            onChange={(e) => set({ targetSeedsPerFootOfRow: e.target.value })}
-            error={errors.targetSeedsPerFootOfRow}
+            {...field('targetSeedsPerFootOfRow')}
             containerClassName="col-span-2"
             hint="Seeds per foot of row for the rate you are setting (from your field packet)."
           />

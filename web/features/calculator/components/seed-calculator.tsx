@@ -7,6 +7,7 @@ import { SelectField } from '../../../components/ui/form-fields';
 import { TextField } from '../../../components/ui/text-field';
 import { cn } from '../../../lib/cn';
 import { numberFieldErrors, parseNumberInput } from '../lib/number-input';
+import { fieldBinder } from '../../../lib/bind-field';
 
 const UNIT_NAMES: Record<CalcUnit, string> = {
   'lb/acre': 'lb per acre',
@@ -66,6 +67,7 @@ export function SeedCalculator() {
       };
     }
   }, [v]);
+  const field = fieldBinder(v, set, errors);
 
   const plantMode = v.unit.startsWith('plants');
   const sizeError = errors.thousandKernelWeightG ?? errors.seedsPerLb;
@@ -82,9 +84,7 @@ export function SeedCalculator() {
           <TextField
             label="Amount"
             inputMode="decimal"
-            value={v.value}
-            onChange={(e) => set({ value: e.target.value })}
-            error={errors.value}
+            {...field('value')}
           />
           <SelectField
             label="Unit"
@@ -142,17 +142,13 @@ export function SeedCalculator() {
               label="Germination"
               suffix="%"
               inputMode="decimal"
-              value={v.germinationPct}
-              onChange={(e) => set({ germinationPct: e.target.value })}
-              error={errors.germinationPct}
+              {...field('germinationPct')}
             />
             <TextField
               label="Expected emergence"
               suffix="%"
               inputMode="decimal"
-              value={v.emergencePct}
-              onChange={(e) => set({ emergencePct: e.target.value })}
-              error={errors.emergencePct}
+              {...field('emergencePct')}
             />
           </div>
         </fieldset>
@@ -162,32 +158,24 @@ export function SeedCalculator() {
             label="Row spacing"
             suffix="in"
             inputMode="decimal"
-            value={v.rowSpacingIn}
-            onChange={(e) => set({ rowSpacingIn: e.target.value })}
-            error={errors.rowSpacingIn}
+            {...field('rowSpacingIn')}
           />
           <TextField
             label="Rows per strip"
             inputMode="numeric"
-            value={v.rowsPerStrip}
-            onChange={(e) => set({ rowsPerStrip: e.target.value })}
-            error={errors.rowsPerStrip}
+            {...field('rowsPerStrip')}
           />
           <TextField
             label="Strip length"
             suffix="ft"
             inputMode="decimal"
-            value={v.stripLengthFt}
-            onChange={(e) => set({ stripLengthFt: e.target.value })}
-            error={errors.stripLengthFt}
+            {...field('stripLengthFt')}
           />
           <TextField
             label="Wheel circumference"
             suffix="ft"
             inputMode="decimal"
-            value={v.wheelCircumferenceFt}
-            onChange={(e) => set({ wheelCircumferenceFt: e.target.value })}
-            error={errors.wheelCircumferenceFt}
+            {...field('wheelCircumferenceFt')}
           />
         </fieldset>
       </form>

@@ -8,6 +8,7 @@ import { apiFieldErrors, errorSummary } from '../../../lib/form-errors';
 import { useTrialPeople } from '../api/get-trial';
 import { useEnrolSite } from '../api/trial-mutations';
 import { SelectField, TextAreaField } from '../../../components/ui/form-fields';
+import { fieldBinder } from '../../../lib/bind-field';
 
 const EMPTY = {
   growerUserId: '',
@@ -65,6 +66,7 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
   }
 
   const set = (patch: Partial<typeof EMPTY>) => setForm((f) => ({ ...f, ...patch }));
+  const field = fieldBinder(form, set, errors);
 
   return (
     <form onSubmit={submit} noValidate className="space-y-4" aria-label="Enrol a site">
@@ -96,9 +98,7 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
         {mode === 'member' ? (
           <SelectField
             label="Grower"
-            value={form.growerUserId}
-            onChange={(e) => set({ growerUserId: e.target.value })}
-            error={errors.growerUserId}
+            {...field('growerUserId')}
           >
             <option value="">{people.isPending ? 'Loading people…' : 'Choose a person…'}</option>
             {(people.data ?? []).map((p) => (
@@ -113,44 +113,32 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
             type="email"
             autoComplete="off"
             hint="They get an invitation; the site is theirs once they accept."
-            value={form.growerEmail}
-            onChange={(e) => set({ growerEmail: e.target.value })}
-            error={errors.growerEmail}
+            {...field('growerEmail')}
           />
         )}
         <TextField
           label="Field name"
           required
-          value={form.fieldName}
-          onChange={(e) => set({ fieldName: e.target.value })}
-          error={errors.fieldName}
+          {...field('fieldName')}
         />
         <TextField
           label="Soil"
-          value={form.soil}
-          onChange={(e) => set({ soil: e.target.value })}
-          error={errors.soil}
+          {...field('soil')}
           placeholder="e.g. silt loam"
         />
         <TextField
           label="Previous crop"
-          value={form.previousCrop}
-          onChange={(e) => set({ previousCrop: e.target.value })}
-          error={errors.previousCrop}
+          {...field('previousCrop')}
         />
         <TextField
           label="Fertility"
-          value={form.fertility}
-          onChange={(e) => set({ fertility: e.target.value })}
-          error={errors.fertility}
+          {...field('fertility')}
           placeholder="e.g. compost 3 t/acre"
           containerClassName="sm:col-span-2"
         />
         <TextAreaField
           label="Notes"
-          value={form.notes}
-          onChange={(e) => set({ notes: e.target.value })}
-          error={errors.notes}
+          {...field('notes')}
           containerClassName="sm:col-span-2"
         />
       </div>
