@@ -14,7 +14,10 @@ export default tseslint.config(
   {
     languageOptions: { globals: { ...globals.node, ...globals.browser } },
     rules: {
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
       '@typescript-eslint/no-non-null-assertion': 'off',
     },
   },
@@ -25,7 +28,9 @@ export default tseslint.config(
       'react-hooks/rules-of-hooks': 'error',
       'react-hooks/exhaustive-deps': 'warn',
       ...pluginQuery.configs.recommended.rules,
-      'no-restricted-imports': boundary([{ regex: '^(\\.\\./){2,}(api|db)/', message: 'web/ never imports api/ or db/' }]),
+      'no-restricted-imports': boundary([
+        { regex: '^(\\.\\./){2,}(api|db)/', message: 'web/ never imports api/ or db/' },
+      ]),
     },
   },
   {
@@ -33,7 +38,10 @@ export default tseslint.config(
     rules: {
       'no-restricted-imports': boundary([
         { regex: '^(\\.\\./){2,}(api|db|web)/', message: 'shared/ imports nothing outside itself' },
-        { group: ['node:*', 'typeorm', 'express', 'react', 'pg'], message: 'shared/ runs in the browser too: no Node, database or UI imports' },
+        {
+          group: ['node:*', 'typeorm', 'express', 'react', 'pg'],
+          message: 'shared/ runs in the browser too: no Node, database or UI imports',
+        },
       ]),
     },
   },

@@ -92,8 +92,21 @@ export function createApp(deps: AppDeps): Express {
 
   const policies = createPolicies(dataSource);
   const auth = createAuthService({ dataSource, mailer: deps.mailer, publicUrl: config.PUBLIC_URL });
-  const invitations = createInvitationsService({ dataSource, mailer: deps.mailer, publicUrl: config.PUBLIC_URL });
-  const ctx: RouterContext = { config, dataSource, policies, table, mailer: deps.mailer, mailCatcher: deps.mailCatcher, auth, invitations };
+  const invitations = createInvitationsService({
+    dataSource,
+    mailer: deps.mailer,
+    publicUrl: config.PUBLIC_URL,
+  });
+  const ctx: RouterContext = {
+    config,
+    dataSource,
+    policies,
+    table,
+    mailer: deps.mailer,
+    mailCatcher: deps.mailCatcher,
+    auth,
+    invitations,
+  };
 
   // Health answers before sessions so it works with the database down.
   app.use('/api', createHealthRouter(ctx));
@@ -106,16 +119,29 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', passport.session());
   app.use('/api', requireCsrf);
 
-  app.use('/api/auth', createAuthRouter({ auth, policies, table, loginLimit: config.RATE_LIMIT_LOGIN }));
+  app.use(
+    '/api/auth',
+    createAuthRouter({ auth, policies, table, loginLimit: config.RATE_LIMIT_LOGIN }),
+  );
   app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_LOGIN * 5 }));
   app.use('/api', createHomeRouter(ctx));
-  app.use('/api/admin', createAdminRouter({ mailCatcher: deps.mailCatcher, production: config.NODE_ENV === 'production', policies, table }));
+  app.use(
+    '/api/admin',
+    createAdminRouter({
+      mailCatcher: deps.mailCatcher,
+      production: config.NODE_ENV === 'production',
+      policies,
+      table,
+    }),
+  );
   for (const build of FEATURE_ROUTERS) app.use('/api', build(ctx));
   app.use('/api', notFoundApi);
 
   const webRoot = path.resolve(config.WEB_DIST);
   if (fs.existsSync(path.join(webRoot, 'index.html'))) {
-    app.use(express.static(webRoot, { index: false, maxAge: '1h', setHeaders: cacheImmutableAssets }));
+    app.use(
+      express.static(webRoot, { index: false, maxAge: '1h', setHeaders: cacheImmutableAssets }),
+    );
     app.get('/{*splat}', (_req, res) => {
       res.set('Cache-Control', 'no-cache');
       // root keeps the dot-folder check off the build folder itself (e.g. .data/web-x).
@@ -127,5 +153,6 @@ export function createApp(deps: AppDeps): Express {
 }
 
 function cacheImmutableAssets(res: express.Response, filePath: string) {
-  if (filePath.includes(`${path.sep}assets${path.sep}`)) res.set('Cache-Control', 'public, max-age=31536000, immutable');
+  if (filePath.includes(`${path.sep}assets${path.sep}`))
+    res.set('Cache-Control', 'public, max-age=31536000, immutable');
 }

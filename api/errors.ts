@@ -6,7 +6,11 @@ export class AppError extends Error {
     readonly status: number,
     readonly code: ErrorCode | 'csrf_invalid',
     message: string,
-    readonly details: { fields?: Record<string, string>; rows?: { row: number; column: string; message: string }[]; current?: unknown } = {},
+    readonly details: {
+      fields?: Record<string, string>;
+      rows?: { row: number; column: string; message: string }[];
+      current?: unknown;
+    } = {},
   ) {
     super(message);
   }

@@ -26,13 +26,21 @@ async function main() {
   const config = readConfig();
   const dataSource = createDataSource(config.DATABASE_URL);
   await connectWithRetry(() => dataSource.initialize());
-  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5, connectionTimeoutMillis: 2000 });
+  const sessionPool = new pg.Pool({
+    connectionString: config.DATABASE_URL,
+    max: 5,
+    connectionTimeoutMillis: 2000,
+  });
   sessionPool.on('error', () => {});
   let mailCatcher: MailCatcher | null = null;
   if (config.MAIL_CATCHER === 'on' && config.NODE_ENV !== 'production') {
     mailCatcher = await startMailCatcher({ host: config.SMTP_HOST, port: config.SMTP_PORT });
   }
-  const mailer = createSmtpMailer({ host: config.SMTP_HOST, port: mailCatcher?.port ?? config.SMTP_PORT, from: config.MAIL_FROM });
+  const mailer = createSmtpMailer({
+    host: config.SMTP_HOST,
+    port: mailCatcher?.port ?? config.SMTP_PORT,
+    from: config.MAIL_FROM,
+  });
   const app = createApp({ config, dataSource, sessionPool, mailer, mailCatcher });
   const server = http.createServer(app);
   server.keepAliveTimeout = 5000;
@@ -40,7 +48,8 @@ async function main() {
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
   console.log(`[sheaf] listening on http://${config.HOST}:${port}`);
-  if (mailCatcher) console.log(`[sheaf] catching e-mail on smtp://${config.SMTP_HOST}:${mailCatcher.port}`);
+  if (mailCatcher)
+    console.log(`[sheaf] catching e-mail on smtp://${config.SMTP_HOST}:${mailCatcher.port}`);
 
   let stopping = false;
   const shutdown = (signal: string) => {

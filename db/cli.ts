@@ -12,13 +12,19 @@ async function main() {
   try {
     if (action === 'migrate') {
       const ran = await dataSource.runMigrations({ transaction: 'each' });
-      console.log(`[sheaf] migrations: ${ran.length === 0 ? 'up to date' : ran.map((m) => m.name).join(', ')}`);
+      console.log(
+        `[sheaf] migrations: ${ran.length === 0 ? 'up to date' : ran.map((m) => m.name).join(', ')}`,
+      );
     } else if (action === 'revert') {
       await dataSource.undoLastMigration({ transaction: 'each' });
       console.log('[sheaf] reverted the last migration');
     } else if (action === 'seed') {
       const loaded = await seedDemo(dataSource);
-      console.log(loaded ? '[sheaf] demo scenario loaded (invented data)' : '[sheaf] demo scenario already present');
+      console.log(
+        loaded
+          ? '[sheaf] demo scenario loaded (invented data)'
+          : '[sheaf] demo scenario already present',
+      );
     } else {
       throw new Error(`unknown action "${action}"; use migrate, revert or seed`);
     }

@@ -3,7 +3,12 @@
 // process sends through any DataSource and moves the counter before a write, after it, and again
 // when its transaction ends (a write inside a transaction is only visible after COMMIT).
 // Sessions go through their own pool and are not counted: no cached read depends on them.
-import { EventSubscriber, type AfterQueryEvent, type BeforeQueryEvent, type EntitySubscriberInterface } from 'typeorm';
+import {
+  EventSubscriber,
+  type AfterQueryEvent,
+  type BeforeQueryEvent,
+  type EntitySubscriberInterface,
+} from 'typeorm';
 
 let generation = 0;
 
@@ -17,10 +22,12 @@ export function noteDataChange(): void {
   generation += 1;
 }
 
-const READ_ONLY = /^\s*(SELECT|WITH|SHOW|BEGIN|START TRANSACTION|COMMIT|ROLLBACK|SET|SAVEPOINT|RELEASE|EXPLAIN)\b/i;
+const READ_ONLY =
+  /^\s*(SELECT|WITH|SHOW|BEGIN|START TRANSACTION|COMMIT|ROLLBACK|SET|SAVEPOINT|RELEASE|EXPLAIN)\b/i;
 /** Each statement is classified once: the subscriber asks before and after every query. */
 const verdicts = new Map<string, boolean>();
-const WRITE_WORD = /\b(INSERT|UPDATE|DELETE|TRUNCATE|MERGE|COPY|CREATE|ALTER|DROP|nextval|setval|pg_notify)\b/i;
+const WRITE_WORD =
+  /\b(INSERT|UPDATE|DELETE|TRUNCATE|MERGE|COPY|CREATE|ALTER|DROP|nextval|setval|pg_notify)\b/i;
 
 /**
  * Whether a statement may change data. Errs towards "yes": a false yes only costs a cache miss,
@@ -31,7 +38,8 @@ export function mayWrite(query: string | { text: string }): boolean {
   const sql = typeof query === 'string' ? query : query.text;
   let answer = verdicts.get(sql);
   if (answer === undefined) {
-    answer = !READ_ONLY.test(sql) || WRITE_WORD.test(sql.replace(/\bFOR\s+(NO\s+KEY\s+)?UPDATE\b/gi, ''));
+    answer =
+      !READ_ONLY.test(sql) || WRITE_WORD.test(sql.replace(/\bFOR\s+(NO\s+KEY\s+)?UPDATE\b/gi, ''));
     // The SQL texts are the program's own, so few; the cap only guards against a runaway.
     if (verdicts.size >= 5000) verdicts.clear();
     verdicts.set(sql, answer);

@@ -5,7 +5,10 @@ import { DataChangeSubscriber } from './data-changes';
 import { ENTITIES } from './entities/index';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
 
-export function createDataSource(databaseUrl: string, options: { poolSize?: number } = {}): DataSource {
+export function createDataSource(
+  databaseUrl: string,
+  options: { poolSize?: number } = {},
+): DataSource {
   return new DataSource({
     type: 'postgres',
     url: databaseUrl,

@@ -21,7 +21,11 @@ export function statementName(sql: string): string {
 }
 
 /** Runs `sql` as a named prepared statement; same result shape as `db.query(sql, params)`. */
-export function preparedQuery<T = Record<string, unknown>>(db: Queryable, sql: string, params: unknown[]): Promise<T[]> {
+export function preparedQuery<T = Record<string, unknown>>(
+  db: Queryable,
+  sql: string,
+  params: unknown[],
+): Promise<T[]> {
   const config = { name: statementName(sql), text: sql };
   return db.query(config as unknown as string, params);
 }

@@ -15,19 +15,35 @@ if (!/audit endpoint returned an error|405|ENOAUDIT|does not support audit/i.tes
 }
 
 console.log('[audit] the registry refused the advisory request:');
-console.log(`        ${output.split('\n').find((line) => /405|error/i.test(line))?.trim() ?? 'no reason given'}`);
+console.log(
+  `        ${
+    output
+      .split('\n')
+      .find((line) => /405|error/i.test(line))
+      ?.trim() ?? 'no reason given'
+  }`,
+);
 console.log('[audit] falling back to deprecation notices of the installed production packages.');
 
-const tree = JSON.parse(spawnSync('npm', ['ls', '--omit=dev', '--all', '--json'], { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 }).stdout);
+const tree = JSON.parse(
+  spawnSync('npm', ['ls', '--omit=dev', '--all', '--json'], {
+    encoding: 'utf8',
+    maxBuffer: 64 * 1024 * 1024,
+  }).stdout,
+);
 const installed = new Map();
 (function walk(dependencies) {
   for (const [name, dep] of Object.entries(dependencies ?? {})) {
-    if (dep.version && !dep.extraneous) installed.set(`${name}@${dep.version}`, { name, version: dep.version });
+    if (dep.version && !dep.extraneous)
+      installed.set(`${name}@${dep.version}`, { name, version: dep.version });
     walk(dep.dependencies);
   }
 })(tree.dependencies);
 
-const registry = (spawnSync('npm', ['config', 'get', 'registry'], { encoding: 'utf8' }).stdout.trim() || 'https://registry.npmjs.org/').replace(/\/?$/, '/');
+const registry = (
+  spawnSync('npm', ['config', 'get', 'registry'], { encoding: 'utf8' }).stdout.trim() ||
+  'https://registry.npmjs.org/'
+).replace(/\/?$/, '/');
 
 // A control: a version everyone knows is deprecated. From memory: the `request` package was
 // deprecated as a whole in February 2020, so its last version carries the notice. A registry
@@ -36,8 +52,12 @@ const canary = await fetch(`${registry}request/2.88.2`, { signal: AbortSignal.ti
   .then((res) => (res.ok ? res.json() : {}))
   .catch(() => ({}));
 if (!canary.deprecated) {
-  console.log('[audit] this registry does not carry deprecation notices either (request@2.88.2 shows none),');
-  console.log('        so nothing can be checked from here. Run `npm audit --omit=dev` where the registry answers it.');
+  console.log(
+    '[audit] this registry does not carry deprecation notices either (request@2.88.2 shows none),',
+  );
+  console.log(
+    '        so nothing can be checked from here. Run `npm audit --omit=dev` where the registry answers it.',
+  );
   process.exit(2);
 }
 const deprecated = [];
@@ -47,7 +67,10 @@ async function worker() {
   for (let item = queue.shift(); item; item = queue.shift()) {
     const url = `${registry}${item.name.replace('/', '%2F')}/${item.version}`;
     try {
-      const res = await fetch(url, { headers: { accept: 'application/json' }, signal: AbortSignal.timeout(20_000) });
+      const res = await fetch(url, {
+        headers: { accept: 'application/json' },
+        signal: AbortSignal.timeout(20_000),
+      });
       if (!res.ok) throw new Error(`HTTP ${res.status}`);
       const meta = await res.json();
       if (meta.deprecated) deprecated.push(`${item.name}@${item.version}: ${meta.deprecated}`);
@@ -58,8 +81,12 @@ async function worker() {
 }
 await Promise.all(Array.from({ length: 8 }, worker));
 
-console.log(`[audit] ${installed.size} production package versions checked; ${deprecated.length} deprecated, ${unreachable.length} not answered.`);
+console.log(
+  `[audit] ${installed.size} production package versions checked; ${deprecated.length} deprecated, ${unreachable.length} not answered.`,
+);
 for (const line of deprecated) console.log(`  deprecated: ${line}`);
 for (const line of unreachable) console.log(`  not answered: ${line}`);
-console.log('[audit] run `npm audit --omit=dev` where the registry answers it for real advisory data.');
+console.log(
+  '[audit] run `npm audit --omit=dev` where the registry answers it for real advisory data.',
+);
 process.exit(deprecated.length > 0 || unreachable.length > 0 ? 1 : 0);

@@ -16,7 +16,12 @@ if (!actions.includes(action)) {
 ensureNodeModules();
 // With DATABASE_URL set, work on that database; otherwise on the project cluster.
 const cluster = process.env.DATABASE_URL
-  ? { bin: findPostgresBin(), alreadyRunning: true, databaseUrl: process.env.DATABASE_URL, stop() {} }
+  ? {
+      bin: findPostgresBin(),
+      alreadyRunning: true,
+      databaseUrl: process.env.DATABASE_URL,
+      stop() {},
+    }
   : await startCluster({
       dataDir: process.env.SHEAF_PG_DATA ?? path.join(DATA_DIR, 'postgres'),
       port: Number(process.env.PGPORT ?? 54329),
@@ -28,17 +33,48 @@ try {
   if (action === 'migrate' || action === 'revert' || action === 'seed') {
     runTs('db/cli.ts', [action], env);
   } else if (action === 'backup') {
-    const file = fileArg ?? path.join(DATA_DIR, 'backups', `sheaf-${new Date().toISOString().replace(/[:.]/g, '-')}.dump`);
+    const file =
+      fileArg ??
+      path.join(
+        DATA_DIR,
+        'backups',
+        `sheaf-${new Date().toISOString().replace(/[:.]/g, '-')}.dump`,
+      );
     fs.mkdirSync(path.dirname(path.resolve(file)), { recursive: true });
-    execFileSync(path.join(cluster.bin, 'pg_dump'), ['--format=custom', '--no-owner', '--file', file, '--dbname', env.DATABASE_URL], { stdio: 'inherit' });
+    execFileSync(
+      path.join(cluster.bin, 'pg_dump'),
+      ['--format=custom', '--no-owner', '--file', file, '--dbname', env.DATABASE_URL],
+      { stdio: 'inherit' },
+    );
     console.log(`[sheaf] backup written to ${file}`);
   } else if (action === 'restore') {
-    if (!fileArg || !fs.existsSync(fileArg)) throw new Error('db:restore needs the path of a backup file written by db:backup');
-    const tables = execFileSync(path.join(cluster.bin, 'psql'), ['--dbname', env.DATABASE_URL, '-tAc', "SELECT count(*) FROM information_schema.tables WHERE table_schema = 'public'"]).toString().trim();
+    if (!fileArg || !fs.existsSync(fileArg))
+      throw new Error('db:restore needs the path of a backup file written by db:backup');
+    const tables = execFileSync(path.join(cluster.bin, 'psql'), [
+      '--dbname',
+      env.DATABASE_URL,
+      '-tAc',
+      "SELECT count(*) FROM information_schema.tables WHERE table_schema = 'public'",
+    ])
+      .toString()
+      .trim();
     if (Number(tables) > 0 && !process.env.SHEAF_RESTORE_OVER) {
-      throw new Error('db:restore refuses to restore into a database that already has tables; point DATABASE_URL at an empty database');
+      throw new Error(
+        'db:restore refuses to restore into a database that already has tables; point DATABASE_URL at an empty database',
+      );
     }
-    execFileSync(path.join(cluster.bin, 'pg_restore'), ['--no-owner', '--exit-on-error', '--single-transaction', '--dbname', env.DATABASE_URL, fileArg], { stdio: 'inherit' });
+    execFileSync(
+      path.join(cluster.bin, 'pg_restore'),
+      [
+        '--no-owner',
+        '--exit-on-error',
+        '--single-transaction',
+        '--dbname',
+        env.DATABASE_URL,
+        fileArg,
+      ],
+      { stdio: 'inherit' },
+    );
     console.log(`[sheaf] restored ${fileArg}`);
   }
 } catch (error) {

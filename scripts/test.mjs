@@ -4,7 +4,14 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { ensureDebianPackage, ensureNodeModules } from './lib/deps.mjs';
-import { DATA_DIR, buildWeb, runChild, runTs, runningChildren, stopWhenOrphaned } from './lib/env.mjs';
+import {
+  DATA_DIR,
+  buildWeb,
+  runChild,
+  runTs,
+  runningChildren,
+  stopWhenOrphaned,
+} from './lib/env.mjs';
 import { freePort, startCluster } from './lib/postgres.mjs';
 
 const extraArgs = process.argv.slice(2);
@@ -14,7 +21,12 @@ ensureDebianPackage('/usr/bin/pdfinfo', 'poppler-utils');
 const webDist = buildWeb();
 
 const dataDir = path.join(DATA_DIR, `test-pg-${process.pid}`);
-const cluster = await startCluster({ dataDir, port: await freePort(), database: 'sheaf_test', throwAway: true });
+const cluster = await startCluster({
+  dataDir,
+  port: await freePort(),
+  database: 'sheaf_test',
+  throwAway: true,
+});
 let cleaned = false;
 function cleanup() {
   if (cleaned) return;
@@ -22,11 +34,13 @@ function cleanup() {
   cluster.stop();
   fs.rmSync(cluster.dataDir, { recursive: true, force: true });
   // A cluster moved to the temporary folder leaves an empty folder behind: remove it too.
-  if (path.basename(path.dirname(cluster.dataDir)).startsWith('sheaf-pg-')) fs.rmSync(path.dirname(cluster.dataDir), { recursive: true, force: true });
+  if (path.basename(path.dirname(cluster.dataDir)).startsWith('sheaf-pg-'))
+    fs.rmSync(path.dirname(cluster.dataDir), { recursive: true, force: true });
   fs.rmSync(dataDir, { recursive: true, force: true });
   fs.rmSync(`${dataDir}.secrets.json`, { force: true });
   for (const entry of fs.existsSync(DATA_DIR) ? fs.readdirSync(DATA_DIR) : []) {
-    if (entry.startsWith('test-uploads-')) fs.rmSync(path.join(DATA_DIR, entry), { recursive: true, force: true });
+    if (entry.startsWith('test-uploads-'))
+      fs.rmSync(path.join(DATA_DIR, entry), { recursive: true, force: true });
   }
 }
 function abort(code) {
@@ -54,12 +68,20 @@ try {
   const vitest = 'node_modules/vitest/vitest.mjs';
   if (extraArgs.length > 0) {
     // A chosen set that includes fault tests runs one file at a time, like the full run.
-    const serial = extraArgs.some((arg) => arg.replace(/^\.\//, '').startsWith('tests/faults')) ? ['--no-file-parallelism'] : [];
+    const serial = extraArgs.some((arg) => arg.replace(/^\.\//, '').startsWith('tests/faults'))
+      ? ['--no-file-parallelism']
+      : [];
     code = await runChild(process.execPath, [vitest, 'run', ...serial, ...extraArgs], env);
   } else {
     // Fault tests stop and start PostgreSQL, so they run after everything else, one file at a time.
     code = await runChild(process.execPath, [vitest, 'run', '--exclude', 'tests/faults/**'], env);
-    const faults = fs.existsSync('tests/faults') ? await runChild(process.execPath, [vitest, 'run', '--no-file-parallelism', 'tests/faults'], env) : 0;
+    const faults = fs.existsSync('tests/faults')
+      ? await runChild(
+          process.execPath,
+          [vitest, 'run', '--no-file-parallelism', 'tests/faults'],
+          env,
+        )
+      : 0;
     code = code || faults;
   }
 } catch (error) {

@@ -5,7 +5,12 @@ import type { MailCatcher } from '../mail/mail-catcher';
 import type { Policies } from '../middleware/access';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 
-export function createAdminRouter(deps: { mailCatcher: MailCatcher | null; production: boolean; policies: Policies; table: RouteEntry[] }) {
+export function createAdminRouter(deps: {
+  mailCatcher: MailCatcher | null;
+  production: boolean;
+  policies: Policies;
+  table: RouteEntry[];
+}) {
   const router = Router();
   const routes = secureRouter(router, deps.table, '/api/admin');
   routes.get('/mail', deps.policies.admin, (_req, res) => {

@@ -15,22 +15,22 @@ export interface AuditInput {
 export const AUDIT_INSERT = `INSERT INTO audit_events (actor_user_id, entity_type, entity_id, site_id, action, before, after)`;
 
 export async function recordAudit(manager: EntityManager, event: AuditInput): Promise<void> {
-  await manager.query(
-    `${AUDIT_INSERT} VALUES ($1, $2, $3, $4, $5, $6, $7)`,
-    [
-      event.actorUserId,
-      event.entityType,
-      event.entityId,
-      event.siteId ?? null,
-      event.action,
-      event.before ? JSON.stringify(event.before) : null,
-      event.after ? JSON.stringify(event.after) : null,
-    ],
-  );
+  await manager.query(`${AUDIT_INSERT} VALUES ($1, $2, $3, $4, $5, $6, $7)`, [
+    event.actorUserId,
+    event.entityType,
+    event.entityId,
+    event.siteId ?? null,
+    event.action,
+    event.before ? JSON.stringify(event.before) : null,
+    event.after ? JSON.stringify(event.after) : null,
+  ]);
 }
 
 /** Records many audit events in one statement per thousand (a CSV import touches every strip). */
-export async function recordAuditsInBulk(manager: EntityManager, events: readonly AuditInput[]): Promise<void> {
+export async function recordAuditsInBulk(
+  manager: EntityManager,
+  events: readonly AuditInput[],
+): Promise<void> {
   for (let start = 0; start < events.length; start += 1000) {
     const chunk = events.slice(start, start + 1000).map((e) => ({
       actor_user_id: e.actorUserId,

@@ -13,7 +13,8 @@ import { secureRouter, type RouteEntry } from '../lib/route-table';
 import type { AuthService } from './auth.service';
 
 function tooMany(message: string) {
-  return (_req: Request, _res: Response, next: NextFunction) => next(new AppError(429, 'rate_limited', message));
+  return (_req: Request, _res: Response, next: NextFunction) =>
+    next(new AppError(429, 'rate_limited', message));
 }
 
 /** Logs the user in and rotates the session id, keeping the CSRF token. */
@@ -23,7 +24,9 @@ function logIn(req: Request, user: Express.User): Promise<void> {
     req.session.regenerate((err) => {
       if (err) return reject(err);
       req.session.csrfToken = csrfToken;
-      req.login(user, { keepSessionInfo: true } as Parameters<typeof req.login>[1], (loginErr) => (loginErr ? reject(loginErr) : resolve()));
+      req.login(user, { keepSessionInfo: true } as Parameters<typeof req.login>[1], (loginErr) =>
+        loginErr ? reject(loginErr) : resolve(),
+      );
     });
   });
 }
@@ -40,17 +43,33 @@ export function createAuthRouter(deps: {
   const routes = secureRouter(router, deps.table, '/api/auth');
   const { auth, policies } = deps;
 
-  const perIp = rateLimit({ windowMs: 15 * 60 * 1000, limit: deps.loginLimit * 5, skipSuccessfulRequests: true, standardHeaders: 'draft-8', legacyHeaders: false, handler: tooMany('Too many sign-in attempts from here; wait a few minutes') });
+  const perIp = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: deps.loginLimit * 5,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: tooMany('Too many sign-in attempts from here; wait a few minutes'),
+  });
   const perAccount = rateLimit({
     windowMs: 15 * 60 * 1000,
     limit: deps.loginLimit,
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    keyGenerator: (req) =>
+      `account:${String(req.body?.email ?? '')
+        .trim()
+        .toLowerCase()}`,
     handler: tooMany('Too many sign-in attempts for this account; wait a few minutes'),
   });
-  const resetLimit = rateLimit({ windowMs: 15 * 60 * 1000, limit: deps.loginLimit, standardHeaders: 'draft-8', legacyHeaders: false, handler: tooMany('Too many reset requests; wait a few minutes') });
+  const resetLimit = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: deps.loginLimit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: tooMany('Too many reset requests; wait a few minutes'),
+  });
 
   routes.get('/csrf', policies.public, (req, res) => {
     res.json({ csrfToken: csrfTokenFor(req) });
@@ -65,7 +84,9 @@ export function createAuthRouter(deps: {
   });
 
   routes.post('/logout', policies.public, async (req, res) => {
-    await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
+    await new Promise<void>((resolve, reject) =>
+      req.logout((err) => (err ? reject(err) : resolve())),
+    );
     await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
     res.clearCookie('sheaf.sid');
     res.status(204).end();
@@ -78,7 +99,9 @@ export function createAuthRouter(deps: {
   routes.post('/password-reset', policies.public, resetLimit, async (req, res) => {
     const input = PasswordResetRequestSchema.parse(req.body);
     await auth.requestPasswordReset(input.email);
-    res.status(202).json({ message: 'If that address has an account, a reset link is on its way.' });
+    res
+      .status(202)
+      .json({ message: 'If that address has an account, a reset link is on its way.' });
   });
 
   routes.post('/password-reset/complete', policies.public, resetLimit, async (req, res) => {

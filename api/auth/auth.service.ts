@@ -16,14 +16,18 @@ export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, BCRYPT_COST);
 }
 
-export function createAuthService(deps: { dataSource: DataSource; mailer: Mailer; publicUrl: string }) {
+export function createAuthService(deps: {
+  dataSource: DataSource;
+  mailer: Mailer;
+  publicUrl: string;
+}) {
   const { dataSource, mailer, publicUrl } = deps;
 
   async function verifyPassword(email: string, password: string) {
-    const rows: { id: string; email: string; name: string; password_hash: string }[] = await dataSource.query(
-      'SELECT id, email, name, password_hash FROM users WHERE email = $1',
-      [email.trim().toLowerCase()],
-    );
+    const rows: { id: string; email: string; name: string; password_hash: string }[] =
+      await dataSource.query('SELECT id, email, name, password_hash FROM users WHERE email = $1', [
+        email.trim().toLowerCase(),
+      ]);
     const user = rows[0];
     const ok = await bcrypt.compare(password, user?.password_hash ?? DUMMY_HASH);
     if (!user || !ok) return null;
@@ -48,13 +52,20 @@ export function createAuthService(deps: { dataSource: DataSource; mailer: Mailer
     );
     return {
       ...user,
-      memberships: memberships.map((m) => ({ networkId: m.network_id, networkName: m.name, role: m.role })),
+      memberships: memberships.map((m) => ({
+        networkId: m.network_id,
+        networkName: m.name,
+        role: m.role,
+      })),
     };
   }
 
   /** Sends a reset link when the address has an account; says nothing either way. */
   async function requestPasswordReset(email: string): Promise<void> {
-    const rows: { id: string; name: string }[] = await dataSource.query('SELECT id, name FROM users WHERE email = $1', [email]);
+    const rows: { id: string; name: string }[] = await dataSource.query(
+      'SELECT id, name FROM users WHERE email = $1',
+      [email],
+    );
     const user = rows[0];
     if (!user) return;
     const { token, hash } = newToken();
@@ -85,18 +96,37 @@ export function createAuthService(deps: { dataSource: DataSource; mailer: Mailer
       );
       const row = rows[0];
       if (!row) {
-        throw new AppError(400, 'validation_failed', 'This reset link is invalid, used or expired; ask for a new one', {
-          fields: { token: 'invalid, used or expired' },
-        });
+        throw new AppError(
+          400,
+          'validation_failed',
+          'This reset link is invalid, used or expired; ask for a new one',
+          {
+            fields: { token: 'invalid, used or expired' },
+          },
+        );
       }
-      await manager.query('UPDATE users SET password_hash = $1 WHERE id = $2', [passwordHash, row.user_id]);
-      await manager.query('UPDATE password_reset_tokens SET used_at = now() WHERE user_id = $1 AND used_at IS NULL', [row.user_id]);
+      await manager.query('UPDATE users SET password_hash = $1 WHERE id = $2', [
+        passwordHash,
+        row.user_id,
+      ]);
+      await manager.query(
+        'UPDATE password_reset_tokens SET used_at = now() WHERE user_id = $1 AND used_at IS NULL',
+        [row.user_id],
+      );
       // Signing out everywhere: a reset usually means the old password leaked.
-      await manager.query(`DELETE FROM user_sessions WHERE sess->'passport'->>'user' = $1`, [row.user_id]);
+      await manager.query(`DELETE FROM user_sessions WHERE sess->'passport'->>'user' = $1`, [
+        row.user_id,
+      ]);
     });
   }
 
-  return { verifyPassword, findSessionUser, describeUser, requestPasswordReset, completePasswordReset };
+  return {
+    verifyPassword,
+    findSessionUser,
+    describeUser,
+    requestPasswordReset,
+    completePasswordReset,
+  };
 }
 
 export type AuthService = ReturnType<typeof createAuthService>;

@@ -9,13 +9,20 @@ async function databaseAnswers(dataSource: DataSource, timeoutMs: number): Promi
   const timeout = new Promise<boolean>((resolve) => {
     timer = setTimeout(() => resolve(false), timeoutMs);
   });
-  const query = dataSource.query('SELECT 1').then(() => true, () => false);
+  const query = dataSource.query('SELECT 1').then(
+    () => true,
+    () => false,
+  );
   const ok = await Promise.race([query, timeout]);
   clearTimeout(timer);
   return ok;
 }
 
-export function createHealthRouter(deps: { dataSource: DataSource; policies: Policies; table: RouteEntry[] }) {
+export function createHealthRouter(deps: {
+  dataSource: DataSource;
+  policies: Policies;
+  table: RouteEntry[];
+}) {
   const router = Router();
   const routes = secureRouter(router, deps.table, '/api');
   routes.get('/health', deps.policies.public, async (_req, res) => {

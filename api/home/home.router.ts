@@ -5,7 +5,11 @@ import type { Policies } from '../middleware/access';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 import { createHomeService } from './home.service';
 
-export function createHomeRouter(deps: { dataSource: DataSource; policies: Policies; table: RouteEntry[] }) {
+export function createHomeRouter(deps: {
+  dataSource: DataSource;
+  policies: Policies;
+  table: RouteEntry[];
+}) {
   const router = Router();
   const routes = secureRouter(router, deps.table, '/api');
   const home = createHomeService(deps.dataSource);

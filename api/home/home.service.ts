@@ -6,9 +6,17 @@ import type { TrialSummary } from '../../shared/schemas/trial';
 export function createHomeService(dataSource: DataSource) {
   /** Coordinators and admins see all their networks' trials; growers their own; members published ones. */
   async function listTrials(userId: string): Promise<TrialSummary[]> {
-    const rows: { id: string; network_id: string; network_name: string; name: string; crop: TrialSummary['crop']; season: string | null; status: TrialSummary['status']; site_count: string }[] =
-      await dataSource.query(
-        `SELECT t.id, t.network_id, n.name AS network_name, t.name, t.crop, t.season, t.status,
+    const rows: {
+      id: string;
+      network_id: string;
+      network_name: string;
+      name: string;
+      crop: TrialSummary['crop'];
+      season: string | null;
+      status: TrialSummary['status'];
+      site_count: string;
+    }[] = await dataSource.query(
+      `SELECT t.id, t.network_id, n.name AS network_name, t.name, t.crop, t.season, t.status,
                 (SELECT count(*) FROM sites s WHERE s.trial_id = t.id) AS site_count
            FROM trials t
            JOIN networks n ON n.id = t.network_id
@@ -17,8 +25,8 @@ export function createHomeService(dataSource: DataSource) {
              OR EXISTS (SELECT 1 FROM sites s WHERE s.trial_id = t.id AND s.grower_user_id = $1)
              OR EXISTS (SELECT 1 FROM report_snapshots r WHERE r.trial_id = t.id AND r.withdrawn_at IS NULL)
           ORDER BY t.season DESC NULLS LAST, t.created_at DESC`,
-        [userId],
-      );
+      [userId],
+    );
     return rows.map((r) => ({
       id: r.id,
       networkId: r.network_id,
@@ -32,9 +40,21 @@ export function createHomeService(dataSource: DataSource) {
   }
 
   async function listMySites(userId: string): Promise<SiteSummary[]> {
-    const rows: { id: string; trial_id: string; trial_name: string; crop: string | null; season: string | null; field_name: string; grower_name: string | null; grower_email: string | null; randomized: boolean; strip_count: string; with_yield: string; published_at: Date | null }[] =
-      await dataSource.query(
-        `SELECT s.id, s.trial_id, t.name AS trial_name, t.crop, t.season, s.field_name, u.name AS grower_name,
+    const rows: {
+      id: string;
+      trial_id: string;
+      trial_name: string;
+      crop: string | null;
+      season: string | null;
+      field_name: string;
+      grower_name: string | null;
+      grower_email: string | null;
+      randomized: boolean;
+      strip_count: string;
+      with_yield: string;
+      published_at: Date | null;
+    }[] = await dataSource.query(
+      `SELECT s.id, s.trial_id, t.name AS trial_name, t.crop, t.season, s.field_name, u.name AS grower_name,
                 COALESCE(u.email, s.grower_email) AS grower_email, s.randomized_at IS NOT NULL AS randomized,
                 (SELECT count(*) FROM strips st WHERE st.site_id = s.id) AS strip_count,
                 (SELECT count(*) FROM strips st JOIN observations o ON o.strip_id = st.id
@@ -43,8 +63,8 @@ export function createHomeService(dataSource: DataSource) {
            FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id
           WHERE s.grower_user_id = $1
           ORDER BY t.season DESC NULLS LAST, t.name, s.field_name`,
-        [userId],
-      );
+      [userId],
+    );
     return rows.map((r) => ({
       id: r.id,
       trialId: r.trial_id,

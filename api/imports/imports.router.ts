@@ -20,11 +20,17 @@ export function createImportsRouter(ctx: RouterContext) {
     res.send(`\uFEFF${csv}\r\n`);
   });
 
-  routes.post('/sites/:siteId/import', ctx.policies.siteGrower(), singleFile(IMPORT_MAX_BYTES), async (req, res) => {
-    if (!req.file) throw new ValidationError('Choose a CSV file to upload', { file: 'Choose a CSV file' });
-    const text = await csvText(req.file.buffer, req.file.mimetype);
-    res.json(await imports.importCsv(String(req.params.siteId), text, req.user!.id));
-  });
+  routes.post(
+    '/sites/:siteId/import',
+    ctx.policies.siteGrower(),
+    singleFile(IMPORT_MAX_BYTES),
+    async (req, res) => {
+      if (!req.file)
+        throw new ValidationError('Choose a CSV file to upload', { file: 'Choose a CSV file' });
+      const text = await csvText(req.file.buffer, req.file.mimetype);
+      res.json(await imports.importCsv(String(req.params.siteId), text, req.user!.id));
+    },
+  );
 
   return router;
 }

@@ -7,17 +7,32 @@ import type { ImportResult } from '../../shared/schemas/import';
 import { ObservationValuesSchema, type ObservationValues } from '../../shared/schemas/observation';
 import { recordAuditsInBulk, type AuditInput } from '../audit/audit.service';
 import { AppError, InvalidRows } from '../errors';
-import { bumpDataVersion, changedFields, loadSite, loadSiteStrips, lockSiteForChange, writeObservationsInBulk } from '../lib/strip-data';
+import {
+  bumpDataVersion,
+  changedFields,
+  loadSite,
+  loadSiteStrips,
+  lockSiteForChange,
+  writeObservationsInBulk,
+} from '../lib/strip-data';
 
 /** Reads an uploaded file as CSV text, refusing anything that is not text by its content. */
 export async function csvText(buffer: Buffer, declaredType: string): Promise<string> {
   const { fileTypeFromBuffer } = await import('file-type');
   const detected = await fileTypeFromBuffer(buffer);
   if (detected) {
-    throw new AppError(415, 'unsupported_media_type', `This file is ${detected.ext.toUpperCase()} (${detected.mime}), not CSV. In your spreadsheet use "Save as" → CSV.`);
+    throw new AppError(
+      415,
+      'unsupported_media_type',
+      `This file is ${detected.ext.toUpperCase()} (${detected.mime}), not CSV. In your spreadsheet use "Save as" → CSV.`,
+    );
   }
   if (/^(image|video|audio)\//.test(declaredType) || buffer.includes(0)) {
-    throw new AppError(415, 'unsupported_media_type', 'This file is not CSV text. In your spreadsheet use "Save as" → CSV.');
+    throw new AppError(
+      415,
+      'unsupported_media_type',
+      'This file is not CSV text. In your spreadsheet use "Save as" → CSV.',
+    );
   }
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(buffer);
@@ -33,10 +48,18 @@ export function createImportsService(deps: { dataSource: DataSource }) {
     async template(siteId: string): Promise<{ fileName: string; csv: string }> {
       const site = await loadSite(dataSource.manager, siteId);
       const strips = await loadSiteStrips(dataSource.manager, siteId);
-      const slug = site.fieldName.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'site';
+      const slug =
+        site.fieldName
+          .toLowerCase()
+          .replace(/[^a-z0-9]+/g, '-')
+          .replace(/^-|-$/g, '') || 'site';
       return {
         fileName: `sheaf-${slug}-strips.csv`,
-        csv: buildImportTemplate({ unitSystem: site.unitSystem, fieldName: site.fieldName, strips }),
+        csv: buildImportTemplate({
+          unitSystem: site.unitSystem,
+          fieldName: site.fieldName,
+          strips,
+        }),
       };
     },
 
@@ -44,7 +67,11 @@ export function createImportsService(deps: { dataSource: DataSource }) {
       return dataSource.transaction(async (manager) => {
         const site = await lockSiteForChange(manager, siteId);
         const strips = await loadSiteStrips(manager, siteId, { lock: true });
-        const parsed = parseImportCsv(text, { unitSystem: site.unitSystem, fieldName: site.fieldName, strips });
+        const parsed = parseImportCsv(text, {
+          unitSystem: site.unitSystem,
+          fieldName: site.fieldName,
+          strips,
+        });
         const byKey = new Map(strips.map((s) => [`${s.block}:${s.position}`, s]));
         const planned = [];
         const errors = [...parsed.errors];
@@ -52,14 +79,21 @@ export function createImportsService(deps: { dataSource: DataSource }) {
           const strip = byKey.get(`${row.block}:${row.position}`)!;
           const merged = ObservationValuesSchema.safeParse({ ...strip.values, ...row.patch });
           if (!merged.success) {
-            errors.push({ row: row.row, column: String(merged.error.issues[0]?.path[0] ?? ''), message: merged.error.issues[0]?.message ?? 'Invalid value' });
+            errors.push({
+              row: row.row,
+              column: String(merged.error.issues[0]?.path[0] ?? ''),
+              message: merged.error.issues[0]?.message ?? 'Invalid value',
+            });
             continue;
           }
           planned.push({ strip, values: merged.data });
         }
         if (errors.length > 0) {
           errors.sort((a, b) => a.row - b.row);
-          throw new InvalidRows(`${errors.length === 1 ? 'One problem' : `${errors.length} problems`} in the file; nothing was saved. Fix ${errors.length === 1 ? 'it' : 'them'} and upload again.`, errors);
+          throw new InvalidRows(
+            `${errors.length === 1 ? 'One problem' : `${errors.length} problems`} in the file; nothing was saved. Fix ${errors.length === 1 ? 'it' : 'them'} and upload again.`,
+            errors,
+          );
         }
         const writes: { stripId: string; values: ObservationValues }[] = [];
         const audits: AuditInput[] = [];
@@ -67,14 +101,29 @@ export function createImportsService(deps: { dataSource: DataSource }) {
           const diff = changedFields(strip.values, values);
           if (!diff) continue;
           writes.push({ stripId: strip.stripId, values });
-          audits.push({ actorUserId, entityType: 'strip', entityId: strip.stripId, siteId, action: 'import', before: diff.before, after: diff.after });
+          audits.push({
+            actorUserId,
+            entityType: 'strip',
+            entityId: strip.stripId,
+            siteId,
+            action: 'import',
+            before: diff.before,
+            after: diff.after,
+          });
         }
-        await manager.query('UPDATE strips SET version = version + 1 WHERE id = ANY($1::uuid[])', [writes.map((w) => w.stripId)]);
+        await manager.query('UPDATE strips SET version = version + 1 WHERE id = ANY($1::uuid[])', [
+          writes.map((w) => w.stripId),
+        ]);
         await writeObservationsInBulk(manager, writes, actorUserId);
         await recordAuditsInBulk(manager, audits);
         const changed = writes.length;
         const dataVersion = changed > 0 ? await bumpDataVersion(manager, siteId) : site.dataVersion;
-        return { rows: parsed.rows.length, changedStrips: changed, unchangedStrips: parsed.rows.length - changed, dataVersion };
+        return {
+          rows: parsed.rows.length,
+          changedStrips: changed,
+          unchangedStrips: parsed.rows.length - changed,
+          dataVersion,
+        };
       });
     },
   };

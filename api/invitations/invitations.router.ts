@@ -10,7 +10,13 @@ import type { Policies } from '../middleware/access';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 import type { InvitationsService } from './invitations.service';
 
-export function createInvitationsRouter(deps: { invitations: InvitationsService; auth: AuthService; policies: Policies; table: RouteEntry[]; inviteLimit: number }) {
+export function createInvitationsRouter(deps: {
+  invitations: InvitationsService;
+  auth: AuthService;
+  policies: Policies;
+  table: RouteEntry[];
+  inviteLimit: number;
+}) {
   const router = Router();
   const routes = secureRouter(router, deps.table, '/api');
   const { invitations, auth, policies } = deps;
@@ -23,16 +29,35 @@ export function createInvitationsRouter(deps: { invitations: InvitationsService;
       ...(key ? { keyGenerator: key } : {}),
       handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', message)),
     });
-  const invitePerUser = limit(deps.inviteLimit, 'Too many invitations sent in the last hour; try again later', (req) => `user:${req.user?.id ?? 'anonymous'}`);
+  const invitePerUser = limit(
+    deps.inviteLimit,
+    'Too many invitations sent in the last hour; try again later',
+    (req) => `user:${req.user?.id ?? 'anonymous'}`,
+  );
   const acceptPerIp = limit(deps.inviteLimit, 'Too many attempts; wait a while and try again');
 
-  routes.post('/networks/:networkId/invitations', policies.networkCoordinator(), invitePerUser, async (req, res) => {
-    const input = InvitationCreateSchema.parse(req.body);
-    const networkId = String(req.params.networkId);
-    const inviterRole = req.access!.roles.get(networkId)!;
-    const created = await invitations.invite({ ...input, networkId, invitedBy: req.user!.id, inviterRole });
-    res.status(201).json({ id: created.id, email: created.email, role: created.role, expiresAt: created.expiresAt });
-  });
+  routes.post(
+    '/networks/:networkId/invitations',
+    policies.networkCoordinator(),
+    invitePerUser,
+    async (req, res) => {
+      const input = InvitationCreateSchema.parse(req.body);
+      const networkId = String(req.params.networkId);
+      const inviterRole = req.access!.roles.get(networkId)!;
+      const created = await invitations.invite({
+        ...input,
+        networkId,
+        invitedBy: req.user!.id,
+        inviterRole,
+      });
+      res.status(201).json({
+        id: created.id,
+        email: created.email,
+        role: created.role,
+        expiresAt: created.expiresAt,
+      });
+    },
+  );
 
   routes.get('/invitations/:token', policies.public, async (req, res) => {
     // A malformed token is just an invitation that does not exist.

@@ -10,7 +10,11 @@ import { hashToken, newToken } from '../lib/tokens';
 
 const INVITATION_LIFETIME_MS = 14 * 24 * 60 * 60 * 1000;
 
-export function createInvitationsService(deps: { dataSource: DataSource; mailer: Mailer; publicUrl: string }) {
+export function createInvitationsService(deps: {
+  dataSource: DataSource;
+  mailer: Mailer;
+  publicUrl: string;
+}) {
   const { dataSource, mailer, publicUrl } = deps;
 
   /**
@@ -31,20 +35,32 @@ export function createInvitationsService(deps: { dataSource: DataSource; mailer:
       throw new Forbidden('Only an admin can invite coordinators and admins');
     }
     const db = input.manager ?? dataSource.manager;
-    const networkRows: { name: string }[] = await db.query('SELECT name FROM networks WHERE id = $1', [input.networkId]);
+    const networkRows: { name: string }[] = await db.query(
+      'SELECT name FROM networks WHERE id = $1',
+      [input.networkId],
+    );
     const network = networkRows[0];
     if (!network) throw new NotFound('Network');
     const existing = await db.query(
       `SELECT 1 FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email = $1 AND m.network_id = $2`,
       [input.email, input.networkId],
     );
-    if (existing.length > 0 && !input.siteId) throw new Conflict('That person is already in this network');
+    if (existing.length > 0 && !input.siteId)
+      throw new Conflict('That person is already in this network');
     const { token, hash } = newToken();
     const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_MS);
     const rows: { id: string }[] = await db.query(
       `INSERT INTO invitations (network_id, email, role, token_hash, invited_by, site_id, expires_at)
        VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
-      [input.networkId, input.email, input.role, hash, input.invitedBy, input.siteId ?? null, expiresAt],
+      [
+        input.networkId,
+        input.email,
+        input.role,
+        hash,
+        input.invitedBy,
+        input.siteId ?? null,
+        expiresAt,
+      ],
     );
     const trialLine = input.trialName
       ? `You have been enrolled as the grower of a site in the seeding-rate trial "${input.trialName}".`
@@ -52,7 +68,9 @@ export function createInvitationsService(deps: { dataSource: DataSource; mailer:
     await mailer.send(
       composeMail({
         to: input.email,
-        subject: input.trialName ? `Join the trial "${input.trialName}" on Sheaf` : `Join ${network.name} on Sheaf`,
+        subject: input.trialName
+          ? `Join the trial "${input.trialName}" on Sheaf`
+          : `Join ${network.name} on Sheaf`,
         paragraphs: [
           'Hello,',
           trialLine,
@@ -61,11 +79,24 @@ export function createInvitationsService(deps: { dataSource: DataSource; mailer:
         link: { label: 'Accept the invitation', url: `${publicUrl}/invite/${token}` },
       }),
     );
-    return { id: rows[0]!.id, email: input.email, role: input.role, expiresAt: expiresAt.toISOString(), token };
+    return {
+      id: rows[0]!.id,
+      email: input.email,
+      role: input.role,
+      expiresAt: expiresAt.toISOString(),
+      token,
+    };
   }
 
   async function findOpen(token: string, db: EntityManager = dataSource.manager) {
-    const rows: { id: string; network_id: string; email: string; role: Role; expires_at: Date; name: string }[] = await db.query(
+    const rows: {
+      id: string;
+      network_id: string;
+      email: string;
+      role: Role;
+      expires_at: Date;
+      name: string;
+    }[] = await db.query(
       `SELECT i.id, i.network_id, i.email, i.role, i.expires_at, n.name
          FROM invitations i JOIN networks n ON n.id = i.network_id
         WHERE i.token_hash = $1 AND i.accepted_at IS NULL AND i.expires_at > now()`,
@@ -77,7 +108,12 @@ export function createInvitationsService(deps: { dataSource: DataSource; mailer:
   async function preview(token: string): Promise<InvitationPreview> {
     const row = await findOpen(token);
     if (!row) throw new NotFound('Invitation');
-    return { email: row.email, role: row.role, networkName: row.name, expiresAt: new Date(row.expires_at).toISOString() };
+    return {
+      email: row.email,
+      role: row.role,
+      networkName: row.name,
+      expiresAt: new Date(row.expires_at).toISOString(),
+    };
   }
 
   /** Creates the account (or adds the membership) and returns the user id to sign in. */
@@ -86,14 +122,23 @@ export function createInvitationsService(deps: { dataSource: DataSource; mailer:
     return dataSource.transaction(async (manager) => {
       const row = await findOpen(input.token, manager);
       if (!row) {
-        throw new AppError(400, 'validation_failed', 'This invitation is invalid, used or expired; ask your coordinator for a new one', {
-          fields: { token: 'invalid, used or expired' },
-        });
+        throw new AppError(
+          400,
+          'validation_failed',
+          'This invitation is invalid, used or expired; ask your coordinator for a new one',
+          {
+            fields: { token: 'invalid, used or expired' },
+          },
+        );
       }
-      const users: { id: string }[] = await manager.query('SELECT id FROM users WHERE email = $1', [row.email]);
+      const users: { id: string }[] = await manager.query('SELECT id FROM users WHERE email = $1', [
+        row.email,
+      ]);
       let userId = users[0]?.id;
       if (userId) {
-        throw new Conflict('This e-mail already has an account: sign in instead and ask the coordinator to add you');
+        throw new Conflict(
+          'This e-mail already has an account: sign in instead and ask the coordinator to add you',
+        );
       }
       const created: { id: string }[] = await manager.query(
         'INSERT INTO users (email, name, password_hash) VALUES ($1, $2, $3) RETURNING id',
@@ -112,7 +157,10 @@ export function createInvitationsService(deps: { dataSource: DataSource; mailer:
             AND trial_id IN (SELECT id FROM trials WHERE network_id = $3)`,
         [userId, row.email, row.network_id],
       );
-      await manager.query('UPDATE invitations SET accepted_at = now() WHERE email = $1 AND network_id = $2 AND accepted_at IS NULL', [row.email, row.network_id]);
+      await manager.query(
+        'UPDATE invitations SET accepted_at = now() WHERE email = $1 AND network_id = $2 AND accepted_at IS NULL',
+        [row.email, row.network_id],
+      );
       return userId;
     });
   }

@@ -44,7 +44,12 @@ export function createFreshCache<V>(options: FreshCacheOptions = {}) {
   /** Computes a value; in the foreground it is shared at once, in the background only once done. */
   function load(key: string, compute: () => Promise<V>, previous?: Entry<V>): Entry<V> {
     const deletionsAtStart = deletions;
-    const entry: Entry<V> = { value: compute(), generation: dataGeneration(), created: Date.now(), refreshing: false };
+    const entry: Entry<V> = {
+      value: compute(),
+      generation: dataGeneration(),
+      created: Date.now(),
+      refreshing: false,
+    };
     if (!previous) store(key, entry);
     entry.value.then(
       () => {
@@ -86,4 +91,8 @@ export function createFreshCache<V>(options: FreshCacheOptions = {}) {
  * enough that a sign-out elsewhere or a role change takes effect almost at once, long enough that
  * a busy page does not ask PostgreSQL the same question on every request.
  */
-export const SHORT_LIVED: FreshCacheOptions = { keepAcrossWrites: true, maxAgeMs: 2000, maxEntries: 5000 };
+export const SHORT_LIVED: FreshCacheOptions = {
+  keepAcrossWrites: true,
+  maxAgeMs: 2000,
+  maxEntries: 5000,
+};

@@ -24,5 +24,11 @@ export function secureRouter(router: Router, table: RouteEntry[], mountPath: str
       table.push({ method, path: `${mountPath}${path}`, policy });
       router[method](path, policy.middleware, ...handlers);
     };
-  return { get: add('get'), post: add('post'), patch: add('patch'), put: add('put'), delete: add('delete') };
+  return {
+    get: add('get'),
+    post: add('post'),
+    patch: add('patch'),
+    put: add('put'),
+    delete: add('delete'),
+  };
 }

@@ -50,12 +50,19 @@ export interface StripRecord {
   updatedAt: string | null;
 }
 
-const num = (value: unknown): number | null => (value === null || value === undefined ? null : Number(value));
-const iso = (value: unknown): string | null => (value instanceof Date ? value.toISOString() : value === null || value === undefined ? null : String(value));
+const num = (value: unknown): number | null =>
+  value === null || value === undefined ? null : Number(value);
+const iso = (value: unknown): string | null =>
+  value instanceof Date
+    ? value.toISOString()
+    : value === null || value === undefined
+      ? null
+      : String(value);
 
 /** Which site: by its id, or by the id of one of its strips (saves a lookup on strip routes). */
 export type SiteKey = string | { stripId: string };
-const siteIdSql = (key: SiteKey) => (typeof key === 'string' ? '$1' : '(SELECT site_id FROM strips WHERE id = $1)');
+const siteIdSql = (key: SiteKey) =>
+  typeof key === 'string' ? '$1' : '(SELECT site_id FROM strips WHERE id = $1)';
 const siteKeyParam = (key: SiteKey) => (typeof key === 'string' ? key : key.stripId);
 
 const SITE_SELECT = `
@@ -71,8 +78,16 @@ const SITE_SELECT = `
     FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id`;
 
 /** The site with its trial's layout and rate levels, in one query; `lock` takes the row lock writers need. */
-export async function loadSite(manager: EntityManager, key: SiteKey, options: { lock?: boolean } = {}): Promise<SiteRecord> {
-  const rows = await preparedQuery(manager, `${SITE_SELECT} WHERE s.id = ${siteIdSql(key)}${options.lock ? ' FOR UPDATE OF s' : ''}`, [siteKeyParam(key)]);
+export async function loadSite(
+  manager: EntityManager,
+  key: SiteKey,
+  options: { lock?: boolean } = {},
+): Promise<SiteRecord> {
+  const rows = await preparedQuery(
+    manager,
+    `${SITE_SELECT} WHERE s.id = ${siteIdSql(key)}${options.lock ? ' FOR UPDATE OF s' : ''}`,
+    [siteKeyParam(key)],
+  );
   if (!rows[0]) throw new NotFound(typeof key === 'string' ? 'Site' : 'Strip');
   return toSiteRecord(rows[0]);
 }
@@ -114,10 +129,15 @@ function toSiteRecord(row: any): SiteRecord {
 
 /** The answer to a data change on a site whose report is published. */
 export const publishedSiteLocked = () =>
-  new Locked('The report for this site is published, so its data is read-only. Ask the coordinator to unpublish it to make changes.');
+  new Locked(
+    'The report for this site is published, so its data is read-only. Ask the coordinator to unpublish it to make changes.',
+  );
 
 /** Locks the site row for a data change and refuses when its report is published. */
-export async function lockSiteForChange(manager: EntityManager, siteId: string): Promise<SiteRecord> {
+export async function lockSiteForChange(
+  manager: EntityManager,
+  siteId: string,
+): Promise<SiteRecord> {
   const site = await loadSite(manager, siteId, { lock: true });
   if (site.publishedAt) throw publishedSiteLocked();
   return site;
@@ -181,7 +201,11 @@ function toStripRecord(row: any): StripRecord {
   };
 }
 
-export async function loadSiteStrips(manager: EntityManager, key: SiteKey, options: { lock?: boolean } = {}): Promise<StripRecord[]> {
+export async function loadSiteStrips(
+  manager: EntityManager,
+  key: SiteKey,
+  options: { lock?: boolean } = {},
+): Promise<StripRecord[]> {
   const rows = await preparedQuery(
     manager,
     `${STRIP_SELECT} WHERE st.site_id = ${siteIdSql(key)} ORDER BY st.block, st.position${options.lock ? ' FOR UPDATE OF st' : ''}`,
@@ -190,8 +214,16 @@ export async function loadSiteStrips(manager: EntityManager, key: SiteKey, optio
   return rows.map(toStripRecord);
 }
 
-export async function loadStrip(manager: EntityManager, stripId: string, options: { lock?: boolean } = {}): Promise<StripRecord> {
-  const rows = await preparedQuery(manager, `${STRIP_SELECT} WHERE st.id = $1${options.lock ? ' FOR UPDATE OF st' : ''}`, [stripId]);
+export async function loadStrip(
+  manager: EntityManager,
+  stripId: string,
+  options: { lock?: boolean } = {},
+): Promise<StripRecord> {
+  const rows = await preparedQuery(
+    manager,
+    `${STRIP_SELECT} WHERE st.id = $1${options.lock ? ' FOR UPDATE OF st' : ''}`,
+    [stripId],
+  );
   if (!rows[0]) throw new NotFound('Strip');
   return toStripRecord(rows[0]);
 }
@@ -199,7 +231,10 @@ export async function loadStrip(manager: EntityManager, stripId: string, options
 const sameValue = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
 /** The fields whose values differ, with their old and new values (for the audit trail). */
-export function changedFields(before: ObservationValues, after: ObservationValues): { before: Record<string, unknown>; after: Record<string, unknown> } | null {
+export function changedFields(
+  before: ObservationValues,
+  after: ObservationValues,
+): { before: Record<string, unknown>; after: Record<string, unknown> } | null {
   const old: Record<string, unknown> = {};
   const now: Record<string, unknown> = {};
   for (const key of Object.keys(after) as (keyof ObservationValues)[]) {
@@ -212,8 +247,13 @@ export function changedFields(before: ObservationValues, after: ObservationValue
 }
 
 /** Whether every field of a partial update already holds the given value. */
-export function patchAlreadyApplied(current: ObservationValues, patch: Partial<ObservationValues>): boolean {
-  return (Object.keys(patch) as (keyof ObservationValues)[]).every((key) => sameValue(current[key], patch[key]));
+export function patchAlreadyApplied(
+  current: ObservationValues,
+  patch: Partial<ObservationValues>,
+): boolean {
+  return (Object.keys(patch) as (keyof ObservationValues)[]).every((key) =>
+    sameValue(current[key], patch[key]),
+  );
 }
 
 const OBSERVATION_RECORD = `strip_id uuid, seeds_sown integer, stand_counts jsonb, stand_row_length numeric, tiller_plants integer,
@@ -311,14 +351,27 @@ const STRIP_CHANGE = `
   SELECT EXISTS (SELECT 1 FROM open_site) AS open, (SELECT version FROM bumped) AS version,
          (SELECT updated_at FROM written) AS updated_at, (SELECT data_version FROM versioned) AS data_version`;
 
-export type StripChangeOutcome = { kind: 'saved'; version: number; updatedAt: string } | { kind: 'stale' } | { kind: 'published' };
+export type StripChangeOutcome =
+  { kind: 'saved'; version: number; updatedAt: string } | { kind: 'stale' } | { kind: 'published' };
 
 /** Saves one strip's observation made on `version`, with its audit trail (see STRIP_CHANGE). */
 export async function changeStrip(
   manager: EntityManager,
-  change: { siteId: string; stripId: string; version: number; values: ObservationValues; actorUserId: string; before: Record<string, unknown>; after: Record<string, unknown> },
+  change: {
+    siteId: string;
+    stripId: string;
+    version: number;
+    values: ObservationValues;
+    actorUserId: string;
+    before: Record<string, unknown>;
+    after: Record<string, unknown>;
+  },
 ): Promise<StripChangeOutcome> {
-  const [row] = await preparedQuery<{ open: boolean; version: string | null; updated_at: Date | null }>(manager, STRIP_CHANGE, [
+  const [row] = await preparedQuery<{
+    open: boolean;
+    version: string | null;
+    updated_at: Date | null;
+  }>(manager, STRIP_CHANGE, [
     change.siteId,
     change.stripId,
     change.version,

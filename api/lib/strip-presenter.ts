@@ -27,7 +27,10 @@ export function stripContextFor(site: SiteRecord, multiplier: number): StripCont
   };
 }
 
-export function presentSite(site: SiteRecord, access: { canEdit: boolean; isCoordinator: boolean }): SiteContext {
+export function presentSite(
+  site: SiteRecord,
+  access: { canEdit: boolean; isCoordinator: boolean },
+): SiteContext {
   const crop = cropFacts(site.crop, site.customCrop);
   return {
     siteId: site.siteId,
@@ -63,9 +66,14 @@ export function presentSite(site: SiteRecord, access: { canEdit: boolean; isCoor
 }
 
 /** DTOs for strips of one site; the outlier check looks at every strip of the site. */
-export function presentStrips(site: SiteRecord, strips: readonly StripRecord[], allSiteStrips: readonly StripRecord[] = strips): StripDto[] {
+export function presentStrips(
+  site: SiteRecord,
+  strips: readonly StripRecord[],
+  allSiteStrips: readonly StripRecord[] = strips,
+): StripDto[] {
   const crop = cropFacts(site.crop, site.customCrop);
-  const derivedOf = (strip: StripRecord) => deriveStripValues(strip.values, stripContextFor(site, strip.rate));
+  const derivedOf = (strip: StripRecord) =>
+    deriveStripValues(strip.values, stripContextFor(site, strip.rate));
   const outliers = yieldOutliers(
     allSiteStrips.map((strip) => ({
       key: strip.stripId,

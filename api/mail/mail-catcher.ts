@@ -18,7 +18,9 @@ function addresses(value: AddressObject | AddressObject[] | undefined): string[]
   return list.flatMap((a) => a.value.map((v) => v.address ?? '')).filter(Boolean);
 }
 
-export async function startMailCatcher(options: { host?: string; port?: number; keep?: number } = {}): Promise<MailCatcher> {
+export async function startMailCatcher(
+  options: { host?: string; port?: number; keep?: number } = {},
+): Promise<MailCatcher> {
   const messages: CaughtMail[] = [];
   const waiters: { match: (m: CaughtMail) => boolean; resolve: (m: CaughtMail) => void }[] = [];
   const keep = options.keep ?? 500;

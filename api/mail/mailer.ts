@@ -38,8 +38,16 @@ export function escapeHtml(value: string): string {
 }
 
 /** Builds the text and HTML parts of a plain Sheaf e-mail with one call-to-action link. */
-export function composeMail(input: { to: string; subject: string; paragraphs: string[]; link?: { label: string; url: string }; footer?: string }): OutgoingMail {
-  const footer = input.footer ?? 'Sent by Sheaf for your grower network. If this was not meant for you, ignore it.';
+export function composeMail(input: {
+  to: string;
+  subject: string;
+  paragraphs: string[];
+  link?: { label: string; url: string };
+  footer?: string;
+}): OutgoingMail {
+  const footer =
+    input.footer ??
+    'Sent by Sheaf for your grower network. If this was not meant for you, ignore it.';
   const text = [
     ...input.paragraphs,
     ...(input.link ? [`${input.link.label}: ${input.link.url}`] : []),

@@ -67,7 +67,11 @@ export function createPolicies(dataSource: DataSource) {
     const value = req.params[name];
     // The 8-4-4-4-12 shape PostgreSQL's uuid type accepts: anything looser (36 dashes) reached
     // the query and came back as a 500 (invalid input syntax for type uuid).
-    if (typeof value !== 'string' || !/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value)) throw new NotFound(what);
+    if (
+      typeof value !== 'string' ||
+      !/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value)
+    )
+      throw new NotFound(what);
     return value;
   }
 
@@ -84,13 +88,20 @@ export function createPolicies(dataSource: DataSource) {
 
   function trialNetwork(trialId: string): Promise<string> {
     return trialNetworks.get(trialId, async () => {
-      const rows = await preparedQuery<{ network_id: string }>(dataSource, 'SELECT network_id FROM trials WHERE id = $1', [trialId]);
+      const rows = await preparedQuery<{ network_id: string }>(
+        dataSource,
+        'SELECT network_id FROM trials WHERE id = $1',
+        [trialId],
+      );
       if (!rows[0]) throw new NotFound('Trial');
       return rows[0].network_id;
     });
   }
 
-  interface SiteHome { networkId: string; trialId: string }
+  interface SiteHome {
+    networkId: string;
+    trialId: string;
+  }
   function siteHome(siteId: string): Promise<SiteHome> {
     return siteHomes.get(siteId, async () => {
       const rows = await preparedQuery<{ network_id: string; trial_id: string }>(
@@ -103,7 +114,10 @@ export function createPolicies(dataSource: DataSource) {
     });
   }
 
-  interface SiteState { growerUserId: string | null; published: boolean }
+  interface SiteState {
+    growerUserId: string | null;
+    published: boolean;
+  }
   function siteState(siteId: string): Promise<SiteState> {
     return siteStates.get(siteId, async () => {
       const rows = await preparedQuery<{ grower_user_id: string | null; published: boolean }>(
@@ -121,9 +135,15 @@ export function createPolicies(dataSource: DataSource) {
     attachments: 'SELECT site_id FROM attachments WHERE id = $1',
   };
   /** The site a strip or a photo belongs to. */
-  function parentSite(table: keyof typeof PARENT_SITE_SQL, id: string, what: string): Promise<string> {
+  function parentSite(
+    table: keyof typeof PARENT_SITE_SQL,
+    id: string,
+    what: string,
+  ): Promise<string> {
     return parentSites.get(`${table}:${id}`, async () => {
-      const rows = await preparedQuery<{ site_id: string }>(dataSource, PARENT_SITE_SQL[table], [id]);
+      const rows = await preparedQuery<{ site_id: string }>(dataSource, PARENT_SITE_SQL[table], [
+        id,
+      ]);
       if (!rows[0]) throw new NotFound(what);
       return rows[0].site_id;
     });
@@ -142,19 +162,31 @@ export function createPolicies(dataSource: DataSource) {
 
   function growsInTrial(trialId: string, userId: string): Promise<boolean> {
     return growersInTrial.get(`${trialId}:${userId}`, async () => {
-      const rows = await dataSource.query('SELECT 1 FROM sites WHERE trial_id = $1 AND grower_user_id = $2 LIMIT 1', [trialId, userId]);
+      const rows = await dataSource.query(
+        'SELECT 1 FROM sites WHERE trial_id = $1 AND grower_user_id = $2 LIMIT 1',
+        [trialId, userId],
+      );
       return rows.length > 0;
     });
   }
 
-  function policy(kind: PolicyKind, check: (req: Request) => Promise<void>, param?: string): Policy {
+  function policy(
+    kind: PolicyKind,
+    check: (req: Request) => Promise<void>,
+    param?: string,
+  ): Policy {
     const middleware = (req: Request, _res: Response, next: NextFunction) => {
       check(req).then(() => next(), next);
     };
     return { kind, param, middleware };
   }
 
-  async function checkSite(req: Request, siteId: string, allowGrower: boolean, allowMemberWhenPublished: boolean) {
+  async function checkSite(
+    req: Request,
+    siteId: string,
+    allowGrower: boolean,
+    allowMemberWhenPublished: boolean,
+  ) {
     const ctx = await context(req);
     const role = ctx.roles.get((await siteHome(siteId)).networkId);
     if (isCoordinating(role)) return;
@@ -172,63 +204,103 @@ export function createPolicies(dataSource: DataSource) {
     }),
     admin: policy('admin', async (req) => {
       const ctx = await context(req);
-      if (![...ctx.roles.values()].includes('admin')) throw new Forbidden('Only an admin can do this');
+      if (![...ctx.roles.values()].includes('admin'))
+        throw new Forbidden('Only an admin can do this');
     }),
     networkCoordinator: (param = 'networkId') =>
-      policy('network-coordinator', async (req) => {
-        const ctx = await context(req);
-        const networkId = uuidParam(req, param, 'Network');
-        const role = ctx.roles.get(networkId);
-        if (!role) throw new NotFound('Network');
-        if (!isCoordinating(role)) throw new Forbidden('Only a coordinator of this network can do this');
-      }, param),
+      policy(
+        'network-coordinator',
+        async (req) => {
+          const ctx = await context(req);
+          const networkId = uuidParam(req, param, 'Network');
+          const role = ctx.roles.get(networkId);
+          if (!role) throw new NotFound('Network');
+          if (!isCoordinating(role))
+            throw new Forbidden('Only a coordinator of this network can do this');
+        },
+        param,
+      ),
     trialCoordinator: (param = 'trialId') =>
-      policy('trial-coordinator', async (req) => {
-        const ctx = await context(req);
-        const networkId = await trialNetwork(uuidParam(req, param, 'Trial'));
-        const role = ctx.roles.get(networkId);
-        if (!role) throw new NotFound('Trial');
-        if (!isCoordinating(role)) throw new Forbidden('Only a coordinator of this trial can do this');
-      }, param),
+      policy(
+        'trial-coordinator',
+        async (req) => {
+          const ctx = await context(req);
+          const networkId = await trialNetwork(uuidParam(req, param, 'Trial'));
+          const role = ctx.roles.get(networkId);
+          if (!role) throw new NotFound('Trial');
+          if (!isCoordinating(role))
+            throw new Forbidden('Only a coordinator of this trial can do this');
+        },
+        param,
+      ),
     /** Coordinators read everything; growers read trials they have a site in; members only once something is published. */
     trialReader: (param = 'trialId') =>
-      policy('trial-reader', async (req) => {
-        const ctx = await context(req);
-        const trialId = uuidParam(req, param, 'Trial');
-        const networkId = await trialNetwork(trialId);
-        const role = ctx.roles.get(networkId);
-        if (!role) throw new NotFound('Trial');
-        if (isCoordinating(role)) return;
-        if (role === 'grower' && (await growsInTrial(trialId, ctx.userId))) return;
-        if (await trialHasPublished(trialId)) return;
-        throw new Forbidden('This trial has nothing published yet');
-      }, param),
+      policy(
+        'trial-reader',
+        async (req) => {
+          const ctx = await context(req);
+          const trialId = uuidParam(req, param, 'Trial');
+          const networkId = await trialNetwork(trialId);
+          const role = ctx.roles.get(networkId);
+          if (!role) throw new NotFound('Trial');
+          if (isCoordinating(role)) return;
+          if (role === 'grower' && (await growsInTrial(trialId, ctx.userId))) return;
+          if (await trialHasPublished(trialId)) return;
+          throw new Forbidden('This trial has nothing published yet');
+        },
+        param,
+      ),
     /** The pooled report: coordinators always; everyone else in the network once it is published. */
     pooledReader: (param = 'trialId') =>
-      policy('pooled-reader', async (req) => {
-        const ctx = await context(req);
-        const trialId = uuidParam(req, param, 'Trial');
-        const role = ctx.roles.get(await trialNetwork(trialId));
-        if (!role) throw new NotFound('Trial');
-        if (isCoordinating(role)) return;
-        if (!(await trialHasPublished(trialId, 'pooled'))) throw new Forbidden('The pooled report is not published yet');
-      }, param),
+      policy(
+        'pooled-reader',
+        async (req) => {
+          const ctx = await context(req);
+          const trialId = uuidParam(req, param, 'Trial');
+          const role = ctx.roles.get(await trialNetwork(trialId));
+          if (!role) throw new NotFound('Trial');
+          if (isCoordinating(role)) return;
+          if (!(await trialHasPublished(trialId, 'pooled')))
+            throw new Forbidden('The pooled report is not published yet');
+        },
+        param,
+      ),
     siteCoordinator: (param = 'siteId') =>
-      policy('site-coordinator', (req) => checkSite(req, uuidParam(req, param, 'Site'), false, false), param),
+      policy(
+        'site-coordinator',
+        (req) => checkSite(req, uuidParam(req, param, 'Site'), false, false),
+        param,
+      ),
     siteGrower: (param = 'siteId') =>
-      policy('site-grower', (req) => checkSite(req, uuidParam(req, param, 'Site'), true, false), param),
+      policy(
+        'site-grower',
+        (req) => checkSite(req, uuidParam(req, param, 'Site'), true, false),
+        param,
+      ),
     siteReader: (param = 'siteId') =>
-      policy('site-reader', (req) => checkSite(req, uuidParam(req, param, 'Site'), true, true), param),
+      policy(
+        'site-reader',
+        (req) => checkSite(req, uuidParam(req, param, 'Site'), true, true),
+        param,
+      ),
     stripGrower: (param = 'stripId') =>
-      policy('strip-grower', async (req) => {
-        const siteId = await parentSite('strips', uuidParam(req, param, 'Strip'), 'Strip');
-        await checkSite(req, siteId, true, false);
-      }, param),
+      policy(
+        'strip-grower',
+        async (req) => {
+          const siteId = await parentSite('strips', uuidParam(req, param, 'Strip'), 'Strip');
+          await checkSite(req, siteId, true, false);
+        },
+        param,
+      ),
     attachmentReader: (param = 'attachmentId') =>
-      policy('attachment-reader', async (req) => {
-        const siteId = await parentSite('attachments', uuidParam(req, param, 'Photo'), 'Photo');
-        await checkSite(req, siteId, true, true);
-      }, param),
+      policy(
+        'attachment-reader',
+        async (req) => {
+          const siteId = await parentSite('attachments', uuidParam(req, param, 'Photo'), 'Photo');
+          await checkSite(req, siteId, true, true);
+        },
+        param,
+      ),
   };
 }
 

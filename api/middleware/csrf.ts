@@ -29,7 +29,9 @@ export const requireCsrf: RequestHandler = (req, _res, next) => {
   const sent = req.get('x-csrf-token');
   const expected = req.session?.csrfToken;
   if (!sent || !expected || !sameToken(sent, expected)) {
-    return next(new AppError(403, 'csrf_invalid', 'The form expired; reload the page and try again'));
+    return next(
+      new AppError(403, 'csrf_invalid', 'The form expired; reload the page and try again'),
+    );
   }
   next();
 };

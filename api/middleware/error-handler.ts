@@ -20,9 +20,12 @@ export function zodToFields(error: ZodError): Record<string, string> {
 function isDatabaseDown(error: unknown): boolean {
   const e = error as { code?: string; message?: string; driverError?: { code?: string } } | null;
   const code = e?.code ?? e?.driverError?.code;
-  if (code && ['ECONNREFUSED', 'ECONNRESET', '57P01', '57P03', 'ETIMEDOUT', 'EPIPE'].includes(code)) return true;
+  if (code && ['ECONNREFUSED', 'ECONNRESET', '57P01', '57P03', 'ETIMEDOUT', 'EPIPE'].includes(code))
+    return true;
   const message = e?.message ?? '';
-  return /Connection terminated|timeout exceeded when trying to connect|connect ECONNREFUSED|Client has encountered a connection error|the database system is (shutting down|starting up)/i.test(message);
+  return /Connection terminated|timeout exceeded when trying to connect|connect ECONNREFUSED|Client has encountered a connection error|the database system is (shutting down|starting up)/i.test(
+    message,
+  );
 }
 
 export const notFoundApi: RequestHandler = (_req, _res, next) => {
@@ -34,27 +37,50 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof ZodError) {
     const fields = zodToFields(err);
     res.status(400).json({
-      error: { code: 'validation_failed', message: `Check ${Object.keys(fields).join(', ')}`, fields },
+      error: {
+        code: 'validation_failed',
+        message: `Check ${Object.keys(fields).join(', ')}`,
+        fields,
+      },
     });
     return;
   }
   if (err instanceof AppError) {
-    res.status(err.status).json({ error: { code: err.code, message: err.message, ...err.details } });
+    res
+      .status(err.status)
+      .json({ error: { code: err.code, message: err.message, ...err.details } });
     return;
   }
-  const status = (err as { status?: number; statusCode?: number }).status ?? (err as { statusCode?: number }).statusCode;
+  const status =
+    (err as { status?: number; statusCode?: number }).status ??
+    (err as { statusCode?: number }).statusCode;
   if (status === 413 || (err as { code?: string }).code === 'LIMIT_FILE_SIZE') {
-    res.status(413).json({ error: { code: 'payload_too_large', message: 'The upload is larger than allowed' } });
+    res
+      .status(413)
+      .json({ error: { code: 'payload_too_large', message: 'The upload is larger than allowed' } });
     return;
   }
   if (status === 400 && (err as { type?: string }).type === 'entity.parse.failed') {
-    res.status(400).json({ error: { code: 'validation_failed', message: 'The request body is not valid JSON', fields: { _: 'invalid JSON' } } });
+    res.status(400).json({
+      error: {
+        code: 'validation_failed',
+        message: 'The request body is not valid JSON',
+        fields: { _: 'invalid JSON' },
+      },
+    });
     return;
   }
   if (isDatabaseDown(err)) {
-    res.status(503).json({ error: { code: 'service_unavailable', message: 'The database is not reachable; try again in a moment' } });
+    res.status(503).json({
+      error: {
+        code: 'service_unavailable',
+        message: 'The database is not reachable; try again in a moment',
+      },
+    });
     return;
   }
   console.error(`[sheaf] ${req.method} ${req.originalUrl} failed:`, err);
-  res.status(500).json({ error: { code: 'internal_error', message: 'Something went wrong on the server' } });
+  res
+    .status(500)
+    .json({ error: { code: 'internal_error', message: 'Something went wrong on the server' } });
 };

@@ -31,11 +31,16 @@ export function createSessionMiddleware(config: AppConfig, pool: pg.Pool) {
         sid,
         () =>
           new Promise<string | null>((resolve, reject) => {
-            super.get(sid, (err: unknown, data?: session.SessionData | null) => (err ? reject(err) : resolve(data ? JSON.stringify(data) : null)));
+            super.get(sid, (err: unknown, data?: session.SessionData | null) =>
+              err ? reject(err) : resolve(data ? JSON.stringify(data) : null),
+            );
           }),
       );
       // Each request gets its own copy: express-session changes the object it is given.
-      stored.then((text) => callback(null, text === null ? null : JSON.parse(text)), (err: unknown) => callback(err));
+      stored.then(
+        (text) => callback(null, text === null ? null : JSON.parse(text)),
+        (err: unknown) => callback(err),
+      );
     }
     // Forget the session before and after the write: a read in between would cache the old row.
     override set(sid: string, data: session.SessionData, callback?: (err?: unknown) => void) {
@@ -55,7 +60,13 @@ export function createSessionMiddleware(config: AppConfig, pool: pg.Pool) {
   }
   return session({
     // No touch on every request: a read-only request then costs at most one session SELECT.
-    store: new CachedPgStore({ pool, tableName: 'user_sessions', createTableIfMissing: false, pruneSessionInterval: 60 * 15, disableTouch: true }),
+    store: new CachedPgStore({
+      pool,
+      tableName: 'user_sessions',
+      createTableIfMissing: false,
+      pruneSessionInterval: 60 * 15,
+      disableTouch: true,
+    }),
     name: 'sheaf.sid',
     secret: config.SESSION_SECRET,
     resave: false,
@@ -74,14 +85,19 @@ export function createSessionMiddleware(config: AppConfig, pool: pg.Pool) {
 export function createPassport(auth: AuthService) {
   const instance = new passport.Passport();
   instance.use(
-    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, (email, password, done) => {
-      auth.verifyPassword(email, password).then((user) => done(null, user ?? false), done);
-    }),
+    new LocalStrategy(
+      { usernameField: 'email', passwordField: 'password' },
+      (email, password, done) => {
+        auth.verifyPassword(email, password).then((user) => done(null, user ?? false), done);
+      },
+    ),
   );
   instance.serializeUser((user, done) => done(null, user.id));
   const users = createFreshCache<Express.User | null>(SHORT_LIVED);
   instance.deserializeUser((id: string, done) => {
-    users.get(id, async () => (await auth.findSessionUser(id)) ?? null).then((user) => done(null, user ?? false), done);
+    users
+      .get(id, async () => (await auth.findSessionUser(id)) ?? null)
+      .then((user) => done(null, user ?? false), done);
   });
   return instance;
 }

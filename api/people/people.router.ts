@@ -23,20 +23,30 @@ export function createPeopleRouter(ctx: RouterContext) {
     res.json(await people.list(String(req.params.networkId)));
   });
 
-  routes.patch('/networks/:networkId/members/:userId', ctx.policies.networkCoordinator(), async (req, res) => {
-    const networkId = String(req.params.networkId);
-    const userId = idParam(req.params.userId, 'Person');
-    const { role } = MemberRoleUpdateSchema.parse(req.body);
-    const actorRole = req.access!.roles.get(networkId)!;
-    res.json(await people.changeRole({ networkId, userId, role, actorUserId: req.user!.id, actorRole }));
-  });
+  routes.patch(
+    '/networks/:networkId/members/:userId',
+    ctx.policies.networkCoordinator(),
+    async (req, res) => {
+      const networkId = String(req.params.networkId);
+      const userId = idParam(req.params.userId, 'Person');
+      const { role } = MemberRoleUpdateSchema.parse(req.body);
+      const actorRole = req.access!.roles.get(networkId)!;
+      res.json(
+        await people.changeRole({ networkId, userId, role, actorUserId: req.user!.id, actorRole }),
+      );
+    },
+  );
 
-  routes.delete('/networks/:networkId/invitations/:invitationId', ctx.policies.networkCoordinator(), async (req, res) => {
-    const networkId = String(req.params.networkId);
-    const invitationId = idParam(req.params.invitationId, 'Invitation');
-    await people.revokeInvitation({ networkId, invitationId, actorUserId: req.user!.id });
-    res.status(204).end();
-  });
+  routes.delete(
+    '/networks/:networkId/invitations/:invitationId',
+    ctx.policies.networkCoordinator(),
+    async (req, res) => {
+      const networkId = String(req.params.networkId);
+      const invitationId = idParam(req.params.invitationId, 'Invitation');
+      await people.revokeInvitation({ networkId, invitationId, actorUserId: req.user!.id });
+      res.status(204).end();
+    },
+  );
 
   return router;
 }

@@ -3,7 +3,11 @@
 // removes coordinator and admin, and the network always keeps at least one admin.
 import type { DataSource } from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
-import { grantableRoles, type NetworkMember, type NetworkPeople } from '../../shared/schemas/people';
+import {
+  grantableRoles,
+  type NetworkMember,
+  type NetworkPeople,
+} from '../../shared/schemas/people';
 import { recordAudit } from '../audit/audit.service';
 import { Conflict, Forbidden, NotFound } from '../errors';
 
@@ -23,13 +27,28 @@ const MEMBER_SELECT = `
    WHERE m.network_id = $1`;
 
 function presentMember(row: MemberRow): NetworkMember {
-  return { userId: row.user_id, name: row.name, email: row.email, role: row.role, siteCount: Number(row.site_count) };
+  return {
+    userId: row.user_id,
+    name: row.name,
+    email: row.email,
+    role: row.role,
+    siteCount: Number(row.site_count),
+  };
 }
 
 export function createPeopleService(dataSource: DataSource) {
   async function list(networkId: string): Promise<NetworkPeople> {
-    const members: MemberRow[] = await dataSource.query(`${MEMBER_SELECT} ORDER BY lower(u.name), u.email`, [networkId]);
-    const invitations: { id: string; email: string; role: Role; expires_at: Date; created_at: Date }[] = await dataSource.query(
+    const members: MemberRow[] = await dataSource.query(
+      `${MEMBER_SELECT} ORDER BY lower(u.name), u.email`,
+      [networkId],
+    );
+    const invitations: {
+      id: string;
+      email: string;
+      role: Role;
+      expires_at: Date;
+      created_at: Date;
+    }[] = await dataSource.query(
       `SELECT id, email, role, expires_at, created_at FROM invitations
         WHERE network_id = $1 AND accepted_at IS NULL AND expires_at > now()
         ORDER BY created_at DESC`,
@@ -47,7 +66,13 @@ export function createPeopleService(dataSource: DataSource) {
     };
   }
 
-  async function changeRole(input: { networkId: string; userId: string; role: Role; actorUserId: string; actorRole: Role }): Promise<NetworkMember> {
+  async function changeRole(input: {
+    networkId: string;
+    userId: string;
+    role: Role;
+    actorUserId: string;
+    actorRole: Role;
+  }): Promise<NetworkMember> {
     return dataSource.transaction(async (manager) => {
       // Lock the network's memberships so two admins demoting each other cannot both succeed.
       const rows: { id: string; user_id: string; role: Role }[] = await manager.query(
@@ -62,9 +87,14 @@ export function createPeopleService(dataSource: DataSource) {
       }
       if (target.role !== input.role) {
         if (target.role === 'admin' && rows.filter((r) => r.role === 'admin').length === 1) {
-          throw new Conflict('This is the network’s last admin; make someone else an admin first', { role: target.role });
+          throw new Conflict('This is the network’s last admin; make someone else an admin first', {
+            role: target.role,
+          });
         }
-        await manager.query('UPDATE memberships SET role = $1 WHERE id = $2', [input.role, target.id]);
+        await manager.query('UPDATE memberships SET role = $1 WHERE id = $2', [
+          input.role,
+          target.id,
+        ]);
         await recordAudit(manager, {
           actorUserId: input.actorUserId,
           entityType: 'membership',
@@ -74,12 +104,19 @@ export function createPeopleService(dataSource: DataSource) {
           after: { userId: input.userId, networkId: input.networkId, role: input.role },
         });
       }
-      const updated: MemberRow[] = await manager.query(`${MEMBER_SELECT} AND m.user_id = $2`, [input.networkId, input.userId]);
+      const updated: MemberRow[] = await manager.query(`${MEMBER_SELECT} AND m.user_id = $2`, [
+        input.networkId,
+        input.userId,
+      ]);
       return presentMember(updated[0]!);
     });
   }
 
-  async function revokeInvitation(input: { networkId: string; invitationId: string; actorUserId: string }): Promise<void> {
+  async function revokeInvitation(input: {
+    networkId: string;
+    invitationId: string;
+    actorUserId: string;
+  }): Promise<void> {
     await dataSource.transaction(async (manager) => {
       const rows: { id: string; email: string; role: Role }[] = await manager.query(
         // WITH … SELECT: TypeORM answers a bare UPDATE … RETURNING with [rows, count].

@@ -9,7 +9,11 @@ import { recordAudit } from '../audit/audit.service';
 import { AppError, NotFound, ValidationError } from '../errors';
 import { lockSiteForChange } from '../lib/strip-data';
 
-const EXTENSIONS: Record<(typeof PHOTO_TYPES)[number], string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' };
+const EXTENSIONS: Record<(typeof PHOTO_TYPES)[number], string> = {
+  'image/jpeg': 'jpg',
+  'image/png': 'png',
+  'image/webp': 'webp',
+};
 
 interface PhotoRow {
   id: string;
@@ -46,16 +50,31 @@ export function createPhotosService(deps: { dataSource: DataSource; uploadDir: s
   const folder = path.resolve(deps.uploadDir);
 
   return {
-    async upload(siteId: string, file: { buffer: Buffer; originalname: string }, fields: UploadPhotoFields, actorUserId: string): Promise<PhotoDto> {
+    async upload(
+      siteId: string,
+      file: { buffer: Buffer; originalname: string },
+      fields: UploadPhotoFields,
+      actorUserId: string,
+    ): Promise<PhotoDto> {
       const { fileTypeFromBuffer } = await import('file-type');
       const detected = await fileTypeFromBuffer(file.buffer);
       const mime = detected?.mime as (typeof PHOTO_TYPES)[number] | undefined;
       if (!mime || !PHOTO_TYPES.includes(mime)) {
-        throw new AppError(415, 'unsupported_media_type', 'Only JPEG, PNG and WebP photos can be uploaded.');
+        throw new AppError(
+          415,
+          'unsupported_media_type',
+          'Only JPEG, PNG and WebP photos can be uploaded.',
+        );
       }
       if (fields.stripId) {
-        const rows = await dataSource.query('SELECT 1 FROM strips WHERE id = $1 AND site_id = $2', [fields.stripId, siteId]);
-        if (rows.length === 0) throw new ValidationError('That strip is not on this site', { stripId: 'Not a strip of this site' });
+        const rows = await dataSource.query('SELECT 1 FROM strips WHERE id = $1 AND site_id = $2', [
+          fields.stripId,
+          siteId,
+        ]);
+        if (rows.length === 0)
+          throw new ValidationError('That strip is not on this site', {
+            stripId: 'Not a strip of this site',
+          });
       }
       fs.mkdirSync(folder, { recursive: true });
       const storedName = `${crypto.randomUUID()}.${EXTENSIONS[mime]}`;
@@ -67,9 +86,25 @@ export function createPhotosService(deps: { dataSource: DataSource; uploadDir: s
           const [row] = await manager.query(
             `INSERT INTO attachments (site_id, strip_id, uploaded_by, stored_name, original_name, mime_type, size_bytes, caption)
              VALUES ($1, $2, $3, $4, $5, $6, $7, $8) RETURNING id`,
-            [siteId, fields.stripId ?? null, actorUserId, storedName, file.originalname.slice(0, 200), mime, file.buffer.length, fields.caption],
+            [
+              siteId,
+              fields.stripId ?? null,
+              actorUserId,
+              storedName,
+              file.originalname.slice(0, 200),
+              mime,
+              file.buffer.length,
+              fields.caption,
+            ],
           );
-          await recordAudit(manager, { actorUserId, entityType: 'photo', entityId: row.id, siteId, action: 'upload', after: { stripId: fields.stripId ?? null, caption: fields.caption } });
+          await recordAudit(manager, {
+            actorUserId,
+            entityType: 'photo',
+            entityId: row.id,
+            siteId,
+            action: 'upload',
+            after: { stripId: fields.stripId ?? null, caption: fields.caption },
+          });
           return row.id as string;
         });
         const [row] = await dataSource.query(`${SELECT} WHERE a.id = $1`, [id]);
@@ -82,14 +117,22 @@ export function createPhotosService(deps: { dataSource: DataSource; uploadDir: s
 
     async list(siteId: string, stripId?: string): Promise<PhotoDto[]> {
       const rows: PhotoRow[] = stripId
-        ? await dataSource.query(`${SELECT} WHERE a.site_id = $1 AND a.strip_id = $2 ORDER BY a.created_at DESC`, [siteId, stripId])
-        : await dataSource.query(`${SELECT} WHERE a.site_id = $1 ORDER BY a.created_at DESC`, [siteId]);
+        ? await dataSource.query(
+            `${SELECT} WHERE a.site_id = $1 AND a.strip_id = $2 ORDER BY a.created_at DESC`,
+            [siteId, stripId],
+          )
+        : await dataSource.query(`${SELECT} WHERE a.site_id = $1 ORDER BY a.created_at DESC`, [
+            siteId,
+          ]);
       return rows.map(present);
     },
 
     /** Where the photo's file is and what it is; the caller streams it. */
     async file(photoId: string): Promise<{ path: string; mimeType: string; sizeBytes: number }> {
-      const [row] = await dataSource.query('SELECT stored_name, mime_type, size_bytes FROM attachments WHERE id = $1', [photoId]);
+      const [row] = await dataSource.query(
+        'SELECT stored_name, mime_type, size_bytes FROM attachments WHERE id = $1',
+        [photoId],
+      );
       if (!row) throw new NotFound('Photo');
       const file = path.join(folder, path.basename(row.stored_name));
       if (!fs.existsSync(file)) throw new NotFound('Photo');

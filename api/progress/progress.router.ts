@@ -8,7 +8,11 @@ import { createProgressService } from './progress.service';
 export function createProgressRouter(ctx: RouterContext) {
   const router = Router();
   const routes = secureRouter(router, ctx.table, '/api');
-  const progress = createProgressService({ dataSource: ctx.dataSource, mailer: ctx.mailer, publicUrl: ctx.config.PUBLIC_URL });
+  const progress = createProgressService({
+    dataSource: ctx.dataSource,
+    mailer: ctx.mailer,
+    publicUrl: ctx.config.PUBLIC_URL,
+  });
 
   routes.get('/trials/:trialId/progress', ctx.policies.trialCoordinator(), async (req, res) => {
     res.json(await progress.progress(String(req.params.trialId)));

@@ -14,7 +14,11 @@ import { NotFound } from '../errors';
 import { loadSite, loadSiteStrips } from '../lib/strip-data';
 import { composeMail, type Mailer } from '../mail/mailer';
 
-export function createProgressService(deps: { dataSource: DataSource; mailer: Mailer; publicUrl: string }) {
+export function createProgressService(deps: {
+  dataSource: DataSource;
+  mailer: Mailer;
+  publicUrl: string;
+}) {
   const { dataSource } = deps;
 
   async function progress(trialId: string): Promise<TrialProgress> {
@@ -41,7 +45,12 @@ export function createProgressService(deps: { dataSource: DataSource; mailer: Ma
         growerEmail: site.growerEmail,
         stripCount: strips.length,
         recorded,
-        dates: { sowingDate: site.sowingDate, emergenceDate: site.emergenceDate, headingDate: site.headingDate, harvestDate: site.harvestDate },
+        dates: {
+          sowingDate: site.sowingDate,
+          emergenceDate: site.emergenceDate,
+          headingDate: site.headingDate,
+          harvestDate: site.harvestDate,
+        },
         publishedAt: site.publishedAt,
         lastChangeAt: row.last_change ? row.last_change.toISOString() : null,
       });
@@ -77,7 +86,10 @@ export function createProgressService(deps: { dataSource: DataSource; mailer: Ma
           result.skipped.push({ siteId: site.siteId, reason: 'The site has no grower e-mail' });
           continue;
         }
-        const lines = missing.map((m) => `${MEASUREMENT_GROUP_NAMES[m.group]}: ${m.count} of ${site.stripCount} strips still to enter.`);
+        const lines = missing.map(
+          (m) =>
+            `${MEASUREMENT_GROUP_NAMES[m.group]}: ${m.count} of ${site.stripCount} strips still to enter.`,
+        );
         const mail = composeMail({
           to: site.growerEmail,
           subject: `Sheaf: numbers still missing for ${site.fieldName}`,

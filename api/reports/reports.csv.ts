@@ -33,25 +33,57 @@ const DERIVED_COLUMNS: (keyof DerivedValues)[] = [
   'returnOverSeedCostPerAcre',
 ];
 
-const round = (value: number | null, digits = 4) => (value === null ? null : Number(value.toFixed(digits)));
+const round = (value: number | null, digits = 4) =>
+  value === null ? null : Number(value.toFixed(digits));
 
-export function stripsCsv(trial: TrialFacts, sites: readonly SiteRow[], strips: readonly DerivedStrip[]): string {
+export function stripsCsv(
+  trial: TrialFacts,
+  sites: readonly SiteRow[],
+  strips: readonly DerivedStrip[],
+): string {
   const siteById = new Map(sites.map((s) => [s.id, s]));
   const lengthUnit = trial.unitSystem === 'metric' ? 'm' : 'ft';
   const weightUnit = trial.unitSystem === 'metric' ? 'kg' : 'lb';
   const header = [
-    'trial', 'site_id', 'field', 'grower', 'soil', 'previous_crop', 'block', 'position', 'rate_multiplier', 'rate_label',
-    'seeds_sown', 'stand_counts', `stand_row_length_${lengthUnit}`, 'tiller_plants', 'tiller_count', 'head_counts',
-    `head_row_length_${lengthUnit}`, `grain_weight_${weightUnit}`, 'harvest_rows', `harvest_length_${lengthUnit}`,
-    `harvest_area_${lengthUnit}2`, 'moisture_pct', 'test_weight', 'sowing_date', 'emergence_date', 'heading_date',
-    'harvest_date', 'notes',
+    'trial',
+    'site_id',
+    'field',
+    'grower',
+    'soil',
+    'previous_crop',
+    'block',
+    'position',
+    'rate_multiplier',
+    'rate_label',
+    'seeds_sown',
+    'stand_counts',
+    `stand_row_length_${lengthUnit}`,
+    'tiller_plants',
+    'tiller_count',
+    'head_counts',
+    `head_row_length_${lengthUnit}`,
+    `grain_weight_${weightUnit}`,
+    'harvest_rows',
+    `harvest_length_${lengthUnit}`,
+    `harvest_area_${lengthUnit}2`,
+    'moisture_pct',
+    'test_weight',
+    'sowing_date',
+    'emergence_date',
+    'heading_date',
+    'harvest_date',
+    'notes',
     ...DERIVED_COLUMNS.map((c) => c.replace(/[A-Z]/g, (m) => `_${m.toLowerCase()}`)),
   ];
   const lines = [header.map(csvCell).join(',')];
   const ordered = [...strips].sort((a, b) => {
     const siteA = siteById.get(a.strip.siteId)?.fieldName ?? '';
     const siteB = siteById.get(b.strip.siteId)?.fieldName ?? '';
-    return siteA.localeCompare(siteB) || a.strip.block - b.strip.block || a.strip.position - b.strip.position;
+    return (
+      siteA.localeCompare(siteB) ||
+      a.strip.block - b.strip.block ||
+      a.strip.position - b.strip.position
+    );
   });
   for (const s of ordered) {
     const site = siteById.get(s.strip.siteId);

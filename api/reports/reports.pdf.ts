@@ -12,7 +12,12 @@ import {
   stripMapSpec,
   type ChartSpec,
 } from '../../shared/reports/chart-specs';
-import { decimalsFor, formatMoney, formatNumber, formatP } from '../../shared/reports/format-numbers';
+import {
+  decimalsFor,
+  formatMoney,
+  formatNumber,
+  formatP,
+} from '../../shared/reports/format-numbers';
 import { rateName } from '../../shared/reports/findings';
 import type { PooledReport, SiteReport } from '../../shared/schemas/report';
 import { escapeHtml as esc } from '../mail/mailer';
@@ -77,10 +82,20 @@ function table(head: string[], rows: (string | number)[][]): string {
     .join('')}</tbody></table>`;
 }
 
-function anovaTable(rows: { source: string; df: number; ss: number; ms?: number; f?: number; p?: number }[], digits: number): string {
+function anovaTable(
+  rows: { source: string; df: number; ss: number; ms?: number; f?: number; p?: number }[],
+  digits: number,
+): string {
   return table(
     ['Source', 'df', 'Sum of squares', 'Mean square', 'F', 'p'],
-    rows.map((r) => [r.source, r.df, formatNumber(r.ss, digits), r.ms === undefined ? '' : formatNumber(r.ms, digits), r.f === undefined ? '' : formatNumber(r.f, 2), r.p === undefined ? '' : formatP(r.p).replace('p = ', '').replace('p < ', '< ')]),
+    rows.map((r) => [
+      r.source,
+      r.df,
+      formatNumber(r.ss, digits),
+      r.ms === undefined ? '' : formatNumber(r.ms, digits),
+      r.f === undefined ? '' : formatNumber(r.f, 2),
+      r.p === undefined ? '' : formatP(r.p).replace('p = ', '').replace('p < ', '< '),
+    ]),
   );
 }
 
@@ -90,44 +105,107 @@ export async function siteReportHtml(report: SiteReport): Promise<string> {
   const digits = decimalsFor(analysis?.grandMean ?? 50);
   const label = (rate: string) => site.design.rates.find((r) => r.key === rate)?.label ?? rate;
   const parts: string[] = [];
-  parts.push(`<p class="eyebrow">Site report · ${esc(site.trialName)}</p><h1>${esc(site.fieldName)}</h1>`);
-  if (report.published) parts.push(`<p class="muted">Published ${esc(report.published.publishedAt.slice(0, 10))}${report.dataChangedSincePublished ? ' — data changed since publishing' : ''}</p>`);
+  parts.push(
+    `<p class="eyebrow">Site report · ${esc(site.trialName)}</p><h1>${esc(site.fieldName)}</h1>`,
+  );
+  if (report.published)
+    parts.push(
+      `<p class="muted">Published ${esc(report.published.publishedAt.slice(0, 10))}${report.dataChangedSincePublished ? ' — data changed since publishing' : ''}</p>`,
+    );
   parts.push(`<dl>
     <dt>Grower</dt><dd>${esc(site.growerName ?? '—')}</dd><dt>Crop, season</dt><dd>${esc(site.cropName ?? '—')}, ${esc(site.season ?? '—')}</dd>
     <dt>Sown</dt><dd>${esc(site.dates.sowing ?? '—')}</dd><dt>Harvested</dt><dd>${esc(site.dates.harvest ?? '—')}</dd>
     <dt>Design</dt><dd>${site.design.rates.length} rates × ${site.design.blocks} blocks (RCBD)</dd>
     <dt>Data</dt><dd>${site.completeness.withYield} of ${site.completeness.strips} strips with yield</dd>
     <dt>Soil</dt><dd>${esc(site.soil || '—')}</dd><dt>Previous crop</dt><dd>${esc(site.previousCrop || '—')}</dd></dl>`);
-  parts.push(`<h2>What this site found</h2><ul class="findings">${report.findings.map((f) => `<li>${esc(f)}</li>`).join('')}</ul>`);
+  parts.push(
+    `<h2>What this site found</h2><ul class="findings">${report.findings.map((f) => `<li>${esc(f)}</li>`).join('')}</ul>`,
+  );
   if (analysis) {
     parts.push('<h2>Charts</h2>');
     parts.push(
       await safeChart(
         rateMeansSpec({
-          means: analysis.means.map((m) => ({ label: label(m.rate), mean: m.mean, ciLow: m.ciLow, ciHigh: m.ciHigh })),
+          means: analysis.means.map((m) => ({
+            label: label(m.rate),
+            mean: m.mean,
+            ciLow: m.ciLow,
+            ciHigh: m.ciHigh,
+          })),
           strips: report.strips.map((s) => ({ label: s.label, yield: s.yield, block: s.block })),
           yieldUnit: unit,
         }),
         'Rate means with 95 % confidence intervals (filled) and the individual strips (open).',
       ),
     );
-    parts.push(await safeChart(stripMapSpec({ strips: report.strips, yieldUnit: unit }), 'Strip map coloured by yield.'));
-    parts.push(await safeChart(componentsSpec({ rows: report.components.byRate }), 'Yield components by rate (means over strips).'));
+    parts.push(
+      await safeChart(
+        stripMapSpec({ strips: report.strips, yieldUnit: unit }),
+        'Strip map coloured by yield.',
+      ),
+    );
+    parts.push(
+      await safeChart(
+        componentsSpec({ rows: report.components.byRate }),
+        'Yield components by rate (means over strips).',
+      ),
+    );
     parts.push('<h2>Analysis of variance</h2>');
     parts.push(anovaTable(analysis.anova as never, digits));
-    parts.push(`<p>Grand mean ${formatNumber(analysis.grandMean, digits)} ${esc(unit)}; CV ${formatNumber(analysis.cvPercent, 1)} %; LSD (5 %) ${formatNumber(analysis.lsd, digits)}; Tukey HSD ${formatNumber(analysis.hsd, digits)}.</p>`);
+    parts.push(
+      `<p>Grand mean ${formatNumber(analysis.grandMean, digits)} ${esc(unit)}; CV ${formatNumber(analysis.cvPercent, 1)} %; LSD (5 %) ${formatNumber(analysis.lsd, digits)}; Tukey HSD ${formatNumber(analysis.hsd, digits)}.</p>`,
+    );
     parts.push('<h2>Rate means</h2>');
-    parts.push(table(['Rate', 'Strips', `Mean (${unit})`, '95 % CI', 'Group'], analysis.means.map((m) => [label(m.rate), m.n, formatNumber(m.mean, digits), `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`, m.group])));
+    parts.push(
+      table(
+        ['Rate', 'Strips', `Mean (${unit})`, '95 % CI', 'Group'],
+        analysis.means.map((m) => [
+          label(m.rate),
+          m.n,
+          formatNumber(m.mean, digits),
+          `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`,
+          m.group,
+        ]),
+      ),
+    );
     parts.push(`<h2>Difference from the ${esc(rateName(label(analysis.reference)))}</h2>`);
-    parts.push(table(['Rate', `Difference (${unit})`, '95 % CI', 'p'], analysis.differences.map((d) => [label(d.rate), formatNumber(d.diff, digits), `${formatNumber(d.ciLow, digits)} – ${formatNumber(d.ciHigh, digits)}`, formatP(d.p)])));
+    parts.push(
+      table(
+        ['Rate', `Difference (${unit})`, '95 % CI', 'p'],
+        analysis.differences.map((d) => [
+          label(d.rate),
+          formatNumber(d.diff, digits),
+          `${formatNumber(d.ciLow, digits)} – ${formatNumber(d.ciHigh, digits)}`,
+          formatP(d.p),
+        ]),
+      ),
+    );
   } else if (report.analysisError) {
     parts.push(`<p class="note">${esc(report.analysisError)}</p>`);
   }
   parts.push('<h2>Yield components and seed economics</h2>');
   parts.push(
     table(
-      ['Rate', `Seed (${site.units.seed})`, 'Plants/ft²', 'Tillers/plant', 'Heads/ft²', `Yield (${unit})`, 'Seed return', `Return over seed (${site.units.money})`],
-      report.components.byRate.map((c) => [c.label, formatNumber(c.seedRate, 1), formatNumber(c.plantsPerSquareFoot, 1), formatNumber(c.tillersPerPlant, 2), formatNumber(c.headsPerSquareFoot, 1), formatNumber(c.yield, digits), formatNumber(c.seedReturn, 1), formatMoney(c.returnOverSeedCost)]),
+      [
+        'Rate',
+        `Seed (${site.units.seed})`,
+        'Plants/ft²',
+        'Tillers/plant',
+        'Heads/ft²',
+        `Yield (${unit})`,
+        'Seed return',
+        `Return over seed (${site.units.money})`,
+      ],
+      report.components.byRate.map((c) => [
+        c.label,
+        formatNumber(c.seedRate, 1),
+        formatNumber(c.plantsPerSquareFoot, 1),
+        formatNumber(c.tillersPerPlant, 2),
+        formatNumber(c.headsPerSquareFoot, 1),
+        formatNumber(c.yield, digits),
+        formatNumber(c.seedReturn, 1),
+        formatMoney(c.returnOverSeedCost),
+      ]),
     ),
   );
   if (site.notes) parts.push(`<h2>Notes</h2><p>${esc(site.notes)}</p>`);
@@ -140,16 +218,25 @@ export async function pooledReportHtml(report: PooledReport): Promise<string> {
   const digits = decimalsFor(analysis?.grandMean ?? 50);
   const label = (rate: string) => trial.rates.find((r) => r.key === rate)?.label ?? rate;
   const parts: string[] = [];
-  parts.push(`<p class="eyebrow">Network report · ${esc(trial.cropName ?? '')} ${esc(trial.season ?? '')}</p><h1>${esc(trial.name)}</h1>`);
+  parts.push(
+    `<p class="eyebrow">Network report · ${esc(trial.cropName ?? '')} ${esc(trial.season ?? '')}</p><h1>${esc(trial.name)}</h1>`,
+  );
   if (trial.question) parts.push(`<p><strong>Question:</strong> ${esc(trial.question)}</p>`);
-  parts.push(`<h2>What the network found</h2><ul class="findings">${report.findings.map((f) => `<li>${esc(f)}</li>`).join('')}</ul>`);
+  parts.push(
+    `<h2>What the network found</h2><ul class="findings">${report.findings.map((f) => `<li>${esc(f)}</li>`).join('')}</ul>`,
+  );
   parts.push('<h2>Sites</h2>');
   parts.push(
     table(
       ['Site', 'Soil', 'Previous crop', 'In the analysis'],
       [
         ...report.sitesIncluded.map((s) => [s.fieldName, s.soil, s.previousCrop, 'yes']),
-        ...report.sitesExcluded.map((e) => [e.site.fieldName, e.site.soil, e.site.previousCrop, `no: ${e.reason}`]),
+        ...report.sitesExcluded.map((e) => [
+          e.site.fieldName,
+          e.site.soil,
+          e.site.previousCrop,
+          `no: ${e.reason}`,
+        ]),
       ],
     ),
   );
@@ -172,7 +259,9 @@ export async function pooledReportHtml(report: PooledReport): Promise<string> {
     parts.push(
       await safeChart(
         responseCurveSpec({
-          points: report.siteMeans.filter((p) => p.seedRate !== null).map((p) => ({ site: p.site, seedRate: p.seedRate as number, mean: p.mean })),
+          points: report.siteMeans
+            .filter((p) => p.seedRate !== null)
+            .map((p) => ({ site: p.site, seedRate: p.seedRate as number, mean: p.mean })),
           curve: analysis.curve ?? null,
           agronomicOptimum: analysis.curve?.agronomicOptimum ?? null,
           economicOptimum: analysis.curve?.economicOptimum ?? null,
@@ -182,13 +271,46 @@ export async function pooledReportHtml(report: PooledReport): Promise<string> {
         'Site means by seeding rate with the fitted response curve and its optima.',
       ),
     );
-    parts.push(`<h2>Combined analysis of variance</h2><p class="muted">Sites random: rate is tested against the site × rate interaction (${analysis.rateTest.df1} and ${analysis.rateTest.df2} df).</p>`);
+    parts.push(
+      `<h2>Combined analysis of variance</h2><p class="muted">Sites random: rate is tested against the site × rate interaction (${analysis.rateTest.df1} and ${analysis.rateTest.df2} df).</p>`,
+    );
     parts.push(anovaTable(analysis.anova as never, digits));
-    parts.push(table(['Rate', `Mean over sites (${unit})`, '95 % CI'], analysis.means.map((m) => [label(m.rate), formatNumber(m.mean, digits), `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`])));
-    if (analysis.bartlett) parts.push(`<p>Homogeneity of site variances (Bartlett): χ² = ${formatNumber(analysis.bartlett.chiSquare, 2)} on ${analysis.bartlett.df} df, ${formatP(analysis.bartlett.p)}.</p>`);
+    parts.push(
+      table(
+        ['Rate', `Mean over sites (${unit})`, '95 % CI'],
+        analysis.means.map((m) => [
+          label(m.rate),
+          formatNumber(m.mean, digits),
+          `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`,
+        ]),
+      ),
+    );
+    if (analysis.bartlett)
+      parts.push(
+        `<p>Homogeneity of site variances (Bartlett): χ² = ${formatNumber(analysis.bartlett.chiSquare, 2)} on ${analysis.bartlett.df} df, ${formatP(analysis.bartlett.p)}.</p>`,
+      );
     if (report.economics.length > 0) {
-      parts.push(`<h2>Economics</h2><p class="muted">Seed ${formatMoney(report.prices.seedPricePerLb)}/lb, grain ${formatMoney(report.prices.grainPricePerBu)}/bu.</p>`);
-      parts.push(table(['Rate', `Seed cost (${trial.units.money})`, `Grain value (${trial.units.money})`, 'Return over seed', `vs ${reference}`], report.economics.map((e) => [e.label, formatMoney(e.seedCost), formatMoney(e.grainValue), formatMoney(e.returnOverSeedCost), formatMoney(e.versusReference)])));
+      parts.push(
+        `<h2>Economics</h2><p class="muted">Seed ${formatMoney(report.prices.seedPricePerLb)}/lb, grain ${formatMoney(report.prices.grainPricePerBu)}/bu.</p>`,
+      );
+      parts.push(
+        table(
+          [
+            'Rate',
+            `Seed cost (${trial.units.money})`,
+            `Grain value (${trial.units.money})`,
+            'Return over seed',
+            `vs ${reference}`,
+          ],
+          report.economics.map((e) => [
+            e.label,
+            formatMoney(e.seedCost),
+            formatMoney(e.grainValue),
+            formatMoney(e.returnOverSeedCost),
+            formatMoney(e.versusReference),
+          ]),
+        ),
+      );
     }
   } else if (report.analysisError) {
     parts.push(`<p class="note">${esc(report.analysisError)}</p>`);
@@ -201,13 +323,25 @@ export async function htmlToPdf(html: string): Promise<Buffer> {
   if (!fs.existsSync(CHROMIUM)) throw new Error(`Chromium is not installed at ${CHROMIUM}`);
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+    ],
   });
   try {
     const context = await browser.newContext({ javaScriptEnabled: false });
     const page = await context.newPage();
     await page.setContent(html, { waitUntil: 'load' });
-    return await page.pdf({ format: 'Letter', printBackground: true, margin: { top: '16mm', bottom: '16mm', left: '14mm', right: '14mm' } });
+    return await page.pdf({
+      format: 'Letter',
+      printBackground: true,
+      margin: { top: '16mm', bottom: '16mm', left: '14mm', right: '14mm' },
+    });
   } finally {
     await browser.close();
   }

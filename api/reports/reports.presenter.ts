@@ -24,7 +24,11 @@ import type {
 } from '../../shared/schemas/report';
 import type { DerivedValues, ObservationValues } from '../../shared/schemas/observation';
 import type { CropKey, CustomCrop, RateUnit, UnitSystem } from '../../shared/schemas/trial';
-import { ACRES_PER_HECTARE, GRAMS_PER_POUND, KG_PER_HA_PER_LB_PER_ACRE } from '../../shared/units/constants';
+import {
+  ACRES_PER_HECTARE,
+  GRAMS_PER_POUND,
+  KG_PER_HA_PER_LB_PER_ACRE,
+} from '../../shared/units/constants';
 import { cropFacts, deriveStripValues, type StripContext } from '../../shared/units/strip-derived';
 
 /** Trial facts the reports need, as loaded from the trials row. */
@@ -96,7 +100,11 @@ export function unitsOf(trial: TrialFacts): ReportUnits {
     : { yield: 'bu/acre', seed: 'lb/acre', money: '$/acre' };
 }
 
-function contextFor(trial: TrialFacts, multiplier: number, prices: { seed: number | null; grain: number | null }): StripContext {
+function contextFor(
+  trial: TrialFacts,
+  multiplier: number,
+  prices: { seed: number | null; grain: number | null },
+): StripContext {
   return {
     unitSystem: trial.unitSystem,
     crop: cropFacts(trial.crop, trial.customCrop),
@@ -111,10 +119,24 @@ function contextFor(trial: TrialFacts, multiplier: number, prices: { seed: numbe
 }
 
 const EMPTY: ObservationValues = {
-  seedsSown: null, standCounts: [], standRowLength: null, tillerPlants: null, tillerCount: null,
-  headCounts: [], headRowLength: null, grainWeight: null, harvestRows: null, harvestLength: null,
-  harvestArea: null, moisturePct: null, testWeight: null, sowingDate: null, emergenceDate: null,
-  headingDate: null, harvestDate: null, notes: '',
+  seedsSown: null,
+  standCounts: [],
+  standRowLength: null,
+  tillerPlants: null,
+  tillerCount: null,
+  headCounts: [],
+  headRowLength: null,
+  grainWeight: null,
+  harvestRows: null,
+  harvestLength: null,
+  harvestArea: null,
+  moisturePct: null,
+  testWeight: null,
+  sowingDate: null,
+  emergenceDate: null,
+  headingDate: null,
+  harvestDate: null,
+  notes: '',
 };
 
 /** The trial's rate levels in report form, with the seed sown per unit area when known. */
@@ -123,12 +145,21 @@ export function reportRates(trial: TrialFacts, levels: readonly LevelRow[]): Rep
   return ordered.map((level) => {
     let seedRate: number | null = null;
     try {
-      const pounds = deriveStripValues(EMPTY, contextFor(trial, level.multiplier, { seed: null, grain: null })).seedPoundsPerAcre;
-      if (pounds !== null) seedRate = trial.unitSystem === 'metric' ? pounds * KG_PER_HA_PER_LB_PER_ACRE : pounds;
+      const pounds = deriveStripValues(
+        EMPTY,
+        contextFor(trial, level.multiplier, { seed: null, grain: null }),
+      ).seedPoundsPerAcre;
+      if (pounds !== null)
+        seedRate = trial.unitSystem === 'metric' ? pounds * KG_PER_HA_PER_LB_PER_ACRE : pounds;
     } catch {
       seedRate = null;
     }
-    return { key: rateKey(level.multiplier), label: level.label, multiplier: level.multiplier, seedRate };
+    return {
+      key: rateKey(level.multiplier),
+      label: level.label,
+      multiplier: level.multiplier,
+      seedRate,
+    };
   });
 }
 
@@ -137,13 +168,18 @@ export function deriveStrips(
   trial: TrialFacts,
   levels: readonly LevelRow[],
   strips: readonly StripRow[],
-  prices: { seed: number | null; grain: number | null } = { seed: trial.seedPricePerLb, grain: trial.grainPricePerBu },
+  prices: { seed: number | null; grain: number | null } = {
+    seed: trial.seedPricePerLb,
+    grain: trial.grainPricePerBu,
+  },
 ): DerivedStrip[] {
   const byId = new Map(levels.map((level) => [level.id, level]));
   return strips.map((strip) => {
     const level = byId.get(strip.rateLevelId);
     const multiplier = level?.multiplier ?? Number.NaN;
-    const derived = strip.observation ? deriveStripValues(strip.observation, contextFor(trial, multiplier, prices)) : null;
+    const derived = strip.observation
+      ? deriveStripValues(strip.observation, contextFor(trial, multiplier, prices))
+      : null;
     const value = derived
       ? trial.unitSystem === 'metric'
         ? derived.yieldKilogramsPerHectare
@@ -154,7 +190,9 @@ export function deriveStrips(
 }
 
 const mean = (values: readonly (number | null | undefined)[]): number | null => {
-  const present = values.filter((v): v is number => v !== null && v !== undefined && Number.isFinite(v));
+  const present = values.filter(
+    (v): v is number => v !== null && v !== undefined && Number.isFinite(v),
+  );
   return present.length === 0 ? null : present.reduce((a, b) => a + b, 0) / present.length;
 };
 
@@ -162,7 +200,11 @@ const mean = (values: readonly (number | null | undefined)[]): number | null => 
 const perArea = (trial: TrialFacts, perAcre: number | null) =>
   perAcre === null ? null : trial.unitSystem === 'metric' ? perAcre * ACRES_PER_HECTARE : perAcre;
 
-export function componentRows(trial: TrialFacts, rates: readonly ReportRate[], strips: readonly DerivedStrip[]): ComponentRow[] {
+export function componentRows(
+  trial: TrialFacts,
+  rates: readonly ReportRate[],
+  strips: readonly DerivedStrip[],
+): ComponentRow[] {
   return rates.map((rate) => {
     const mine = strips.filter((s) => s.rate === rate.key);
     const pick = (key: keyof DerivedValues) => mean(mine.map((s) => s.derived?.[key] ?? null));
@@ -183,27 +225,50 @@ export function componentRows(trial: TrialFacts, rates: readonly ReportRate[], s
   });
 }
 
-function firstDate(site: SiteRow, strips: readonly StripRow[], key: 'sowingDate' | 'emergenceDate' | 'headingDate' | 'harvestDate'): string | null {
+function firstDate(
+  site: SiteRow,
+  strips: readonly StripRow[],
+  key: 'sowingDate' | 'emergenceDate' | 'headingDate' | 'harvestDate',
+): string | null {
   if (site[key]) return site[key];
-  const dates = strips.map((s) => s.observation?.[key] ?? null).filter((d): d is string => !!d).sort();
+  const dates = strips
+    .map((s) => s.observation?.[key] ?? null)
+    .filter((d): d is string => !!d)
+    .sort();
   return dates[0] ?? null;
 }
 
 /** Runs the site analysis; returns the engine's message when the data cannot be analysed yet. */
-function analyseSite(name: string, derived: readonly DerivedStrip[], reference: string): { analysis: SiteAnalysis | null; error: string | null } {
-  if (derived.length === 0) return { analysis: null, error: 'The site has no strips yet: randomize it first.' };
-  if (derived.every((s) => s.yield === null)) return { analysis: null, error: 'No yields have been entered for this site yet.' };
-  const rows: SiteStrip[] = derived.map((s) => ({ block: String(s.strip.block), rate: s.rate, value: s.yield }));
+function analyseSite(
+  name: string,
+  derived: readonly DerivedStrip[],
+  reference: string,
+): { analysis: SiteAnalysis | null; error: string | null } {
+  if (derived.length === 0)
+    return { analysis: null, error: 'The site has no strips yet: randomize it first.' };
+  if (derived.every((s) => s.yield === null))
+    return { analysis: null, error: 'No yields have been entered for this site yet.' };
+  const rows: SiteStrip[] = derived.map((s) => ({
+    block: String(s.strip.block),
+    rate: s.rate,
+    value: s.yield,
+  }));
   try {
     return { analysis: { site: name, ...analyzeSite(rows, { reference }) }, error: null };
   } catch (error) {
-    return { analysis: null, error: `Not enough yield data to analyse yet (${(error as Error).message.replace(/^analyzeSite:?\s*/, '')}).` };
+    return {
+      analysis: null,
+      error: `Not enough yield data to analyse yet (${(error as Error).message.replace(/^analyzeSite:?\s*/, '')}).`,
+    };
   }
 }
 
 export function referenceOf(rates: readonly ReportRate[]): string {
   const keys = sortRateLevels(rates.map((r) => r.key));
-  return chooseReferenceRate(keys, keys.map(() => 1));
+  return chooseReferenceRate(
+    keys,
+    keys.map(() => 1),
+  );
 }
 
 const cropNameOf = (trial: TrialFacts) => cropFacts(trial.crop, trial.customCrop)?.name ?? null;
@@ -281,7 +346,10 @@ export function buildSiteReport(input: {
     },
     analysis: analysis as SiteReport['analysis'],
     analysisError: error,
-    components: { byRate: components, prices: { seedPricePerLb: trial.seedPricePerLb, grainPricePerBu: trial.grainPricePerBu } },
+    components: {
+      byRate: components,
+      prices: { seedPricePerLb: trial.seedPricePerLb, grainPricePerBu: trial.grainPricePerBu },
+    },
     strips,
     findings,
     photos: [...input.photos],
@@ -299,7 +367,12 @@ export interface PooledInput {
 }
 
 /** Reduces loaded rows to the pooled input (yields per strip, site facts). */
-export function pooledInput(trial: TrialFacts, levels: readonly LevelRow[], sites: readonly SiteRow[], strips: readonly StripRow[]): PooledInput {
+export function pooledInput(
+  trial: TrialFacts,
+  levels: readonly LevelRow[],
+  sites: readonly SiteRow[],
+  strips: readonly StripRow[],
+): PooledInput {
   const derived = deriveStrips(trial, levels, strips);
   const bySite = new Map<string, DerivedStrip[]>();
   for (const strip of derived) {
@@ -332,21 +405,40 @@ const MIN_COMPLETE_SHARE = 0.75;
 const same = (a: string, b: string) => a.trim().toLowerCase() === b.trim().toLowerCase();
 
 /** Engine prices in the trial's units: seed per rate unit, grain per yield unit. */
-function enginePrices(trial: TrialFacts, units: ReportUnits, seed: number | null, grain: number | null): Prices | undefined {
+function enginePrices(
+  trial: TrialFacts,
+  units: ReportUnits,
+  seed: number | null,
+  grain: number | null,
+): Prices | undefined {
   if (seed === null || !grain || !(grain > 0)) return undefined;
   if (trial.unitSystem === 'metric') {
-    const bushelKg = ((cropFacts(trial.crop, trial.customCrop)?.bushelPounds ?? 60) * GRAMS_PER_POUND) / 1000;
+    const bushelKg =
+      ((cropFacts(trial.crop, trial.customCrop)?.bushelPounds ?? 60) * GRAMS_PER_POUND) / 1000;
     // $ per kg/ha of seed over one hectare is $ per kg; grain likewise.
-    return { seedPricePerRateUnit: (seed * 1000) / GRAMS_PER_POUND, grainPricePerYieldUnit: grain / bushelKg, rateUnit: units.seed, yieldUnit: units.yield };
+    return {
+      seedPricePerRateUnit: (seed * 1000) / GRAMS_PER_POUND,
+      grainPricePerYieldUnit: grain / bushelKg,
+      rateUnit: units.seed,
+      yieldUnit: units.yield,
+    };
   }
-  return { seedPricePerRateUnit: seed, grainPricePerYieldUnit: grain, rateUnit: units.seed, yieldUnit: units.yield };
+  return {
+    seedPricePerRateUnit: seed,
+    grainPricePerYieldUnit: grain,
+    rateUnit: units.seed,
+    yieldUnit: units.yield,
+  };
 }
 
 /** The pooled report body (without publishing fields), from the pooled input and the reader's filters and prices. */
 export function buildPooledReport(
   input: PooledInput,
   query: PooledQuery,
-): Omit<PooledReport, 'published' | 'dataChangedSincePublished' | 'fromSnapshot' | 'canPublish' | 'publicLinkToken'> {
+): Omit<
+  PooledReport,
+  'published' | 'dataChangedSincePublished' | 'fromSnapshot' | 'canPublish' | 'publicLinkToken'
+> {
   const { trial, rates } = input;
   const units = unitsOf(trial);
   const reference = referenceOf(rates);
@@ -365,14 +457,21 @@ export function buildPooledReport(
       excluded.push({ site, reason });
       continue;
     }
-    const rows: SiteStrip[] = yields.map((y) => ({ block: String(y.block), rate: y.rate, value: y.value }));
+    const rows: SiteStrip[] = yields.map((y) => ({
+      block: String(y.block),
+      rate: y.rate,
+      value: y.value,
+    }));
     try {
       const count = (names.get(site.fieldName) ?? 0) + 1;
       names.set(site.fieldName, count);
       const name = count === 1 ? site.fieldName : `${site.fieldName} (${count})`;
       included.push({ site, name, analysis: analyzeSite(rows, { reference }) });
     } catch (error) {
-      excluded.push({ site, reason: `cannot be analysed yet (${(error as Error).message.replace(/^analyzeSite:?\s*/, '')})` });
+      excluded.push({
+        site,
+        reason: `cannot be analysed yet (${(error as Error).message.replace(/^analyzeSite:?\s*/, '')})`,
+      });
     }
   }
 
@@ -403,14 +502,20 @@ export function buildPooledReport(
     lsd: lsdByName.get(d.site) ?? Number.NaN,
   }));
   const siteMeans = included.flatMap(({ name, analysis: a }) =>
-    a.means.map((m) => ({ site: name, rate: m.rate, seedRate: seedRates.get(m.rate) ?? null, mean: m.mean })),
+    a.means.map((m) => ({
+      site: name,
+      rate: m.rate,
+      seedRate: seedRates.get(m.rate) ?? null,
+      mean: m.mean,
+    })),
   );
 
   const economics: EconomicsRow[] = analysis
     ? (() => {
         const rows = analysis.means.map((m) => {
           const seedRate = seedRates.get(m.rate) ?? null;
-          const seedCost = prices && seedRate !== null ? seedRate * prices.seedPricePerRateUnit : null;
+          const seedCost =
+            prices && seedRate !== null ? seedRate * prices.seedPricePerRateUnit : null;
           const grainValue = prices ? m.mean * prices.grainPricePerYieldUnit : null;
           return {
             rate: m.rate,
@@ -419,13 +524,17 @@ export function buildPooledReport(
             seedCost,
             meanYield: m.mean,
             grainValue,
-            returnOverSeedCost: grainValue !== null && seedCost !== null ? grainValue - seedCost : null,
+            returnOverSeedCost:
+              grainValue !== null && seedCost !== null ? grainValue - seedCost : null,
             versusReference: null as number | null,
           };
         });
         const referenceReturn = rows.find((r) => r.rate === reference)?.returnOverSeedCost ?? null;
         for (const row of rows)
-          row.versusReference = row.returnOverSeedCost !== null && referenceReturn !== null ? row.returnOverSeedCost - referenceReturn : null;
+          row.versusReference =
+            row.returnOverSeedCost !== null && referenceReturn !== null
+              ? row.returnOverSeedCost - referenceReturn
+              : null;
         return rows;
       })()
     : [];
@@ -475,11 +584,15 @@ export function buildPooledReport(
 }
 
 function exclusionReason(site: PooledSite, trial: TrialFacts, query: PooledQuery): string | null {
-  if (query.crop && !(trial.crop && (same(query.crop, trial.crop) || same(query.crop, cropNameOf(trial) ?? ''))))
+  if (
+    query.crop &&
+    !(trial.crop && (same(query.crop, trial.crop) || same(query.crop, cropNameOf(trial) ?? '')))
+  )
     return `crop is ${cropNameOf(trial) ?? 'not set'}, not ${query.crop}`;
   if (query.season && !(trial.season && same(query.season, trial.season)))
     return `season is ${trial.season ?? 'not set'}, not ${query.season}`;
-  if (query.soil && !same(query.soil, site.soil)) return `soil is ${site.soil || 'not recorded'} (filter: ${query.soil})`;
+  if (query.soil && !same(query.soil, site.soil))
+    return `soil is ${site.soil || 'not recorded'} (filter: ${query.soil})`;
   if (query.previousCrop && !same(query.previousCrop, site.previousCrop))
     return `previous crop was ${site.previousCrop || 'not recorded'} (filter: ${query.previousCrop})`;
   if (query.sites === 'published' && !site.published) return 'site report not yet published';

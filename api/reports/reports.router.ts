@@ -10,13 +10,21 @@ import { htmlToPdf, pooledReportHtml, siteReportHtml } from './reports.pdf';
 import { createReportsService } from './reports.service';
 
 const param = (req: Request, name: string) => String(req.params[name]);
-const fileName = (text: string) => text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'report';
+const fileName = (text: string) =>
+  text
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '') || 'report';
 
 export function createReportsRouter(ctx: RouterContext) {
   const router = Router();
   const routes = secureRouter(router, ctx.table, '/api');
   const { policies } = ctx;
-  const reports = createReportsService({ dataSource: ctx.dataSource, mailer: ctx.mailer, publicUrl: ctx.config.PUBLIC_URL });
+  const reports = createReportsService({
+    dataSource: ctx.dataSource,
+    mailer: ctx.mailer,
+    publicUrl: ctx.config.PUBLIC_URL,
+  });
 
   routes.get('/sites/:siteId/report', policies.siteReader(), async (req, res) => {
     res.set('Cache-Control', 'private, no-cache');
@@ -27,7 +35,10 @@ export function createReportsRouter(ctx: RouterContext) {
     const report = await reports.siteReport(param(req, 'siteId'), req.access ?? null);
     const pdf = await htmlToPdf(await siteReportHtml(report));
     res.set('Content-Type', 'application/pdf');
-    res.set('Content-Disposition', `attachment; filename="${fileName(report.site.fieldName)}-site-report.pdf"`);
+    res.set(
+      'Content-Disposition',
+      `attachment; filename="${fileName(report.site.fieldName)}-site-report.pdf"`,
+    );
     res.send(pdf);
   });
 
@@ -52,7 +63,10 @@ export function createReportsRouter(ctx: RouterContext) {
     const report = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
     const pdf = await htmlToPdf(await pooledReportHtml(report));
     res.set('Content-Type', 'application/pdf');
-    res.set('Content-Disposition', `attachment; filename="${fileName(report.trial.name)}-network-report.pdf"`);
+    res.set(
+      'Content-Disposition',
+      `attachment; filename="${fileName(report.trial.name)}-network-report.pdf"`,
+    );
     res.send(pdf);
   });
 
@@ -70,7 +84,12 @@ export function createReportsRouter(ctx: RouterContext) {
   });
 
   routes.get('/public/reports/:token', policies.public, async (req, res) => {
-    const token = z.string().min(16).max(100).regex(/^[A-Za-z0-9_-]+$/).safeParse(req.params.token);
+    const token = z
+      .string()
+      .min(16)
+      .max(100)
+      .regex(/^[A-Za-z0-9_-]+$/)
+      .safeParse(req.params.token);
     const query = PooledQuerySchema.parse(req.query);
     if (!token.success) throw new NotFound('Report');
     res.set('Cache-Control', 'no-store');

@@ -4,7 +4,13 @@
 import crypto from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { ObservationValues } from '../../shared/schemas/observation';
-import type { PooledQuery, PooledReport, PublishedInfo, ReportPhoto, SiteReport } from '../../shared/schemas/report';
+import type {
+  PooledQuery,
+  PooledReport,
+  PublishedInfo,
+  ReportPhoto,
+  SiteReport,
+} from '../../shared/schemas/report';
 import { recordAudit } from '../audit/audit.service';
 import { Conflict, Forbidden, NotFound } from '../errors';
 import { composeMail, type Mailer } from '../mail/mailer';
@@ -33,7 +39,8 @@ export interface ReportsServiceDeps {
   publicUrl: string;
 }
 
-const num = (value: unknown): number | null => (value === null || value === undefined ? null : Number(value));
+const num = (value: unknown): number | null =>
+  value === null || value === undefined ? null : Number(value);
 
 interface TrialRecord extends TrialFacts {
   networkId: string;
@@ -65,7 +72,14 @@ function toTrial(row: Record<string, unknown>): TrialRecord {
     seedPricePerLb: num(row.seed_price_per_lb),
     grainPricePerBu: num(row.grain_price_per_bu),
     publicLinkToken: (row.public_link_token as string) ?? null,
-    levels: ((row.levels as { id: string; position: number; multiplier: number | string; label: string }[]) ?? []).map((l) => ({
+    levels: (
+      (row.levels as {
+        id: string;
+        position: number;
+        multiplier: number | string;
+        label: string;
+      }[]) ?? []
+    ).map((l) => ({
       id: l.id,
       position: l.position,
       multiplier: Number(l.multiplier),
@@ -166,9 +180,16 @@ function pooledDigest(trial: TrialRecord, sites: readonly SiteRow[]): string {
 }
 
 /** The caller reads live data when they coordinate the network or grow this site. */
-function readsLive(access: AccessContext | null, networkId: string, growerUserId: string | null): boolean {
+function readsLive(
+  access: AccessContext | null,
+  networkId: string,
+  growerUserId: string | null,
+): boolean {
   if (!access) return false;
-  return isCoordinating(access.roles.get(networkId)) || (growerUserId !== null && growerUserId === access.userId);
+  return (
+    isCoordinating(access.roles.get(networkId)) ||
+    (growerUserId !== null && growerUserId === access.userId)
+  );
 }
 
 const hasQuery = (query: PooledQuery) => Object.values(query).some((v) => v !== undefined);
@@ -194,7 +215,9 @@ export function createReportsService(deps: ReportsServiceDeps) {
   const answers = createFreshCache<SiteReport | PooledReport>({ maxEntries: 1000 });
   const storedSnapshot = (id: string) =>
     snapshots.getOrCompute(id, async () => {
-      const [row] = await dataSource.query('SELECT report FROM report_snapshots WHERE id = $1', [id]);
+      const [row] = await dataSource.query('SELECT report FROM report_snapshots WHERE id = $1', [
+        id,
+      ]);
       return row.report as Record<string, unknown>;
     });
 
@@ -220,14 +243,27 @@ export function createReportsService(deps: ReportsServiceDeps) {
       growerUserId: (row.grower_user_id as string) ?? null,
       growerEmail: ((row.grower_user_email as string) ?? (row.grower_email as string)) || null,
       snapshot: row.snap_id
-        ? ({ id: row.snap_id, data_version: row.snap_version, published_at: row.snap_at, published_by_name: row.snap_by } as SnapshotRow)
+        ? ({
+            id: row.snap_id,
+            data_version: row.snap_version,
+            published_at: row.snap_at,
+            published_by_name: row.snap_by,
+          } as SnapshotRow)
         : undefined,
     };
   }
 
-  async function loadStrips(db: Queryable, where: { siteId: string } | { trialId: string }): Promise<StripRow[]> {
-    const [clause, id] = 'siteId' in where ? ['st.site_id = $1', where.siteId] : ['s.trial_id = $1', where.trialId];
-    const rows = await preparedQuery(db, `${STRIP_SQL} WHERE ${clause} ORDER BY s.id, st.block, st.position`, [id]);
+  async function loadStrips(
+    db: Queryable,
+    where: { siteId: string } | { trialId: string },
+  ): Promise<StripRow[]> {
+    const [clause, id] =
+      'siteId' in where ? ['st.site_id = $1', where.siteId] : ['s.trial_id = $1', where.trialId];
+    const rows = await preparedQuery(
+      db,
+      `${STRIP_SQL} WHERE ${clause} ORDER BY s.id, st.block, st.position`,
+      [id],
+    );
     return rows.map(toStrip);
   }
 
@@ -237,40 +273,82 @@ export function createReportsService(deps: ReportsServiceDeps) {
       'SELECT id, caption, strip_id FROM attachments WHERE site_id = $1 ORDER BY created_at',
       [siteId],
     );
-    return rows.map((r) => ({ id: r.id, caption: r.caption ?? '', stripId: r.strip_id, url: `/api/photos/${r.id}` }));
+    return rows.map((r) => ({
+      id: r.id,
+      caption: r.caption ?? '',
+      stripId: r.strip_id,
+      url: `/api/photos/${r.id}`,
+    }));
   }
 
   /** The live site report; pass the photos when the caller has loaded them already. */
-  async function liveSiteBody(db: Queryable, bundle: Awaited<ReturnType<typeof loadSiteBundle>>, knownPhotos?: ReportPhoto[]) {
-    const [strips, photos] = await Promise.all([loadStrips(db, { siteId: bundle.site.id }), knownPhotos ?? loadPhotos(db, bundle.site.id)]);
-    return buildSiteReport({ trial: bundle.trial, levels: bundle.trial.levels, site: bundle.site, strips, photos });
+  async function liveSiteBody(
+    db: Queryable,
+    bundle: Awaited<ReturnType<typeof loadSiteBundle>>,
+    knownPhotos?: ReportPhoto[],
+  ) {
+    const [strips, photos] = await Promise.all([
+      loadStrips(db, { siteId: bundle.site.id }),
+      knownPhotos ?? loadPhotos(db, bundle.site.id),
+    ]);
+    return buildSiteReport({
+      trial: bundle.trial,
+      levels: bundle.trial.levels,
+      site: bundle.site,
+      strips,
+      photos,
+    });
   }
 
   function siteReport(siteId: string, access: AccessContext | null): Promise<SiteReport> {
-    return answers.get(`site:${siteId}:${accessKey(access)}`, () => computeSiteReport(siteId, access)) as Promise<SiteReport>;
+    return answers.get(`site:${siteId}:${accessKey(access)}`, () =>
+      computeSiteReport(siteId, access),
+    ) as Promise<SiteReport>;
   }
 
-  async function computeSiteReport(siteId: string, access: AccessContext | null): Promise<SiteReport> {
+  async function computeSiteReport(
+    siteId: string,
+    access: AccessContext | null,
+  ): Promise<SiteReport> {
     const bundle = await loadSiteBundle(dataSource, siteId);
     const published = toPublished(bundle.snapshot);
-    const changed = !!bundle.snapshot && bundle.snapshot.data_version !== String(bundle.site.dataVersion);
+    const changed =
+      !!bundle.snapshot && bundle.snapshot.data_version !== String(bundle.site.dataVersion);
     const canPublish = !!access && isCoordinating(access.roles.get(bundle.trial.networkId));
     if (!readsLive(access, bundle.trial.networkId, bundle.growerUserId)) {
       if (!bundle.snapshot) throw new Forbidden('This site report is not published yet');
       const stored = (await storedSnapshot(bundle.snapshot.id)) as unknown as SiteReport;
-      return { ...stored, published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish };
+      return {
+        ...stored,
+        published,
+        dataChangedSincePublished: changed,
+        fromSnapshot: true,
+        canPublish,
+      };
     }
     const photos = await loadPhotos(dataSource, bundle.site.id);
     const bodyKey = digestOf('site', bundle.trial, bundle.site, photos);
-    const body = await siteBodies.getOrCompute(bodyKey, () => liveSiteBody(dataSource, bundle, photos));
+    const body = await siteBodies.getOrCompute(bodyKey, () =>
+      liveSiteBody(dataSource, bundle, photos),
+    );
     const key = digestOf('site-response', bodyKey, published, changed, canPublish);
-    return (await responses.getOrCompute(key, async () => ({ ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish }))) as SiteReport;
+    return (await responses.getOrCompute(key, async () => ({
+      ...body,
+      published,
+      dataChangedSincePublished: changed,
+      fromSnapshot: false,
+      canPublish,
+    }))) as SiteReport;
   }
 
   async function loadTrialBundle(db: Queryable, trialId: string) {
     const [trialRows, siteRows, snapshots] = await Promise.all([
       preparedQuery(db, `SELECT ${TRIAL_COLUMNS} FROM trials t WHERE t.id = $1`, [trialId]),
-      preparedQuery(db, `SELECT ${SITE_COLUMNS} FROM sites s LEFT JOIN users u ON u.id = s.grower_user_id WHERE s.trial_id = $1 ORDER BY s.created_at, s.field_name`, [trialId]),
+      preparedQuery(
+        db,
+        `SELECT ${SITE_COLUMNS} FROM sites s LEFT JOIN users u ON u.id = s.grower_user_id WHERE s.trial_id = $1 ORDER BY s.created_at, s.field_name`,
+        [trialId],
+      ),
       preparedQuery<SnapshotRow>(
         db,
         `SELECT r.id, r.data_version, r.published_at, u.name AS published_by_name FROM report_snapshots r
@@ -285,21 +363,39 @@ export function createReportsService(deps: ReportsServiceDeps) {
     return { trial, sites, snapshot: snapshots[0], digest: pooledDigest(trial, sites) };
   }
 
-  async function livePooledInput(db: Queryable, bundle: Awaited<ReturnType<typeof loadTrialBundle>>): Promise<PooledInput> {
+  async function livePooledInput(
+    db: Queryable,
+    bundle: Awaited<ReturnType<typeof loadTrialBundle>>,
+  ): Promise<PooledInput> {
     const strips = await loadStrips(db, { trialId: bundle.trial.id });
     return pooledInput(bundle.trial, bundle.trial.levels, bundle.sites, strips);
   }
 
-  async function storedPooled(snapshotId: string): Promise<{ report: PooledReport; input: PooledInput }> {
-    return (await storedSnapshot(snapshotId)) as unknown as { report: PooledReport; input: PooledInput };
+  async function storedPooled(
+    snapshotId: string,
+  ): Promise<{ report: PooledReport; input: PooledInput }> {
+    return (await storedSnapshot(snapshotId)) as unknown as {
+      report: PooledReport;
+      input: PooledInput;
+    };
   }
 
-  function pooledReport(trialId: string, access: AccessContext | null, query: PooledQuery): Promise<PooledReport> {
+  function pooledReport(
+    trialId: string,
+    access: AccessContext | null,
+    query: PooledQuery,
+  ): Promise<PooledReport> {
     const key = `pooled:${trialId}:${accessKey(access)}:${JSON.stringify(query)}`;
-    return answers.get(key, () => computePooledReport(trialId, access, query)) as Promise<PooledReport>;
+    return answers.get(key, () =>
+      computePooledReport(trialId, access, query),
+    ) as Promise<PooledReport>;
   }
 
-  async function computePooledReport(trialId: string, access: AccessContext | null, query: PooledQuery): Promise<PooledReport> {
+  async function computePooledReport(
+    trialId: string,
+    access: AccessContext | null,
+    query: PooledQuery,
+  ): Promise<PooledReport> {
     const bundle = await loadTrialBundle(dataSource, trialId);
     const published = toPublished(bundle.snapshot);
     const changed = !!bundle.snapshot && bundle.snapshot.data_version !== bundle.digest;
@@ -310,19 +406,36 @@ export function createReportsService(deps: ReportsServiceDeps) {
       const key = digestOf('pooled-published', bundle.snapshot.id, query, published, changed);
       return (await responses.getOrCompute(key, async () => {
         const body = hasQuery(query) ? buildPooledReport(stored.input, query) : stored.report;
-        return { ...body, published, dataChangedSincePublished: changed, fromSnapshot: true, canPublish: false, publicLinkToken: null };
+        return {
+          ...body,
+          published,
+          dataChangedSincePublished: changed,
+          fromSnapshot: true,
+          canPublish: false,
+          publicLinkToken: null,
+        };
       })) as PooledReport;
     }
     const bodyKey = digestOf('pooled', bundle.trial, bundle.sites, query);
-    const body = await pooledBodies.getOrCompute(bodyKey, async () => buildPooledReport(await livePooledInput(dataSource, bundle), query));
+    const body = await pooledBodies.getOrCompute(bodyKey, async () =>
+      buildPooledReport(await livePooledInput(dataSource, bundle), query),
+    );
     const key = digestOf('pooled-response', bodyKey, published, changed);
     return (await responses.getOrCompute(key, async () => ({
-      ...body, published, dataChangedSincePublished: changed, fromSnapshot: false, canPublish: true, publicLinkToken: bundle.trial.publicLinkToken,
+      ...body,
+      published,
+      dataChangedSincePublished: changed,
+      fromSnapshot: false,
+      canPublish: true,
+      publicLinkToken: bundle.trial.publicLinkToken,
     }))) as PooledReport;
   }
 
   async function publicReport(token: string, query: PooledQuery): Promise<PooledReport> {
-    const rows: { id: string }[] = await dataSource.query('SELECT id FROM trials WHERE public_link_token = $1', [token]);
+    const rows: { id: string }[] = await dataSource.query(
+      'SELECT id FROM trials WHERE public_link_token = $1',
+      [token],
+    );
     if (!rows[0]) throw new NotFound('Report');
     try {
       return await pooledReport(rows[0].id, null, query);
@@ -332,12 +445,18 @@ export function createReportsService(deps: ReportsServiceDeps) {
     }
   }
 
-  async function publishSite(siteId: string, actorUserId: string): Promise<{ report: SiteReport; mailed: boolean }> {
+  async function publishSite(
+    siteId: string,
+    actorUserId: string,
+  ): Promise<{ report: SiteReport; mailed: boolean }> {
     const result = await dataSource.transaction(async (manager) => {
       await manager.query('SELECT id FROM sites WHERE id = $1 FOR UPDATE', [siteId]);
       const bundle = await loadSiteBundle(manager, siteId);
       const body = await liveSiteBody(manager, bundle);
-      if (!body.analysis) throw new Conflict(`This site cannot be published yet: ${body.analysisError ?? 'no analysis'}`);
+      if (!body.analysis)
+        throw new Conflict(
+          `This site cannot be published yet: ${body.analysisError ?? 'no analysis'}`,
+        );
       await manager.query(
         `UPDATE report_snapshots SET withdrawn_at = now() WHERE site_id = $1 AND scope = 'site' AND withdrawn_at IS NULL`,
         [siteId],
@@ -345,7 +464,13 @@ export function createReportsService(deps: ReportsServiceDeps) {
       const [snapshot] = await manager.query(
         `INSERT INTO report_snapshots (scope, trial_id, site_id, data_version, report, published_by)
          VALUES ('site', $1, $2, $3, $4, $5) RETURNING id`,
-        [bundle.trial.id, siteId, String(bundle.site.dataVersion), JSON.stringify(body), actorUserId],
+        [
+          bundle.trial.id,
+          siteId,
+          String(bundle.site.dataVersion),
+          JSON.stringify(body),
+          actorUserId,
+        ],
       );
       await manager.query('UPDATE sites SET published_at = now() WHERE id = $1', [siteId]);
       await recordAudit(manager, {
@@ -371,7 +496,10 @@ export function createReportsService(deps: ReportsServiceDeps) {
               `The coordinator of “${bundle.trial.name}” has published the report for your site, ${bundle.site.fieldName}. It shows how each seeding rate yielded in your strips, what the differences mean, and what one season at one field can and cannot tell.`,
               'Your strip data are now locked so the published numbers stay as they are. If something needs correcting, ask your coordinator to unpublish the report.',
             ],
-            link: { label: 'Read your site report', url: `${deps.publicUrl.replace(/\/$/, '')}/sites/${siteId}/report` },
+            link: {
+              label: 'Read your site report',
+              url: `${deps.publicUrl.replace(/\/$/, '')}/sites/${siteId}/report`,
+            },
           }),
         );
         mailed = true;
@@ -379,7 +507,13 @@ export function createReportsService(deps: ReportsServiceDeps) {
         mailed = false;
       }
     }
-    return { report: await siteReport(siteId, { userId: actorUserId, roles: new Map([[bundle.trial.networkId, 'coordinator']]) }), mailed };
+    return {
+      report: await siteReport(siteId, {
+        userId: actorUserId,
+        roles: new Map([[bundle.trial.networkId, 'coordinator']]),
+      }),
+      mailed,
+    };
   }
 
   async function unpublishSite(siteId: string, actorUserId: string): Promise<SiteReport> {
@@ -400,11 +534,16 @@ export function createReportsService(deps: ReportsServiceDeps) {
         entityId: siteId,
         siteId,
         action: 'report.unpublish',
-        before: { snapshotIds: (withdrawn[0] as { id: string }[] | undefined)?.map((r) => r.id) ?? [] },
+        before: {
+          snapshotIds: (withdrawn[0] as { id: string }[] | undefined)?.map((r) => r.id) ?? [],
+        },
       });
       return rows[0].network_id;
     });
-    return siteReport(siteId, { userId: actorUserId, roles: new Map([[networkId, 'coordinator']]) });
+    return siteReport(siteId, {
+      userId: actorUserId,
+      roles: new Map([[networkId, 'coordinator']]),
+    });
   }
 
   async function publishTrial(trialId: string, actorUserId: string): Promise<PooledReport> {
@@ -413,7 +552,10 @@ export function createReportsService(deps: ReportsServiceDeps) {
       const bundle = await loadTrialBundle(manager, trialId);
       const input = await livePooledInput(manager, bundle);
       const report = buildPooledReport(input, {});
-      if (!report.analysis) throw new Conflict(`The pooled report cannot be published yet: ${report.analysisError ?? 'no analysis'}`);
+      if (!report.analysis)
+        throw new Conflict(
+          `The pooled report cannot be published yet: ${report.analysisError ?? 'no analysis'}`,
+        );
       await manager.query(
         `UPDATE report_snapshots SET withdrawn_at = now() WHERE trial_id = $1 AND scope = 'pooled' AND withdrawn_at IS NULL`,
         [trialId],
@@ -428,16 +570,27 @@ export function createReportsService(deps: ReportsServiceDeps) {
         entityType: 'trial',
         entityId: trialId,
         action: 'report.publish',
-        after: { snapshotId: snapshot.id, digest: bundle.digest, sites: report.sitesIncluded.length },
+        after: {
+          snapshotId: snapshot.id,
+          digest: bundle.digest,
+          sites: report.sitesIncluded.length,
+        },
       });
       return bundle.trial.networkId;
     });
-    return pooledReport(trialId, { userId: actorUserId, roles: new Map([[networkId, 'coordinator']]) }, {});
+    return pooledReport(
+      trialId,
+      { userId: actorUserId, roles: new Map([[networkId, 'coordinator']]) },
+      {},
+    );
   }
 
   async function unpublishTrial(trialId: string, actorUserId: string): Promise<PooledReport> {
     const networkId = await dataSource.transaction(async (manager) => {
-      const rows: { network_id: string }[] = await manager.query('SELECT network_id FROM trials WHERE id = $1 FOR UPDATE', [trialId]);
+      const rows: { network_id: string }[] = await manager.query(
+        'SELECT network_id FROM trials WHERE id = $1 FOR UPDATE',
+        [trialId],
+      );
       if (!rows[0]) throw new NotFound('Trial');
       await manager.query(
         `UPDATE report_snapshots SET withdrawn_at = now() WHERE trial_id = $1 AND scope = 'pooled' AND withdrawn_at IS NULL`,
@@ -445,13 +598,26 @@ export function createReportsService(deps: ReportsServiceDeps) {
       );
       // A withdrawn report must not stay reachable from a link handed out earlier.
       await manager.query('UPDATE trials SET public_link_token = NULL WHERE id = $1', [trialId]);
-      await recordAudit(manager, { actorUserId, entityType: 'trial', entityId: trialId, action: 'report.unpublish' });
+      await recordAudit(manager, {
+        actorUserId,
+        entityType: 'trial',
+        entityId: trialId,
+        action: 'report.unpublish',
+      });
       return rows[0].network_id;
     });
-    return pooledReport(trialId, { userId: actorUserId, roles: new Map([[networkId, 'coordinator']]) }, {});
+    return pooledReport(
+      trialId,
+      { userId: actorUserId, roles: new Map([[networkId, 'coordinator']]) },
+      {},
+    );
   }
 
-  async function setPublicLink(trialId: string, enabled: boolean, actorUserId: string): Promise<{ token: string | null }> {
+  async function setPublicLink(
+    trialId: string,
+    enabled: boolean,
+    actorUserId: string,
+  ): Promise<{ token: string | null }> {
     return dataSource.transaction(async (manager) => {
       const rows: { public_link_token: string | null }[] = await manager.query(
         'SELECT public_link_token FROM trials WHERE id = $1 FOR UPDATE',
@@ -460,7 +626,12 @@ export function createReportsService(deps: ReportsServiceDeps) {
       if (!rows[0]) throw new NotFound('Trial');
       if (!enabled) {
         await manager.query('UPDATE trials SET public_link_token = NULL WHERE id = $1', [trialId]);
-        await recordAudit(manager, { actorUserId, entityType: 'trial', entityId: trialId, action: 'report.public-link.off' });
+        await recordAudit(manager, {
+          actorUserId,
+          entityType: 'trial',
+          entityId: trialId,
+          action: 'report.public-link.off',
+        });
         return { token: null };
       }
       if (rows[0].public_link_token) return { token: rows[0].public_link_token };
@@ -468,10 +639,19 @@ export function createReportsService(deps: ReportsServiceDeps) {
         `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND scope = 'pooled' AND withdrawn_at IS NULL LIMIT 1`,
         [trialId],
       );
-      if (published.length === 0) throw new Conflict('Publish the pooled report before sharing a public link');
+      if (published.length === 0)
+        throw new Conflict('Publish the pooled report before sharing a public link');
       const token = crypto.randomBytes(24).toString('base64url');
-      await manager.query('UPDATE trials SET public_link_token = $2 WHERE id = $1', [trialId, token]);
-      await recordAudit(manager, { actorUserId, entityType: 'trial', entityId: trialId, action: 'report.public-link.on' });
+      await manager.query('UPDATE trials SET public_link_token = $2 WHERE id = $1', [
+        trialId,
+        token,
+      ]);
+      await recordAudit(manager, {
+        actorUserId,
+        entityType: 'trial',
+        entityId: trialId,
+        action: 'report.public-link.on',
+      });
       return { token };
     });
   }
@@ -481,11 +661,25 @@ export function createReportsService(deps: ReportsServiceDeps) {
     const strips = await loadStrips(dataSource, { trialId });
     const derived = deriveStrips(bundle.trial, bundle.trial.levels, strips);
     const csv = stripsCsv(bundle.trial, bundle.sites, derived);
-    const slug = bundle.trial.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'trial';
+    const slug =
+      bundle.trial.name
+        .toLowerCase()
+        .replace(/[^a-z0-9]+/g, '-')
+        .replace(/^-|-$/g, '') || 'trial';
     return { fileName: `${slug}-strips.csv`, csv };
   }
 
-  return { siteReport, pooledReport, publicReport, publishSite, unpublishSite, publishTrial, unpublishTrial, setPublicLink, exportCsv };
+  return {
+    siteReport,
+    pooledReport,
+    publicReport,
+    publishSite,
+    unpublishSite,
+    publishTrial,
+    unpublishTrial,
+    setPublicLink,
+    exportCsv,
+  };
 }
 
 export type ReportsService = ReturnType<typeof createReportsService>;

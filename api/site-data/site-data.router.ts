@@ -12,7 +12,12 @@ export function createSiteDataRouter(ctx: RouterContext) {
 
   routes.patch('/sites/:siteId', ctx.policies.siteGrower(), async (req, res) => {
     const input = UpdateSiteDataInputSchema.parse(req.body);
-    res.json(await siteData.updateSite(String(req.params.siteId), input, { userId: req.user!.id, roles: req.access?.roles ?? new Map() }));
+    res.json(
+      await siteData.updateSite(String(req.params.siteId), input, {
+        userId: req.user!.id,
+        roles: req.access?.roles ?? new Map(),
+      }),
+    );
   });
 
   routes.get('/sites/:siteId/audit', ctx.policies.siteCoordinator(), async (req, res) => {

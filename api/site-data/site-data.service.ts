@@ -19,7 +19,11 @@ const COLUMNS = {
 export function createSiteDataService(deps: { dataSource: DataSource }) {
   const { dataSource } = deps;
   return {
-    async updateSite(siteId: string, input: UpdateSiteDataInput, caller: { userId: string; roles: Map<string, Role> }): Promise<SiteContext> {
+    async updateSite(
+      siteId: string,
+      input: UpdateSiteDataInput,
+      caller: { userId: string; roles: Map<string, Role> },
+    ): Promise<SiteContext> {
       await dataSource.transaction(async (manager) => {
         const site = await lockSiteForChange(manager, siteId);
         const before: Record<string, unknown> = {};
@@ -36,12 +40,23 @@ export function createSiteDataService(deps: { dataSource: DataSource }) {
         }
         if (sets.length === 0) return;
         await manager.query(`UPDATE sites SET ${sets.join(', ')} WHERE id = $1`, params);
-        await recordAudit(manager, { actorUserId: caller.userId, entityType: 'site', entityId: siteId, siteId, action: 'update', before, after });
+        await recordAudit(manager, {
+          actorUserId: caller.userId,
+          entityType: 'site',
+          entityId: siteId,
+          siteId,
+          action: 'update',
+          before,
+          after,
+        });
         await bumpDataVersion(manager, siteId);
       });
       const site = await loadSite(dataSource.manager, siteId);
       const coordinating = isCoordinating(caller.roles.get(site.networkId));
-      return presentSite(site, { canEdit: coordinating || site.growerUserId === caller.userId, isCoordinator: coordinating });
+      return presentSite(site, {
+        canEdit: coordinating || site.growerUserId === caller.userId,
+        isCoordinator: coordinating,
+      });
     },
 
     async listAudit(siteId: string): Promise<AuditEventDto[]> {
@@ -65,7 +80,14 @@ export function createSiteDataService(deps: { dataSource: DataSource }) {
         entityType: row.entity_type as string,
         entityId: row.entity_id as string,
         action: row.action as string,
-        strip: row.block === null || row.block === undefined ? null : { block: Number(row.block), position: Number(row.position), label: String(row.label) },
+        strip:
+          row.block === null || row.block === undefined
+            ? null
+            : {
+                block: Number(row.block),
+                position: Number(row.position),
+                label: String(row.label),
+              },
         before: (row.before as Record<string, unknown> | null) ?? null,
         after: (row.after as Record<string, unknown> | null) ?? null,
       }));

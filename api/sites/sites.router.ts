@@ -31,11 +31,9 @@ export function createSitesRouter(ctx: RouterContext) {
 
   routes.post('/sites/:siteId/calibrations', ctx.policies.siteGrower(), async (req, res) => {
     const input = CalibrationInputSchema.parse(req.body);
-    res
-      .status(201)
-      .json({
-        calibrations: await sites.addCalibration(String(req.params.siteId), req.user!.id, input),
-      });
+    res.status(201).json({
+      calibrations: await sites.addCalibration(String(req.params.siteId), req.user!.id, input),
+    });
   });
 
   routes.post('/sites/:siteId/packet/send', ctx.policies.siteCoordinator(), async (req, res) => {

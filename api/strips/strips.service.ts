@@ -4,7 +4,15 @@ import type { Role } from '../../shared/schemas/common';
 import { ObservationValuesSchema } from '../../shared/schemas/observation';
 import type { SiteStrips, StripDto, UpdateStripInput } from '../../shared/schemas/strip';
 import { Conflict, NotFound } from '../errors';
-import { changedFields, changeStrip, loadSite, loadSiteStrips, publishedSiteLocked, type SiteKey, type StripRecord } from '../lib/strip-data';
+import {
+  changedFields,
+  changeStrip,
+  loadSite,
+  loadSiteStrips,
+  publishedSiteLocked,
+  type SiteKey,
+  type StripRecord,
+} from '../lib/strip-data';
 import { isCoordinating } from '../middleware/access';
 import { presentSite, presentStrips } from '../lib/strip-presenter';
 
@@ -18,7 +26,10 @@ export function createStripsService(deps: { dataSource: DataSource }) {
 
   /** The site and all its strips: the outlier warning of one strip looks at the whole site. */
   async function loadWholeSite(key: SiteKey) {
-    const [site, strips] = await Promise.all([loadSite(dataSource.manager, key), loadSiteStrips(dataSource.manager, key)]);
+    const [site, strips] = await Promise.all([
+      loadSite(dataSource.manager, key),
+      loadSiteStrips(dataSource.manager, key),
+    ]);
     return { site, strips };
   }
 
@@ -33,7 +44,10 @@ export function createStripsService(deps: { dataSource: DataSource }) {
       const { site, strips } = await loadWholeSite(siteId);
       const coordinating = isCoordinating(caller.roles.get(site.networkId));
       return {
-        site: presentSite(site, { canEdit: coordinating || site.growerUserId === caller.userId, isCoordinator: coordinating }),
+        site: presentSite(site, {
+          canEdit: coordinating || site.growerUserId === caller.userId,
+          isCoordinator: coordinating,
+        }),
         strips: presentStrips(site, strips),
       };
     },
@@ -48,7 +62,11 @@ export function createStripsService(deps: { dataSource: DataSource }) {
      * change nothing and keep the version. Two reads side by side, then one statement that
      * writes only if the strip is still at the version read (see changeStrip).
      */
-    async updateStrip(stripId: string, input: UpdateStripInput, actorUserId: string): Promise<StripDto> {
+    async updateStrip(
+      stripId: string,
+      input: UpdateStripInput,
+      actorUserId: string,
+    ): Promise<StripDto> {
       const whole = await loadWholeSite({ stripId });
       const current = whole.strips.find((s) => s.stripId === stripId);
       if (!current) throw new NotFound('Strip');
@@ -74,8 +92,17 @@ export function createStripsService(deps: { dataSource: DataSource }) {
           fresh,
         );
       }
-      const saved: StripRecord = { ...current, values: merged, version: outcome.version, hasObservation: true, updatedAt: outcome.updatedAt };
-      return presentOne({ ...whole, strips: whole.strips.map((s) => (s.stripId === stripId ? saved : s)) }, stripId);
+      const saved: StripRecord = {
+        ...current,
+        values: merged,
+        version: outcome.version,
+        hasObservation: true,
+        updatedAt: outcome.updatedAt,
+      };
+      return presentOne(
+        { ...whole, strips: whole.strips.map((s) => (s.stripId === stripId ? saved : s)) },
+        stripId,
+      );
     },
   };
 }

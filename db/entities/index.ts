@@ -14,6 +14,17 @@ import { Trial } from './trial.entity';
 import { User } from './user.entity';
 
 export const ENTITIES = [
-  User, Network, Membership, Trial, RateLevelRow, Site, Strip, Observation, Attachment,
-  Invitation, PasswordResetToken, AuditEvent, ReportSnapshot,
+  User,
+  Network,
+  Membership,
+  Trial,
+  RateLevelRow,
+  Site,
+  Strip,
+  Observation,
+  Attachment,
+  Invitation,
+  PasswordResetToken,
+  AuditEvent,
+  ReportSnapshot,
 ];

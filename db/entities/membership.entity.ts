@@ -1,5 +1,14 @@
 // A user's role in one network (admin, coordinator, grower or member).
-import { Column, CreateDateColumn, Entity, Index, ManyToOne, PrimaryGeneratedColumn, JoinColumn, type Relation } from 'typeorm';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  JoinColumn,
+  type Relation,
+} from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
 import { Network } from './network.entity';
 import { User } from './user.entity';

@@ -1,5 +1,13 @@
 // What was measured on one strip, in the trial's unit system (imperial: ft, lb; metric: m, kg).
-import { Column, Entity, JoinColumn, OneToOne, PrimaryColumn, UpdateDateColumn, type Relation } from 'typeorm';
+import {
+  Column,
+  Entity,
+  JoinColumn,
+  OneToOne,
+  PrimaryColumn,
+  UpdateDateColumn,
+  type Relation,
+} from 'typeorm';
 import { numericTransformer } from '../transformers';
 import { Strip } from './strip.entity';
 
@@ -19,7 +27,12 @@ export class Observation {
   @Column({ name: 'stand_counts', type: 'jsonb', default: () => "'[]'" })
   standCounts!: number[];
 
-  @Column({ name: 'stand_row_length', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'stand_row_length',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   standRowLength!: number | null;
 
   @Column({ name: 'tiller_plants', type: 'integer', nullable: true })
@@ -31,23 +44,48 @@ export class Observation {
   @Column({ name: 'head_counts', type: 'jsonb', default: () => "'[]'" })
   headCounts!: number[];
 
-  @Column({ name: 'head_row_length', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'head_row_length',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   headRowLength!: number | null;
 
-  @Column({ name: 'grain_weight', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'grain_weight',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   grainWeight!: number | null;
 
   @Column({ name: 'harvest_rows', type: 'integer', nullable: true })
   harvestRows!: number | null;
 
-  @Column({ name: 'harvest_length', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'harvest_length',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   harvestLength!: number | null;
 
   /** Harvested area when it is not rows × length (ft² or m²). */
-  @Column({ name: 'harvest_area', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'harvest_area',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   harvestArea!: number | null;
 
-  @Column({ name: 'moisture_pct', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'moisture_pct',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   moisturePct!: number | null;
 
   @Column({ name: 'test_weight', type: 'numeric', nullable: true, transformer: numericTransformer })

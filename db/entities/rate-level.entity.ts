@@ -1,5 +1,13 @@
 // One seeding-rate level of a trial, as a multiplier of the reference rate.
-import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, type Relation } from 'typeorm';
+import {
+  Column,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  type Relation,
+} from 'typeorm';
 import { numericTransformer } from '../transformers';
 import { Trial } from './trial.entity';
 

@@ -1,7 +1,14 @@
 // A site: one grower's field enrolled in a trial for one season.
 import {
-  Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn,
-  UpdateDateColumn, type Relation,
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+  type Relation,
 } from 'typeorm';
 import { Trial } from './trial.entity';
 import { User } from './user.entity';

@@ -1,5 +1,13 @@
 // A strip: the plot sown at one rate in one block of a site.
-import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, type Relation } from 'typeorm';
+import {
+  Column,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  type Relation,
+} from 'typeorm';
 import { RateLevelRow } from './rate-level.entity';
 import { Site } from './site.entity';
 

@@ -1,9 +1,22 @@
 // A seeding-rate trial: one crop and season, its rate levels and strip layout.
 import {
-  Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn,
-  UpdateDateColumn, type Relation,
+  Column,
+  CreateDateColumn,
+  Entity,
+  JoinColumn,
+  ManyToOne,
+  OneToMany,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+  type Relation,
 } from 'typeorm';
-import type { CropKey, CustomCrop, RateUnit, TrialStatus, UnitSystem } from '../../shared/schemas/trial';
+import type {
+  CropKey,
+  CustomCrop,
+  RateUnit,
+  TrialStatus,
+  UnitSystem,
+} from '../../shared/schemas/trial';
 import { numericTransformer } from '../transformers';
 import { Network } from './network.entity';
 import { RateLevelRow } from './rate-level.entity';
@@ -41,7 +54,12 @@ export class Trial {
   @Column({ name: 'unit_system', type: 'text', default: 'imperial' })
   unitSystem!: UnitSystem;
 
-  @Column({ name: 'reference_rate', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'reference_rate',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   referenceRate!: number | null;
 
   @Column({ name: 'reference_unit', type: 'text', nullable: true })
@@ -53,28 +71,63 @@ export class Trial {
   @Column({ name: 'rows_per_strip', type: 'integer', nullable: true })
   rowsPerStrip!: number | null;
 
-  @Column({ name: 'row_spacing_in', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'row_spacing_in',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   rowSpacingIn!: number | null;
 
-  @Column({ name: 'strip_length_ft', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'strip_length_ft',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   stripLengthFt!: number | null;
 
   @Column({ name: 'border_rows', type: 'integer', nullable: true })
   borderRows!: number | null;
 
-  @Column({ name: 'thousand_kernel_weight_g', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'thousand_kernel_weight_g',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   thousandKernelWeightG!: number | null;
 
-  @Column({ name: 'germination_pct', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'germination_pct',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   germinationPct!: number | null;
 
-  @Column({ name: 'emergence_pct', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'emergence_pct',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   emergencePct!: number | null;
 
-  @Column({ name: 'seed_price_per_lb', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'seed_price_per_lb',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   seedPricePerLb!: number | null;
 
-  @Column({ name: 'grain_price_per_bu', type: 'numeric', nullable: true, transformer: numericTransformer })
+  @Column({
+    name: 'grain_price_per_bu',
+    type: 'numeric',
+    nullable: true,
+    transformer: numericTransformer,
+  })
   grainPricePerBu!: number | null;
 
   @Column({ name: 'public_link_token', type: 'text', nullable: true, unique: true })

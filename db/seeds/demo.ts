@@ -19,20 +19,53 @@ export const DEMO_ACCOUNTS = [
 ] as const;
 
 const FIELDS = [
-  { field: 'Creekside lower field', soil: 'silt loam', previous: 'red clover', fertility: 'composted manure 4 t/acre' },
+  {
+    field: 'Creekside lower field',
+    soil: 'silt loam',
+    previous: 'red clover',
+    fertility: 'composted manure 4 t/acre',
+  },
   { field: 'Orchard strip', soil: 'sandy loam', previous: 'squash', fertility: 'none' },
-  { field: 'Hilltop paddock', soil: 'clay loam', previous: 'winter rye', fertility: 'feather meal 30 lb N/acre' },
-  { field: 'Barn field', soil: 'loam', previous: 'potatoes', fertility: 'composted manure 2 t/acre' },
+  {
+    field: 'Hilltop paddock',
+    soil: 'clay loam',
+    previous: 'winter rye',
+    fertility: 'feather meal 30 lb N/acre',
+  },
+  {
+    field: 'Barn field',
+    soil: 'loam',
+    previous: 'potatoes',
+    fertility: 'composted manure 2 t/acre',
+  },
   { field: 'Willow bottom', soil: 'silt loam', previous: 'field peas', fertility: 'none' },
-  { field: 'South terrace', soil: 'sandy loam', previous: 'buckwheat', fertility: 'pelleted poultry litter 1 t/acre' },
+  {
+    field: 'South terrace',
+    soil: 'sandy loam',
+    previous: 'buckwheat',
+    fertility: 'pelleted poultry litter 1 t/acre',
+  },
   { field: 'Long acre', soil: 'clay loam', previous: 'sweet corn', fertility: 'none' },
-  { field: 'Stone wall field', soil: 'loam', previous: 'hairy vetch', fertility: 'composted manure 3 t/acre' },
+  {
+    field: 'Stone wall field',
+    soil: 'loam',
+    previous: 'hairy vetch',
+    fertility: 'composted manure 3 t/acre',
+  },
 ];
 
 /** Hulless oats, demo assumptions (invented): oats' USDA bushel of 32 lb and 14 % moisture base. */
 const BUSHEL_LB = 32;
 const STANDARD_MOISTURE = 14;
-const OAT_LAYOUT = { rowsPerStrip: 4, rowSpacingIn: 8, stripLengthFt: 50, referenceLbPerAcre: 80, tkwG: 25, germination: 88, emergence: 80 };
+const OAT_LAYOUT = {
+  rowsPerStrip: 4,
+  rowSpacingIn: 8,
+  stripLengthFt: 50,
+  referenceLbPerAcre: 80,
+  tkwG: 25,
+  germination: 88,
+  emergence: 80,
+};
 
 function normal(random: () => number, mean: number, sd: number): number {
   const u = Math.max(random(), 1e-12);
@@ -47,7 +80,9 @@ function round(value: number, digits: number): number {
 
 /** Loads the demo once; returns false when it is already there (restart-safe). */
 export async function seedDemo(dataSource: DataSource): Promise<boolean> {
-  const existing = await dataSource.query('SELECT 1 FROM networks WHERE slug = $1', [DEMO_NETWORK_SLUG]);
+  const existing = await dataSource.query('SELECT 1 FROM networks WHERE slug = $1', [
+    DEMO_NETWORK_SLUG,
+  ]);
   if (existing.length > 0) return false;
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await dataSource.transaction(async (manager) => {
@@ -63,11 +98,10 @@ export async function seedDemo(dataSource: DataSource): Promise<boolean> {
         [account.email, account.name, passwordHash],
       );
       userIds[account.email] = user.id;
-      await manager.query('INSERT INTO memberships (user_id, network_id, role) VALUES ($1, $2, $3) ON CONFLICT DO NOTHING', [
-        user.id,
-        network.id,
-        account.role,
-      ]);
+      await manager.query(
+        'INSERT INTO memberships (user_id, network_id, role) VALUES ($1, $2, $3) ON CONFLICT DO NOTHING',
+        [user.id, network.id, account.role],
+      );
     }
     await seedOatTrial(manager, network.id, userIds);
     await seedWheatDraft(manager, network.id, userIds['coordinator@millbrook.example']!);
@@ -75,7 +109,11 @@ export async function seedDemo(dataSource: DataSource): Promise<boolean> {
   return true;
 }
 
-async function seedOatTrial(manager: EntityManager, networkId: string, userIds: Record<string, string>) {
+async function seedOatTrial(
+  manager: EntityManager,
+  networkId: string,
+  userIds: Record<string, string>,
+) {
   const layout = OAT_LAYOUT;
   const [trial] = await manager.query(
     `INSERT INTO trials (network_id, name, question, status, crop, season, unit_system, reference_rate, reference_unit,
@@ -149,16 +187,32 @@ async function seedOatTrial(manager: EntityManager, networkId: string, userIds: 
         const multiplier = multiplierOf.get(levelId)!;
         const seedsPerFt2 = fullSeedsPerFt2 * multiplier;
         // Establishment falls as the rate rises (stand loss grows with crowding).
-        const establishment = Math.min(0.97, Math.max(0.45, normal(random, 0.86 - 0.06 * Math.log2(multiplier), 0.04)));
+        const establishment = Math.min(
+          0.97,
+          Math.max(0.45, normal(random, 0.86 - 0.06 * Math.log2(multiplier), 0.04)),
+        );
         const plantsPerFt2 = seedsPerFt2 * establishment;
         const plantsPerFtRow = plantsPerFt2 * (layout.rowSpacingIn / 12);
-        const standCounts = Array.from({ length: 6 }, () => Math.max(0, Math.round(normal(random, plantsPerFtRow * 3, Math.sqrt(plantsPerFtRow * 3) + 1))));
+        const standCounts = Array.from({ length: 6 }, () =>
+          Math.max(
+            0,
+            Math.round(normal(random, plantsPerFtRow * 3, Math.sqrt(plantsPerFtRow * 3) + 1)),
+          ),
+        );
         // Thin stands compensate with tillers.
-        const tillersPerPlant = Math.max(0.2, normal(random, 2.6 / Math.sqrt(multiplier) - 0.6, 0.2));
+        const tillersPerPlant = Math.max(
+          0.2,
+          normal(random, 2.6 / Math.sqrt(multiplier) - 0.6, 0.2),
+        );
         const tillerPlants = 10;
         const headsPerPlant = Math.max(1, 0.9 + tillersPerPlant * 0.55);
         const headsPerFtRow = plantsPerFtRow * headsPerPlant;
-        const headCounts = Array.from({ length: 4 }, () => Math.max(0, Math.round(normal(random, headsPerFtRow * 3, Math.sqrt(headsPerFtRow * 3) + 1))));
+        const headCounts = Array.from({ length: 4 }, () =>
+          Math.max(
+            0,
+            Math.round(normal(random, headsPerFtRow * 3, Math.sqrt(headsPerFtRow * 3) + 1)),
+          ),
+        );
         // Yield response (bu/acre): rises steeply to the full rate, flat to slightly down beyond.
         const response = 62 - 26 * Math.exp(-2.3 * multiplier) * siteSlope;
         const yieldBu = Math.max(15, response + siteEffect + blockEffect + normal(random, 0, 3));
@@ -200,7 +254,12 @@ async function seedWheatDraft(manager: EntityManager, networkId: string, coordin
         germination_pct, emergence_pct, seed_price_per_lb, grain_price_per_bu, created_by)
      VALUES ($1, $2, $3, 'draft', 'wheat', '2027', 'imperial', 100, 'lb/acre', 4, 4, 8, 60, 1, 38, 92, 85, 0.55, 8.0, $4)
      RETURNING id`,
-    [networkId, 'Winter wheat seeding rate 2027–28', 'Can we sow winter wheat thinner without losing yield?', coordinatorId],
+    [
+      networkId,
+      'Winter wheat seeding rate 2027–28',
+      'Can we sow winter wheat thinner without losing yield?',
+      coordinatorId,
+    ],
   );
   for (const [i, level] of [
     { multiplier: 0.25, label: 'quarter' },
@@ -208,11 +267,9 @@ async function seedWheatDraft(manager: EntityManager, networkId: string, coordin
     { multiplier: 1, label: 'full' },
     { multiplier: 2, label: 'double' },
   ].entries()) {
-    await manager.query('INSERT INTO rate_levels (trial_id, position, multiplier, label) VALUES ($1, $2, $3, $4)', [
-      trial.id,
-      i + 1,
-      level.multiplier,
-      level.label,
-    ]);
+    await manager.query(
+      'INSERT INTO rate_levels (trial_id, position, multiplier, label) VALUES ($1, $2, $3, $4)',
+      [trial.id, i + 1, level.multiplier, level.label],
+    );
   }
 }

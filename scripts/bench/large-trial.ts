@@ -8,7 +8,9 @@ async function main() {
   if (!url) throw new Error('DATABASE_URL is required');
   const ds = createDataSource(url, { poolSize: 2 });
   await ds.initialize();
-  const [network] = await ds.query(`SELECT id FROM networks WHERE slug = 'millbrook-valley-grain-circle'`);
+  const [network] = await ds.query(
+    `SELECT id FROM networks WHERE slug = 'millbrook-valley-grain-circle'`,
+  );
   const [grower] = await ds.query(`SELECT id FROM users WHERE email = 'grower1@millbrook.example'`);
   const out: Record<string, string> = {};
   await ds.transaction(async (m) => {
@@ -47,7 +49,10 @@ async function main() {
          FROM strips st JOIN rate_levels r ON r.id = st.rate_level_id JOIN sites s ON s.id = st.site_id WHERE s.trial_id = $1`,
       [trial.id],
     );
-    const [site] = await m.query(`SELECT id FROM sites WHERE trial_id = $1 ORDER BY field_name LIMIT 1`, [trial.id]);
+    const [site] = await m.query(
+      `SELECT id FROM sites WHERE trial_id = $1 ORDER BY field_name LIMIT 1`,
+      [trial.id],
+    );
     out.siteId = site.id;
 
     // One big site for the 5,000-row import: 1,250 blocks × 4 rates.

@@ -7,7 +7,8 @@ const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
 export function ensureNodeModules() {
   const marker = 'node_modules/.package-lock.json';
   const stale =
-    !fs.existsSync(marker) || fs.statSync('package-lock.json').mtimeMs > fs.statSync(marker).mtimeMs + 1000;
+    !fs.existsSync(marker) ||
+    fs.statSync('package-lock.json').mtimeMs > fs.statSync(marker).mtimeMs + 1000;
   if (!stale) return;
   console.log('[sheaf] installing npm dependencies (npm ci)…');
   const result = spawnSync('npm', ['ci', '--no-audit', '--no-fund'], { stdio: 'inherit' });
@@ -21,7 +22,9 @@ export function ensureNodeModules() {
 export function ensureDebianPackage(binary, pkg) {
   if (fs.existsSync(binary)) return true;
   if (!isRoot) {
-    console.error(`[sheaf] ${binary} is missing: run \`sudo apt-get install -y ${pkg}\` and try again.`);
+    console.error(
+      `[sheaf] ${binary} is missing: run \`sudo apt-get install -y ${pkg}\` and try again.`,
+    );
     return false;
   }
   console.log(`[sheaf] installing Debian package ${pkg}…`);

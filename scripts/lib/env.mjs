@@ -11,13 +11,17 @@ export function sessionSecret() {
   if (process.env.SESSION_SECRET) return process.env.SESSION_SECRET;
   const file = path.join(DATA_DIR, 'session-secret');
   fs.mkdirSync(DATA_DIR, { recursive: true });
-  if (!fs.existsSync(file)) fs.writeFileSync(file, crypto.randomBytes(32).toString('hex'), { mode: 0o600 });
+  if (!fs.existsSync(file))
+    fs.writeFileSync(file, crypto.randomBytes(32).toString('hex'), { mode: 0o600 });
   return fs.readFileSync(file, 'utf8').trim();
 }
 
 /** Runs a node script with tsx in this process's environment plus extra; throws on failure. */
 export function runTs(script, args, env) {
-  const result = spawnSync(process.execPath, ['--import', 'tsx', script, ...args], { stdio: 'inherit', env: { ...process.env, ...env } });
+  const result = spawnSync(process.execPath, ['--import', 'tsx', script, ...args], {
+    stdio: 'inherit',
+    env: { ...process.env, ...env },
+  });
   if (result.status !== 0) throw new Error(`${script} ${args.join(' ')} failed`);
 }
 
@@ -25,7 +29,19 @@ export function runTs(script, args, env) {
 export function buildWeb(outDir = process.env.WEB_DIST_DIR ?? 'dist/web') {
   if (process.env.SKIP_BUILD) return outDir;
   console.log('[sheaf] building the web app…');
-  const result = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn', '--outDir', outDir, '--emptyOutDir'], { stdio: 'inherit' });
+  const result = spawnSync(
+    process.execPath,
+    [
+      'node_modules/vite/bin/vite.js',
+      'build',
+      '--logLevel',
+      'warn',
+      '--outDir',
+      outDir,
+      '--emptyOutDir',
+    ],
+    { stdio: 'inherit' },
+  );
   if (result.status !== 0) throw new Error('vite build failed');
   return outDir;
 }

@@ -13,10 +13,16 @@ import seedrandom from 'seedrandom';
  * @throws when there are no treatments, duplicate treatments or blocks < 1
  * @example randomizeRcbd(['a','b','c'], 2, 'x') // e.g. [['b','a','c'], ['c','b','a']]
  */
-export function randomizeRcbd<T extends string>(treatments: readonly T[], blocks: number, seed: string): T[][] {
+export function randomizeRcbd<T extends string>(
+  treatments: readonly T[],
+  blocks: number,
+  seed: string,
+): T[][] {
   if (treatments.length === 0) throw new Error('randomizeRcbd needs at least one treatment');
-  if (new Set(treatments).size !== treatments.length) throw new Error('randomizeRcbd needs distinct treatments');
-  if (!Number.isInteger(blocks) || blocks < 1) throw new Error('randomizeRcbd needs a whole number of blocks, at least 1');
+  if (new Set(treatments).size !== treatments.length)
+    throw new Error('randomizeRcbd needs distinct treatments');
+  if (!Number.isInteger(blocks) || blocks < 1)
+    throw new Error('randomizeRcbd needs a whole number of blocks, at least 1');
   const random = seedrandom(seed);
   const layout: T[][] = [];
   for (let b = 0; b < blocks; b += 1) {

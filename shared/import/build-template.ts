@@ -13,7 +13,11 @@ export interface TemplateStrip {
 }
 
 /** The CSV text (CRLF line ends, as spreadsheets write) for a site's strips, block by block. */
-export function buildImportTemplate(input: { unitSystem: UnitSystem; fieldName: string; strips: readonly TemplateStrip[] }): string {
+export function buildImportTemplate(input: {
+  unitSystem: UnitSystem;
+  fieldName: string;
+  strips: readonly TemplateStrip[];
+}): string {
   const columns = valueColumns(input.unitSystem);
   const strips = [...input.strips].sort((a, b) => a.block - b.block || a.position - b.position);
   const rows = strips.map((strip) => [
@@ -27,5 +31,8 @@ export function buildImportTemplate(input: { unitSystem: UnitSystem; fieldName: 
       return item === null || item === undefined ? '' : String(item);
     }),
   ]);
-  return Papa.unparse({ fields: templateHeaders(input.unitSystem), data: rows }, { escapeFormulae: true, newline: '\r\n' });
+  return Papa.unparse(
+    { fields: templateHeaders(input.unitSystem), data: rows },
+    { escapeFormulae: true, newline: '\r\n' },
+  );
 }

@@ -30,7 +30,12 @@ const UNIT_SUFFIX: Record<UnitSystem, Record<UnitKey, string>> = {
 };
 const UNIT_WORDS: Record<UnitSystem, Record<UnitKey, string>> = {
   imperial: { length: 'feet', weight: 'pounds', area: 'square feet', testWeight: 'lb per bushel' },
-  metric: { length: 'metres', weight: 'kilograms', area: 'square metres', testWeight: 'kg per hectolitre' },
+  metric: {
+    length: 'metres',
+    weight: 'kilograms',
+    area: 'square metres',
+    testWeight: 'kg per hectolitre',
+  },
 };
 
 interface ColumnSpec {
@@ -43,23 +48,116 @@ interface ColumnSpec {
 }
 
 const SPECS: ColumnSpec[] = [
-  { base: 'seeds_sown', field: 'seedsSown', kind: 'int', meaning: () => 'Seeds sown on the strip (count)' },
-  { base: 'stand', field: 'standCounts', kind: 'int', list: true, meaning: () => 'Plants counted on one measured row length (subsample)' },
-  { base: 'stand_row_length', field: 'standRowLength', kind: 'number', unit: 'length', meaning: (u) => `Row length of each stand-count subsample, in ${u}` },
-  { base: 'tiller_plants', field: 'tillerPlants', kind: 'int', meaning: () => 'Plants dug or examined for tillers (count)' },
-  { base: 'tillers', field: 'tillerCount', kind: 'int', meaning: () => 'Tillers counted on those plants (count)' },
-  { base: 'heads', field: 'headCounts', kind: 'int', list: true, meaning: () => 'Heads counted on one measured row length (subsample)' },
-  { base: 'head_row_length', field: 'headRowLength', kind: 'number', unit: 'length', meaning: (u) => `Row length of each head-count subsample, in ${u}` },
-  { base: 'grain_weight', field: 'grainWeight', kind: 'number', unit: 'weight', meaning: (u) => `Threshed grain weight from the harvested area, in ${u}` },
-  { base: 'harvest_rows', field: 'harvestRows', kind: 'int', meaning: () => 'Rows harvested (count)' },
-  { base: 'harvest_length', field: 'harvestLength', kind: 'number', unit: 'length', meaning: (u) => `Length harvested, in ${u}` },
-  { base: 'harvest_area', field: 'harvestArea', kind: 'number', unit: 'area', meaning: (u) => `Harvested area when it is not rows × length, in ${u}` },
-  { base: 'moisture_pct', field: 'moisturePct', kind: 'number', meaning: () => 'Grain moisture at weighing, %' },
-  { base: 'test_weight', field: 'testWeight', kind: 'number', unit: 'testWeight', meaning: (u) => `Test weight (optional), ${u}` },
-  { base: 'sowing_date', field: 'sowingDate', kind: 'date', meaning: () => 'Sowing date of this strip, YYYY-MM-DD (leave empty when the site date applies)' },
-  { base: 'emergence_date', field: 'emergenceDate', kind: 'date', meaning: () => 'Emergence date, YYYY-MM-DD' },
-  { base: 'heading_date', field: 'headingDate', kind: 'date', meaning: () => 'Heading date, YYYY-MM-DD' },
-  { base: 'harvest_date', field: 'harvestDate', kind: 'date', meaning: () => 'Harvest date, YYYY-MM-DD' },
+  {
+    base: 'seeds_sown',
+    field: 'seedsSown',
+    kind: 'int',
+    meaning: () => 'Seeds sown on the strip (count)',
+  },
+  {
+    base: 'stand',
+    field: 'standCounts',
+    kind: 'int',
+    list: true,
+    meaning: () => 'Plants counted on one measured row length (subsample)',
+  },
+  {
+    base: 'stand_row_length',
+    field: 'standRowLength',
+    kind: 'number',
+    unit: 'length',
+    meaning: (u) => `Row length of each stand-count subsample, in ${u}`,
+  },
+  {
+    base: 'tiller_plants',
+    field: 'tillerPlants',
+    kind: 'int',
+    meaning: () => 'Plants dug or examined for tillers (count)',
+  },
+  {
+    base: 'tillers',
+    field: 'tillerCount',
+    kind: 'int',
+    meaning: () => 'Tillers counted on those plants (count)',
+  },
+  {
+    base: 'heads',
+    field: 'headCounts',
+    kind: 'int',
+    list: true,
+    meaning: () => 'Heads counted on one measured row length (subsample)',
+  },
+  {
+    base: 'head_row_length',
+    field: 'headRowLength',
+    kind: 'number',
+    unit: 'length',
+    meaning: (u) => `Row length of each head-count subsample, in ${u}`,
+  },
+  {
+    base: 'grain_weight',
+    field: 'grainWeight',
+    kind: 'number',
+    unit: 'weight',
+    meaning: (u) => `Threshed grain weight from the harvested area, in ${u}`,
+  },
+  {
+    base: 'harvest_rows',
+    field: 'harvestRows',
+    kind: 'int',
+    meaning: () => 'Rows harvested (count)',
+  },
+  {
+    base: 'harvest_length',
+    field: 'harvestLength',
+    kind: 'number',
+    unit: 'length',
+    meaning: (u) => `Length harvested, in ${u}`,
+  },
+  {
+    base: 'harvest_area',
+    field: 'harvestArea',
+    kind: 'number',
+    unit: 'area',
+    meaning: (u) => `Harvested area when it is not rows × length, in ${u}`,
+  },
+  {
+    base: 'moisture_pct',
+    field: 'moisturePct',
+    kind: 'number',
+    meaning: () => 'Grain moisture at weighing, %',
+  },
+  {
+    base: 'test_weight',
+    field: 'testWeight',
+    kind: 'number',
+    unit: 'testWeight',
+    meaning: (u) => `Test weight (optional), ${u}`,
+  },
+  {
+    base: 'sowing_date',
+    field: 'sowingDate',
+    kind: 'date',
+    meaning: () => 'Sowing date of this strip, YYYY-MM-DD (leave empty when the site date applies)',
+  },
+  {
+    base: 'emergence_date',
+    field: 'emergenceDate',
+    kind: 'date',
+    meaning: () => 'Emergence date, YYYY-MM-DD',
+  },
+  {
+    base: 'heading_date',
+    field: 'headingDate',
+    kind: 'date',
+    meaning: () => 'Heading date, YYYY-MM-DD',
+  },
+  {
+    base: 'harvest_date',
+    field: 'harvestDate',
+    kind: 'date',
+    meaning: () => 'Harvest date, YYYY-MM-DD',
+  },
   { base: 'notes', field: 'notes', kind: 'text', meaning: () => 'Notes (plain text)' },
 ];
 
@@ -74,10 +172,21 @@ export function valueColumns(system: UnitSystem): ValueColumn[] {
     const unitWord = spec.unit ? UNIT_WORDS[system][spec.unit] : '';
     if (spec.list) {
       for (let i = 0; i < SUBSAMPLES; i += 1) {
-        columns.push({ header: `${spec.base}_${i + 1}`, field: spec.field, index: i, kind: spec.kind, meaning: `${spec.meaning(unitWord)} ${i + 1}` });
+        columns.push({
+          header: `${spec.base}_${i + 1}`,
+          field: spec.field,
+          index: i,
+          kind: spec.kind,
+          meaning: `${spec.meaning(unitWord)} ${i + 1}`,
+        });
       }
     } else {
-      columns.push({ header: headerFor(spec, system), field: spec.field, kind: spec.kind, meaning: spec.meaning(unitWord) });
+      columns.push({
+        header: headerFor(spec, system),
+        field: spec.field,
+        kind: spec.kind,
+        meaning: spec.meaning(unitWord),
+      });
     }
   }
   return columns;
@@ -93,7 +202,10 @@ export function columnDocs(system: UnitSystem): { header: string; meaning: strin
   return [
     { header: 'site', meaning: 'The field name of the site (filled in; must match)' },
     { header: 'block', meaning: 'Block number (filled in; identifies the strip)' },
-    { header: 'position', meaning: 'Position of the strip in its block (filled in; identifies the strip)' },
+    {
+      header: 'position',
+      meaning: 'Position of the strip in its block (filled in; identifies the strip)',
+    },
     { header: 'rate', meaning: 'Rate level of the strip (filled in; must match the map)' },
     ...valueColumns(system).map(({ header, meaning }) => ({ header, meaning })),
   ];

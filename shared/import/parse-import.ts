@@ -52,9 +52,14 @@ function readCell(raw: string, column: ValueColumn): { value: unknown } | { erro
   return { value: Number(text) };
 }
 
-function checkField(field: keyof typeof ObservationValuesSchema.shape, value: unknown): { path: PropertyKey[]; message: string }[] {
+function checkField(
+  field: keyof typeof ObservationValuesSchema.shape,
+  value: unknown,
+): { path: PropertyKey[]; message: string }[] {
   const result = ObservationValuesSchema.shape[field].safeParse(value);
-  return result.success ? [] : result.error.issues.map((issue) => ({ path: issue.path, message: issue.message }));
+  return result.success
+    ? []
+    : result.error.issues.map((issue) => ({ path: issue.path, message: issue.message }));
 }
 
 /**
@@ -67,7 +72,11 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
   const table = parsed.data;
   const headerRow = (table[0] ?? []).map((h) => h.trim().toLowerCase());
   if (headerRow.length === 0) {
-    return { headers: [], rows: [], errors: [{ row: 1, column: '', message: 'The file is empty: start from the template' }] };
+    return {
+      headers: [],
+      rows: [],
+      errors: [{ row: 1, column: '', message: 'The file is empty: start from the template' }],
+    };
   }
   const columns = valueColumns(context.unitSystem);
   const byHeader = new Map(columns.map((c) => [c.header, c]));
@@ -91,7 +100,8 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
     seen.add(header);
   });
   for (const required of ['block', 'position'] as const) {
-    if (!seen.has(required)) errors.push({ row: 1, column: required, message: `The ${required} column is missing` });
+    if (!seen.has(required))
+      errors.push({ row: 1, column: required, message: `The ${required} column is missing` });
   }
   if (errors.length > 0) return { headers: headerRow, rows: [], errors };
 
@@ -104,8 +114,15 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
       const index = headerRow.indexOf(header);
       return index < 0 ? '' : unguardCell(cells[index] ?? '');
     };
-    if (cells.length > headerRow.length && cells.slice(headerRow.length).some((c) => c.trim() !== '')) {
-      errors.push({ row: rowNumber, column: '', message: 'This row has more cells than the header has columns' });
+    if (
+      cells.length > headerRow.length &&
+      cells.slice(headerRow.length).some((c) => c.trim() !== '')
+    ) {
+      errors.push({
+        row: rowNumber,
+        column: '',
+        message: 'This row has more cells than the header has columns',
+      });
     }
     const block = Number(cell('block').trim());
     const position = Number(cell('position').trim());
@@ -114,27 +131,52 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
       return;
     }
     if (!Number.isInteger(position) || cell('position').trim() === '') {
-      errors.push({ row: rowNumber, column: 'position', message: 'Give the position in the block' });
+      errors.push({
+        row: rowNumber,
+        column: 'position',
+        message: 'Give the position in the block',
+      });
       return;
     }
     const key = `${block}:${position}`;
     const strip = stripByKey.get(key);
     if (!strip) {
-      errors.push({ row: rowNumber, column: 'position', message: `This site has no strip at block ${block}, position ${position}` });
+      errors.push({
+        row: rowNumber,
+        column: 'position',
+        message: `This site has no strip at block ${block}, position ${position}`,
+      });
       return;
     }
     if (rowsSeen.has(key)) {
-      errors.push({ row: rowNumber, column: 'position', message: `Block ${block}, position ${position} is already on row ${rowsSeen.get(key)}` });
+      errors.push({
+        row: rowNumber,
+        column: 'position',
+        message: `Block ${block}, position ${position} is already on row ${rowsSeen.get(key)}`,
+      });
       return;
     }
     rowsSeen.set(key, rowNumber);
     const site = cell('site').trim();
     if (site !== '' && site.toLowerCase() !== context.fieldName.trim().toLowerCase()) {
-      errors.push({ row: rowNumber, column: 'site', message: `This file is for "${site.slice(0, 60)}", not ${context.fieldName}` });
+      errors.push({
+        row: rowNumber,
+        column: 'site',
+        message: `This file is for "${site.slice(0, 60)}", not ${context.fieldName}`,
+      });
     }
     const rate = cell('rate').trim();
-    if (rate !== '' && rate.toLowerCase() !== strip.label.toLowerCase() && Number(rate) !== strip.rate && Number(rate.replace(/[x×]$/i, '')) !== strip.rate) {
-      errors.push({ row: rowNumber, column: 'rate', message: `The map has the ${strip.label} rate at block ${block}, position ${position}, not "${rate.slice(0, 40)}"` });
+    if (
+      rate !== '' &&
+      rate.toLowerCase() !== strip.label.toLowerCase() &&
+      Number(rate) !== strip.rate &&
+      Number(rate.replace(/[x×]$/i, '')) !== strip.rate
+    ) {
+      errors.push({
+        row: rowNumber,
+        column: 'rate',
+        message: `The map has the ${strip.label} rate at block ${block}, position ${position}, not "${rate.slice(0, 40)}"`,
+      });
     }
 
     const patch: Record<string, unknown> = {};
@@ -167,7 +209,11 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
       if (problems.length > 0) {
         for (const problem of problems) {
           const index = typeof problem.path[0] === 'number' ? problem.path[0] : 0;
-          errors.push({ row: rowNumber, column: list.headers[index] ?? list.headers[0]!, message: problem.message });
+          errors.push({
+            row: rowNumber,
+            column: list.headers[index] ?? list.headers[0]!,
+            message: problem.message,
+          });
         }
         continue;
       }

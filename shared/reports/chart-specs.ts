@@ -54,7 +54,12 @@ export function chartConfig(theme: ChartTheme, scale = 1): Record<string, unknow
       titleFontSize: 13 * scale,
       titleFontWeight: 600,
     },
-    legend: { labelColor: theme.ink, titleColor: theme.ink, labelFontSize: 12 * scale, titleFontSize: 12 * scale },
+    legend: {
+      labelColor: theme.ink,
+      titleColor: theme.ink,
+      labelFontSize: 12 * scale,
+      titleFontSize: 12 * scale,
+    },
     title: { color: theme.ink, fontSize: 15 * scale, anchor: 'start' },
     text: { color: theme.ink },
   };
@@ -67,7 +72,8 @@ interface BaseOptions {
   title?: string;
 }
 
-const sorted = <T extends { order: number }>(items: readonly T[]) => [...items].sort((a, b) => a.order - b.order);
+const sorted = <T extends { order: number }>(items: readonly T[]) =>
+  [...items].sort((a, b) => a.order - b.order);
 
 /**
  * Rate means with their 95 % confidence intervals, the individual strips as open points
@@ -86,9 +92,17 @@ export function rateMeansSpec(
 ): ChartSpec {
   const theme = options.theme ?? LIGHT_CHART_THEME;
   const order = input.means.map((m) => m.label);
-  const x = { field: 'label', type: 'nominal', title: 'Seeding rate', sort: order, axis: { labelAngle: 0 } };
+  const x = {
+    field: 'label',
+    type: 'nominal',
+    title: 'Seeding rate',
+    sort: order,
+    axis: { labelAngle: 0 },
+  };
   const y = { type: 'quantitative', title: `Yield (${input.yieldUnit})`, scale: { zero: false } };
-  const stripPoints = input.strips.filter((s) => s.yield !== null).map((s) => ({ label: s.label, yield: s.yield, block: s.block }));
+  const stripPoints = input.strips
+    .filter((s) => s.yield !== null)
+    .map((s) => ({ label: s.label, yield: s.yield, block: s.block }));
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
@@ -98,19 +112,30 @@ export function rateMeansSpec(
     config: chartConfig(theme, options.scale),
     layer: [
       // The pooled report has no individual strips: leave the layer out rather than draw an empty one.
-      ...(stripPoints.length === 0 ? [] : [{
-        data: { values: stripPoints },
-        mark: { type: 'point', filled: false, size: 50 * (options.scale ?? 1), color: theme.muted, opacity: 0.9, xOffset: 14 },
-        encoding: {
-          x,
-          y: { ...y, field: 'yield' },
-          tooltip: [
-            { field: 'label', title: 'Rate' },
-            { field: 'block', title: 'Block' },
-            { field: 'yield', title: 'Strip yield', format: '.1f' },
-          ],
-        },
-      }]),
+      ...(stripPoints.length === 0
+        ? []
+        : [
+            {
+              data: { values: stripPoints },
+              mark: {
+                type: 'point',
+                filled: false,
+                size: 50 * (options.scale ?? 1),
+                color: theme.muted,
+                opacity: 0.9,
+                xOffset: 14,
+              },
+              encoding: {
+                x,
+                y: { ...y, field: 'yield' },
+                tooltip: [
+                  { field: 'label', title: 'Rate' },
+                  { field: 'block', title: 'Block' },
+                  { field: 'yield', title: 'Strip yield', format: '.1f' },
+                ],
+              },
+            },
+          ]),
       {
         data: { values: input.means.map((m) => ({ ...m })) },
         layer: [
@@ -119,7 +144,13 @@ export function rateMeansSpec(
             encoding: { x, y: { ...y, field: 'ciLow' }, y2: { field: 'ciHigh' } },
           },
           {
-            mark: { type: 'point', filled: true, size: 110 * (options.scale ?? 1), color: theme.accent, opacity: 1 },
+            mark: {
+              type: 'point',
+              filled: true,
+              size: 110 * (options.scale ?? 1),
+              color: theme.accent,
+              opacity: 1,
+            },
             encoding: {
               x,
               y: { ...y, field: 'mean' },
@@ -169,7 +200,17 @@ export function componentsSpec(
     config: chartConfig(theme, options.scale),
     data: { values },
     columns: options.columns ?? 3,
-    facet: { field: 'measure', type: 'nominal', title: null, sort: measures.map((m) => m.title), header: { labelColor: theme.ink, labelFontSize: 12 * (options.scale ?? 1), labelFontWeight: 600 } },
+    facet: {
+      field: 'measure',
+      type: 'nominal',
+      title: null,
+      sort: measures.map((m) => m.title),
+      header: {
+        labelColor: theme.ink,
+        labelFontSize: 12 * (options.scale ?? 1),
+        labelFontWeight: 600,
+      },
+    },
     spec: {
       width: (options.panelWidth ?? 140) * (options.scale ?? 1),
       height: 150 * (options.scale ?? 1),
@@ -210,7 +251,9 @@ export function stripMapSpec(
   }));
   const yields = values.map((v) => v.yield).filter((y): y is number => y !== null);
   const midpoint = yields.length > 0 ? (Math.min(...yields) + Math.max(...yields)) / 2 : 0;
-  const blocks = [...new Set(values.map((v) => v.blockNumber))].sort((a, b) => a - b).map((b) => `Block ${b}`);
+  const blocks = [...new Set(values.map((v) => v.blockNumber))]
+    .sort((a, b) => a - b)
+    .map((b) => `Block ${b}`);
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
@@ -220,7 +263,12 @@ export function stripMapSpec(
     config: chartConfig(theme, options.scale),
     data: { values },
     encoding: {
-      x: { field: 'position', type: 'ordinal', title: 'Strip position in the block', axis: { labelAngle: 0 } },
+      x: {
+        field: 'position',
+        type: 'ordinal',
+        title: 'Strip position in the block',
+        axis: { labelAngle: 0 },
+      },
       y: { field: 'block', type: 'ordinal', title: null, sort: blocks },
     },
     layer: [
@@ -247,7 +295,13 @@ export function stripMapSpec(
         encoding: {
           text: { field: 'label' },
           // Light text on the darker (higher-yield) half of the colour scale keeps labels readable.
-          color: { condition: { test: `datum.yield !== null && datum.yield > ${midpoint}`, value: '#ffffff' }, value: '#26201b' },
+          color: {
+            condition: {
+              test: `datum.yield !== null && datum.yield > ${midpoint}`,
+              value: '#ffffff',
+            },
+            value: '#26201b',
+          },
         },
       },
     ],
@@ -272,11 +326,16 @@ export function forestSpec(
   const pooledName = 'All sites (pooled)';
   const rows = [
     ...input.sites.map((s, i) => ({ ...s, kind: 'site', order: i })),
-    ...(input.pooled ? [{ site: pooledName, ...input.pooled, kind: 'pooled', order: input.sites.length }] : []),
+    ...(input.pooled
+      ? [{ site: pooledName, ...input.pooled, kind: 'pooled', order: input.sites.length }]
+      : []),
   ];
   const order = sorted(rows).map((r) => r.site);
   const y = { field: 'site', type: 'nominal', title: null, sort: order };
-  const x = { type: 'quantitative', title: `${input.rateLabel} minus ${input.referenceLabel} (${input.yieldUnit})` };
+  const x = {
+    type: 'quantitative',
+    title: `${input.rateLabel} minus ${input.referenceLabel} (${input.yieldUnit})`,
+  };
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
@@ -300,7 +359,10 @@ export function forestSpec(
               x: { ...x, field: 'ciLow' },
               x2: { field: 'ciHigh' },
               // Conditions rather than a second colour scale: the point layer colours by kind too.
-              color: { condition: { test: "datum.kind === 'pooled'", value: theme.accent }, value: theme.muted },
+              color: {
+                condition: { test: "datum.kind === 'pooled'", value: theme.accent },
+                value: theme.muted,
+              },
             },
           },
           {
@@ -308,9 +370,20 @@ export function forestSpec(
             encoding: {
               y,
               x: { ...x, field: 'diff' },
-              shape: { field: 'kind', type: 'nominal', legend: null, scale: { domain: ['site', 'pooled'], range: ['square', 'diamond'] } },
-              size: { condition: { test: "datum.kind === 'pooled'", value: 220 * (options.scale ?? 1) }, value: 70 * (options.scale ?? 1) },
-              color: { condition: { test: "datum.kind === 'pooled'", value: theme.accent }, value: theme.ink },
+              shape: {
+                field: 'kind',
+                type: 'nominal',
+                legend: null,
+                scale: { domain: ['site', 'pooled'], range: ['square', 'diamond'] },
+              },
+              size: {
+                condition: { test: "datum.kind === 'pooled'", value: 220 * (options.scale ?? 1) },
+                value: 70 * (options.scale ?? 1),
+              },
+              color: {
+                condition: { test: "datum.kind === 'pooled'", value: theme.accent },
+                value: theme.ink,
+              },
               tooltip: [
                 { field: 'site', title: 'Site' },
                 { field: 'diff', title: 'Difference', format: '.1f' },
@@ -332,7 +405,12 @@ export function forestSpec(
 export function responseCurveSpec(
   input: {
     points: readonly { site: string; seedRate: number; mean: number }[];
-    curve: { intercept: number; linear: number; quadratic: number; testedRange: { low: number; high: number } } | null;
+    curve: {
+      intercept: number;
+      linear: number;
+      quadratic: number;
+      testedRange: { low: number; high: number };
+    } | null;
     agronomicOptimum: number | null;
     economicOptimum: number | null;
     seedUnit: string;
@@ -346,7 +424,13 @@ export function responseCurveSpec(
   const layers: ChartSpec[] = [
     {
       data: { values: input.points.map((p) => ({ ...p })) },
-      mark: { type: 'point', filled: true, opacity: 0.55, color: theme.muted, size: 45 * (options.scale ?? 1) },
+      mark: {
+        type: 'point',
+        filled: true,
+        opacity: 0.55,
+        color: theme.muted,
+        size: 45 * (options.scale ?? 1),
+      },
       encoding: {
         x: { ...x, field: 'seedRate' },
         y: { ...y, field: 'mean' },
@@ -372,8 +456,12 @@ export function responseCurveSpec(
     });
   }
   const optima = [
-    input.agronomicOptimum !== null ? { rate: input.agronomicOptimum, name: 'Highest yield' } : null,
-    input.economicOptimum !== null ? { rate: input.economicOptimum, name: 'Best return over seed' } : null,
+    input.agronomicOptimum !== null
+      ? { rate: input.agronomicOptimum, name: 'Highest yield' }
+      : null,
+    input.economicOptimum !== null
+      ? { rate: input.economicOptimum, name: 'Best return over seed' }
+      : null,
   ].filter((o): o is { rate: number; name: string } => o !== null);
   if (optima.length > 0) {
     layers.push({
@@ -383,7 +471,16 @@ export function responseCurveSpec(
           mark: { type: 'rule', strokeDash: [6, 4], strokeWidth: 2 },
           encoding: {
             x: { ...x, field: 'rate' },
-            color: { field: 'name', type: 'nominal', title: null, scale: { domain: ['Highest yield', 'Best return over seed'], range: [theme.accent, theme.highlight] }, legend: { orient: 'bottom', labelLimit: 0 } },
+            color: {
+              field: 'name',
+              type: 'nominal',
+              title: null,
+              scale: {
+                domain: ['Highest yield', 'Best return over seed'],
+                range: [theme.accent, theme.highlight],
+              },
+              legend: { orient: 'bottom', labelLimit: 0 },
+            },
           },
         },
       ],
@@ -404,7 +501,10 @@ export function responseCurveSpec(
  * Pooled rate means over sites with their 95 % CI (tested against site × rate).
  */
 export function pooledMeansSpec(
-  input: { means: readonly { label: string; mean: number; ciLow: number; ciHigh: number }[]; yieldUnit: string },
+  input: {
+    means: readonly { label: string; mean: number; ciLow: number; ciHigh: number }[];
+    yieldUnit: string;
+  },
   options: BaseOptions = {},
 ): ChartSpec {
   return rateMeansSpec({ means: input.means, strips: [], yieldUnit: input.yieldUnit }, options);

@@ -1,6 +1,11 @@
 // Plain-language findings for site and pooled reports, hedged the way a careful agronomist
 // would say them: one field and one season never settle the question on their own.
-import type { PooledAnalysis, RateDifference, SiteAnalysis, SiteDifference } from '../analysis/types';
+import type {
+  PooledAnalysis,
+  RateDifference,
+  SiteAnalysis,
+  SiteDifference,
+} from '../analysis/types';
 import { decimalsFor, formatMoney, formatNumber, formatP } from './format-numbers';
 
 /** How a rate's difference from the reference reads. */
@@ -47,8 +52,21 @@ export function rateName(label: string): string {
 }
 
 const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
-const plural = (count: number, one: string, many = `${one}s`) => `${count} ${count === 1 ? one : many}`;
-const NUMBER_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten'];
+const plural = (count: number, one: string, many = `${one}s`) =>
+  `${count} ${count === 1 ? one : many}`;
+const NUMBER_WORDS = [
+  'no',
+  'one',
+  'two',
+  'three',
+  'four',
+  'five',
+  'six',
+  'seven',
+  'eight',
+  'nine',
+  'ten',
+];
 const countWord = (count: number) => NUMBER_WORDS[count] ?? String(count);
 const siteCount = (count: number) => (count === 0 ? 'none' : countWord(count));
 
@@ -148,7 +166,12 @@ export function siteFindings(input: SiteFindingsInput): string[] {
     (r): r is { rate: string; returnOverSeedCost: number } => r.returnOverSeedCost !== null,
   );
   const referenceReturn = returns.find((r) => r.rate === analysis.reference);
-  if (returns.length >= 2 && referenceReturn && input.prices?.grainPricePerBu && input.prices.seedPricePerLb !== null) {
+  if (
+    returns.length >= 2 &&
+    referenceReturn &&
+    input.prices?.grainPricePerBu &&
+    input.prices.seedPricePerLb !== null
+  ) {
     const best = returns.reduce((a, b) => (b.returnOverSeedCost > a.returnOverSeedCost ? b : a));
     const money = input.moneyUnit ?? '$/acre';
     const priceText = `grain at ${formatMoney(input.prices.grainPricePerBu)}/bu and seed at ${formatMoney(input.prices.seedPricePerLb)}/lb`;
@@ -183,7 +206,11 @@ export interface PooledFindingsInput {
   /** Per-site differences with each site's own LSD. */
   siteDifferences: readonly (SiteDifference & { lsd: number })[];
   sitesExcluded: readonly { name: string; reason: string }[];
-  economics?: readonly { rate: string; returnOverSeedCost: number | null; versusReference: number | null }[];
+  economics?: readonly {
+    rate: string;
+    returnOverSeedCost: number | null;
+    versusReference: number | null;
+  }[];
   prices?: { seedPricePerLb: number | null; grainPricePerBu: number | null };
   moneyUnit?: string;
   seasons?: number;
@@ -217,9 +244,7 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
 
   const test = analysis.rateTest;
   const firstDifference = analysis.differences[0];
-  const pooledLsd = firstDifference
-    ? (firstDifference.ciHigh - firstDifference.diff)
-    : Number.NaN;
+  const pooledLsd = firstDifference ? firstDifference.ciHigh - firstDifference.diff : Number.NaN;
   findings.push(
     test.p < analysis.alpha
       ? `Over the network, rate changed yield by more than the sites disagreed with each other (F = ${formatNumber(test.f, 2)} on ${test.df1} and ${test.df2} df, tested against the site × rate interaction, ${formatP(test.p)}).`
@@ -252,7 +277,11 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
     (row): row is { rate: string; returnOverSeedCost: number; versusReference: number } =>
       row.returnOverSeedCost !== null && row.versusReference !== null,
   );
-  if (economics.length >= 2 && input.prices?.grainPricePerBu && input.prices.seedPricePerLb !== null) {
+  if (
+    economics.length >= 2 &&
+    input.prices?.grainPricePerBu &&
+    input.prices.seedPricePerLb !== null
+  ) {
     const best = economics.reduce((a, b) => (b.returnOverSeedCost > a.returnOverSeedCost ? b : a));
     const per = (input.moneyUnit ?? '$/acre').replace('$/', 'per ');
     const priceText = `grain at ${formatMoney(input.prices.grainPricePerBu)}/bu and seed at ${formatMoney(input.prices.seedPricePerLb)}/lb`;
@@ -297,9 +326,13 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
   if (Number.isFinite(pooledLsd))
     couldNot.push(`differences smaller than about ${amount(pooledLsd)} between rates`);
   if ((input.seasons ?? 1) <= 1)
-    couldNot.push('whether the answer holds in a wetter, drier or later season (this is one season)');
+    couldNot.push(
+      'whether the answer holds in a wetter, drier or later season (this is one season)',
+    );
   if (sites < FEW_SITES)
-    couldNot.push(`how far the answer travels to other farms (only ${plural(sites, 'site')}; four to six is a usual minimum)`);
+    couldNot.push(
+      `how far the answer travels to other farms (only ${plural(sites, 'site')}; four to six is a usual minimum)`,
+    );
   couldNot.push('which farms would gain from a change, beyond what their own site reports show');
   findings.push(`What the network could not tell: ${couldNot.join('; ')}.`);
   return findings;

@@ -3,7 +3,11 @@
 import { z } from 'zod';
 import { IsoDateSchema } from './site';
 
-const count = z.number().int('Use a whole number').min(0, 'Cannot be negative').max(100000, 'Too large');
+const count = z
+  .number()
+  .int('Use a whole number')
+  .min(0, 'Cannot be negative')
+  .max(100000, 'Too large');
 const positiveLength = z.number().positive('Must be above 0').max(10000, 'Too long');
 
 export const ObservationValuesSchema = z.object({

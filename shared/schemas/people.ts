@@ -36,7 +36,9 @@ export type MemberRoleUpdate = z.infer<typeof MemberRoleUpdateSchema>;
 export const COORDINATOR_GRANTABLE_ROLES = ['grower', 'member'] as const;
 
 /** The roles someone with `viewerRole` in a network may grant, invite to, or change from. */
-export function grantableRoles(viewerRole: z.infer<typeof RoleSchema> | undefined): z.infer<typeof RoleSchema>[] {
+export function grantableRoles(
+  viewerRole: z.infer<typeof RoleSchema> | undefined,
+): z.infer<typeof RoleSchema>[] {
   if (viewerRole === 'admin') return ['admin', 'coordinator', 'grower', 'member'];
   if (viewerRole === 'coordinator') return [...COORDINATOR_GRANTABLE_ROLES];
   return [];

@@ -21,7 +21,10 @@ export type PhotoDto = z.infer<typeof PhotoSchema>;
 
 /** Text fields sent with the multipart upload (the file is field `file`). */
 export const UploadPhotoFieldsSchema = z.object({
-  stripId: z.uuid().optional().or(z.literal('').transform(() => undefined)),
+  stripId: z
+    .uuid()
+    .optional()
+    .or(z.literal('').transform(() => undefined)),
   caption: z.string().trim().max(300, 'At most 300 characters').default(''),
 });
 export type UploadPhotoFields = z.infer<typeof UploadPhotoFieldsSchema>;

@@ -207,7 +207,14 @@ export const PooledReportSchema = z.object({
     }),
   ),
   /** Site × rate means (one point per site and rate) for the response curve. */
-  siteMeans: z.array(z.object({ site: z.string(), rate: z.string(), seedRate: z.number().nullable(), mean: z.number() })),
+  siteMeans: z.array(
+    z.object({
+      site: z.string(),
+      rate: z.string(),
+      seedRate: z.number().nullable(),
+      mean: z.number(),
+    }),
+  ),
   sitesIncluded: z.array(PooledSiteSchema),
   sitesExcluded: z.array(z.object({ site: PooledSiteSchema, reason: z.string() })),
   economics: z.array(EconomicsRowSchema),

@@ -51,14 +51,23 @@ export type SiteSummary = z.infer<typeof SiteSummarySchema>;
 
 export const RandomizeInputSchema = z.object({
   /** Any text; the same seed always gives the same map. Left out, Sheaf draws a new one. */
-  seed: z.string().trim().min(1, 'Give a seed or leave it out').max(64, 'At most 64 characters').optional(),
+  seed: z
+    .string()
+    .trim()
+    .min(1, 'Give a seed or leave it out')
+    .max(64, 'At most 64 characters')
+    .optional(),
 });
 export type RandomizeInput = z.infer<typeof RandomizeInputSchema>;
 
 /** The seeder check a grower records on a site: wheel turned over a bowl, seeds counted. */
 export const CalibrationInputSchema = z.object({
   wheelCircumferenceFt: z.number().positive('Must be above 0').max(20, 'At most 20 ft'),
-  turns: z.number().int('Use a whole number of turns').min(1, 'At least 1 turn').max(200, 'At most 200 turns'),
+  turns: z
+    .number()
+    .int('Use a whole number of turns')
+    .min(1, 'At least 1 turn')
+    .max(200, 'At most 200 turns'),
   seedsCounted: z.number().int('Count whole seeds').min(0, 'At least 0').max(1_000_000),
   targetSeedsPerFt: z.number().positive('Must be above 0').max(1000),
   rowSpacingIn: z.number().positive('Must be above 0').max(40, 'At most 40 in'),

@@ -1,7 +1,15 @@
 // Trial design contract: crop, reference rate, rate levels, strip layout, seed lot and prices.
 import { z } from 'zod';
 
-export const CROP_KEYS = ['wheat', 'springWheat', 'oats', 'hullessOats', 'barley', 'rye', 'custom'] as const;
+export const CROP_KEYS = [
+  'wheat',
+  'springWheat',
+  'oats',
+  'hullessOats',
+  'barley',
+  'rye',
+  'custom',
+] as const;
 export const CropKeySchema = z.enum(CROP_KEYS);
 export type CropKey = z.infer<typeof CropKeySchema>;
 
@@ -58,8 +66,16 @@ const designFields = {
   referenceRate: z.number().positive('Must be above 0').max(100000),
   referenceUnit: RateUnitSchema,
   rateLevels: rateLevelsSchema,
-  blocksPerSite: z.number().int('Use a whole number').min(2, 'Use at least 2 blocks').max(12, 'At most 12 blocks'),
-  rowsPerStrip: z.number().int('Use a whole number').min(1, 'At least 1 row').max(48, 'At most 48 rows'),
+  blocksPerSite: z
+    .number()
+    .int('Use a whole number')
+    .min(2, 'Use at least 2 blocks')
+    .max(12, 'At most 12 blocks'),
+  rowsPerStrip: z
+    .number()
+    .int('Use a whole number')
+    .min(1, 'At least 1 row')
+    .max(48, 'At most 48 rows'),
   rowSpacingIn: z.number().positive('Must be above 0').max(40, 'At most 40 in'),
   stripLengthFt: z.number().positive('Must be above 0').max(5000, 'At most 5,000 ft'),
   borderRows: z.number().int('Use a whole number').min(0, 'At least 0').max(12, 'At most 12'),
@@ -85,7 +101,10 @@ export type TrialDesign = z.infer<typeof TrialDesignSchema>;
 /** The full design a trial needs before it goes to the field (draft → active). */
 export const CompleteTrialDesignSchema = TrialDesignSchema.refine(
   (t) => t.crop !== 'custom' || t.customCrop,
-  { message: 'A custom crop needs its kernel weight, bushel weight and moisture', path: ['customCrop'] },
+  {
+    message: 'A custom crop needs its kernel weight, bushel weight and moisture',
+    path: ['customCrop'],
+  },
 );
 
 export const CreateTrialInputSchema = TrialDesignSchema.partial()
@@ -102,19 +121,22 @@ export const UpdateTrialInputSchema = z
   .extend({ status: TrialStatusSchema.optional() });
 export type UpdateTrialInput = z.infer<typeof UpdateTrialInputSchema>;
 
-export const TrialSchema = z.object(designFields).partial().extend({
-  id: z.uuid(),
-  networkId: z.uuid(),
-  networkName: z.string(),
-  name: z.string(),
-  status: TrialStatusSchema,
-  rateLevels: z.array(RateLevelSchema.extend({ id: z.uuid() })),
-  siteCount: z.number(),
-  pooledPublishedAt: z.string().nullable(),
-  publicLinkToken: z.string().nullable(),
-  createdAt: z.string(),
-  updatedAt: z.string(),
-});
+export const TrialSchema = z
+  .object(designFields)
+  .partial()
+  .extend({
+    id: z.uuid(),
+    networkId: z.uuid(),
+    networkName: z.string(),
+    name: z.string(),
+    status: TrialStatusSchema,
+    rateLevels: z.array(RateLevelSchema.extend({ id: z.uuid() })),
+    siteCount: z.number(),
+    pooledPublishedAt: z.string().nullable(),
+    publicLinkToken: z.string().nullable(),
+    createdAt: z.string(),
+    updatedAt: z.string(),
+  });
 export type Trial = z.infer<typeof TrialSchema>;
 
 export const TrialSummarySchema = z.object({

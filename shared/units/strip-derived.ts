@@ -261,9 +261,9 @@ export interface StripYield {
  */
 export function yieldOutliers(
   strips: readonly StripYield[],
-  analyze: (
-    rows: { block: string; rate: string; value: number | null }[],
-  ) => { residuals: { block: string; rate: string; studentized: number | null }[] },
+  analyze: (rows: { block: string; rate: string; value: number | null }[]) => {
+    residuals: { block: string; rate: string; studentized: number | null }[];
+  },
 ): Map<string, number> {
   const found = new Map<string, number>();
   if (strips.filter((s) => s.value !== null).length < 4) return found;
@@ -277,7 +277,9 @@ export function yieldOutliers(
   }
   for (const residual of residuals) {
     if (residual.studentized === null || Math.abs(residual.studentized) <= 3) continue;
-    const strip = strips.find((s) => String(s.block) === residual.block && s.rate === residual.rate);
+    const strip = strips.find(
+      (s) => String(s.block) === residual.block && s.rate === residual.rate,
+    );
     if (strip) found.set(strip.key, residual.studentized);
   }
   return found;

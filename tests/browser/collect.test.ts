@@ -3,7 +3,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { buildNetwork, type BuiltNetwork } from '../helpers/app';
-import { launchBrowser, screenshot, signInThroughUi, startTestServer, watchErrors } from '../helpers/browser';
+import {
+  launchBrowser,
+  screenshot,
+  signInThroughUi,
+  startTestServer,
+  watchErrors,
+} from '../helpers/browser';
 import { buildCollectSite, type CollectSite } from '../api/strips/collect-builders';
 
 const PHONE = { width: 390, height: 844 };
@@ -17,8 +23,17 @@ describe('collecting strip data in the browser', () => {
   let page: Page;
   let errors: string[];
 
-  const observation = async (stripId: string) => (await server.testApp.dataSource.query('SELECT * FROM observations WHERE strip_id = $1', [stripId]))[0];
-  const waitSaved = (p: Page) => p.getByTestId('outbox-status').filter({ hasText: 'All changes saved' }).waitFor({ timeout: 15_000 });
+  const observation = async (stripId: string) =>
+    (
+      await server.testApp.dataSource.query('SELECT * FROM observations WHERE strip_id = $1', [
+        stripId,
+      ])
+    )[0];
+  const waitSaved = (p: Page) =>
+    p
+      .getByTestId('outbox-status')
+      .filter({ hasText: 'All changes saved' })
+      .waitFor({ timeout: 15_000 });
 
   beforeAll(async () => {
     server = await startTestServer();
@@ -41,7 +56,9 @@ describe('collecting strip data in the browser', () => {
     await expect(page.getByRole('link', { name: /Block 1, strip 1/ }).count()).resolves.toBe(1);
     expect(await page.getByText('missing').count()).toBeGreaterThan(0);
     await screenshot(page, 'collect-site-390');
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    const overflow = await page.evaluate(
+      () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
+    );
     expect(overflow).toBeLessThanOrEqual(0);
   });
 
@@ -53,7 +70,9 @@ describe('collecting strip data in the browser', () => {
     await page.getByLabel('Count 2', { exact: true }).first().fill('46');
     await page.getByLabel('Count 3', { exact: true }).first().fill('45');
     await page.getByLabel('Row length of each count').first().fill('3');
-    expect(await page.getByLabel('Count 1', { exact: true }).first().getAttribute('inputmode')).toBe('numeric');
+    expect(
+      await page.getByLabel('Count 1', { exact: true }).first().getAttribute('inputmode'),
+    ).toBe('numeric');
     await expect(page.getByTestId('plants-per-area').textContent()).resolves.toBe('22.5');
     await page.getByLabel('Grain weight').fill('7.4');
     expect(await page.getByLabel('Grain weight').getAttribute('inputmode')).toBe('decimal');
@@ -90,7 +109,9 @@ describe('collecting strip data in the browser', () => {
 
   it('loses nothing typed when the page reloads before the edit was sent', async () => {
     const strip = site.strips[0]!;
-    await page.route('**/api/strips/**', (route) => (route.request().method() === 'PATCH' ? route.abort('internetdisconnected') : route.continue()));
+    await page.route('**/api/strips/**', (route) =>
+      route.request().method() === 'PATCH' ? route.abort('internetdisconnected') : route.continue(),
+    );
     await page.getByLabel('Test weight').fill('38.5');
     await page.getByTestId('outbox-status').filter({ hasText: '1 change waiting' }).waitFor();
     await page.reload();
@@ -106,10 +127,17 @@ describe('collecting strip data in the browser', () => {
   it('offers to reload or overwrite when someone else saved the strip first', async () => {
     const strip = site.strips[0]!;
     // Another person's save, made straight in the database.
-    await server.testApp.dataSource.query('UPDATE strips SET version = version + 1 WHERE id = $1', [strip.id]);
-    await server.testApp.dataSource.query(`UPDATE observations SET notes = 'coordinator checked' WHERE strip_id = $1`, [strip.id]);
+    await server.testApp.dataSource.query('UPDATE strips SET version = version + 1 WHERE id = $1', [
+      strip.id,
+    ]);
+    await server.testApp.dataSource.query(
+      `UPDATE observations SET notes = 'coordinator checked' WHERE strip_id = $1`,
+      [strip.id],
+    );
     await page.getByLabel('Plants examined').fill('10');
-    await page.getByText('Someone else saved this strip after you opened it').waitFor({ timeout: 15_000 });
+    await page
+      .getByText('Someone else saved this strip after you opened it')
+      .waitFor({ timeout: 15_000 });
     await screenshot(page, 'collect-conflict-390');
     await page.getByRole('button', { name: 'Save mine over theirs' }).click();
     await waitSaved(page);
@@ -121,7 +149,10 @@ describe('collecting strip data in the browser', () => {
   it('renders HTML typed into notes as text', async () => {
     const strip = site.strips[1]!;
     const notes = `<img src=x onerror="document.body.dataset.hacked='yes'"> =cmd|' /C calc'!A0`;
-    await server.testApp.dataSource.query(`INSERT INTO observations (strip_id, notes) VALUES ($1, $2)`, [strip.id, notes]);
+    await server.testApp.dataSource.query(
+      `INSERT INTO observations (strip_id, notes) VALUES ($1, $2)`,
+      [strip.id, notes],
+    );
     await page.goto(`${server.baseUrl}/sites/${site.siteId}/strips/${strip.id}`);
     await page.getByTestId('saved-notes').waitFor();
     expect(await page.getByTestId('saved-notes').textContent()).toBe(notes);
@@ -134,7 +165,9 @@ describe('collecting strip data in the browser', () => {
     await page.getByLabel('CSV file (up to 5 MB)').setInputFiles({
       name: 'ridge.csv',
       mimeType: 'text/csv',
-      buffer: Buffer.from('site,block,position,rate,moisture_pct,notes\nRidge field,1,2,double,wet,<b>bold</b>\nRidge field,1,3,half,13.1,\n'),
+      buffer: Buffer.from(
+        'site,block,position,rate,moisture_pct,notes\nRidge field,1,2,double,wet,<b>bold</b>\nRidge field,1,3,half,13.1,\n',
+      ),
     });
     const problems = page.getByTestId('import-errors');
     await problems.waitFor();
@@ -145,8 +178,13 @@ describe('collecting strip data in the browser', () => {
     await screenshot(page, 'collect-import-390');
 
     await page.goto(`${server.baseUrl}/sites/${site.siteId}/photos`);
-    const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f3e3f00000000049454e44ae426082', 'hex');
-    await page.getByLabel(/^Photo \(JPEG/).setInputFiles({ name: 'lodging.png', mimeType: 'image/png', buffer: png });
+    const png = Buffer.from(
+      '89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f3e3f00000000049454e44ae426082',
+      'hex',
+    );
+    await page
+      .getByLabel(/^Photo \(JPEG/)
+      .setInputFiles({ name: 'lodging.png', mimeType: 'image/png', buffer: png });
     await page.getByLabel('Caption').fill('Lodging after the storm');
     await page.getByRole('button', { name: 'Upload photo' }).click();
     await page.getByRole('img', { name: 'Lodging after the storm' }).waitFor();
@@ -160,7 +198,9 @@ describe('collecting strip data in the browser', () => {
     await first.click();
     await first.fill('51');
     await page.keyboard.press('Enter');
-    expect(await page.evaluate(() => document.activeElement?.getAttribute('data-cell'))).toBe('2:0');
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('data-cell'))).toBe(
+      '2:0',
+    );
     await screenshot(page, 'collect-grid-390');
     await waitSaved(page);
 

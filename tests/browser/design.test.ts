@@ -132,7 +132,9 @@ describe('trial design in the browser', () => {
       '5. Recording sheet',
       '6. Work safely',
     ]) {
-      await page.getByRole('heading', { name: heading }).waitFor({ state: 'visible', timeout: 15_000 });
+      await page
+        .getByRole('heading', { name: heading })
+        .waitFor({ state: 'visible', timeout: 15_000 });
     }
     await page.getByText(/Zadoks 12–13/).waitFor({ state: 'visible', timeout: 15_000 });
     await screenshot(page, 'design-packet-1280');

@@ -204,7 +204,9 @@ describe('journeys through the navigation', () => {
       await expectMainHeading(page, 'Reports');
       const reports = page.getByTestId('trial-reports');
       await expect(reports.count()).resolves.toBe(1);
-      await reports.getByRole('heading', { name: 'Journey barley trial' }).waitFor({ state: 'visible', timeout: 15_000 });
+      await reports
+        .getByRole('heading', { name: 'Journey barley trial' })
+        .waitFor({ state: 'visible', timeout: 15_000 });
       await expect(reports.getByRole('link').allTextContents()).resolves.toEqual([
         expect.stringContaining('Network report'),
         expect.stringContaining('Site report: East bank'),

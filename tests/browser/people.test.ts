@@ -2,7 +2,13 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildNetwork, type BuiltNetwork } from '../helpers/app';
-import { launchBrowser, openPage, screenshot, signInThroughUi, startTestServer } from '../helpers/browser';
+import {
+  launchBrowser,
+  openPage,
+  screenshot,
+  signInThroughUi,
+  startTestServer,
+} from '../helpers/browser';
 
 describe('people page', () => {
   let server: Awaited<ReturnType<typeof startTestServer>>;
@@ -25,7 +31,9 @@ describe('people page', () => {
     const phone = await openPage(browser, 390);
     await signInThroughUi(phone.page, server.baseUrl, net.emails.coordinator);
     await phone.page.goto(`${server.baseUrl}/people`);
-    await phone.page.getByRole('heading', { name: 'People', level: 1 }).waitFor({ timeout: 15_000 });
+    await phone.page
+      .getByRole('heading', { name: 'People', level: 1 })
+      .waitFor({ timeout: 15_000 });
     await phone.page.getByText(net.emails.member).waitFor();
 
     // A coordinator may move a grower or member, not the admin.
@@ -53,9 +61,16 @@ describe('people page', () => {
 
     const desktop = await openPage(browser, 1280);
     await signInThroughUi(desktop.page, server.baseUrl, net.emails.coordinator);
-    await desktop.page.getByRole('navigation', { name: 'Main' }).filter({ visible: true }).getByRole('link', { name: 'People' }).click();
+    await desktop.page
+      .getByRole('navigation', { name: 'Main' })
+      .filter({ visible: true })
+      .getByRole('link', { name: 'People' })
+      .click();
     await desktop.page.waitForURL((url) => url.pathname === '/people');
-    await desktop.page.getByRole('list', { name: 'Pending invitations' }).getByText(invitee).waitFor({ timeout: 15_000 });
+    await desktop.page
+      .getByRole('list', { name: 'Pending invitations' })
+      .getByText(invitee)
+      .waitFor({ timeout: 15_000 });
     await screenshot(desktop.page, 'people-coordinator-1280');
     expect(desktop.errors).toEqual([]);
     await desktop.close();

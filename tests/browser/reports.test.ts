@@ -7,7 +7,14 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildNetwork, demoIds } from '../helpers/app';
-import { ARTIFACTS, launchBrowser, openPage, screenshot, signInThroughUi, startTestServer } from '../helpers/browser';
+import {
+  ARTIFACTS,
+  launchBrowser,
+  openPage,
+  screenshot,
+  signInThroughUi,
+  startTestServer,
+} from '../helpers/browser';
 import { buildReportTrial, rcbdStrips } from '../api/reports/build-report-trial';
 
 const COORDINATOR = 'coordinator@millbrook.example';
@@ -30,12 +37,21 @@ describe('reports in the browser', () => {
 
   /** Waits for every chart on the page to be drawn and checks each SVG has visible marks. */
   async function expectChartsDrawn(page: Page, atLeast: number) {
-    await page.waitForFunction((n) => document.querySelectorAll('[data-chart][data-state="ready"] svg').length >= n, atLeast, { timeout: 20_000 });
+    await page.waitForFunction(
+      (n) => document.querySelectorAll('[data-chart][data-state="ready"] svg').length >= n,
+      atLeast,
+      { timeout: 20_000 },
+    );
     const charts = await page.$$eval('[data-chart][data-state="ready"]', (nodes) =>
       nodes.map((node) => {
         const svg = node.querySelector('svg')!;
         const box = svg.getBoundingClientRect();
-        return { name: node.getAttribute('data-chart'), width: box.width, height: box.height, marks: svg.querySelectorAll('path, rect, line, circle, text').length };
+        return {
+          name: node.getAttribute('data-chart'),
+          width: box.width,
+          height: box.height,
+          marks: svg.querySelectorAll('path, rect, line, circle, text').length,
+        };
       }),
     );
     expect(charts.length).toBeGreaterThanOrEqual(atLeast);
@@ -54,8 +70,12 @@ describe('reports in the browser', () => {
       await page.goto(`${server.baseUrl}/sites/${ids.sites[0]!.id}/report`);
       await page.getByRole('heading', { name: 'What this means' }).waitFor();
       const charts = await expectChartsDrawn(page, 3);
-      expect(charts.map((c) => c.name)).toEqual(expect.arrayContaining(['rate-means', 'strip-map', 'yield-components']));
-      const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+      expect(charts.map((c) => c.name)).toEqual(
+        expect.arrayContaining(['rate-means', 'strip-map', 'yield-components']),
+      );
+      const overflow = await page.evaluate(
+        () => document.documentElement.scrollWidth - window.innerWidth,
+      );
       expect(overflow).toBeLessThanOrEqual(1);
       await screenshot(page, `reports-site-${width}`);
       expect(errors).toEqual([]);
@@ -67,15 +87,20 @@ describe('reports in the browser', () => {
       // Vega logs spec problems (empty layers, clashing scales) as console warnings.
       const chartWarnings: string[] = [];
       page.on('console', (message) => {
-        if (message.type() === 'warning' && /WARN/.test(message.text())) chartWarnings.push(message.text());
+        if (message.type() === 'warning' && /WARN/.test(message.text()))
+          chartWarnings.push(message.text());
       });
       await signInThroughUi(page, server.baseUrl, COORDINATOR);
       await page.goto(`${server.baseUrl}/trials/${ids.oatTrialId}/report`);
       await page.getByRole('heading', { name: 'What the network found' }).waitFor();
       const charts = await expectChartsDrawn(page, 3);
-      expect(charts.map((c) => c.name)).toEqual(expect.arrayContaining(['response-curve', 'network-rate-means']));
+      expect(charts.map((c) => c.name)).toEqual(
+        expect.arrayContaining(['response-curve', 'network-rate-means']),
+      );
       await page.getByText('8 in, 0 left out').waitFor({ state: 'visible', timeout: 15_000 });
-      const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+      const overflow = await page.evaluate(
+        () => document.documentElement.scrollWidth - window.innerWidth,
+      );
       expect(overflow).toBeLessThanOrEqual(1);
       await screenshot(page, `reports-pooled-${width}`);
       expect(errors).toEqual([]);
@@ -120,7 +145,10 @@ describe('reports in the browser', () => {
     await signInThroughUi(page, server.baseUrl, COORDINATOR);
     await page.goto(`${server.baseUrl}/sites/${ids.sites[1]!.id}/report`);
     await page.getByRole('heading', { name: 'What this means' }).waitFor();
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'PDF' }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: 'PDF' }).click(),
+    ]);
     fs.mkdirSync(ARTIFACTS, { recursive: true });
     const file = path.join(ARTIFACTS, 'reports-site.pdf');
     await download.saveAs(file);
@@ -150,14 +178,21 @@ describe('reports in the browser', () => {
     const net = await buildNetwork(dataSource, 'Browser public');
     const site = (shift: number, name: string) => ({
       fieldName: name,
-      strips: rcbdStrips([
-        [40, 52, 55, 56],
-        [42, 54, 53, 55],
-        [39, 51, 56, 54],
-        [41, 55, 54, 57],
-      ].map((row, b) => row.map((v, l) => v + shift + (((b * 3 + l * 7 + shift * 5) % 5) - 2) * 0.7))),
+      strips: rcbdStrips(
+        [
+          [40, 52, 55, 56],
+          [42, 54, 53, 55],
+          [39, 51, 56, 54],
+          [41, 55, 54, 57],
+        ].map((row, b) =>
+          row.map((v, l) => v + shift + (((b * 3 + l * 7 + shift * 5) % 5) - 2) * 0.7),
+        ),
+      ),
     });
-    const built = await buildReportTrial(dataSource, net, { name: 'Public wheat trial', sites: [site(0, 'East bank'), site(5, 'West bank'), site(-3, 'Mill lane')] });
+    const built = await buildReportTrial(dataSource, net, {
+      name: 'Public wheat trial',
+      sites: [site(0, 'East bank'), site(5, 'West bank'), site(-3, 'Mill lane')],
+    });
     const coordinator = await openPage(browser, 1280);
     await signInThroughUi(coordinator.page, server.baseUrl, net.emails.coordinator);
     await coordinator.page.goto(`${server.baseUrl}/trials/${built.trialId}/report`);
@@ -173,7 +208,9 @@ describe('reports in the browser', () => {
     await visitor.page.goto(href);
     await visitor.page.getByRole('heading', { name: 'Public wheat trial' }).waitFor();
     await expectChartsDrawn(visitor.page, 2);
-    await expect(visitor.page.getByRole('button', { name: /Publish|Unpublish/ }).count()).resolves.toBe(0);
+    await expect(
+      visitor.page.getByRole('button', { name: /Publish|Unpublish/ }).count(),
+    ).resolves.toBe(0);
     await screenshot(visitor.page, 'reports-public-390');
     expect(visitor.errors).toEqual([]);
     await visitor.close();

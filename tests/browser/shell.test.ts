@@ -35,7 +35,9 @@ describe('web shell', () => {
     await page.getByLabel(/password/i).fill('sheaf-demo');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL((url) => url.pathname === '/admin/mail');
-    await page.getByRole('heading', { name: 'Caught e-mail' }).waitFor({ state: 'visible', timeout: 15_000 });
+    await page
+      .getByRole('heading', { name: 'Caught e-mail' })
+      .waitFor({ state: 'visible', timeout: 15_000 });
     expect(errors).toEqual([]);
     await close();
   });
@@ -58,8 +60,12 @@ describe('web shell', () => {
         await page.getByRole('button', { name: 'Menu' }).click();
       }
       const nav = page.getByRole('navigation', { name: 'Main' }).filter({ visible: true });
-      await nav.getByRole('link', { name: 'New trial' }).waitFor({ state: 'visible', timeout: 15_000 });
-      await nav.getByRole('link', { name: 'Seed calculator' }).waitFor({ state: 'visible', timeout: 15_000 });
+      await nav
+        .getByRole('link', { name: 'New trial' })
+        .waitFor({ state: 'visible', timeout: 15_000 });
+      await nav
+        .getByRole('link', { name: 'Seed calculator' })
+        .waitFor({ state: 'visible', timeout: 15_000 });
       await expect(nav.getByRole('link', { name: 'Caught e-mail' }).count()).resolves.toBe(0);
 
       if (width < 768) await screenshot(page, `shell-coordinator-menu-${width}`);

@@ -46,7 +46,10 @@ const S = {
 };
 
 // A minimal valid PNG (one pixel): Common practice, no published source.
-const PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==', 'base64');
+const PNG = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==',
+  'base64',
+);
 const PASSWORD = 'hostile-grower-password';
 
 /**
@@ -85,9 +88,14 @@ describe('no user-supplied string reaches HTML unescaped', () => {
   let openInviteToken: string;
   let invitedEmail: string;
 
-  async function ok<T extends { status: number; body: unknown; text?: string }>(what: string, res: Promise<T> | T, status = 200): Promise<T> {
+  async function ok<T extends { status: number; body: unknown; text?: string }>(
+    what: string,
+    res: Promise<T> | T,
+    status = 200,
+  ): Promise<T> {
     const r = await res;
-    if (r.status !== status) throw new Error(`${what}: ${r.status} ${r.text ?? JSON.stringify(r.body)}`);
+    if (r.status !== status)
+      throw new Error(`${what}: ${r.status} ${r.text ?? JSON.stringify(r.body)}`);
     return r;
   }
 
@@ -101,7 +109,9 @@ describe('no user-supplied string reaches HTML unescaped', () => {
   /** Fills a site's template with yields (and the hostile notes cell) and uploads it. */
   async function importData(client: Client, siteId: string, shift: number, notes: string | null) {
     const template = await ok('template', client.get(`/api/sites/${siteId}/import-template.csv`));
-    const table = Papa.parse<string[]>(template.text.replace(/^\uFEFF/, ''), { skipEmptyLines: true }).data;
+    const table = Papa.parse<string[]>(template.text.replace(/^\uFEFF/, ''), {
+      skipEmptyLines: true,
+    }).data;
     const header = table[0]!;
     const col = (name: string) => {
       const i = header.indexOf(name);
@@ -113,7 +123,13 @@ describe('no user-supplied string reaches HTML unescaped', () => {
       const rate = row[col('rate')]!;
       const byRate = rate.startsWith('half') ? 0 : rate === 'full' ? 1 : 2;
       // Invented yields: rises with rate, differs by block and site, a little noise.
-      row[col('grain_weight_lb')] = (7 + byRate * 0.6 + block * 0.2 + shift + ((i * 37) % 7) * 0.05).toFixed(2);
+      row[col('grain_weight_lb')] = (
+        7 +
+        byRate * 0.6 +
+        block * 0.2 +
+        shift +
+        ((i * 37) % 7) * 0.05
+      ).toFixed(2);
       row[col('harvest_rows')] = '4';
       row[col('harvest_length_ft')] = '40';
       row[col('moisture_pct')] = '14';
@@ -122,7 +138,14 @@ describe('no user-supplied string reaches HTML unescaped', () => {
       if (notes && i === 1) row[col('notes')] = notes;
     });
     const csv = Papa.unparse({ fields: header, data: table.slice(1) }, { newline: '\r\n' });
-    await ok('import', (await multipart(client, `/api/sites/${siteId}/import`)).request.attach('file', Buffer.from(csv, 'utf8'), { filename: 'strips.csv', contentType: 'text/csv' }));
+    await ok(
+      'import',
+      (await multipart(client, `/api/sites/${siteId}/import`)).request.attach(
+        'file',
+        Buffer.from(csv, 'utf8'),
+        { filename: 'strips.csv', contentType: 'text/csv' },
+      ),
+    );
   }
 
   beforeAll(async () => {
@@ -160,7 +183,12 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     invitedEmail = `hostile-${net.suffix}@test.example`;
     const s2 = await ok(
       'enrol site 2',
-      coordinator.post(`/api/trials/${trialId}/sites`, { growerEmail: invitedEmail, fieldName: S.field2, soil: 'loam', previousCrop: 'peas' }),
+      coordinator.post(`/api/trials/${trialId}/sites`, {
+        growerEmail: invitedEmail,
+        fieldName: S.field2,
+        soil: 'loam',
+        previousCrop: 'peas',
+      }),
       201,
     );
     site2 = s2.body.id;
@@ -169,9 +197,23 @@ describe('no user-supplied string reaches HTML unescaped', () => {
 
     // The invited grower accepts with a hostile name; a second invitation stays open for its page.
     const invited = clientFor(app);
-    await ok('accept', invited.post('/api/invitations/accept', { token: tokenFor(invitedEmail), name: S.growerName, password: PASSWORD }));
+    await ok(
+      'accept',
+      invited.post('/api/invitations/accept', {
+        token: tokenFor(invitedEmail),
+        name: S.growerName,
+        password: PASSWORD,
+      }),
+    );
     const memberEmail = `hostile-member-${net.suffix}@test.example`;
-    await ok('invite member', coordinator.post(`/api/networks/${net.networkId}/invitations`, { email: memberEmail, role: 'member' }), 201);
+    await ok(
+      'invite member',
+      coordinator.post(`/api/networks/${net.networkId}/invitations`, {
+        email: memberEmail,
+        role: 'member',
+      }),
+      201,
+    );
     openInviteToken = tokenFor(memberEmail);
 
     await importData(grower, site1, 0, S.csvNotes);
@@ -179,8 +221,18 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     const strips = await ok('strips', grower.get(`/api/sites/${site1}/strips`));
     strip1 = strips.body.strips[0].stripId;
     const version = strips.body.strips[0].version;
-    await ok('strip notes', grower.patch(`/api/strips/${strip1}`, { version, values: { notes: S.stripNotes } }));
-    await ok('photo', (await multipart(grower, `/api/sites/${site1}/photos`)).request.field('caption', S.caption).field('stripId', strip1).attach('file', PNG, { filename: S.fileName, contentType: 'image/png' }), 201);
+    await ok(
+      'strip notes',
+      grower.patch(`/api/strips/${strip1}`, { version, values: { notes: S.stripNotes } }),
+    );
+    await ok(
+      'photo',
+      (await multipart(grower, `/api/sites/${site1}/photos`)).request
+        .field('caption', S.caption)
+        .field('stripId', strip1)
+        .attach('file', PNG, { filename: S.fileName, contentType: 'image/png' }),
+      201,
+    );
     await ok(
       'calibration',
       grower.post(`/api/sites/${site1}/calibrations`, {
@@ -194,9 +246,15 @@ describe('no user-supplied string reaches HTML unescaped', () => {
       }),
       201,
     );
-    await ok('reminders', coordinator.post(`/api/trials/${trialId}/reminders`, { message: S.reminder }));
+    await ok(
+      'reminders',
+      coordinator.post(`/api/trials/${trialId}/reminders`, { message: S.reminder }),
+    );
     await ok('publish pooled', coordinator.post(`/api/trials/${trialId}/publish`));
-    const link = await ok('public link', coordinator.post(`/api/trials/${trialId}/public-link`, { enabled: true }));
+    const link = await ok(
+      'public link',
+      coordinator.post(`/api/trials/${trialId}/public-link`, { enabled: true }),
+    );
     shareToken = link.body.token;
   }, 120_000);
 
@@ -206,12 +264,22 @@ describe('no user-supplied string reaches HTML unescaped', () => {
   });
 
   /** A context whose pages record script runs, dialogs, CSP violations and fetches of `x`. */
-  async function openAs(email: string | null, password?: string): Promise<{ context: BrowserContext; page: Page; findings: () => Promise<Findings>; reset: () => void }> {
+  async function openAs(
+    email: string | null,
+    password?: string,
+  ): Promise<{
+    context: BrowserContext;
+    page: Page;
+    findings: () => Promise<Findings>;
+    reset: () => void;
+  }> {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     await context.addInitScript(() => {
       const w = window as unknown as { __csp: string[] };
       w.__csp = [];
-      document.addEventListener('securitypolicyviolation', (e) => w.__csp.push(`${e.violatedDirective}: ${e.sample || e.blockedURI}`));
+      document.addEventListener('securitypolicyviolation', (e) =>
+        w.__csp.push(`${e.violatedDirective}: ${e.sample || e.blockedURI}`),
+      );
     });
     const page = await context.newPage();
     const dialogs: string[] = [];
@@ -247,7 +315,13 @@ describe('no user-supplied string reaches HTML unescaped', () => {
         // zod 4 probes `new Function("")` once (util.allowsEval) and swallows the refusal; that
         // 'eval' report is not injected markup. Every inline script or handler report counts.
         const injected = [...csp, ...inPage.csp].filter((v) => !/: eval$|unsafe-eval/.test(v));
-        return { xss: inPage.xss, dialogs: [...dialogs], csp: injected, fetchedX: [...fetchedX], errors: [...errors] };
+        return {
+          xss: inPage.xss,
+          dialogs: [...dialogs],
+          csp: injected,
+          fetchedX: [...fetchedX],
+          errors: [...errors],
+        };
       },
     };
   }
@@ -256,14 +330,21 @@ describe('no user-supplied string reaches HTML unescaped', () => {
   async function visibleText(page: Page): Promise<string> {
     return page.evaluate(() => {
       const parts = [document.title, document.body.innerText];
-      document.querySelectorAll('input, textarea, select').forEach((el) => parts.push((el as HTMLInputElement).value));
+      document
+        .querySelectorAll('input, textarea, select')
+        .forEach((el) => parts.push((el as HTMLInputElement).value));
       document.querySelectorAll('svg text').forEach((el) => parts.push(el.textContent ?? ''));
       return parts.join('\n');
     });
   }
 
   /** Opens a page, waits for the expected hostile strings to show, then checks nothing ran. */
-  async function check(session: Awaited<ReturnType<typeof openAs>>, url: string, expected: string[], before?: (page: Page) => Promise<void>) {
+  async function check(
+    session: Awaited<ReturnType<typeof openAs>>,
+    url: string,
+    expected: string[],
+    before?: (page: Page) => Promise<void>,
+  ) {
     const { page } = session;
     session.reset();
     await page.goto(`${server.baseUrl}${url}`);
@@ -273,7 +354,9 @@ describe('no user-supplied string reaches HTML unescaped', () => {
       await page.waitForFunction(
         (wanted) => {
           const parts = [document.title, document.body.innerText];
-          document.querySelectorAll('input, textarea, select').forEach((el) => parts.push((el as HTMLInputElement).value));
+          document
+            .querySelectorAll('input, textarea, select')
+            .forEach((el) => parts.push((el as HTMLInputElement).value));
           document.querySelectorAll('svg text').forEach((el) => parts.push(el.textContent ?? ''));
           const text = parts.join('\n');
           return wanted.every((w) => text.includes(w));
@@ -290,7 +373,14 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     // Give late handlers (image errors, chart renders) a moment to fire.
     await page.waitForTimeout(400);
     const findings = await session.findings();
-    expect({ url, ...findings, errors: [] }).toEqual({ url, xss: undefined, dialogs: [], csp: [], fetchedX: [], errors: [] });
+    expect({ url, ...findings, errors: [] }).toEqual({
+      url,
+      xss: undefined,
+      dialogs: [],
+      csp: [],
+      fetchedX: [],
+      errors: [],
+    });
     return page;
   }
 
@@ -300,7 +390,10 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     await session.page.waitForLoadState('networkidle');
     session.reset();
     // What an unescaped sink would do with the stored trial name and question.
-    await session.page.evaluate((html) => document.body.insertAdjacentHTML('beforeend', html), `${S.question}${S.rateLabel}`);
+    await session.page.evaluate(
+      (html) => document.body.insertAdjacentHTML('beforeend', html),
+      `${S.question}${S.rateLabel}`,
+    );
     await session.page.waitForTimeout(400);
     const findings = await session.findings();
     expect(findings.csp.length).toBeGreaterThan(0);
@@ -312,18 +405,46 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     const session = await openAs(net.emails.coordinator);
     const pages: [string, string[]][] = [
       ['/', [S.trialName]],
-      [`/trials/${trialId}`, [S.trialName, S.question, S.rateLabel, S.field, S.field2, S.growerName]],
+      [
+        `/trials/${trialId}`,
+        [S.trialName, S.question, S.rateLabel, S.field, S.field2, S.growerName],
+      ],
       [`/trials/${trialId}/edit`, [S.trialName, S.question]],
       [`/trials/${trialId}/progress`, [S.field, S.field2, S.growerName]],
       [`/sites/${site1}`, [S.field, S.rateLabel]],
       [`/sites/${site1}/strips/${strip1}`, [S.field, S.stripNotes, S.caption]],
       [`/sites/${site1}/grid`, [S.field, S.rateLabel, S.stripNotes, S.csvNotes]],
-      [`/sites/${site1}/history`, [S.soil, S.previousCrop, S.fertility, S.siteNotes, S.seed, S.stripNotes, S.csvNotes, S.caption, S.calibration]],
+      [
+        `/sites/${site1}/history`,
+        [
+          S.soil,
+          S.previousCrop,
+          S.fertility,
+          S.siteNotes,
+          S.seed,
+          S.stripNotes,
+          S.csvNotes,
+          S.caption,
+          S.calibration,
+        ],
+      ],
       [`/sites/${site1}/photos`, [S.caption]],
       [`/sites/${site1}/import`, [S.field]],
       [`/sites/${site1}/map`, [S.field, S.rateLabel, S.seed]],
       [`/sites/${site1}/packet`, [S.trialName, S.field, S.rateLabel, S.seed]],
-      [`/sites/${site1}/report`, [S.question, S.field, S.soil, S.previousCrop, S.siteNotes, S.stripNotes, S.csvNotes, S.caption]],
+      [
+        `/sites/${site1}/report`,
+        [
+          S.question,
+          S.field,
+          S.soil,
+          S.previousCrop,
+          S.siteNotes,
+          S.stripNotes,
+          S.csvNotes,
+          S.caption,
+        ],
+      ],
       [`/sites/${site2}`, [S.field2]],
       [`/trials/${trialId}/report`, [S.trialName, S.question, S.field, S.field2]],
       // Reflected: a filter value from the address bar is echoed in the reasons a site is left out.
@@ -339,12 +460,21 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     let seen = await visibleText(page);
     for (let slide = 2; slide <= total; slide += 1) {
       await page.keyboard.press('ArrowRight');
-      await expect.poll(async () => (await counter.textContent())!.trim()).toBe(`${slide} / ${total}`);
+      await expect
+        .poll(async () => (await counter.textContent())!.trim())
+        .toBe(`${slide} / ${total}`);
       await page.waitForTimeout(300);
       seen += await visibleText(page);
     }
-    for (const text of [S.question, S.rateLabel, S.field, S.field2, S.soil, S.previousCrop]) expect(seen).toContain(text);
-    expect(await session.findings()).toEqual({ xss: undefined, dialogs: [], csp: [], fetchedX: [], errors: [] });
+    for (const text of [S.question, S.rateLabel, S.field, S.field2, S.soil, S.previousCrop])
+      expect(seen).toContain(text);
+    expect(await session.findings()).toEqual({
+      xss: undefined,
+      dialogs: [],
+      csp: [],
+      fetchedX: [],
+      errors: [],
+    });
     await screenshot(page, 'xss-meeting');
     await check(session, `/sites/${site1}/report`, [S.field, S.stripNotes]);
     await screenshot(session.page, 'xss-site-report');
@@ -367,7 +497,15 @@ describe('no user-supplied string reaches HTML unescaped', () => {
 
   it('shows hostile strings as text on the public link and the invitation page', async () => {
     const session = await openAs(null);
-    await check(session, `/shared/${shareToken}`, [S.trialName, S.question, S.rateLabel, S.field, S.field2, S.soil, S.previousCrop]);
+    await check(session, `/shared/${shareToken}`, [
+      S.trialName,
+      S.question,
+      S.rateLabel,
+      S.field,
+      S.field2,
+      S.soil,
+      S.previousCrop,
+    ]);
     await check(session, `/invite/${openInviteToken}`, [S.network]);
     await session.context.close();
   });
@@ -383,14 +521,19 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     expect(text).toContain(S.reminder);
     await session.context.close();
     // The HTML part of every message escapes what it quotes.
-    const sent = server.testApp.mailCatcher.messages.filter((m) => m.to.some((to) => to.endsWith(`${net.suffix}@test.example`)));
+    const sent = server.testApp.mailCatcher.messages.filter((m) =>
+      m.to.some((to) => to.endsWith(`${net.suffix}@test.example`)),
+    );
     expect(sent.length).toBeGreaterThanOrEqual(3);
     for (const mail of sent) expect(rawMarkup(mail.html ?? ''), mail.subject).toEqual([]);
   });
 
   it('escapes hostile strings in the HTML the PDF exports are printed from', async () => {
     const site = await ok('site report', coordinator.get(`/api/sites/${site1}/report`));
-    const pooled = await ok('pooled report', coordinator.get(`/api/trials/${trialId}/pooled-report?soil=${encodeURIComponent(S.filter)}`));
+    const pooled = await ok(
+      'pooled report',
+      coordinator.get(`/api/trials/${trialId}/pooled-report?soil=${encodeURIComponent(S.filter)}`),
+    );
     const siteHtml = await siteReportHtml(site.body);
     const pooledHtml = await pooledReportHtml(pooled.body);
     // The strings are in the documents, escaped, and no tag they carry survived as markup.
@@ -402,18 +545,24 @@ describe('no user-supplied string reaches HTML unescaped', () => {
 
   it('defuses formula-like cells in the strips CSV export', async () => {
     const res = await ok('export', coordinator.get(`/api/trials/${trialId}/export.csv`));
-    const rows = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, ''), { skipEmptyLines: true }).data;
+    const rows = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, ''), {
+      skipEmptyLines: true,
+    }).data;
     const header = rows[0]!;
     const body = rows.slice(1);
     expect(body.length).toBe(18);
     // Source: OWASP "CSV Injection": cells starting with = + - @ tab or CR run as formulas.
-    const dangerous = body.flat().filter((cell) => /^[=+\-@\t\r]/.test(cell) && !/^-?\d+(\.\d+)?(e-?\d+)?$/.test(cell));
+    const dangerous = body
+      .flat()
+      .filter((cell) => /^[=+\-@\t\r]/.test(cell) && !/^-?\d+(\.\d+)?(e-?\d+)?$/.test(cell));
     expect(dangerous).toEqual([]);
     const cell = (row: string[], name: string) => row[header.indexOf(name)]!;
     expect(body.map((r) => cell(r, 'field'))).toContain(`'${S.field}`);
     expect(body.map((r) => cell(r, 'grower'))).toContain(`'${S.growerName}`);
     expect(body.map((r) => cell(r, 'previous_crop'))).toContain(`'${S.previousCrop}`);
-    expect(body.map((r) => cell(r, 'notes'))).toEqual(expect.arrayContaining([`'${S.stripNotes}`, `'${S.csvNotes}`]));
+    expect(body.map((r) => cell(r, 'notes'))).toEqual(
+      expect.arrayContaining([`'${S.stripNotes}`, `'${S.csvNotes}`]),
+    );
     expect(body.map((r) => cell(r, 'rate_label'))).toContain(S.rateLabel);
   });
 });

@@ -8,14 +8,26 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { analyzeTrial } from '../../shared/analysis/index';
 import { testDatabaseUrl } from '../helpers/app';
 
-const TABLES = ['users', 'networks', 'memberships', 'trials', 'rate_levels', 'sites', 'strips', 'observations', 'audit_events', 'report_snapshots'];
+const TABLES = [
+  'users',
+  'networks',
+  'memberships',
+  'trials',
+  'rate_levels',
+  'sites',
+  'strips',
+  'observations',
+  'audit_events',
+  'report_snapshots',
+];
 
 async function snapshot(url: string) {
   const client = new pg.Client({ connectionString: url });
   await client.connect();
   try {
     const counts: Record<string, number> = {};
-    for (const table of TABLES) counts[table] = Number((await client.query(`SELECT count(*) FROM ${table}`)).rows[0].count);
+    for (const table of TABLES)
+      counts[table] = Number((await client.query(`SELECT count(*) FROM ${table}`)).rows[0].count);
     const { rows } = await client.query(
       `SELECT s.field_name AS site, st.block, r.multiplier, o.grain_weight
          FROM strips st JOIN sites s ON s.id = st.site_id JOIN trials t ON t.id = s.trial_id
@@ -23,12 +35,16 @@ async function snapshot(url: string) {
         WHERE t.name = 'Hulless oat seeding rate 2027' ORDER BY 1, 2, 3`,
     );
     const analysis = analyzeTrial(
-      rows.map((r) => ({ site: r.site, block: String(r.block), rate: Number(r.multiplier), value: Number(r.grain_weight) })),
+      rows.map((r) => ({
+        site: r.site,
+        block: String(r.block),
+        rate: Number(r.multiplier),
+        value: Number(r.grain_weight),
+      })),
       { response: 'grain weight' },
     );
     return { counts, analysis };
-  }
-  finally {
+  } finally {
     await client.end();
   }
 }
@@ -47,7 +63,10 @@ describe('database backup and restore', () => {
 
   it('round-trips the demo data through db:backup and db:restore', async () => {
     const sourceUrl = testDatabaseUrl();
-    execFileSync('npm', ['run', '--silent', 'db:backup', '--', file], { env: { ...process.env, DATABASE_URL: sourceUrl }, stdio: 'pipe' });
+    execFileSync('npm', ['run', '--silent', 'db:backup', '--', file], {
+      env: { ...process.env, DATABASE_URL: sourceUrl },
+      stdio: 'pipe',
+    });
     expect(fs.statSync(file).size).toBeGreaterThan(10_000);
 
     const admin = new pg.Client({ connectionString: superUrl.replace(/\/[^/]+$/, '/postgres') });
@@ -55,7 +74,10 @@ describe('database backup and restore', () => {
     await admin.query(`CREATE DATABASE ${restoredName} OWNER sheaf`);
     await admin.end();
     const restoredUrl = sourceUrl.replace(/\/[^/]+$/, `/${restoredName}`);
-    execFileSync('npm', ['run', '--silent', 'db:restore', '--', file], { env: { ...process.env, DATABASE_URL: restoredUrl }, stdio: 'pipe' });
+    execFileSync('npm', ['run', '--silent', 'db:restore', '--', file], {
+      env: { ...process.env, DATABASE_URL: restoredUrl },
+      stdio: 'pipe',
+    });
 
     const before = await snapshot(sourceUrl);
     const after = await snapshot(restoredUrl);
@@ -66,7 +88,10 @@ describe('database backup and restore', () => {
 
   it('refuses to restore over a database that already has tables', () => {
     expect(() =>
-      execFileSync('npm', ['run', '--silent', 'db:restore', '--', file], { env: { ...process.env, DATABASE_URL: testDatabaseUrl() }, stdio: 'pipe' }),
+      execFileSync('npm', ['run', '--silent', 'db:restore', '--', file], {
+        env: { ...process.env, DATABASE_URL: testDatabaseUrl() },
+        stdio: 'pipe',
+      }),
     ).toThrow();
   });
 });

@@ -3,7 +3,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, signIn, type TestApp } from '../helpers/app';
 import { startTestCluster, stopTestCluster } from '../helpers/postgres';
 
-async function eventually<T>(probe: () => Promise<T>, ok: (value: T) => boolean, timeoutMs = 20_000): Promise<T> {
+async function eventually<T>(
+  probe: () => Promise<T>,
+  ok: (value: T) => boolean,
+  timeoutMs = 20_000,
+): Promise<T> {
   const started = Date.now();
   let last: T = await probe();
   while (!ok(last)) {
@@ -43,10 +47,18 @@ describe('PostgreSQL stopped while the server runs', () => {
       startTestCluster();
     }
 
-    const healthy = await eventually(() => request(t.app).get('/api/health'), (res) => res.status === 200);
+    const healthy = await eventually(
+      () => request(t.app).get('/api/health'),
+      (res) => res.status === 200,
+    );
     expect(healthy.body).toEqual({ status: 'ok', db: 'ok' });
-    const again = await eventually(() => coordinator.get('/api/trials'), (res) => res.status === 200);
+    const again = await eventually(
+      () => coordinator.get('/api/trials'),
+      (res) => res.status === 200,
+    );
     expect(again.status).toBe(200);
-    expect(again.body.some((trial: { name: string }) => trial.name === 'Hulless oat seeding rate 2027')).toBe(true);
+    expect(
+      again.body.some((trial: { name: string }) => trial.name === 'Hulless oat seeding rate 2027'),
+    ).toBe(true);
   });
 });

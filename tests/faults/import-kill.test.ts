@@ -59,17 +59,22 @@ describe('SIGKILL during a CSV import', () => {
     const base = `http://127.0.0.1:${port}`;
     child = await startServerProcess(port);
     let headers = await signInOverHttp(base, coordinatorEmail);
-    const template = await (await fetch(`${base}/api/sites/${siteId}/import-template.csv`, { headers })).text();
+    const template = await (
+      await fetch(`${base}/api/sites/${siteId}/import-template.csv`, { headers })
+    ).text();
     const lines = template.trim().split(/\r?\n/);
     const header = lines[0]!.split(',');
     const weightColumn = header.indexOf('grain_weight_lb');
     expect(weightColumn).toBeGreaterThan(0);
     const fileWithWeight = (weight: number) =>
-      [lines[0], ...lines.slice(1).map((line) => {
-        const cells = line.split(',');
-        cells[weightColumn] = weight.toFixed(2);
-        return cells.join(',');
-      })].join('\n');
+      [
+        lines[0],
+        ...lines.slice(1).map((line) => {
+          const cells = line.split(',');
+          cells[weightColumn] = weight.toFixed(2);
+          return cells.join(',');
+        }),
+      ].join('\n');
 
     let interrupted = 0;
     const delays = [60, 250, 600, 1200];
@@ -77,7 +82,11 @@ describe('SIGKILL during a CSV import', () => {
       const weight = 3 + i / 10;
       const form = new FormData();
       form.append('file', new Blob([fileWithWeight(weight)], { type: 'text/csv' }), 'strips.csv');
-      const upload = fetch(`${base}/api/sites/${siteId}/import`, { method: 'POST', headers, body: form }).then(
+      const upload = fetch(`${base}/api/sites/${siteId}/import`, {
+        method: 'POST',
+        headers,
+        body: form,
+      }).then(
         (res) => res.status,
         () => 'killed' as const,
       );

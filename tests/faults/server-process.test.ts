@@ -5,13 +5,29 @@ import http from 'node:http';
 import { afterEach, describe, expect, it } from 'vitest';
 import { exitOf, freePort, startServerProcess as startServer } from '../helpers/server-process';
 
-interface Reply { status: number; body: string; cookies: string[] }
-function send(port: number, method: string, path: string, headers: Record<string, string>, body?: string): Promise<Reply> {
+interface Reply {
+  status: number;
+  body: string;
+  cookies: string[];
+}
+function send(
+  port: number,
+  method: string,
+  path: string,
+  headers: Record<string, string>,
+  body?: string,
+): Promise<Reply> {
   return new Promise((resolve, reject) => {
     const req = http.request({ host: '127.0.0.1', port, method, path, headers }, (res) => {
       let data = '';
       res.on('data', (c) => (data += c));
-      res.on('end', () => resolve({ status: res.statusCode ?? 0, body: data, cookies: (res.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]!) }));
+      res.on('end', () =>
+        resolve({
+          status: res.statusCode ?? 0,
+          body: data,
+          cookies: (res.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]!),
+        }),
+      );
     });
     req.on('error', reject);
     req.end(body);
@@ -35,7 +51,18 @@ describe('the server process', () => {
     // Send half the body, signal the server, then send the rest.
     const reply = new Promise<Reply>((resolve, reject) => {
       const req = http.request(
-        { host: '127.0.0.1', port, method: 'POST', path: '/api/auth/login', headers: { 'Content-Type': 'application/json', 'Content-Length': String(Buffer.byteLength(body)), Cookie: cookie, 'X-CSRF-Token': token } },
+        {
+          host: '127.0.0.1',
+          port,
+          method: 'POST',
+          path: '/api/auth/login',
+          headers: {
+            'Content-Type': 'application/json',
+            'Content-Length': String(Buffer.byteLength(body)),
+            Cookie: cookie,
+            'X-CSRF-Token': token,
+          },
+        },
         (res) => {
           let data = '';
           res.on('data', (c) => (data += c));
@@ -60,7 +87,17 @@ describe('the server process', () => {
     child = await startServer(port);
     const csrf = await send(port, 'GET', '/api/auth/csrf', {});
     const token = JSON.parse(csrf.body).csrfToken as string;
-    const login = await send(port, 'POST', '/api/auth/login', { 'Content-Type': 'application/json', Cookie: csrf.cookies.join('; '), 'X-CSRF-Token': token }, JSON.stringify({ email: 'grower2@millbrook.example', password: 'sheaf-demo' }));
+    const login = await send(
+      port,
+      'POST',
+      '/api/auth/login',
+      {
+        'Content-Type': 'application/json',
+        Cookie: csrf.cookies.join('; '),
+        'X-CSRF-Token': token,
+      },
+      JSON.stringify({ email: 'grower2@millbrook.example', password: 'sheaf-demo' }),
+    );
     expect(login.status).toBe(200);
     const sessionCookie = login.cookies.join('; ');
     child.kill('SIGTERM');

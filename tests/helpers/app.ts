@@ -43,9 +43,17 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
   });
   const dataSource = createDataSource(config.DATABASE_URL, { poolSize: 5 });
   await dataSource.initialize();
-  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 3, connectionTimeoutMillis: 2000 });
+  const sessionPool = new pg.Pool({
+    connectionString: config.DATABASE_URL,
+    max: 3,
+    connectionTimeoutMillis: 2000,
+  });
   sessionPool.on('error', () => {});
-  const mailer = createSmtpMailer({ host: '127.0.0.1', port: mailCatcher.port, from: config.MAIL_FROM });
+  const mailer = createSmtpMailer({
+    host: '127.0.0.1',
+    port: mailCatcher.port,
+    from: config.MAIL_FROM,
+  });
   const app = createApp({ config, dataSource, sessionPool, mailer, mailCatcher });
   return {
     app,
@@ -81,15 +89,24 @@ export function clientFor(app: Express) {
     // The token is fetched before the request is built: the agent copies cookies at creation.
     post: async (url: string, body?: object) => {
       const token = await csrf();
-      return agent.post(url).set('X-CSRF-Token', token).send(body ?? {});
+      return agent
+        .post(url)
+        .set('X-CSRF-Token', token)
+        .send(body ?? {});
     },
     patch: async (url: string, body?: object) => {
       const token = await csrf();
-      return agent.patch(url).set('X-CSRF-Token', token).send(body ?? {});
+      return agent
+        .patch(url)
+        .set('X-CSRF-Token', token)
+        .send(body ?? {});
     },
     put: async (url: string, body?: object) => {
       const token = await csrf();
-      return agent.put(url).set('X-CSRF-Token', token).send(body ?? {});
+      return agent
+        .put(url)
+        .set('X-CSRF-Token', token)
+        .send(body ?? {});
     },
     delete: async (url: string) => {
       const token = await csrf();
@@ -98,10 +115,15 @@ export function clientFor(app: Express) {
   };
 }
 
-export async function signIn(app: Express, email: string, password = DEMO_PASSWORD): Promise<Client> {
+export async function signIn(
+  app: Express,
+  email: string,
+  password = DEMO_PASSWORD,
+): Promise<Client> {
   const client = clientFor(app);
   const res = await client.post('/api/auth/login', { email, password });
-  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  if (res.status !== 200)
+    throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return client;
 }
 
@@ -115,28 +137,29 @@ export interface BuiltNetwork {
 let cachedHash: string | null = null;
 
 /** A fresh network with one account per role (unique e-mails), so tests do not share state. */
-export async function buildNetwork(dataSource: DataSource, label = 'Test network'): Promise<BuiltNetwork> {
+export async function buildNetwork(
+  dataSource: DataSource,
+  label = 'Test network',
+): Promise<BuiltNetwork> {
   cachedHash ??= await hashPassword(DEMO_PASSWORD);
   const suffix = crypto.randomBytes(4).toString('hex');
-  const [network] = await dataSource.query('INSERT INTO networks (name, slug) VALUES ($1, $2) RETURNING id', [
-    `${label} ${suffix}`,
-    `test-${suffix}`,
-  ]);
+  const [network] = await dataSource.query(
+    'INSERT INTO networks (name, slug) VALUES ($1, $2) RETURNING id',
+    [`${label} ${suffix}`, `test-${suffix}`],
+  );
   const roles = ['admin', 'coordinator', 'grower', 'grower2', 'member'] as const;
   const emails = {} as BuiltNetwork['emails'];
   const userIds = {} as BuiltNetwork['userIds'];
   for (const key of roles) {
     const email = `${key}-${suffix}@test.example`;
-    const [user] = await dataSource.query('INSERT INTO users (email, name, password_hash) VALUES ($1, $2, $3) RETURNING id', [
-      email,
-      `${key} ${suffix}`,
-      cachedHash,
-    ]);
-    await dataSource.query('INSERT INTO memberships (user_id, network_id, role) VALUES ($1, $2, $3)', [
-      user.id,
-      network.id,
-      key === 'grower2' ? 'grower' : key,
-    ]);
+    const [user] = await dataSource.query(
+      'INSERT INTO users (email, name, password_hash) VALUES ($1, $2, $3) RETURNING id',
+      [email, `${key} ${suffix}`, cachedHash],
+    );
+    await dataSource.query(
+      'INSERT INTO memberships (user_id, network_id, role) VALUES ($1, $2, $3)',
+      [user.id, network.id, key === 'grower2' ? 'grower' : key],
+    );
     emails[key] = email;
     userIds[key] = user.id;
   }
@@ -144,7 +167,9 @@ export async function buildNetwork(dataSource: DataSource, label = 'Test network
 }
 
 export async function demoIds(dataSource: DataSource) {
-  const [trial] = await dataSource.query(`SELECT id FROM trials WHERE name = 'Hulless oat seeding rate 2027'`);
+  const [trial] = await dataSource.query(
+    `SELECT id FROM trials WHERE name = 'Hulless oat seeding rate 2027'`,
+  );
   const sites: { id: string; email: string }[] = await dataSource.query(
     `SELECT s.id, u.email FROM sites s JOIN users u ON u.id = s.grower_user_id WHERE s.trial_id = $1 ORDER BY u.email`,
     [trial.id],

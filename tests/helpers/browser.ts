@@ -8,9 +8,12 @@ import { createTestApp, type TestApp } from './app';
 
 export const ARTIFACTS = path.resolve('.test-artifacts');
 
-export async function startTestServer(env: Record<string, string> = {}): Promise<{ baseUrl: string; testApp: TestApp; close(): Promise<void> }> {
+export async function startTestServer(
+  env: Record<string, string> = {},
+): Promise<{ baseUrl: string; testApp: TestApp; close(): Promise<void> }> {
   const webDist = process.env.WEB_DIST ?? 'dist/web';
-  if (!fs.existsSync(`${webDist}/index.html`)) throw new Error(`${webDist} is missing: npm test builds it first`);
+  if (!fs.existsSync(`${webDist}/index.html`))
+    throw new Error(`${webDist} is missing: npm test builds it first`);
   const testApp = await createTestApp({ WEB_DIST: webDist, ...env });
   const server = http.createServer(testApp.app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
@@ -30,7 +33,15 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
 export async function launchBrowser(): Promise<Browser> {
   return chromium.launch({
     executablePath: '/usr/bin/chromium',
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+    ],
   });
 }
 
@@ -42,14 +53,26 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 }
 
 /** A page in a fresh context at `width` px (844 px high below 500 px wide, else 900), with its errors collected. */
-export async function openPage(browser: Browser, width: number, options: BrowserContextOptions = {}) {
-  const context = await browser.newContext({ viewport: { width, height: width < 500 ? 844 : 900 }, ...options });
+export async function openPage(
+  browser: Browser,
+  width: number,
+  options: BrowserContextOptions = {},
+) {
+  const context = await browser.newContext({
+    viewport: { width, height: width < 500 ? 844 : 900 },
+    ...options,
+  });
   const page = await context.newPage();
   return { page, context, errors: watchErrors(page), close: () => context.close() };
 }
 
 /** Signs in through the sign-in page and waits for the home page. */
-export async function signInThroughUi(page: Page, baseUrl: string, email: string, password = 'sheaf-demo') {
+export async function signInThroughUi(
+  page: Page,
+  baseUrl: string,
+  email: string,
+  password = 'sheaf-demo',
+) {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel(/e-?mail/i).fill(email);
   await page.getByLabel(/password/i).fill(password);
@@ -62,7 +85,10 @@ export function watchErrors(page: Page): string[] {
   const errors: string[] = [];
   page.on('pageerror', (error) => errors.push(`pageerror: ${error.message}`));
   page.on('console', (message) => {
-    if (message.type() === 'error' && !/Failed to load resource: the server responded with a status of 4\d\d/.test(message.text())) {
+    if (
+      message.type() === 'error' &&
+      !/Failed to load resource: the server responded with a status of 4\d\d/.test(message.text())
+    ) {
       errors.push(`console: ${message.text()}`);
     }
   });

@@ -5,10 +5,12 @@ import path from 'node:path';
 function pgCtl(args: string[]) {
   const bin = process.env.SHEAF_TEST_PG_BIN;
   const dataDir = process.env.SHEAF_TEST_PG_DATA;
-  if (!bin || !dataDir) throw new Error('SHEAF_TEST_PG_BIN/DATA are not set: run through `npm test`');
+  if (!bin || !dataDir)
+    throw new Error('SHEAF_TEST_PG_BIN/DATA are not set: run through `npm test`');
   const exe = path.join(bin, 'pg_ctl');
   const full = ['-D', dataDir, ...args];
-  if (process.getuid?.() === 0) execFileSync('runuser', ['-u', 'postgres', '--', exe, ...full], { stdio: 'pipe' });
+  if (process.getuid?.() === 0)
+    execFileSync('runuser', ['-u', 'postgres', '--', exe, ...full], { stdio: 'pipe' });
   else execFileSync(exe, full, { stdio: 'pipe' });
 }
 
@@ -18,5 +20,14 @@ export function stopTestCluster() {
 
 export function startTestCluster() {
   const dataDir = process.env.SHEAF_TEST_PG_DATA!;
-  pgCtl(['-l', path.join(dataDir, 'server.log'), '-w', '-t', '60', '-o', `-p ${process.env.SHEAF_TEST_PG_PORT}`, 'start']);
+  pgCtl([
+    '-l',
+    path.join(dataDir, 'server.log'),
+    '-w',
+    '-t',
+    '60',
+    '-o',
+    `-p ${process.env.SHEAF_TEST_PG_PORT}`,
+    'start',
+  ]);
 }

@@ -13,7 +13,10 @@ export function freePort(): Promise<number> {
   });
 }
 
-export async function startServerProcess(port: number, env: Record<string, string> = {}): Promise<ChildProcess> {
+export async function startServerProcess(
+  port: number,
+  env: Record<string, string> = {},
+): Promise<ChildProcess> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'api/server.ts'], {
     env: {
       ...process.env,
@@ -51,7 +54,10 @@ export function exitOf(child: ChildProcess): Promise<number | null> {
 /** Signs in over plain HTTP and returns the cookie and CSRF token to send. */
 export async function signInOverHttp(base: string, email: string, password = 'sheaf-demo') {
   const csrfRes = await fetch(`${base}/api/auth/csrf`);
-  const csrfCookie = csrfRes.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  const csrfCookie = csrfRes.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
   const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
   const login = await fetch(`${base}/api/auth/login`, {
     method: 'POST',
@@ -59,6 +65,9 @@ export async function signInOverHttp(base: string, email: string, password = 'sh
     body: JSON.stringify({ email, password }),
   });
   if (login.status !== 200) throw new Error(`sign-in failed: ${login.status}`);
-  const cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  const cookie = login.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
   return { cookie, 'x-csrf-token': csrfToken };
 }

@@ -7,26 +7,139 @@ import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RouteEntry } from '../../../api/lib/route-table';
 import type { PolicyKind } from '../../../api/middleware/access';
-import { buildNetwork, clientFor, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
+import {
+  buildNetwork,
+  clientFor,
+  createTestApp,
+  signIn,
+  type BuiltNetwork,
+  type Client,
+  type TestApp,
+} from '../../helpers/app';
 
-type Persona = 'anonymous' | 'member' | 'otherGrower' | 'otherCoordinator' | 'grower' | 'coordinator' | 'admin';
-const PERSONAS: Persona[] = ['anonymous', 'member', 'otherGrower', 'otherCoordinator', 'grower', 'coordinator', 'admin'];
+type Persona =
+  'anonymous' | 'member' | 'otherGrower' | 'otherCoordinator' | 'grower' | 'coordinator' | 'admin';
+const PERSONAS: Persona[] = [
+  'anonymous',
+  'member',
+  'otherGrower',
+  'otherCoordinator',
+  'grower',
+  'coordinator',
+  'admin',
+];
 
 /** 'allowed' means the policy let the request through (any status but 401/403) and nothing broke (no 5xx). */
 type Expectation = 401 | 403 | 404 | 'allowed';
 const MATRIX: Record<PolicyKind, Record<Persona, Expectation>> = {
-  public: { anonymous: 'allowed', member: 'allowed', otherGrower: 'allowed', otherCoordinator: 'allowed', grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
-  'signed-in': { anonymous: 401, member: 'allowed', otherGrower: 'allowed', otherCoordinator: 'allowed', grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
-  admin: { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 403, grower: 403, coordinator: 403, admin: 'allowed' },
-  'network-coordinator': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 403, coordinator: 'allowed', admin: 'allowed' },
-  'trial-coordinator': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 403, coordinator: 'allowed', admin: 'allowed' },
-  'trial-reader': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
-  'pooled-reader': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 403, coordinator: 'allowed', admin: 'allowed' },
-  'site-coordinator': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 403, coordinator: 'allowed', admin: 'allowed' },
-  'site-grower': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
-  'site-reader': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
-  'strip-grower': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
-  'attachment-reader': { anonymous: 401, member: 403, otherGrower: 403, otherCoordinator: 404, grower: 'allowed', coordinator: 'allowed', admin: 'allowed' },
+  public: {
+    anonymous: 'allowed',
+    member: 'allowed',
+    otherGrower: 'allowed',
+    otherCoordinator: 'allowed',
+    grower: 'allowed',
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'signed-in': {
+    anonymous: 401,
+    member: 'allowed',
+    otherGrower: 'allowed',
+    otherCoordinator: 'allowed',
+    grower: 'allowed',
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  admin: {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 403,
+    grower: 403,
+    coordinator: 403,
+    admin: 'allowed',
+  },
+  'network-coordinator': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 403,
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'trial-coordinator': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 403,
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'trial-reader': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 'allowed',
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'pooled-reader': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 403,
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'site-coordinator': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 403,
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'site-grower': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 'allowed',
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'site-reader': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 'allowed',
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'strip-grower': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 'allowed',
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
+  'attachment-reader': {
+    anonymous: 401,
+    member: 403,
+    otherGrower: 403,
+    otherCoordinator: 404,
+    grower: 'allowed',
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
 };
 
 interface Fixture {
@@ -50,7 +163,10 @@ async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
   );
   const levels: string[] = [];
   for (const [i, m] of [0.5, 1].entries()) {
-    const [level] = await q('INSERT INTO rate_levels (trial_id, position, multiplier, label) VALUES ($1, $2, $3, $4) RETURNING id', [trial.id, i + 1, m, m === 1 ? 'full' : 'half']);
+    const [level] = await q(
+      'INSERT INTO rate_levels (trial_id, position, multiplier, label) VALUES ($1, $2, $3, $4) RETURNING id',
+      [trial.id, i + 1, m, m === 1 ? 'full' : 'half'],
+    );
     levels.push(level.id);
   }
   const [site] = await q(
@@ -60,7 +176,10 @@ async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
   let stripId = '';
   for (const block of [1, 2]) {
     for (const [p, levelId] of levels.entries()) {
-      const [strip] = await q('INSERT INTO strips (site_id, block, position, rate_level_id) VALUES ($1, $2, $3, $4) RETURNING id', [site.id, block, p + 1, levelId]);
+      const [strip] = await q(
+        'INSERT INTO strips (site_id, block, position, rate_level_id) VALUES ($1, $2, $3, $4) RETURNING id',
+        [site.id, block, p + 1, levelId],
+      );
       stripId ||= strip.id;
     }
   }
@@ -71,35 +190,62 @@ async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
   const [invitation] = await q(
     `INSERT INTO invitations (network_id, email, role, token_hash, invited_by, expires_at)
      VALUES ($1, $2, 'member', $3, $4, now() + interval '14 days') RETURNING id`,
-    [net.networkId, `matrix-invite-${crypto.randomUUID()}@test.example`, crypto.randomUUID(), net.userIds.coordinator],
+    [
+      net.networkId,
+      `matrix-invite-${crypto.randomUUID()}@test.example`,
+      crypto.randomUUID(),
+      net.userIds.coordinator,
+    ],
   );
-  return { networkId: net.networkId, trialId: trial.id, siteId: site.id, stripId, photoId: photo.id, memberUserId: net.userIds.member, invitationId: invitation.id };
+  return {
+    networkId: net.networkId,
+    trialId: trial.id,
+    siteId: site.id,
+    stripId,
+    photoId: photo.id,
+    memberUserId: net.userIds.member,
+    invitationId: invitation.id,
+  };
 }
 
 function concretePath(route: RouteEntry, fixture: Fixture): string {
   return route.path.replace(/:([A-Za-z]+)/g, (_m, name: string) => {
     switch (name) {
-      case 'networkId': return fixture.networkId;
-      case 'trialId': return fixture.trialId;
-      case 'siteId': return fixture.siteId;
-      case 'stripId': return fixture.stripId;
+      case 'networkId':
+        return fixture.networkId;
+      case 'trialId':
+        return fixture.trialId;
+      case 'siteId':
+        return fixture.siteId;
+      case 'stripId':
+        return fixture.stripId;
       case 'photoId':
-      case 'attachmentId': return fixture.photoId;
-      case 'userId': return fixture.memberUserId;
-      case 'invitationId': return fixture.invitationId;
-      case 'token': return 'not-a-real-token-for-the-matrix';
-      default: throw new Error(`route-matrix: no fixture value for :${name} in ${route.path}; add one`);
+      case 'attachmentId':
+        return fixture.photoId;
+      case 'userId':
+        return fixture.memberUserId;
+      case 'invitationId':
+        return fixture.invitationId;
+      case 'token':
+        return 'not-a-real-token-for-the-matrix';
+      default:
+        throw new Error(`route-matrix: no fixture value for :${name} in ${route.path}; add one`);
     }
   });
 }
 
 async function call(client: Client, route: RouteEntry, url: string) {
   switch (route.method) {
-    case 'get': return client.get(url);
-    case 'post': return client.post(url, {});
-    case 'patch': return client.patch(url, {});
-    case 'put': return client.put(url, {});
-    case 'delete': return client.delete(url);
+    case 'get':
+      return client.get(url);
+    case 'post':
+      return client.post(url, {});
+    case 'patch':
+      return client.patch(url, {});
+    case 'put':
+      return client.put(url, {});
+    case 'delete':
+      return client.delete(url);
   }
 }
 
@@ -133,7 +279,11 @@ describe('every API route declares a policy and enforces it for every role', () 
         if (entry.isDirectory()) walk(full);
         else if (full.endsWith('.ts') && !full.endsWith('route-table.ts')) {
           const text = fs.readFileSync(full, 'utf8');
-          if (/\b(router|app)\.(get|post|patch|put|delete|all)\(\s*['"`]\/api/.test(text) || /\brouter\.(get|post|patch|put|delete|all)\(/.test(text)) offenders.push(full);
+          if (
+            /\b(router|app)\.(get|post|patch|put|delete|all)\(\s*['"`]\/api/.test(text) ||
+            /\brouter\.(get|post|patch|put|delete|all)\(/.test(text)
+          )
+            offenders.push(full);
         }
       }
     };
@@ -143,7 +293,8 @@ describe('every API route declares a policy and enforces it for every role', () 
 
   it('knows the policy of every route in the table', () => {
     expect(routes.length).toBeGreaterThan(10);
-    for (const route of routes) expect(Object.keys(MATRIX), `${route.method} ${route.path}`).toContain(route.policy.kind);
+    for (const route of routes)
+      expect(Object.keys(MATRIX), `${route.method} ${route.path}`).toContain(route.policy.kind);
   });
 
   it('answers each role as the route policy says', async () => {
@@ -156,8 +307,16 @@ describe('every API route declares a policy and enforces it for every role', () 
       for (const persona of PERSONAS) {
         const expected = MATRIX[route.policy.kind][persona];
         const res = await call(clients[persona], route, url);
-        const ok = expected === 'allowed' ? ![401, 403].includes(res.status) && res.status < 500 && res.body?.error?.code !== 'csrf_invalid' : res.status === expected;
-        if (!ok) failures.push(`${route.method.toUpperCase()} ${route.path} as ${persona}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body).slice(0, 120)}`);
+        const ok =
+          expected === 'allowed'
+            ? ![401, 403].includes(res.status) &&
+              res.status < 500 &&
+              res.body?.error?.code !== 'csrf_invalid'
+            : res.status === expected;
+        if (!ok)
+          failures.push(
+            `${route.method.toUpperCase()} ${route.path} as ${persona}: expected ${expected}, got ${res.status} ${JSON.stringify(res.body).slice(0, 120)}`,
+          );
       }
     }
     expect(failures).toEqual([]);

@@ -1,6 +1,13 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, clientFor, createTestApp, signIn, type BuiltNetwork, type TestApp } from '../../helpers/app';
+import {
+  buildNetwork,
+  clientFor,
+  createTestApp,
+  signIn,
+  type BuiltNetwork,
+  type TestApp,
+} from '../../helpers/app';
 
 describe('sign-in, sessions and CSRF', () => {
   let t: TestApp;
@@ -13,7 +20,10 @@ describe('sign-in, sessions and CSRF', () => {
 
   it('signs in the demo coordinator and returns the user with memberships', async () => {
     const client = clientFor(t.app);
-    const res = await client.post('/api/auth/login', { email: 'coordinator@millbrook.example', password: 'sheaf-demo' });
+    const res = await client.post('/api/auth/login', {
+      email: 'coordinator@millbrook.example',
+      password: 'sheaf-demo',
+    });
     expect(res.status).toBe(200);
     expect(res.body.email).toBe('coordinator@millbrook.example');
     expect(res.body.memberships).toEqual([expect.objectContaining({ role: 'coordinator' })]);
@@ -24,7 +34,10 @@ describe('sign-in, sessions and CSRF', () => {
     const client = clientFor(t.app);
     const before = await client.get('/api/auth/csrf');
     const firstCookie = String(before.headers['set-cookie']);
-    const res = await client.post('/api/auth/login', { email: net.emails.grower, password: 'sheaf-demo' });
+    const res = await client.post('/api/auth/login', {
+      email: net.emails.grower,
+      password: 'sheaf-demo',
+    });
     const cookie = String(res.headers['set-cookie']);
     expect(cookie).toMatch(/sheaf\.sid=/);
     expect(cookie).toMatch(/HttpOnly/i);
@@ -36,8 +49,14 @@ describe('sign-in, sessions and CSRF', () => {
   });
 
   it('returns the same 401 message for an unknown e-mail and a wrong password', async () => {
-    const wrongPassword = await clientFor(t.app).post('/api/auth/login', { email: net.emails.member, password: 'not-it' });
-    const unknown = await clientFor(t.app).post('/api/auth/login', { email: `nobody-${net.suffix}@test.example`, password: 'not-it' });
+    const wrongPassword = await clientFor(t.app).post('/api/auth/login', {
+      email: net.emails.member,
+      password: 'not-it',
+    });
+    const unknown = await clientFor(t.app).post('/api/auth/login', {
+      email: `nobody-${net.suffix}@test.example`,
+      password: 'not-it',
+    });
     expect(wrongPassword.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(unknown.body).toEqual(wrongPassword.body);
@@ -45,7 +64,10 @@ describe('sign-in, sessions and CSRF', () => {
   });
 
   it('answers 400 with the field named when the e-mail is malformed', async () => {
-    const res = await clientFor(t.app).post('/api/auth/login', { email: 'not-an-address', password: 'x' });
+    const res = await clientFor(t.app).post('/api/auth/login', {
+      email: 'not-an-address',
+      password: 'x',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('validation_failed');
     expect(res.body.error.fields).toHaveProperty('email');
@@ -73,7 +95,10 @@ describe('sign-in, sessions and CSRF', () => {
     const res = await client.agent.post('/api/auth/logout').send({});
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('csrf_invalid');
-    const wrong = await client.agent.post('/api/auth/logout').set('X-CSRF-Token', 'forged-token').send({});
+    const wrong = await client.agent
+      .post('/api/auth/logout')
+      .set('X-CSRF-Token', 'forged-token')
+      .send({});
     expect(wrong.status).toBe(403);
     expect((await client.get('/api/auth/me')).status).toBe(200);
   });
@@ -94,7 +119,10 @@ describe('sign-in, sessions and CSRF', () => {
   });
 
   it('never leaks a stack trace in an error body', async () => {
-    const res = await request(t.app).post('/api/auth/login').set('Content-Type', 'application/json').send('{"broken json');
+    const res = await request(t.app)
+      .post('/api/auth/login')
+      .set('Content-Type', 'application/json')
+      .send('{"broken json');
     expect([400, 403]).toContain(res.status);
     expect(JSON.stringify(res.body)).not.toMatch(/at .*\.ts:\d+/);
     expect(res.body.error).toHaveProperty('code');
@@ -114,11 +142,17 @@ describe('sign-in rate limit', () => {
     const client = clientFor(t.app);
     const statuses: number[] = [];
     for (let i = 0; i < 5; i += 1) {
-      statuses.push((await client.post('/api/auth/login', { email: net.emails.member, password: `wrong-${i}` })).status);
+      statuses.push(
+        (await client.post('/api/auth/login', { email: net.emails.member, password: `wrong-${i}` }))
+          .status,
+      );
     }
     expect(statuses.slice(0, 3)).toEqual([401, 401, 401]);
     expect(statuses[4]).toBe(429);
-    const limited = await client.post('/api/auth/login', { email: net.emails.member, password: 'sheaf-demo' });
+    const limited = await client.post('/api/auth/login', {
+      email: net.emails.member,
+      password: 'sheaf-demo',
+    });
     expect(limited.status).toBe(429);
     expect(limited.body.error.code).toBe('rate_limited');
   });

@@ -1,5 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, clientFor, createTestApp, signIn, type BuiltNetwork, type TestApp } from '../../helpers/app';
+import {
+  buildNetwork,
+  clientFor,
+  createTestApp,
+  signIn,
+  type BuiltNetwork,
+  type TestApp,
+} from '../../helpers/app';
 
 function linkToken(text: string, prefix: string): string {
   const match = new RegExp(`${prefix}/([A-Za-z0-9_-]+)`).exec(text);
@@ -20,17 +27,28 @@ describe('password reset by e-mail', () => {
     const client = clientFor(t.app);
     const asked = await client.post('/api/auth/password-reset', { email: net.emails.grower });
     expect(asked.status).toBe(202);
-    const mail = await t.mailCatcher.waitFor((m) => m.to.includes(net.emails.grower) && /reset/i.test(m.subject));
+    const mail = await t.mailCatcher.waitFor(
+      (m) => m.to.includes(net.emails.grower) && /reset/i.test(m.subject),
+    );
     expect(mail.html).toContain('http://sheaf.test/reset/');
     const token = linkToken(mail.text, 'http://sheaf.test/reset');
 
-    const done = await client.post('/api/auth/password-reset/complete', { token, password: 'a-new-harvest-password' });
+    const done = await client.post('/api/auth/password-reset/complete', {
+      token,
+      password: 'a-new-harvest-password',
+    });
     expect(done.status).toBe(204);
     await expect(signIn(t.app, net.emails.grower, 'a-new-harvest-password')).resolves.toBeDefined();
-    const oldPassword = await clientFor(t.app).post('/api/auth/login', { email: net.emails.grower, password: 'sheaf-demo' });
+    const oldPassword = await clientFor(t.app).post('/api/auth/login', {
+      email: net.emails.grower,
+      password: 'sheaf-demo',
+    });
     expect(oldPassword.status).toBe(401);
 
-    const again = await client.post('/api/auth/password-reset/complete', { token, password: 'yet-another-password' });
+    const again = await client.post('/api/auth/password-reset/complete', {
+      token,
+      password: 'yet-another-password',
+    });
     expect(again.status).toBe(400);
     expect(again.body.error.fields).toHaveProperty('token');
   });
@@ -44,7 +62,10 @@ describe('password reset by e-mail', () => {
         WHERE user_id = (SELECT id FROM users WHERE email = $1)`,
       [net.emails.member],
     );
-    const res = await clientFor(t.app).post('/api/auth/password-reset/complete', { token, password: 'too-late-password' });
+    const res = await clientFor(t.app).post('/api/auth/password-reset/complete', {
+      token,
+      password: 'too-late-password',
+    });
     expect(res.status).toBe(400);
   });
 

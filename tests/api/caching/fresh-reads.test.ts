@@ -6,8 +6,20 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { SiteReport } from '../../../shared/schemas/report';
 import { dataGeneration, mayWrite } from '../../../db/data-changes';
 import { createFreshCache } from '../../../api/lib/fresh-cache';
-import { buildNetwork, createTestApp, signIn, testDatabaseUrl, type BuiltNetwork, type TestApp } from '../../helpers/app';
-import { buildReportTrial, grainWeightFor, rcbdStrips, type BuiltTrial } from '../reports/build-report-trial';
+import {
+  buildNetwork,
+  createTestApp,
+  signIn,
+  testDatabaseUrl,
+  type BuiltNetwork,
+  type TestApp,
+} from '../../helpers/app';
+import {
+  buildReportTrial,
+  grainWeightFor,
+  rcbdStrips,
+  type BuiltTrial,
+} from '../reports/build-report-trial';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -26,7 +38,11 @@ describe('which statements count as writes', () => {
     expect(mayWrite('SELECT * FROM strips FOR NO KEY UPDATE')).toBe(false);
     expect(mayWrite('SELECT s.updated_at FROM sites s')).toBe(false);
     expect(mayWrite('INSERT INTO audit_events (action) VALUES ($1)')).toBe(true);
-    expect(mayWrite('WITH bumped AS (UPDATE strips SET version = version + 1 RETURNING version) SELECT version FROM bumped')).toBe(true);
+    expect(
+      mayWrite(
+        'WITH bumped AS (UPDATE strips SET version = version + 1 RETURNING version) SELECT version FROM bumped',
+      ),
+    ).toBe(true);
     expect(mayWrite('DELETE FROM sites WHERE id = $1')).toBe(true);
     expect(mayWrite('TRUNCATE observations')).toBe(true);
     expect(mayWrite("SELECT setval('x', 1)")).toBe(true);
@@ -41,7 +57,9 @@ describe('the data generation', () => {
     await t.dataSource.query('SELECT 1');
     expect(dataGeneration()).toBe(before);
 
-    await t.dataSource.query("UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'");
+    await t.dataSource.query(
+      "UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'",
+    );
     expect(dataGeneration()).toBeGreaterThan(before);
 
     before = dataGeneration();
@@ -56,7 +74,9 @@ describe('the data generation', () => {
     before = dataGeneration();
     await expect(
       t.dataSource.transaction(async (manager) => {
-        await manager.query("UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'");
+        await manager.query(
+          "UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'",
+        );
         throw new Error('roll back');
       }),
     ).rejects.toThrow('roll back');
@@ -71,18 +91,21 @@ describe('fresh caches', () => {
     const read = () => cache.get('k', async () => ++computed);
     expect(await read()).toBe(1);
     expect(await read()).toBe(1);
-    await t.dataSource.query("UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'");
+    await t.dataSource.query(
+      "UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'",
+    );
     expect(await read()).toBe(2);
   });
 
   it('shares one computation between concurrent misses', async () => {
     const cache = createFreshCache<number>();
     let computed = 0;
-    const slow = () => cache.get('k', async () => {
-      computed += 1;
-      await sleep(20);
-      return computed;
-    });
+    const slow = () =>
+      cache.get('k', async () => {
+        computed += 1;
+        await sleep(20);
+        return computed;
+      });
     const answers = await Promise.all([slow(), slow(), slow()]);
     expect(answers).toEqual([1, 1, 1]);
     expect(computed).toBe(1);
@@ -91,7 +114,9 @@ describe('fresh caches', () => {
   it('does not keep a value computed while a write happened', async () => {
     const cache = createFreshCache<string>();
     const first = cache.get('k', async () => {
-      await t.dataSource.query("UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'");
+      await t.dataSource.query(
+        "UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'",
+      );
       return 'during';
     });
     expect(await first).toBe('during');
@@ -105,24 +130,35 @@ describe('fresh caches', () => {
   });
 
   it('keeps facts that never change across writes, until their age limit', async () => {
-    const cache = createFreshCache<number>({ keepAcrossWrites: true, maxAgeMs: 60, refreshAfterMs: 60 });
+    const cache = createFreshCache<number>({
+      keepAcrossWrites: true,
+      maxAgeMs: 60,
+      refreshAfterMs: 60,
+    });
     let computed = 0;
     const read = () => cache.get('k', async () => ++computed);
     expect(await read()).toBe(1);
-    await t.dataSource.query("UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'");
+    await t.dataSource.query(
+      "UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'",
+    );
     expect(await read()).toBe(1);
     await sleep(80);
     expect(await read()).toBe(2);
   });
 
   it('does not let a background refresh that started before a delete put the old value back', async () => {
-    const cache = createFreshCache<string>({ keepAcrossWrites: true, maxAgeMs: 1000, refreshAfterMs: 20 });
-    let stored = 'old';
-    const read = () => cache.get('session', async () => {
-      const seen = stored;
-      await sleep(30);
-      return seen;
+    const cache = createFreshCache<string>({
+      keepAcrossWrites: true,
+      maxAgeMs: 1000,
+      refreshAfterMs: 20,
     });
+    let stored = 'old';
+    const read = () =>
+      cache.get('session', async () => {
+        const seen = stored;
+        await sleep(30);
+        return seen;
+      });
     expect(await read()).toBe('old');
     await sleep(30);
     const served = read(); // starts a background refresh that will see 'old'
@@ -166,7 +202,8 @@ describe('cached reports follow the data', () => {
     });
   });
 
-  const quarterMean = (report: SiteReport) => report.analysis!.means.find((m) => m.rate === '0.25')!.mean;
+  const quarterMean = (report: SiteReport) =>
+    report.analysis!.means.find((m) => m.rate === '0.25')!.mean;
 
   it('shows a strip change made through the API on the very next read', async () => {
     const grower = await signIn(t.app, net.emails.grower);
@@ -178,7 +215,10 @@ describe('cached reports follow the data', () => {
     const stripId = built.stripIds[0]![0]!;
     const strip = (await grower.get(`/api/strips/${stripId}`)).body as { version: number };
     const { grainWeight } = grainWeightFor({ sites: [] }, 10);
-    const patched = await grower.patch(`/api/strips/${stripId}`, { version: strip.version, values: { grainWeight } });
+    const patched = await grower.patch(`/api/strips/${stripId}`, {
+      version: strip.version,
+      values: { grainWeight },
+    });
     expect(patched.status).toBe(200);
 
     const after = (await grower.get(`/api/sites/${siteId}/report`)).body as SiteReport;
@@ -193,7 +233,10 @@ describe('cached reports follow the data', () => {
     const other = new pg.Client({ connectionString: testDatabaseUrl() });
     await other.connect();
     try {
-      await other.query(`UPDATE sites SET field_name = 'Renamed elsewhere', data_version = data_version + 1 WHERE id = $1`, [siteId]);
+      await other.query(
+        `UPDATE sites SET field_name = 'Renamed elsewhere', data_version = data_version + 1 WHERE id = $1`,
+        [siteId],
+      );
     } finally {
       await other.end();
     }
@@ -201,7 +244,8 @@ describe('cached reports follow the data', () => {
     let seen = '';
     const started = Date.now();
     while (Date.now() - started < 8000) {
-      seen = ((await coordinator.get(`/api/sites/${siteId}/report`)).body as SiteReport).site.fieldName;
+      seen = ((await coordinator.get(`/api/sites/${siteId}/report`)).body as SiteReport).site
+        .fieldName;
       if (seen === 'Renamed elsewhere') break;
       await sleep(250);
     }

@@ -29,7 +29,10 @@ describe('prepared statements', () => {
       const second = await preparedQuery(runner.manager, sql, [1, 'oats']);
       expect(first).toEqual(plain);
       expect(second).toEqual([{ next: 2, word: 'oats' }]);
-      const kept = await runner.query('SELECT name, statement FROM pg_prepared_statements WHERE name = $1', [statementName(sql)]);
+      const kept = await runner.query(
+        'SELECT name, statement FROM pg_prepared_statements WHERE name = $1',
+        [statementName(sql)],
+      );
       expect(kept).toEqual([{ name: statementName(sql), statement: sql }]);
     } finally {
       await runner.release();
@@ -38,7 +41,11 @@ describe('prepared statements', () => {
 
   it('counts a write made through a prepared statement', async () => {
     const before = dataGeneration();
-    await preparedQuery(t.dataSource, "UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'", []);
+    await preparedQuery(
+      t.dataSource,
+      "UPDATE networks SET name = name WHERE id = '00000000-0000-0000-0000-000000000000'",
+      [],
+    );
     expect(dataGeneration()).toBeGreaterThan(before);
     const read = dataGeneration();
     await preparedQuery(t.dataSource, 'SELECT 1 AS one', []);

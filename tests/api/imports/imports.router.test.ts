@@ -1,8 +1,20 @@
 import fs from 'node:fs';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
-import { buildCollectSite, dataVersion, openCollectSite, publishSite, type CollectSite } from '../strips/collect-builders';
+import {
+  buildNetwork,
+  signIn,
+  type BuiltNetwork,
+  type Client,
+  type TestApp,
+} from '../../helpers/app';
+import {
+  buildCollectSite,
+  dataVersion,
+  openCollectSite,
+  publishSite,
+  type CollectSite,
+} from '../strips/collect-builders';
 
 const fixture = (name: string) => fs.readFileSync(`fixtures/imports/${name}`);
 
@@ -13,14 +25,35 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
   let grower: Client;
 
   // supertest requests are thenables, so the CSRF token is fetched first and the request built after.
-  const upload = async (client: Client, siteId: string, body: Buffer, filename = 'strips.csv', contentType = 'text/csv') => {
+  const upload = async (
+    client: Client,
+    siteId: string,
+    body: Buffer,
+    filename = 'strips.csv',
+    contentType = 'text/csv',
+  ) => {
     const token = await client.csrf();
-    return client.agent.post(`/api/sites/${siteId}/import`).set('X-CSRF-Token', token).attach('file', body, { filename, contentType });
+    return client.agent
+      .post(`/api/sites/${siteId}/import`)
+      .set('X-CSRF-Token', token)
+      .attach('file', body, { filename, contentType });
   };
   const versions = async (siteId: string) =>
-    (await t.dataSource.query('SELECT version FROM strips WHERE site_id = $1 ORDER BY block, position', [siteId])).map((r: { version: number }) => r.version);
+    (
+      await t.dataSource.query(
+        'SELECT version FROM strips WHERE site_id = $1 ORDER BY block, position',
+        [siteId],
+      )
+    ).map((r: { version: number }) => r.version);
   const observationCount = async (siteId: string) =>
-    Number((await t.dataSource.query('SELECT count(*) FROM observations o JOIN strips s ON s.id = o.strip_id WHERE s.site_id = $1', [siteId]))[0].count);
+    Number(
+      (
+        await t.dataSource.query(
+          'SELECT count(*) FROM observations o JOIN strips s ON s.id = o.strip_id WHERE s.site_id = $1',
+          [siteId],
+        )
+      )[0].count,
+    );
 
   beforeAll(async () => {
     ({ t, net, site, grower } = await openCollectSite('Imports', { fieldName: 'Fixture field' }));
@@ -33,7 +66,9 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
     expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('invalid_rows');
     expect(res.body.error.message).toMatch(/nothing was saved/);
-    expect(res.body.error.rows).toEqual([{ row: 3, column: 'moisture_pct', message: expect.stringMatching(/not a number/) }]);
+    expect(res.body.error.rows).toEqual([
+      { row: 3, column: 'moisture_pct', message: expect.stringMatching(/not a number/) },
+    ]);
     expect(await observationCount(site.siteId)).toBe(0);
     expect(await versions(site.siteId)).toEqual([1, 1, 1, 1, 1, 1]);
     expect(await dataVersion(t.dataSource, site.siteId)).toBe(before);
@@ -42,20 +77,37 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
   it('reports an unknown column instead of ignoring it', async () => {
     const res = await upload(grower, site.siteId, fixture('unknown-column.csv'));
     expect(res.status).toBe(422);
-    expect(res.body.error.rows).toEqual([{ row: 1, column: 'yield_bu', message: expect.stringMatching(/Unknown column/) }]);
+    expect(res.body.error.rows).toEqual([
+      { row: 1, column: 'yield_bu', message: expect.stringMatching(/Unknown column/) },
+    ]);
   });
 
   it('writes a good file in one go and bumps each changed strip and the site data_version once', async () => {
     const before = await dataVersion(t.dataSource, site.siteId);
     const res = await upload(grower, site.siteId, fixture('good-site.csv'));
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ rows: 6, changedStrips: 6, unchangedStrips: 0, dataVersion: before + 1 });
+    expect(res.body).toEqual({
+      rows: 6,
+      changedStrips: 6,
+      unchangedStrips: 0,
+      dataVersion: before + 1,
+    });
     expect(await versions(site.siteId)).toEqual([2, 2, 2, 2, 2, 2]);
     const list = await grower.get(`/api/sites/${site.siteId}/strips`);
     const first = list.body.strips[0];
-    expect(first.values).toMatchObject({ standCounts: [44, 47, 45], standRowLength: 3, grainWeight: 7.4, harvestRows: 4, harvestLength: 50, moisturePct: 13.2 });
+    expect(first.values).toMatchObject({
+      standCounts: [44, 47, 45],
+      standRowLength: 3,
+      grainWeight: 7.4,
+      harvestRows: 4,
+      harvestLength: 50,
+      moisturePct: 13.2,
+    });
     expect(first.recorded).toEqual({ stand: true, tillers: false, heads: false, yield: true });
-    const events = await t.dataSource.query(`SELECT count(*) FROM audit_events WHERE site_id = $1 AND action = 'import'`, [site.siteId]);
+    const events = await t.dataSource.query(
+      `SELECT count(*) FROM audit_events WHERE site_id = $1 AND action = 'import'`,
+      [site.siteId],
+    );
     expect(Number(events[0].count)).toBe(6);
   });
 
@@ -69,7 +121,10 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
   });
 
   it('stores formula-like and HTML values as plain text', async () => {
-    const rows = await t.dataSource.query('SELECT s.block, s.position, o.notes FROM observations o JOIN strips s ON s.id = o.strip_id WHERE s.site_id = $1 ORDER BY s.block, s.position', [site.siteId]);
+    const rows = await t.dataSource.query(
+      'SELECT s.block, s.position, o.notes FROM observations o JOIN strips s ON s.id = o.strip_id WHERE s.site_id = $1 ORDER BY s.block, s.position',
+      [site.siteId],
+    );
     expect(rows[1].notes).toBe(`=cmd|' /C calc'!A0`);
     expect(rows[3].notes).toBe(`<script>alert('x')</script> lodged after storm`);
   });
@@ -78,14 +133,25 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
     const res = await grower.get(`/api/sites/${site.siteId}/import-template.csv`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
-    expect(res.headers['content-disposition']).toMatch(/attachment; filename="sheaf-fixture-field-strips\.csv"/);
+    expect(res.headers['content-disposition']).toMatch(
+      /attachment; filename="sheaf-fixture-field-strips\.csv"/,
+    );
     const parsed = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, ''), { skipEmptyLines: true });
     const [header, ...rows] = parsed.data;
-    expect(header!.slice(0, 6)).toEqual(['site', 'block', 'position', 'rate', 'seeds_sown', 'stand_1']);
+    expect(header!.slice(0, 6)).toEqual([
+      'site',
+      'block',
+      'position',
+      'rate',
+      'seeds_sown',
+      'stand_1',
+    ]);
     expect(header).toContain('grain_weight_lb');
     expect(header).toContain('moisture_pct');
     expect(rows).toHaveLength(6);
-    expect(rows.map((r) => r.slice(0, 4).join(','))).toEqual(site.strips.map((s) => `Fixture field,${s.block},${s.position},${s.label}`));
+    expect(rows.map((r) => r.slice(0, 4).join(','))).toEqual(
+      site.strips.map((s) => `Fixture field,${s.block},${s.position},${s.label}`),
+    );
     const notes = header!.indexOf('notes');
     // A spreadsheet would run a cell starting with "="; the template guards it with an apostrophe.
     expect(rows[1]![notes]).toBe(`'=cmd|' /C calc'!A0`);
@@ -101,12 +167,25 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
   });
 
   it('answers 415 for a file that is not CSV by its content, whatever its name', async () => {
-    const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f3e3f00000000049454e44ae426082', 'hex');
+    const png = Buffer.from(
+      '89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f3e3f00000000049454e44ae426082',
+      'hex',
+    );
     const res = await upload(grower, site.siteId, png, 'strips.csv', 'text/csv');
     expect(res.status).toBe(415);
     expect(res.body.error.code).toBe('unsupported_media_type');
     const zip = Buffer.concat([Buffer.from('504b0304', 'hex'), Buffer.alloc(200)]);
-    expect((await upload(grower, site.siteId, zip, 'strips.xlsx', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')).status).toBe(415);
+    expect(
+      (
+        await upload(
+          grower,
+          site.siteId,
+          zip,
+          'strips.xlsx',
+          'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+        )
+      ).status,
+    ).toBe(415);
   });
 
   it('refuses a file over 5 MB with 413', async () => {
@@ -117,7 +196,10 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
   });
 
   it('answers 400 when no file is sent', async () => {
-    const res = await grower.agent.post(`/api/sites/${site.siteId}/import`).set('X-CSRF-Token', await grower.csrf()).field('note', 'x');
+    const res = await grower.agent
+      .post(`/api/sites/${site.siteId}/import`)
+      .set('X-CSRF-Token', await grower.csrf())
+      .field('note', 'x');
     expect(res.status).toBe(400);
   });
 

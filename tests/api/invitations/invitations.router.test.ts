@@ -1,5 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, clientFor, createTestApp, signIn, type BuiltNetwork, type TestApp } from '../../helpers/app';
+import {
+  buildNetwork,
+  clientFor,
+  createTestApp,
+  signIn,
+  type BuiltNetwork,
+  type TestApp,
+} from '../../helpers/app';
 
 describe('invitations', () => {
   let t: TestApp;
@@ -13,7 +20,10 @@ describe('invitations', () => {
   it('lets a coordinator invite a grower who then sets a name and password and is signed in', async () => {
     const coordinator = await signIn(t.app, net.emails.coordinator);
     const email = `new-grower-${net.suffix}@test.example`;
-    const created = await coordinator.post(`/api/networks/${net.networkId}/invitations`, { email, role: 'grower' });
+    const created = await coordinator.post(`/api/networks/${net.networkId}/invitations`, {
+      email,
+      role: 'grower',
+    });
     expect(created.status).toBe(201);
     expect(created.body).not.toHaveProperty('token');
 
@@ -27,28 +37,58 @@ describe('invitations', () => {
     expect(preview.status).toBe(200);
     expect(preview.body).toMatchObject({ email, role: 'grower' });
 
-    const accepted = await invitee.post('/api/invitations/accept', { token, name: 'Nell Furrow', password: 'long-enough-password' });
+    const accepted = await invitee.post('/api/invitations/accept', {
+      token,
+      name: 'Nell Furrow',
+      password: 'long-enough-password',
+    });
     expect(accepted.status).toBe(200);
-    expect(accepted.body.memberships).toEqual([expect.objectContaining({ networkId: net.networkId, role: 'grower' })]);
+    expect(accepted.body.memberships).toEqual([
+      expect.objectContaining({ networkId: net.networkId, role: 'grower' }),
+    ]);
     expect((await invitee.get('/api/auth/me')).body.name).toBe('Nell Furrow');
 
-    const reused = await clientFor(t.app).post('/api/invitations/accept', { token, name: 'Someone', password: 'long-enough-password' });
+    const reused = await clientFor(t.app).post('/api/invitations/accept', {
+      token,
+      name: 'Someone',
+      password: 'long-enough-password',
+    });
     expect(reused.status).toBe(400);
   });
 
   it('refuses invitations from growers and members, and coordinator invitations from coordinators', async () => {
     const grower = await signIn(t.app, net.emails.grower);
-    expect((await grower.post(`/api/networks/${net.networkId}/invitations`, { email: `x-${net.suffix}@test.example`, role: 'member' })).status).toBe(403);
+    expect(
+      (
+        await grower.post(`/api/networks/${net.networkId}/invitations`, {
+          email: `x-${net.suffix}@test.example`,
+          role: 'member',
+        })
+      ).status,
+    ).toBe(403);
     const coordinator = await signIn(t.app, net.emails.coordinator);
-    const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, { email: `y-${net.suffix}@test.example`, role: 'coordinator' });
+    const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, {
+      email: `y-${net.suffix}@test.example`,
+      role: 'coordinator',
+    });
     expect(res.status).toBe(403);
     const admin = await signIn(t.app, net.emails.admin);
-    expect((await admin.post(`/api/networks/${net.networkId}/invitations`, { email: `z-${net.suffix}@test.example`, role: 'coordinator' })).status).toBe(201);
+    expect(
+      (
+        await admin.post(`/api/networks/${net.networkId}/invitations`, {
+          email: `z-${net.suffix}@test.example`,
+          role: 'coordinator',
+        })
+      ).status,
+    ).toBe(201);
   });
 
   it('names the bad field when the invitation input is invalid', async () => {
     const coordinator = await signIn(t.app, net.emails.coordinator);
-    const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, { email: 'nope', role: 'farmer' });
+    const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, {
+      email: 'nope',
+      role: 'farmer',
+    });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['email', 'role']);
   });
@@ -73,7 +113,10 @@ describe('invitation rate limit', () => {
     const coordinator = await signIn(t.app, net.emails.coordinator);
     const statuses: number[] = [];
     for (let i = 0; i < 6; i += 1) {
-      const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, { email: `bulk${i}-${net.suffix}@test.example`, role: 'member' });
+      const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, {
+        email: `bulk${i}-${net.suffix}@test.example`,
+        role: 'member',
+      });
       statuses.push(res.status);
     }
     expect(statuses).toEqual([201, 201, 201, 201, 201, 429]);

@@ -1,12 +1,30 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { buildNetwork, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
-import { buildCollectSite, openCollectSite, publishSite, type CollectSite } from '../strips/collect-builders';
+import {
+  buildNetwork,
+  signIn,
+  type BuiltNetwork,
+  type Client,
+  type TestApp,
+} from '../../helpers/app';
+import {
+  buildCollectSite,
+  openCollectSite,
+  publishSite,
+  type CollectSite,
+} from '../strips/collect-builders';
 
 // A 1 × 1 PNG (the smallest valid file) and a JPEG header: real image bytes for the content check.
-const PNG = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f3e3f00000000049454e44ae426082', 'hex');
-const JPEG = Buffer.concat([Buffer.from('ffd8ffe000104a46494600010100000100010000', 'hex'), Buffer.alloc(64), Buffer.from('ffd9', 'hex')]);
+const PNG = Buffer.from(
+  '89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d4944415478da63f8cfc0f01f0005000201a5f3e3f00000000049454e44ae426082',
+  'hex',
+);
+const JPEG = Buffer.concat([
+  Buffer.from('ffd8ffe000104a46494600010100000100010000', 'hex'),
+  Buffer.alloc(64),
+  Buffer.from('ffd9', 'hex'),
+]);
 
 describe('photos: POST /api/sites/:siteId/photos, GET /api/sites/:siteId/photos, GET /api/photos/:photoId', () => {
   let t: TestApp;
@@ -14,8 +32,16 @@ describe('photos: POST /api/sites/:siteId/photos, GET /api/sites/:siteId/photos,
   let site: CollectSite;
   let grower: Client;
 
-  const upload = async (client: Client, siteId: string, body: Buffer, filename: string, fields: Record<string, string> = {}) => {
-    const request = client.agent.post(`/api/sites/${siteId}/photos`).set('X-CSRF-Token', await client.csrf());
+  const upload = async (
+    client: Client,
+    siteId: string,
+    body: Buffer,
+    filename: string,
+    fields: Record<string, string> = {},
+  ) => {
+    const request = client.agent
+      .post(`/api/sites/${siteId}/photos`)
+      .set('X-CSRF-Token', await client.csrf());
     for (const [key, value] of Object.entries(fields)) request.field(key, value);
     return request.attach('file', body, { filename, contentType: 'image/jpeg' });
   };
@@ -26,10 +52,21 @@ describe('photos: POST /api/sites/:siteId/photos, GET /api/sites/:siteId/photos,
   afterAll(() => t.close());
 
   it('stores a PNG for a strip under a generated name and serves it with its type and nosniff', async () => {
-    const res = await upload(grower, site.siteId, PNG, '../../etc/passwd.png', { stripId: site.strips[0]!.id, caption: '<b>lodging</b> in block 1' });
+    const res = await upload(grower, site.siteId, PNG, '../../etc/passwd.png', {
+      stripId: site.strips[0]!.id,
+      caption: '<b>lodging</b> in block 1',
+    });
     expect(res.status).toBe(201);
-    expect(res.body).toMatchObject({ siteId: site.siteId, stripId: site.strips[0]!.id, mimeType: 'image/png', caption: '<b>lodging</b> in block 1', sizeBytes: PNG.length });
-    const [row] = await t.dataSource.query('SELECT stored_name FROM attachments WHERE id = $1', [res.body.id]);
+    expect(res.body).toMatchObject({
+      siteId: site.siteId,
+      stripId: site.strips[0]!.id,
+      mimeType: 'image/png',
+      caption: '<b>lodging</b> in block 1',
+      sizeBytes: PNG.length,
+    });
+    const [row] = await t.dataSource.query('SELECT stored_name FROM attachments WHERE id = $1', [
+      res.body.id,
+    ]);
     expect(row.stored_name).toMatch(/^[0-9a-f-]{36}\.png$/);
     expect(fs.existsSync(path.join(path.resolve(t.config.UPLOAD_DIR), row.stored_name))).toBe(true);
     const file = await grower.get(res.body.url).buffer(true);
@@ -45,12 +82,19 @@ describe('photos: POST /api/sites/:siteId/photos, GET /api/sites/:siteId/photos,
     expect(res.body.mimeType).toBe('image/jpeg');
     const all = await grower.get(`/api/sites/${site.siteId}/photos`);
     expect(all.body).toHaveLength(2);
-    const strip = await grower.get(`/api/sites/${site.siteId}/photos?stripId=${site.strips[0]!.id}`);
+    const strip = await grower.get(
+      `/api/sites/${site.siteId}/photos?stripId=${site.strips[0]!.id}`,
+    );
     expect(strip.body).toHaveLength(1);
   });
 
   it('refuses a file that only claims to be a photo with 415', async () => {
-    const res = await upload(grower, site.siteId, Buffer.from('<svg onload="alert(1)"></svg>'), 'photo.jpg');
+    const res = await upload(
+      grower,
+      site.siteId,
+      Buffer.from('<svg onload="alert(1)"></svg>'),
+      'photo.jpg',
+    );
     expect(res.status).toBe(415);
     expect(res.body.error.code).toBe('unsupported_media_type');
   });
@@ -61,18 +105,28 @@ describe('photos: POST /api/sites/:siteId/photos, GET /api/sites/:siteId/photos,
   });
 
   it('refuses a strip of another site', async () => {
-    const other = await t.dataSource.query('SELECT id FROM strips WHERE site_id = $1 LIMIT 1', [site.otherSiteId]);
-    expect((await upload(grower, site.siteId, PNG, 'a.png', { stripId: other[0].id })).status).toBe(400);
+    const other = await t.dataSource.query('SELECT id FROM strips WHERE site_id = $1 LIMIT 1', [
+      site.otherSiteId,
+    ]);
+    expect((await upload(grower, site.siteId, PNG, 'a.png', { stripId: other[0].id })).status).toBe(
+      400,
+    );
   });
 
   it('keeps photos from other growers, members before publishing, and other networks', async () => {
-    const [photo] = await t.dataSource.query('SELECT id FROM attachments WHERE site_id = $1 LIMIT 1', [site.siteId]);
+    const [photo] = await t.dataSource.query(
+      'SELECT id FROM attachments WHERE site_id = $1 LIMIT 1',
+      [site.siteId],
+    );
     const grower2 = await signIn(t.app, net.emails.grower2);
     expect((await grower2.get(`/api/photos/${photo.id}`)).status).toBe(403);
     expect((await upload(grower2, site.siteId, PNG, 'a.png')).status).toBe(403);
     const member = await signIn(t.app, net.emails.member);
     expect((await member.get(`/api/photos/${photo.id}`)).status).toBe(403);
-    const outsider = await signIn(t.app, (await buildNetwork(t.dataSource, 'Photos other')).emails.coordinator);
+    const outsider = await signIn(
+      t.app,
+      (await buildNetwork(t.dataSource, 'Photos other')).emails.coordinator,
+    );
     expect((await outsider.get(`/api/photos/${photo.id}`)).status).toBe(404);
     const coordinator = await signIn(t.app, net.emails.coordinator);
     expect((await coordinator.get(`/api/photos/${photo.id}`)).status).toBe(200);

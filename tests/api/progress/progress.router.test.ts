@@ -13,10 +13,16 @@ describe('coordination: GET /api/trials/:trialId/progress and POST /api/trials/:
     ({ t, net, site, grower, coordinator } = await openCollectSite('Progress'));
     // Stand counts on every strip of the grower's site, a yield on one.
     for (const strip of site.strips) {
-      const res = await grower.patch(`/api/strips/${strip.id}`, { version: 1, values: { standCounts: [30, 31], standRowLength: 3 } });
+      const res = await grower.patch(`/api/strips/${strip.id}`, {
+        version: 1,
+        values: { standCounts: [30, 31], standRowLength: 3 },
+      });
       expect(res.status).toBe(200);
     }
-    await grower.patch(`/api/strips/${site.strips[0]!.id}`, { version: 2, values: { grainWeight: 7, moisturePct: 13, harvestRows: 4, harvestLength: 50 } });
+    await grower.patch(`/api/strips/${site.strips[0]!.id}`, {
+      version: 2,
+      values: { grainWeight: 7, moisturePct: 13, harvestRows: 4, harvestLength: 50 },
+    });
   });
   afterAll(() => t.close());
 
@@ -24,17 +30,26 @@ describe('coordination: GET /api/trials/:trialId/progress and POST /api/trials/:
     const res = await coordinator.get(`/api/trials/${site.trialId}/progress`);
     expect(res.status).toBe(200);
     const own = res.body.sites.find((s: { siteId: string }) => s.siteId === site.siteId);
-    expect(own).toMatchObject({ stripCount: 6, recorded: { stand: 6, tillers: 0, heads: 0, yield: 1 } });
+    expect(own).toMatchObject({
+      stripCount: 6,
+      recorded: { stand: 6, tillers: 0, heads: 0, yield: 1 },
+    });
     expect(own.lastChangeAt).not.toBeNull();
     const other = res.body.sites.find((s: { siteId: string }) => s.siteId === site.otherSiteId);
     expect(other.recorded).toEqual({ stand: 0, tillers: 0, heads: 0, yield: 0 });
   });
 
   it('e-mails growers with missing counts, with text and HTML parts and a link to their site', async () => {
-    const res = await coordinator.post(`/api/trials/${site.trialId}/reminders`, { groups: ['stand', 'yield'] });
+    const res = await coordinator.post(`/api/trials/${site.trialId}/reminders`, {
+      groups: ['stand', 'yield'],
+    });
     expect(res.status).toBe(200);
-    expect(res.body.sent.map((s: { to: string }) => s.to).sort()).toEqual([net.emails.grower, net.emails.grower2].sort());
-    const mail = await t.mailCatcher.waitFor((m) => m.to.includes(net.emails.grower) && /missing/.test(m.subject));
+    expect(res.body.sent.map((s: { to: string }) => s.to).sort()).toEqual(
+      [net.emails.grower, net.emails.grower2].sort(),
+    );
+    const mail = await t.mailCatcher.waitFor(
+      (m) => m.to.includes(net.emails.grower) && /missing/.test(m.subject),
+    );
     expect(mail.text).toContain('Grain weight and moisture: 5 of 6 strips still to enter.');
     expect(mail.text).not.toContain('Stand count:');
     expect(mail.text).toContain(`http://sheaf.test/sites/${site.siteId}`);
@@ -42,8 +57,14 @@ describe('coordination: GET /api/trials/:trialId/progress and POST /api/trials/:
   });
 
   it('skips sites with nothing missing', async () => {
-    const res = await coordinator.post(`/api/trials/${site.trialId}/reminders`, { groups: ['stand'], siteIds: [site.siteId] });
-    expect(res.body).toEqual({ sent: [], skipped: [{ siteId: site.siteId, reason: 'Nothing is missing' }] });
+    const res = await coordinator.post(`/api/trials/${site.trialId}/reminders`, {
+      groups: ['stand'],
+      siteIds: [site.siteId],
+    });
+    expect(res.body).toEqual({
+      sent: [],
+      skipped: [{ siteId: site.siteId, reason: 'Nothing is missing' }],
+    });
   });
 
   it('is for coordinators only', async () => {

@@ -44,20 +44,50 @@ export interface BuiltTrial {
 
 /** Harvest area per strip: 100 ft² (imperial) or 10 m² (metric). */
 const AREA = { imperial: 100, metric: 10 };
-const BUSHEL_LB: Record<string, number> = { wheat: 60, springWheat: 60, oats: 32, hullessOats: 32, barley: 48, rye: 56 };
-const STANDARD_MOISTURE: Record<string, number> = { wheat: 13.5, springWheat: 13.5, oats: 14, hullessOats: 14, barley: 14.5, rye: 14 };
+const BUSHEL_LB: Record<string, number> = {
+  wheat: 60,
+  springWheat: 60,
+  oats: 32,
+  hullessOats: 32,
+  barley: 48,
+  rye: 56,
+};
+const STANDARD_MOISTURE: Record<string, number> = {
+  wheat: 13.5,
+  springWheat: 13.5,
+  oats: 14,
+  hullessOats: 14,
+  barley: 14.5,
+  rye: 14,
+};
 
 /** Grain weight that gives `yieldValue` at the crop's standard moisture on the strip's area. */
-export function grainWeightFor(spec: TrialSpec, yieldValue: number): { grainWeight: number; moisture: number; area: number } {
+export function grainWeightFor(
+  spec: TrialSpec,
+  yieldValue: number,
+): { grainWeight: number; moisture: number; area: number } {
   const system = spec.unitSystem ?? 'imperial';
   const crop = spec.crop ?? 'wheat';
-  const moisture = crop === 'custom' ? Number(spec.customCrop?.standardMoisturePct ?? 14) : STANDARD_MOISTURE[crop]!;
-  if (system === 'metric') return { grainWeight: (yieldValue * AREA.metric) / 10_000, moisture, area: AREA.metric };
-  const bushel = crop === 'custom' ? Number(spec.customCrop?.bushelWeightLb ?? 60) : BUSHEL_LB[crop]!;
-  return { grainWeight: (yieldValue * bushel * AREA.imperial) / 43_560, moisture, area: AREA.imperial };
+  const moisture =
+    crop === 'custom'
+      ? Number(spec.customCrop?.standardMoisturePct ?? 14)
+      : STANDARD_MOISTURE[crop]!;
+  if (system === 'metric')
+    return { grainWeight: (yieldValue * AREA.metric) / 10_000, moisture, area: AREA.metric };
+  const bushel =
+    crop === 'custom' ? Number(spec.customCrop?.bushelWeightLb ?? 60) : BUSHEL_LB[crop]!;
+  return {
+    grainWeight: (yieldValue * bushel * AREA.imperial) / 43_560,
+    moisture,
+    area: AREA.imperial,
+  };
 }
 
-export async function buildReportTrial(dataSource: DataSource, network: BuiltNetwork, spec: TrialSpec): Promise<BuiltTrial> {
+export async function buildReportTrial(
+  dataSource: DataSource,
+  network: BuiltNetwork,
+  spec: TrialSpec,
+): Promise<BuiltTrial> {
   const levels = spec.levels ?? [
     { multiplier: 0.25, label: 'quarter' },
     { multiplier: 0.5, label: 'half' },
@@ -99,7 +129,13 @@ export async function buildReportTrial(dataSource: DataSource, network: BuiltNet
     const [siteRow] = await dataSource.query(
       `INSERT INTO sites (trial_id, grower_user_id, field_name, soil, previous_crop, randomization_seed, randomized_at, data_version)
        VALUES ($1, $2, $3, $4, $5, 'test', now(), 1) RETURNING id`,
-      [trial.id, site.growerUserId ?? null, site.fieldName, site.soil ?? 'loam', site.previousCrop ?? 'peas'],
+      [
+        trial.id,
+        site.growerUserId ?? null,
+        site.fieldName,
+        site.soil ?? 'loam',
+        site.previousCrop ?? 'peas',
+      ],
     );
     siteIds.push(siteRow.id);
     const ids: string[] = [];
@@ -129,5 +165,7 @@ export async function buildReportTrial(dataSource: DataSource, network: BuiltNet
 
 /** A full RCBD site: yields[block][level]. */
 export function rcbdStrips(yields: (number | null)[][]): StripSpec[] {
-  return yields.flatMap((row, b) => row.map((value, level) => ({ block: b + 1, level, yield: value })));
+  return yields.flatMap((row, b) =>
+    row.map((value, level) => ({ block: b + 1, level, yield: value })),
+  );
 }

@@ -16,13 +16,26 @@ import { buildReportTrial } from './build-report-trial';
 interface GomezFixture {
   data: { block: string; rateKgPerHa: number; yieldKgPerHa: number }[];
   publishedTable2_6: Record<string, number>;
-  r: { anova: { source: string; df: number; ss: number; F?: number | null; p?: number | null }[]; grandMean: number; cvPercent: number; means: { rateKgPerHa: number; mean: number; ciLow: number; ciHigh: number }[] };
+  r: {
+    anova: { source: string; df: number; ss: number; F?: number | null; p?: number | null }[];
+    grandMean: number;
+    cvPercent: number;
+    means: { rateKgPerHa: number; mean: number; ciLow: number; ciHigh: number }[];
+  };
 }
-const gomez = JSON.parse(readFileSync(new URL('../../../fixtures/reports/gomez-seeding-rate-trial.json', import.meta.url), 'utf8')) as GomezFixture;
+const gomez = JSON.parse(
+  readFileSync(
+    new URL('../../../fixtures/reports/gomez-seeding-rate-trial.json', import.meta.url),
+    'utf8',
+  ),
+) as GomezFixture;
 
 const close = (actual: number, expected: number, figures = 9) =>
-  expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(Math.abs(expected) * 10 ** -figures + 1e-9);
-const row = (anova: AnovaRow[], source: string) => anova.find((r) => r.source === source) as AnovaRow & { ms: number; f: number; p: number };
+  expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(
+    Math.abs(expected) * 10 ** -figures + 1e-9,
+  );
+const row = (anova: AnovaRow[], source: string) =>
+  anova.find((r) => r.source === source) as AnovaRow & { ms: number; f: number; p: number };
 
 let testApp: TestApp;
 beforeAll(async () => {
@@ -43,7 +56,9 @@ describe('report numbers on the demo oat trial', () => {
     for (const site of siteRows) {
       const strips = await dataSource.getRepository(Strip).findBy({ siteId: site.id });
       for (const strip of strips) {
-        const observation = await dataSource.getRepository(Observation).findOneBy({ stripId: strip.id });
+        const observation = await dataSource
+          .getRepository(Observation)
+          .findOneBy({ stripId: strip.id });
         const level = levels.find((l) => l.id === strip.rateLevelId)!;
         const derived = deriveStripValues(observation!, {
           unitSystem: trial.unitSystem,
@@ -56,10 +71,19 @@ describe('report numbers on the demo oat trial', () => {
           seedPricePerLb: trial.seedPricePerLb,
           grainPricePerBu: trial.grainPricePerBu,
         });
-        rows.push({ site: site.fieldName, block: String(strip.block), rate: String(level.multiplier), value: derived.yieldBushelsPerAcre });
+        rows.push({
+          site: site.fieldName,
+          block: String(strip.block),
+          rate: String(level.multiplier),
+          value: derived.yieldBushelsPerAcre,
+        });
       }
     }
-    const engine = analyzeTrial(rows, { ratesNumeric: Object.fromEntries(levels.map((l) => [String(l.multiplier), l.multiplier * trial.referenceRate!])) });
+    const engine = analyzeTrial(rows, {
+      ratesNumeric: Object.fromEntries(
+        levels.map((l) => [String(l.multiplier), l.multiplier * trial.referenceRate!]),
+      ),
+    });
 
     const coordinator = await signIn(app, 'coordinator@millbrook.example');
     const first = siteRows.find((s) => s.id === sites[0]!.id)!;
@@ -75,8 +99,10 @@ describe('report numbers on the demo oat trial', () => {
     }
     close(report.analysis!.lsd, expected.lsd);
     close(report.analysis!.cvPercent, expected.cvPercent);
-    for (const mean of expected.means) close(report.analysis!.means.find((m) => m.rate === mean.rate)!.mean, mean.mean);
-    for (const d of expected.differences) close(report.analysis!.differences.find((x) => x.rate === d.rate)!.p, d.p, 8);
+    for (const mean of expected.means)
+      close(report.analysis!.means.find((m) => m.rate === mean.rate)!.mean, mean.mean);
+    for (const d of expected.differences)
+      close(report.analysis!.differences.find((x) => x.rate === d.rate)!.p, d.p, 8);
     expect(report.site.completeness).toMatchObject({ strips: 16, withYield: 16, missing: 0 });
     expect(report.findings.length).toBeGreaterThan(3);
 
@@ -87,21 +113,31 @@ describe('report numbers on the demo oat trial', () => {
     expect(pooled.sitesExcluded).toHaveLength(0);
     const engineP = engine.pooled!;
     expect(pooled.analysis!.method).toBe(engineP.method);
-    for (const entry of engineP.anova) close(row(pooled.analysis!.anova, entry.source).ss, entry.ss);
+    for (const entry of engineP.anova)
+      close(row(pooled.analysis!.anova, entry.source).ss, entry.ss);
     close(pooled.analysis!.rateTest.f, engineP.rateTest.f);
     expect(pooled.analysis!.rateTest.errorTerm).toBe('site:rate');
-    for (const mean of engineP.means) close(pooled.analysis!.means.find((m) => m.rate === mean.rate)!.ciLow, mean.ciLow);
+    for (const mean of engineP.means)
+      close(pooled.analysis!.means.find((m) => m.rate === mean.rate)!.ciLow, mean.ciLow);
     close(pooled.analysis!.bartlett!.chiSquare, engineP.bartlett!.chiSquare);
     close(pooled.analysis!.curve!.quadratic, engineP.curve!.quadratic, 8);
     expect(pooled.siteDifferences).toHaveLength(8 * 3);
-    expect(pooled.findings.some((f) => /of 8 sites half rate was within the LSD of the full rate/.test(f))).toBe(true);
+    expect(
+      pooled.findings.some((f) =>
+        /of 8 sites half rate was within the LSD of the full rate/.test(f),
+      ),
+    ).toBe(true);
   });
 
   it('recomputes the economic optimum on the server when the prices change', async () => {
     const { oatTrialId } = await demoIds(testApp.dataSource);
     const coordinator = await signIn(testApp.app, 'coordinator@millbrook.example');
-    const cheap = (await coordinator.get(`/api/trials/${oatTrialId}/pooled-report?seedPrice=0.1&grainPrice=9.5`)).body as PooledReport;
-    const dear = (await coordinator.get(`/api/trials/${oatTrialId}/pooled-report?seedPrice=3&grainPrice=9.5`)).body as PooledReport;
+    const cheap = (
+      await coordinator.get(`/api/trials/${oatTrialId}/pooled-report?seedPrice=0.1&grainPrice=9.5`)
+    ).body as PooledReport;
+    const dear = (
+      await coordinator.get(`/api/trials/${oatTrialId}/pooled-report?seedPrice=3&grainPrice=9.5`)
+    ).body as PooledReport;
     expect(cheap.prices).toEqual({ seedPricePerLb: 0.1, grainPricePerBu: 9.5 });
     expect(cheap.analysis!.curve!.economics!.priceRatio).toBeCloseTo(0.1 / 9.5, 12);
     expect(dear.analysis!.curve!.economics!.priceRatio).toBeCloseTo(3 / 9.5, 12);
@@ -115,7 +151,9 @@ describe('report numbers on the demo oat trial', () => {
   it('re-runs the analysis on the sites a filter chooses', async () => {
     const { oatTrialId } = await demoIds(testApp.dataSource);
     const coordinator = await signIn(testApp.app, 'coordinator@millbrook.example');
-    const res = await coordinator.get(`/api/trials/${oatTrialId}/pooled-report?soil=${encodeURIComponent('silt loam')}`);
+    const res = await coordinator.get(
+      `/api/trials/${oatTrialId}/pooled-report?soil=${encodeURIComponent('silt loam')}`,
+    );
     const report = res.body as PooledReport;
     expect(report.sitesIncluded.map((s) => s.soil)).toEqual(['silt loam', 'silt loam']);
     expect(report.sitesExcluded).toHaveLength(6);
@@ -131,14 +169,23 @@ describe('report ANOVA on the Gomez & Gomez (1984) seeding-rate example loaded a
     const built = await buildReportTrial(testApp.dataSource, network, {
       unitSystem: 'metric',
       crop: 'custom',
-      customCrop: { name: 'Rice (handbook example)', thousandKernelWeightG: 25, bushelWeightLb: 45, standardMoisturePct: 14 },
+      customCrop: {
+        name: 'Rice (handbook example)',
+        thousandKernelWeightG: 25,
+        bushelWeightLb: 45,
+        standardMoisturePct: 14,
+      },
       referenceRate: 100,
       referenceUnit: 'kg/ha',
       levels: rates.map((r) => ({ multiplier: r / 100, label: `${r} kg/ha` })),
       sites: [
         {
           fieldName: 'IRRI example field',
-          strips: gomez.data.map((d) => ({ block: Number(d.block.slice(1)), level: rates.indexOf(d.rateKgPerHa), yield: d.yieldKgPerHa })),
+          strips: gomez.data.map((d) => ({
+            block: Number(d.block.slice(1)),
+            level: rates.indexOf(d.rateKgPerHa),
+            yield: d.yieldKgPerHa,
+          })),
         },
       ],
     });
@@ -170,7 +217,9 @@ describe('report ANOVA on the Gomez & Gomez (1984) seeding-rate example loaded a
     }
     // Source: R 4.2.2 emmeans confint on the same data
     for (const expected of gomez.r.means) {
-      const mean = report.analysis!.means.find((m) => m.rate === String(expected.rateKgPerHa / 100))!;
+      const mean = report.analysis!.means.find(
+        (m) => m.rate === String(expected.rateKgPerHa / 100),
+      )!;
       close(mean.mean, expected.mean, 9);
       close(mean.ciLow, expected.ciLow, 8);
       close(mean.ciHigh, expected.ciHigh, 8);

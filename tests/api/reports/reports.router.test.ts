@@ -5,8 +5,21 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { PooledReport, SiteReport } from '../../../shared/schemas/report';
-import { buildNetwork, clientFor, createTestApp, signIn, type BuiltNetwork, type TestApp } from '../../helpers/app';
-import { buildReportTrial, grainWeightFor, rcbdStrips, type BuiltTrial, type TrialSpec } from './build-report-trial';
+import {
+  buildNetwork,
+  clientFor,
+  createTestApp,
+  signIn,
+  type BuiltNetwork,
+  type TestApp,
+} from '../../helpers/app';
+import {
+  buildReportTrial,
+  grainWeightFor,
+  rcbdStrips,
+  type BuiltTrial,
+  type TrialSpec,
+} from './build-report-trial';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -29,7 +42,11 @@ function threeSites(net: BuiltNetwork): TrialSpec {
         [42, 54, 53, 55],
         [39, 51, 56, 54],
         [41, 55, 54, 57],
-      ].map((row, b) => row.map((value, level) => value + shift + (((b * 3 + level * 7 + shift * 5) % 5) - 2) * 0.7)),
+      ].map((row, b) =>
+        row.map(
+          (value, level) => value + shift + (((b * 3 + level * 7 + shift * 5) % 5) - 2) * 0.7,
+        ),
+      ),
     ),
   });
   return {
@@ -65,7 +82,9 @@ describe('site report publishing', () => {
     expect(report.fromSnapshot).toBe(true);
     expect(report.analysis!.means).toHaveLength(4);
     expect(report.published!.dataVersion).toBe('1');
-    const [site] = await t.dataSource.query('SELECT published_at FROM sites WHERE id = $1', [siteId]);
+    const [site] = await t.dataSource.query('SELECT published_at FROM sites WHERE id = $1', [
+      siteId,
+    ]);
     expect(site.published_at).not.toBeNull();
   });
 
@@ -75,7 +94,9 @@ describe('site report publishing', () => {
     const res = await coordinator.post(`/api/sites/${siteId}/publish`);
     expect(res.status).toBe(200);
     expect(res.headers['x-sheaf-grower-mailed']).toBe('yes');
-    const mail = await t.mailCatcher.waitFor((m) => m.to.includes(net.emails.grower2) && /site report/i.test(m.subject));
+    const mail = await t.mailCatcher.waitFor(
+      (m) => m.to.includes(net.emails.grower2) && /site report/i.test(m.subject),
+    );
     expect(mail.text).toContain(`http://sheaf.test/sites/${siteId}/report`);
     expect(mail.html).toContain(`/sites/${siteId}/report`);
   });
@@ -89,8 +110,13 @@ describe('site report publishing', () => {
     // A correction lands on one strip (as an unlock-edit-relock by the coordinator would).
     const stripId = built.stripIds[0]![0]!;
     const { grainWeight } = grainWeightFor({ sites: [] }, 20);
-    await t.dataSource.query('UPDATE observations SET grain_weight = $2 WHERE strip_id = $1', [stripId, grainWeight]);
-    await t.dataSource.query('UPDATE sites SET data_version = data_version + 1 WHERE id = $1', [siteId]);
+    await t.dataSource.query('UPDATE observations SET grain_weight = $2 WHERE strip_id = $1', [
+      stripId,
+      grainWeight,
+    ]);
+    await t.dataSource.query('UPDATE sites SET data_version = data_version + 1 WHERE id = $1', [
+      siteId,
+    ]);
 
     const memberView = (await member.get(`/api/sites/${siteId}/report`)).body as SiteReport;
     expect(memberView.analysis!.means).toEqual(before.analysis!.means);
@@ -99,14 +125,22 @@ describe('site report publishing', () => {
     const live = (await coordinator.get(`/api/sites/${siteId}/report`)).body as SiteReport;
     expect(live.fromSnapshot).toBe(false);
     expect(live.dataChangedSincePublished).toBe(true);
-    expect(live.analysis!.means.find((m) => m.rate === '0.25')!.mean).not.toBeCloseTo(before.analysis!.means.find((m) => m.rate === '0.25')!.mean, 3);
+    expect(live.analysis!.means.find((m) => m.rate === '0.25')!.mean).not.toBeCloseTo(
+      before.analysis!.means.find((m) => m.rate === '0.25')!.mean,
+      3,
+    );
 
     const republished = (await coordinator.post(`/api/sites/${siteId}/publish`)).body as SiteReport;
     expect(republished.dataChangedSincePublished).toBe(false);
     const after = (await member.get(`/api/sites/${siteId}/report`)).body as SiteReport;
     expect(after.analysis!.means).toEqual(live.analysis!.means);
-    const snapshots = await t.dataSource.query(`SELECT withdrawn_at FROM report_snapshots WHERE site_id = $1 ORDER BY published_at`, [siteId]);
-    expect(snapshots.filter((s: { withdrawn_at: Date | null }) => s.withdrawn_at === null)).toHaveLength(1);
+    const snapshots = await t.dataSource.query(
+      `SELECT withdrawn_at FROM report_snapshots WHERE site_id = $1 ORDER BY published_at`,
+      [siteId],
+    );
+    expect(
+      snapshots.filter((s: { withdrawn_at: Date | null }) => s.withdrawn_at === null),
+    ).toHaveLength(1);
   });
 
   it('unpublishes: clears the lock and answers 403 to members again', async () => {
@@ -116,7 +150,9 @@ describe('site report publishing', () => {
     const res = await coordinator.post(`/api/sites/${siteId}/unpublish`);
     expect(res.status).toBe(200);
     expect((res.body as SiteReport).published).toBeNull();
-    const [site] = await t.dataSource.query('SELECT published_at FROM sites WHERE id = $1', [siteId]);
+    const [site] = await t.dataSource.query('SELECT published_at FROM sites WHERE id = $1', [
+      siteId,
+    ]);
     expect(site.published_at).toBeNull();
     expect((await member.get(`/api/sites/${siteId}/report`)).status).toBe(403);
   });
@@ -156,13 +192,26 @@ describe('pooled report publishing and the public link', () => {
 
   it('says which sites are in and why others are left out', async () => {
     const coordinator = await signIn(t.app, net.emails.coordinator);
-    const report = (await coordinator.get(`/api/trials/${built.trialId}/pooled-report`)).body as PooledReport;
-    expect(report.sitesIncluded.map((s) => s.fieldName)).toEqual(['North field', 'River flat', 'Ridge = top']);
-    expect(report.sitesExcluded).toEqual([expect.objectContaining({ reason: 'incomplete: 8 of 16 strips have a yield' })]);
+    const report = (await coordinator.get(`/api/trials/${built.trialId}/pooled-report`))
+      .body as PooledReport;
+    expect(report.sitesIncluded.map((s) => s.fieldName)).toEqual([
+      'North field',
+      'River flat',
+      'Ridge = top',
+    ]);
+    expect(report.sitesExcluded).toEqual([
+      expect.objectContaining({ reason: 'incomplete: 8 of 16 strips have a yield' }),
+    ]);
     expect(report.analysis!.rateTest.errorTerm).toBe('site:rate');
-    expect(report.findings[0]).toMatch(/^3 sites were analysed together; 1 site was left out \(Late field: incomplete/);
-    const published = await coordinator.get(`/api/trials/${built.trialId}/pooled-report?sites=published`);
-    expect((published.body as PooledReport).sitesExcluded.map((e) => e.reason)).toContain('site report not yet published');
+    expect(report.findings[0]).toMatch(
+      /^3 sites were analysed together; 1 site was left out \(Late field: incomplete/,
+    );
+    const published = await coordinator.get(
+      `/api/trials/${built.trialId}/pooled-report?sites=published`,
+    );
+    expect((published.body as PooledReport).sitesExcluded.map((e) => e.reason)).toContain(
+      'site report not yet published',
+    );
   });
 
   it('answers 403 to a member until the pooled report is published, then serves the snapshot', async () => {
@@ -177,22 +226,29 @@ describe('pooled report publishing and the public link', () => {
     expect(report.publicLinkToken).toBeNull();
     expect(report.sitesIncluded).toHaveLength(3);
     // Prices change on the frozen data, not on live data.
-    const priced = (await member.get(`/api/trials/${built.trialId}/pooled-report?seedPrice=1&grainPrice=10`)).body as PooledReport;
+    const priced = (
+      await member.get(`/api/trials/${built.trialId}/pooled-report?seedPrice=1&grainPrice=10`)
+    ).body as PooledReport;
     expect(priced.prices).toEqual({ seedPricePerLb: 1, grainPricePerBu: 10 });
     expect(priced.analysis!.anova).toEqual(report.analysis!.anova);
   });
 
   it('flags the pooled report when a site’s data change after publishing', async () => {
     const coordinator = await signIn(t.app, net.emails.coordinator);
-    await t.dataSource.query('UPDATE sites SET data_version = data_version + 1 WHERE id = $1', [built.siteIds[3]]);
-    const report = (await coordinator.get(`/api/trials/${built.trialId}/pooled-report`)).body as PooledReport;
+    await t.dataSource.query('UPDATE sites SET data_version = data_version + 1 WHERE id = $1', [
+      built.siteIds[3],
+    ]);
+    const report = (await coordinator.get(`/api/trials/${built.trialId}/pooled-report`))
+      .body as PooledReport;
     expect(report.dataChangedSincePublished).toBe(true);
   });
 
   it('serves the public link only while it is on', async () => {
     const coordinator = await signIn(t.app, net.emails.coordinator);
     const anonymous = clientFor(t.app);
-    const on = await coordinator.post(`/api/trials/${built.trialId}/public-link`, { enabled: true });
+    const on = await coordinator.post(`/api/trials/${built.trialId}/public-link`, {
+      enabled: true,
+    });
     expect(on.status).toBe(200);
     const token = on.body.token as string;
     expect(token).toMatch(/^[A-Za-z0-9_-]{32}$/);
@@ -201,21 +257,29 @@ describe('pooled report publishing and the public link', () => {
     expect((read.body as PooledReport).trial.id).toBe(built.trialId);
     expect(JSON.stringify(read.body)).not.toContain(net.emails.grower);
 
-    const off = await coordinator.post(`/api/trials/${built.trialId}/public-link`, { enabled: false });
+    const off = await coordinator.post(`/api/trials/${built.trialId}/public-link`, {
+      enabled: false,
+    });
     expect(off.body).toEqual({ token: null });
     expect((await anonymous.get(`/api/public/reports/${token}`)).status).toBe(404);
-    expect((await anonymous.get('/api/public/reports/not-a-real-token-at-all-xxxxxxxx')).status).toBe(404);
+    expect(
+      (await anonymous.get('/api/public/reports/not-a-real-token-at-all-xxxxxxxx')).status,
+    ).toBe(404);
   });
 
   it('refuses a public link before the pooled report is published, and closes it on unpublish', async () => {
     const coordinator = await signIn(t.app, net.emails.coordinator);
-    const on = await coordinator.post(`/api/trials/${built.trialId}/public-link`, { enabled: true });
+    const on = await coordinator.post(`/api/trials/${built.trialId}/public-link`, {
+      enabled: true,
+    });
     const token = on.body.token as string;
     const unpublished = await coordinator.post(`/api/trials/${built.trialId}/unpublish`);
     expect(unpublished.status).toBe(200);
     expect((unpublished.body as PooledReport).published).toBeNull();
     expect((await clientFor(t.app).get(`/api/public/reports/${token}`)).status).toBe(404);
-    const again = await coordinator.post(`/api/trials/${built.trialId}/public-link`, { enabled: true });
+    const again = await coordinator.post(`/api/trials/${built.trialId}/public-link`, {
+      enabled: true,
+    });
     expect(again.status).toBe(409);
   });
 
@@ -224,14 +288,27 @@ describe('pooled report publishing and the public link', () => {
     const res = await coordinator.get(`/api/trials/${built.trialId}/export.csv`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
-    const lines = res.text.replace(/^\uFEFF/, '').trim().split('\r\n');
+    const lines = res.text
+      .replace(/^\uFEFF/, '')
+      .trim()
+      .split('\r\n');
     expect(lines).toHaveLength(1 + 4 * 16);
     const header = lines[0]!.split(',');
-    expect(header).toEqual(expect.arrayContaining(['grain_weight_lb', 'moisture_pct', 'yield_bushels_per_acre', 'return_over_seed_cost_per_acre']));
+    expect(header).toEqual(
+      expect.arrayContaining([
+        'grain_weight_lb',
+        'moisture_pct',
+        'yield_bushels_per_acre',
+        'return_over_seed_cost_per_acre',
+      ]),
+    );
     const ridge = lines.find((l) => l.includes('Ridge'))!;
     // A field name starting with "=" would not, but "Ridge = top" is harmless; check a formula-looking note.
     expect(ridge).toContain('Ridge = top');
-    await t.dataSource.query(`UPDATE observations SET notes = '=HYPERLINK("http://x")' WHERE strip_id = $1`, [built.stripIds[0]![0]]);
+    await t.dataSource.query(
+      `UPDATE observations SET notes = '=HYPERLINK("http://x")' WHERE strip_id = $1`,
+      [built.stripIds[0]![0]],
+    );
     const again = await coordinator.get(`/api/trials/${built.trialId}/export.csv`);
     expect(again.text).toContain(`"'=HYPERLINK(""http://x"")"`);
     const member = await signIn(t.app, net.emails.member);
@@ -249,11 +326,14 @@ describe('PDF export', () => {
       [`/api/sites/${built.siteIds[0]}/report.pdf`, 'site.pdf'],
       [`/api/trials/${built.trialId}/pooled-report.pdf`, 'pooled.pdf'],
     ] as const) {
-      const res = await coordinator.agent.get(url).buffer(true).parse((response, callback) => {
-        const chunks: Buffer[] = [];
-        response.on('data', (chunk: Buffer) => chunks.push(chunk));
-        response.on('end', () => callback(null, Buffer.concat(chunks)));
-      });
+      const res = await coordinator.agent
+        .get(url)
+        .buffer(true)
+        .parse((response, callback) => {
+          const chunks: Buffer[] = [];
+          response.on('data', (chunk: Buffer) => chunks.push(chunk));
+          response.on('end', () => callback(null, Buffer.concat(chunks)));
+        });
       expect(res.status).toBe(200);
       expect(res.headers['content-type']).toBe('application/pdf');
       const file = path.join(dir, name);

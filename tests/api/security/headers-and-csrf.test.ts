@@ -14,7 +14,12 @@ describe('security headers', () => {
   it('sends a CSP that forbids inline scripts and third-party origins', async () => {
     const res = await request(t.app).get('/api/health');
     const csp = res.headers['content-security-policy'] as string;
-    const directives = Object.fromEntries(csp.split(';').map((d) => d.trim().split(/\s+/)).map(([name, ...values]) => [name, values]));
+    const directives = Object.fromEntries(
+      csp
+        .split(';')
+        .map((d) => d.trim().split(/\s+/))
+        .map(([name, ...values]) => [name, values]),
+    );
     expect(directives['script-src']).toEqual(["'self'"]);
     expect(directives['default-src']).toEqual(["'self'"]);
     expect(directives['object-src']).toEqual(["'none'"]);
@@ -27,9 +32,15 @@ describe('security headers', () => {
   });
 
   it('marks the session cookie Secure in production and never sends it over plain HTTP', async () => {
-    const prod = await createTestApp({ NODE_ENV: 'production', MAIL_CATCHER: 'off', TRUST_PROXY: 'on' });
+    const prod = await createTestApp({
+      NODE_ENV: 'production',
+      MAIL_CATCHER: 'off',
+      TRUST_PROXY: 'on',
+    });
     try {
-      const overHttps = await request(prod.app).get('/api/auth/csrf').set('X-Forwarded-Proto', 'https');
+      const overHttps = await request(prod.app)
+        .get('/api/auth/csrf')
+        .set('X-Forwarded-Proto', 'https');
       const cookie = String(overHttps.headers['set-cookie']);
       expect(cookie).toMatch(/sheaf\.sid=/);
       expect(cookie).toMatch(/; Secure/);
@@ -58,7 +69,8 @@ describe('CSRF on every state-changing route', () => {
       const url = route.path.replace(/:([A-Za-z]+)/g, '00000000-0000-4000-8000-000000000000');
       for (const agent of [coordinator.agent, request.agent(t.app)]) {
         const res = await agent[route.method](url).send({});
-        if (res.status !== 403 || res.body?.error?.code !== 'csrf_invalid') failures.push(`${route.method} ${route.path}: ${res.status}`);
+        if (res.status !== 403 || res.body?.error?.code !== 'csrf_invalid')
+          failures.push(`${route.method} ${route.path}: ${res.status}`);
       }
     }
     expect(failures).toEqual([]);

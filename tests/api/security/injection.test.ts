@@ -7,7 +7,14 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RouteEntry } from '../../../api/lib/route-table';
-import { clientFor, createTestApp, demoIds, signIn, type Client, type TestApp } from '../../helpers/app';
+import {
+  clientFor,
+  createTestApp,
+  demoIds,
+  signIn,
+  type Client,
+  type TestApp,
+} from '../../helpers/app';
 
 const COORDINATOR = 'coordinator@millbrook.example';
 
@@ -28,7 +35,12 @@ const INJECTIONS = [
 
 // Strings shaped to slip past a loose "looks like a uuid" check: 36 characters of hex and dashes
 // that PostgreSQL's uuid type rejects (it would answer 22P02 and the app a 500).
-const NEAR_UUIDS = ['-'.repeat(36), 'f'.repeat(36), '0123456789abcdef-0123456789abcdef-01', '00000000-0000-0000-0000-00000000000g'];
+const NEAR_UUIDS = [
+  '-'.repeat(36),
+  'f'.repeat(36),
+  '0123456789abcdef-0123456789abcdef-01',
+  '00000000-0000-0000-0000-00000000000g',
+];
 
 const PATH_VALUES = [...INJECTIONS, ...NEAR_UUIDS];
 
@@ -45,29 +57,47 @@ const QUERY_PARAMS: Record<string, string[]> = {
 };
 
 function hasStackTrace(text: string): boolean {
-  return /\n\s+at .+\(.+:\d+:\d+\)|node_modules|QueryFailedError|syntax error at or near|invalid input syntax/i.test(text);
+  return /\n\s+at .+\(.+:\d+:\d+\)|node_modules|QueryFailedError|syntax error at or near|invalid input syntax/i.test(
+    text,
+  );
 }
 
 describe('SQL only through parameters', () => {
   let t: TestApp;
   let coordinator: Client;
   let routes: RouteEntry[];
-  let ids: { memberUserId: string; networkId: string; trialId: string; siteId: string; stripId: string; photoId: string };
+  let ids: {
+    memberUserId: string;
+    networkId: string;
+    trialId: string;
+    siteId: string;
+    stripId: string;
+    photoId: string;
+  };
   let before: Record<string, number>;
 
   async function counts(): Promise<Record<string, number>> {
-    const q = async (sql: string, params: unknown[] = []) => Number((await t.dataSource.query(sql, params))[0].n);
+    const q = async (sql: string, params: unknown[] = []) =>
+      Number((await t.dataSource.query(sql, params))[0].n);
     return {
       // Only the demo's own rows: other test files add users and networks in parallel.
       users: await q(`SELECT count(*) AS n FROM users WHERE email LIKE '%@millbrook.example'`),
-      memberships: await q('SELECT count(*) AS n FROM memberships WHERE network_id = $1', [ids.networkId]),
+      memberships: await q('SELECT count(*) AS n FROM memberships WHERE network_id = $1', [
+        ids.networkId,
+      ]),
       demoSites: await q('SELECT count(*) AS n FROM sites WHERE trial_id = $1', [ids.trialId]),
-      demoStrips: await q('SELECT count(*) AS n FROM strips st JOIN sites s ON s.id = st.site_id WHERE s.trial_id = $1', [ids.trialId]),
+      demoStrips: await q(
+        'SELECT count(*) AS n FROM strips st JOIN sites s ON s.id = st.site_id WHERE s.trial_id = $1',
+        [ids.trialId],
+      ),
       demoObservations: await q(
         'SELECT count(*) AS n FROM observations o JOIN strips st ON st.id = o.strip_id JOIN sites s ON s.id = st.site_id WHERE s.trial_id = $1',
         [ids.trialId],
       ),
-      demoTrialNamed: await q(`SELECT count(*) AS n FROM trials WHERE id = $1 AND name = 'Hulless oat seeding rate 2027'`, [ids.trialId]),
+      demoTrialNamed: await q(
+        `SELECT count(*) AS n FROM trials WHERE id = $1 AND name = 'Hulless oat seeding rate 2027'`,
+        [ids.trialId],
+      ),
     };
   }
 
@@ -76,11 +106,18 @@ describe('SQL only through parameters', () => {
     routes = t.app.locals.routeTable as RouteEntry[];
     coordinator = await signIn(t.app, COORDINATOR);
     const demo = await demoIds(t.dataSource);
-    const [trial] = await t.dataSource.query('SELECT network_id FROM trials WHERE id = $1', [demo.oatTrialId]);
+    const [trial] = await t.dataSource.query('SELECT network_id FROM trials WHERE id = $1', [
+      demo.oatTrialId,
+    ]);
     const siteId = demo.sites[0]!.id;
-    const [strip] = await t.dataSource.query('SELECT id FROM strips WHERE site_id = $1 ORDER BY block, position LIMIT 1', [siteId]);
+    const [strip] = await t.dataSource.query(
+      'SELECT id FROM strips WHERE site_id = $1 ORDER BY block, position LIMIT 1',
+      [siteId],
+    );
     const [photo] = await t.dataSource.query('SELECT id FROM attachments LIMIT 1');
-    const [member] = await t.dataSource.query(`SELECT id FROM users WHERE email = 'member@millbrook.example'`);
+    const [member] = await t.dataSource.query(
+      `SELECT id FROM users WHERE email = 'member@millbrook.example'`,
+    );
     ids = {
       memberUserId: member.id,
       networkId: trial.network_id,
@@ -97,34 +134,51 @@ describe('SQL only through parameters', () => {
     return route.path.replace(/:([A-Za-z]+)/g, (_m, name: string) => {
       if (override && override.name === name) return encodeURIComponent(override.value);
       switch (name) {
-        case 'networkId': return ids.networkId;
-        case 'trialId': return ids.trialId;
-        case 'siteId': return ids.siteId;
-        case 'stripId': return ids.stripId;
+        case 'networkId':
+          return ids.networkId;
+        case 'trialId':
+          return ids.trialId;
+        case 'siteId':
+          return ids.siteId;
+        case 'stripId':
+          return ids.stripId;
         case 'photoId':
-        case 'attachmentId': return ids.photoId;
-        case 'userId': return ids.memberUserId;
-        case 'invitationId': return '00000000-0000-4000-8000-000000000000';
-        case 'token': return 'not-a-real-token-0000000000';
-        default: throw new Error(`injection test: no value for :${name} in ${route.path}; add one`);
+        case 'attachmentId':
+          return ids.photoId;
+        case 'userId':
+          return ids.memberUserId;
+        case 'invitationId':
+          return '00000000-0000-4000-8000-000000000000';
+        case 'token':
+          return 'not-a-real-token-0000000000';
+        default:
+          throw new Error(`injection test: no value for :${name} in ${route.path}; add one`);
       }
     });
   }
 
   async function send(route: RouteEntry, url: string) {
     switch (route.method) {
-      case 'get': return coordinator.get(url);
-      case 'post': return coordinator.post(url, {});
-      case 'patch': return coordinator.patch(url, {});
-      case 'put': return coordinator.put(url, {});
-      case 'delete': return coordinator.delete(url);
+      case 'get':
+        return coordinator.get(url);
+      case 'post':
+        return coordinator.post(url, {});
+      case 'patch':
+        return coordinator.patch(url, {});
+      case 'put':
+        return coordinator.put(url, {});
+      case 'delete':
+        return coordinator.delete(url);
     }
   }
 
   it('knows every query-string parameter the routers read', () => {
     // A router that starts reading another req.query field must be added to QUERY_PARAMS.
     const readers = walk('api').filter((file) => /req\.query/.test(fs.readFileSync(file, 'utf8')));
-    expect(readers.map((f) => path.relative('api', f)).sort()).toEqual(['photos/photos.router.ts', 'reports/reports.router.ts']);
+    expect(readers.map((f) => path.relative('api', f)).sort()).toEqual([
+      'photos/photos.router.ts',
+      'reports/reports.router.ts',
+    ]);
   });
 
   it('answers 400 or 404, never 500, to injection strings in every path parameter', async () => {
@@ -141,7 +195,9 @@ describe('SQL only through parameters', () => {
           const body = res.text ?? '';
           // :token routes validate their own shape (400 when too short/long) or find nothing (404).
           if (![400, 404].includes(res.status) || hasStackTrace(body)) {
-            failures.push(`${route.method.toUpperCase()} ${route.path} :${name}=${JSON.stringify(value.slice(0, 40))} → ${res.status} ${body.slice(0, 160)}`);
+            failures.push(
+              `${route.method.toUpperCase()} ${route.path} :${name}=${JSON.stringify(value.slice(0, 40))} → ${res.status} ${body.slice(0, 160)}`,
+            );
           }
         }
       }
@@ -155,7 +211,10 @@ describe('SQL only through parameters', () => {
     const plain = await coordinator.get(`/api/trials/${ids.trialId}/pooled-report`);
     expect(plain.status).toBe(200);
     expect(plain.body.sitesIncluded.length).toBeGreaterThan(1);
-    const pooledRoutes = [`/api/trials/${ids.trialId}/pooled-report`, `/api/public/reports/not-a-real-token-0000000000`];
+    const pooledRoutes = [
+      `/api/trials/${ids.trialId}/pooled-report`,
+      `/api/public/reports/not-a-real-token-0000000000`,
+    ];
     for (const [param, users] of Object.entries(QUERY_PARAMS)) {
       if (!users.includes('pooled')) continue;
       for (const value of INJECTIONS) {
@@ -164,19 +223,30 @@ describe('SQL only through parameters', () => {
           const isPublic = base.includes('/public/');
           const ok = isPublic ? [400, 404] : [200, 400];
           if (!ok.includes(res.status) || hasStackTrace(res.text ?? '')) {
-            failures.push(`${base}?${param}=${JSON.stringify(value.slice(0, 40))} → ${res.status} ${(res.text ?? '').slice(0, 160)}`);
+            failures.push(
+              `${base}?${param}=${JSON.stringify(value.slice(0, 40))} → ${res.status} ${(res.text ?? '').slice(0, 160)}`,
+            );
             continue;
           }
           // A text filter that got through must narrow, not widen: no demo site has these values.
-          if (!isPublic && res.status === 200 && ['crop', 'season', 'soil', 'previousCrop'].includes(param)) {
-            if (res.body.sitesIncluded.length !== 0) failures.push(`${param}=${JSON.stringify(value.slice(0, 40))} included ${res.body.sitesIncluded.length} sites`);
+          if (
+            !isPublic &&
+            res.status === 200 &&
+            ['crop', 'season', 'soil', 'previousCrop'].includes(param)
+          ) {
+            if (res.body.sitesIncluded.length !== 0)
+              failures.push(
+                `${param}=${JSON.stringify(value.slice(0, 40))} included ${res.body.sitesIncluded.length} sites`,
+              );
           }
         }
       }
     }
     // The PDF variant parses the same query first; one probe each is enough (it starts Chromium on success).
     for (const param of ['seedPrice', 'grainPrice', 'sites']) {
-      const res = await coordinator.get(`/api/trials/${ids.trialId}/pooled-report.pdf?${param}=${encodeURIComponent("' OR '1'='1")}`);
+      const res = await coordinator.get(
+        `/api/trials/${ids.trialId}/pooled-report.pdf?${param}=${encodeURIComponent("' OR '1'='1")}`,
+      );
       if (res.status !== 400) failures.push(`pooled-report.pdf?${param} → ${res.status}`);
     }
     expect(failures).toEqual([]);
@@ -184,7 +254,9 @@ describe('SQL only through parameters', () => {
 
   it('answers 400 to injection strings in the photo list stripId filter', async () => {
     for (const value of [...INJECTIONS, ...NEAR_UUIDS]) {
-      const res = await coordinator.get(`/api/sites/${ids.siteId}/photos?stripId=${encodeURIComponent(value)}`);
+      const res = await coordinator.get(
+        `/api/sites/${ids.siteId}/photos?stripId=${encodeURIComponent(value)}`,
+      );
       expect(res.status, JSON.stringify(value.slice(0, 40))).toBe(400);
       expect(hasStackTrace(res.text)).toBe(false);
     }
@@ -198,13 +270,23 @@ describe('SQL only through parameters', () => {
         ['/api/auth/login', { email: value, password: value }, [400, 401]],
         ['/api/auth/login', { email: `${COORDINATOR}`, password: value }, [400, 401]],
         ['/api/auth/password-reset', { email: value }, [400]],
-        ['/api/auth/password-reset/complete', { token: value, password: 'long-enough-password' }, [400, 404]],
-        ['/api/invitations/accept', { token: value, name: value, password: 'long-enough-password' }, [400]],
+        [
+          '/api/auth/password-reset/complete',
+          { token: value, password: 'long-enough-password' },
+          [400, 404],
+        ],
+        [
+          '/api/invitations/accept',
+          { token: value, name: value, password: 'long-enough-password' },
+          [400],
+        ],
       ];
       for (const [url, body, ok] of probes) {
         const res = await anonymous.post(url, body);
         if (!ok.includes(res.status) || hasStackTrace(res.text ?? '')) {
-          failures.push(`POST ${url} ${JSON.stringify(value.slice(0, 40))} → ${res.status} ${(res.text ?? '').slice(0, 160)}`);
+          failures.push(
+            `POST ${url} ${JSON.stringify(value.slice(0, 40))} → ${res.status} ${(res.text ?? '').slice(0, 160)}`,
+          );
         }
       }
     }
@@ -222,15 +304,38 @@ describe('SQL only through parameters', () => {
   it('builds no SQL text from variables in api/ (template interpolation only of vetted constants)', () => {
     // Each exception: file, the exact `${…}` expression, and why it cannot carry user input.
     const ALLOWED: { file: string; expr: string; why: string }[] = [
-      { file: 'lib/strip-data.ts', expr: "options.lock ? ' FOR UPDATE OF st' : ''", why: 'a choice between two literals' },
-      { file: 'lib/strip-data.ts', expr: "options.lock ? ' FOR UPDATE OF s' : ''", why: 'a choice between two literals' },
-      { file: 'lib/strip-data.ts', expr: 'siteIdSql(key)', why: "a choice between two literals ('$1' / a sub-select on $1); the id is $1" },
-      { file: 'reports/reports.service.ts', expr: 'clause', why: "picked from two literals ('st.site_id = $1' / 's.trial_id = $1'); the id is $1" },
-      { file: 'site-data/site-data.service.ts', expr: "sets.join(', ')", why: 'column names from the fixed COLUMNS map, values as $n parameters' },
+      {
+        file: 'lib/strip-data.ts',
+        expr: "options.lock ? ' FOR UPDATE OF st' : ''",
+        why: 'a choice between two literals',
+      },
+      {
+        file: 'lib/strip-data.ts',
+        expr: "options.lock ? ' FOR UPDATE OF s' : ''",
+        why: 'a choice between two literals',
+      },
+      {
+        file: 'lib/strip-data.ts',
+        expr: 'siteIdSql(key)',
+        why: "a choice between two literals ('$1' / a sub-select on $1); the id is $1",
+      },
+      {
+        file: 'reports/reports.service.ts',
+        expr: 'clause',
+        why: "picked from two literals ('st.site_id = $1' / 's.trial_id = $1'); the id is $1",
+      },
+      {
+        file: 'site-data/site-data.service.ts',
+        expr: "sets.join(', ')",
+        why: 'column names from the fixed COLUMNS map, values as $n parameters',
+      },
     ];
     const constants = new Map<string, string>();
     for (const file of walk('api')) {
-      for (const m of fs.readFileSync(file, 'utf8').matchAll(/(?:export\s+)?const\s+([A-Z][A-Z0-9_]*)\s*=\s*`([^`]*)`/g)) constants.set(m[1]!, m[2]!);
+      for (const m of fs
+        .readFileSync(file, 'utf8')
+        .matchAll(/(?:export\s+)?const\s+([A-Z][A-Z0-9_]*)\s*=\s*`([^`]*)`/g))
+        constants.set(m[1]!, m[2]!);
     }
     const offenders: string[] = [];
     const used = new Set<string>();
@@ -240,15 +345,21 @@ describe('SQL only through parameters', () => {
       const rel = path.relative('api', file);
       const line = (index: number) => source.slice(0, index).split('\n').length;
       // Concatenated SQL: .query('…' + x) or .query(x + '…').
-      for (const m of source.matchAll(/(?:\.query|\bpreparedQuery)\s*(?:<[^>]*>)?\(\s*(?:[\w.]+\s*,\s*)?(?:['"`][^'"`]*['"`]\s*\+|[A-Za-z_][\w.]*\s*\+)/g)) {
+      for (const m of source.matchAll(
+        /(?:\.query|\bpreparedQuery)\s*(?:<[^>]*>)?\(\s*(?:[\w.]+\s*,\s*)?(?:['"`][^'"`]*['"`]\s*\+|[A-Za-z_][\w.]*\s*\+)/g,
+      )) {
         offenders.push(`${rel}:${line(m.index!)} concatenates SQL`);
       }
       // Query builder conditions must not be template literals with interpolation either.
-      for (const m of source.matchAll(/\.(?:where|andWhere|orWhere|having|orderBy|select|addSelect)\(\s*`[^`]*\$\{/g)) {
+      for (const m of source.matchAll(
+        /\.(?:where|andWhere|orWhere|having|orderBy|select|addSelect)\(\s*`[^`]*\$\{/g,
+      )) {
         offenders.push(`${rel}:${line(m.index!)} interpolates into a query-builder clause`);
       }
       // db.query(`…`) and preparedQuery(db, `…`) (db/prepared.ts).
-      for (const m of source.matchAll(/(?:\.query|\bpreparedQuery)\s*(?:<[^>]*>)?\(\s*(?:[\w.]+\s*,\s*)?`/g)) {
+      for (const m of source.matchAll(
+        /(?:\.query|\bpreparedQuery)\s*(?:<[^>]*>)?\(\s*(?:[\w.]+\s*,\s*)?`/g,
+      )) {
         for (const expr of interpolations(source, m.index! + m[0].length)) {
           templated += 1;
           const constant = /^[A-Z][A-Z0-9_]*$/.test(expr) ? constants.get(expr) : undefined;

@@ -1,6 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
-import { dataVersion, openCollectSite, publishSite, type CollectSite } from '../strips/collect-builders';
+import {
+  dataVersion,
+  openCollectSite,
+  publishSite,
+  type CollectSite,
+} from '../strips/collect-builders';
 
 describe('site data: PATCH /api/sites/:siteId and GET /api/sites/:siteId/audit', () => {
   let t: TestApp;
@@ -16,9 +21,18 @@ describe('site data: PATCH /api/sites/:siteId and GET /api/sites/:siteId/audit',
 
   it('lets the grower set the site dates and notes, and bumps data_version', async () => {
     const before = await dataVersion(t.dataSource, site.siteId);
-    const res = await grower.patch(`/api/sites/${site.siteId}`, { sowingDate: '2027-04-12', emergenceDate: '2027-04-25', notes: 'Dry spring' });
+    const res = await grower.patch(`/api/sites/${site.siteId}`, {
+      sowingDate: '2027-04-12',
+      emergenceDate: '2027-04-25',
+      notes: 'Dry spring',
+    });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ sowingDate: '2027-04-12', emergenceDate: '2027-04-25', headingDate: null, notes: 'Dry spring' });
+    expect(res.body).toMatchObject({
+      sowingDate: '2027-04-12',
+      emergenceDate: '2027-04-25',
+      headingDate: null,
+      notes: 'Dry spring',
+    });
     expect(await dataVersion(t.dataSource, site.siteId)).toBe(before + 1);
     const again = await grower.patch(`/api/sites/${site.siteId}`, { sowingDate: '2027-04-12' });
     expect(again.status).toBe(200);
@@ -32,11 +46,20 @@ describe('site data: PATCH /api/sites/:siteId and GET /api/sites/:siteId/audit',
   });
 
   it('shows the coordinator who changed what, with old and new values', async () => {
-    await grower.patch(`/api/strips/${site.strips[0]!.id}`, { version: 1, values: { moisturePct: 14.5 } });
+    await grower.patch(`/api/strips/${site.strips[0]!.id}`, {
+      version: 1,
+      values: { moisturePct: 14.5 },
+    });
     const res = await coordinator.get(`/api/sites/${site.siteId}/audit`);
     expect(res.status).toBe(200);
     const stripEvent = res.body.find((e: { entityType: string }) => e.entityType === 'strip');
-    expect(stripEvent).toMatchObject({ action: 'update', actorEmail: net.emails.grower, strip: { block: 1, position: 1 }, before: { moisturePct: null }, after: { moisturePct: 14.5 } });
+    expect(stripEvent).toMatchObject({
+      action: 'update',
+      actorEmail: net.emails.grower,
+      strip: { block: 1, position: 1 },
+      before: { moisturePct: null },
+      after: { moisturePct: 14.5 },
+    });
     const siteEvent = res.body.find((e: { entityType: string }) => e.entityType === 'site');
     expect(siteEvent.after).toMatchObject({ sowingDate: '2027-04-12', notes: 'Dry spring' });
   });
@@ -46,14 +69,20 @@ describe('site data: PATCH /api/sites/:siteId and GET /api/sites/:siteId/audit',
     const member = await signIn(t.app, net.emails.member);
     expect((await member.get(`/api/sites/${site.siteId}/audit`)).status).toBe(403);
     const grower2 = await signIn(t.app, net.emails.grower2);
-    expect((await grower2.patch(`/api/sites/${site.siteId}`, { harvestDate: '2027-08-01' })).status).toBe(403);
-    expect((await member.patch(`/api/sites/${site.siteId}`, { harvestDate: '2027-08-01' })).status).toBe(403);
+    expect(
+      (await grower2.patch(`/api/sites/${site.siteId}`, { harvestDate: '2027-08-01' })).status,
+    ).toBe(403);
+    expect(
+      (await member.patch(`/api/sites/${site.siteId}`, { harvestDate: '2027-08-01' })).status,
+    ).toBe(403);
   });
 
   it('answers 423 for date changes once the report is published', async () => {
     await publishSite(t.dataSource, site.otherSiteId);
     const grower2 = await signIn(t.app, net.emails.grower2);
-    const res = await grower2.patch(`/api/sites/${site.otherSiteId}`, { harvestDate: '2027-08-01' });
+    const res = await grower2.patch(`/api/sites/${site.otherSiteId}`, {
+      harvestDate: '2027-08-01',
+    });
     expect(res.status).toBe(423);
   });
 });

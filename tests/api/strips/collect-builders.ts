@@ -1,7 +1,14 @@
 // Builders for collection tests: a fresh trial with one site per grower of a built network,
 // strips in blocks, and optional complete observations; nothing touches the demo data.
 import type { DataSource } from 'typeorm';
-import { buildNetwork, createTestApp, signIn, type BuiltNetwork, type Client, type TestApp } from '../../helpers/app';
+import {
+  buildNetwork,
+  createTestApp,
+  signIn,
+  type BuiltNetwork,
+  type Client,
+  type TestApp,
+} from '../../helpers/app';
 
 export interface CollectStrip {
   id: string;
@@ -29,7 +36,11 @@ export interface CollectOptions {
 }
 
 /** Oats in 8-inch rows, 90 lb/acre at the full rate, TKW 32 g (an invented test trial). */
-export async function buildCollectSite(dataSource: DataSource, net: BuiltNetwork, options: CollectOptions = {}): Promise<CollectSite> {
+export async function buildCollectSite(
+  dataSource: DataSource,
+  net: BuiltNetwork,
+  options: CollectOptions = {},
+): Promise<CollectSite> {
   const q = (sql: string, params: unknown[]) => dataSource.query(sql, params);
   const levels = options.levels ?? [
     { multiplier: 0.5, label: 'half' },
@@ -43,11 +54,20 @@ export async function buildCollectSite(dataSource: DataSource, net: BuiltNetwork
        rows_per_strip, row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g, germination_pct, emergence_pct,
        seed_price_per_lb, grain_price_per_bu)
      VALUES ($1, $2, 'active', $3, '2027', $4, 90, 'lb/acre', $5, 4, 8, 50, 1, 32, 90, 85, 0.5, 4) RETURNING id`,
-    [net.networkId, `Collect trial ${net.suffix}`, options.crop ?? 'oats', options.unitSystem ?? 'imperial', blocks],
+    [
+      net.networkId,
+      `Collect trial ${net.suffix}`,
+      options.crop ?? 'oats',
+      options.unitSystem ?? 'imperial',
+      blocks,
+    ],
   );
   const levelIds: string[] = [];
   for (const [i, level] of levels.entries()) {
-    const [row] = await q('INSERT INTO rate_levels (trial_id, position, multiplier, label) VALUES ($1, $2, $3, $4) RETURNING id', [trial.id, i + 1, level.multiplier, level.label]);
+    const [row] = await q(
+      'INSERT INTO rate_levels (trial_id, position, multiplier, label) VALUES ($1, $2, $3, $4) RETURNING id',
+      [trial.id, i + 1, level.multiplier, level.label],
+    );
     levelIds.push(row.id);
   }
   const makeSite = async (growerId: string, name: string) => {
@@ -60,15 +80,30 @@ export async function buildCollectSite(dataSource: DataSource, net: BuiltNetwork
       // A fixed rotation stands in for the randomized order.
       for (let p = 0; p < levels.length; p += 1) {
         const index = (p + block) % levels.length;
-        const [strip] = await q('INSERT INTO strips (site_id, block, position, rate_level_id) VALUES ($1, $2, $3, $4) RETURNING id', [site.id, block, p + 1, levelIds[index]]);
-        strips.push({ id: strip.id, block, position: p + 1, label: levels[index]!.label, multiplier: levels[index]!.multiplier });
+        const [strip] = await q(
+          'INSERT INTO strips (site_id, block, position, rate_level_id) VALUES ($1, $2, $3, $4) RETURNING id',
+          [site.id, block, p + 1, levelIds[index]],
+        );
+        strips.push({
+          id: strip.id,
+          block,
+          position: p + 1,
+          label: levels[index]!.label,
+          multiplier: levels[index]!.multiplier,
+        });
       }
     }
     return { siteId: site.id as string, strips };
   };
   const own = await makeSite(net.userIds.grower, fieldName);
   const other = await makeSite(net.userIds.grower2, `Other field ${net.suffix}`);
-  return { trialId: trial.id, siteId: own.siteId, otherSiteId: other.siteId, strips: own.strips, fieldName };
+  return {
+    trialId: trial.id,
+    siteId: own.siteId,
+    otherSiteId: other.siteId,
+    strips: own.strips,
+    fieldName,
+  };
 }
 
 export interface OpenedCollectSite {
@@ -80,7 +115,10 @@ export interface OpenedCollectSite {
 }
 
 /** A test app with a fresh network and collect site, and its grower and coordinator signed in. */
-export async function openCollectSite(networkLabel: string, options: CollectOptions = {}): Promise<OpenedCollectSite> {
+export async function openCollectSite(
+  networkLabel: string,
+  options: CollectOptions = {},
+): Promise<OpenedCollectSite> {
   const t = await createTestApp();
   const net = await buildNetwork(t.dataSource, networkLabel);
   const site = await buildCollectSite(t.dataSource, net, options);

@@ -23,7 +23,14 @@ describe('chart specs', () => {
     { label: 'full', mean: 54, ciLow: 51, ciHigh: 57 },
   ];
   it('draws rate means with CI bars and the strips as points', () => {
-    const spec = rateMeansSpec({ means, strips: [{ label: 'half', yield: 49, block: 1 }, { label: 'full', yield: null, block: 1 }], yieldUnit: 'bu/acre' });
+    const spec = rateMeansSpec({
+      means,
+      strips: [
+        { label: 'half', yield: 49, block: 1 },
+        { label: 'full', yield: null, block: 1 },
+      ],
+      yieldUnit: 'bu/acre',
+    });
     compiles(spec);
     expect((spec.config as { font: string }).font).toMatch(/Inter/);
     const layers = spec.layer as { data: { values: unknown[] } }[];
@@ -31,21 +38,53 @@ describe('chart specs', () => {
     expect(layers[1]!.data.values).toEqual(means);
   });
   it('compiles the components, strip map, forest plot and response curve, light and dark', () => {
-    compiles(componentsSpec({ rows: [{ label: 'half', plantsPerSquareFoot: 12, tillersPerPlant: 2.1, headsPerSquareFoot: 30 }] }));
-    compiles(stripMapSpec({ strips: [{ block: 1, position: 1, label: 'half', yield: 50 }, { block: 1, position: 2, label: 'full', yield: null }], yieldUnit: 'bu/acre' }, { theme: DARK_CHART_THEME }));
-    const forest = forestSpec({ rateLabel: 'half', referenceLabel: 'full', yieldUnit: 'bu/acre', sites: [{ site: 'A', diff: -1, ciLow: -3, ciHigh: 1 }], pooled: { diff: -0.5, ciLow: -2, ciHigh: 1 } });
+    compiles(
+      componentsSpec({
+        rows: [
+          { label: 'half', plantsPerSquareFoot: 12, tillersPerPlant: 2.1, headsPerSquareFoot: 30 },
+        ],
+      }),
+    );
+    compiles(
+      stripMapSpec(
+        {
+          strips: [
+            { block: 1, position: 1, label: 'half', yield: 50 },
+            { block: 1, position: 2, label: 'full', yield: null },
+          ],
+          yieldUnit: 'bu/acre',
+        },
+        { theme: DARK_CHART_THEME },
+      ),
+    );
+    const forest = forestSpec({
+      rateLabel: 'half',
+      referenceLabel: 'full',
+      yieldUnit: 'bu/acre',
+      sites: [{ site: 'A', diff: -1, ciLow: -3, ciHigh: 1 }],
+      pooled: { diff: -0.5, ciLow: -2, ciHigh: 1 },
+    });
     compiles(forest);
     expect(JSON.stringify(forest)).toContain('All sites (pooled)');
-    const curve = responseCurveSpec({
-      points: [{ site: 'A', seedRate: 50, mean: 40 }],
-      curve: { intercept: 20, linear: 0.5, quadratic: -0.002, testedRange: { low: 20, high: 160 } },
-      agronomicOptimum: 125,
-      economicOptimum: 110,
-      seedUnit: 'lb/acre',
-      yieldUnit: 'bu/acre',
-    }, { scale: 1.6 });
+    const curve = responseCurveSpec(
+      {
+        points: [{ site: 'A', seedRate: 50, mean: 40 }],
+        curve: {
+          intercept: 20,
+          linear: 0.5,
+          quadratic: -0.002,
+          testedRange: { low: 20, high: 160 },
+        },
+        agronomicOptimum: 125,
+        economicOptimum: 110,
+        seedUnit: 'lb/acre',
+        yieldUnit: 'bu/acre',
+      },
+      { scale: 1.6 },
+    );
     compiles(curve);
-    const line = (curve.layer as { data: { values: { seedRate: number; fitted: number }[] } }[])[1]!.data.values;
+    const line = (curve.layer as { data: { values: { seedRate: number; fitted: number }[] } }[])[1]!
+      .data.values;
     expect(line[0]).toEqual({ seedRate: 20, fitted: 20 + 0.5 * 20 - 0.002 * 400 });
   });
 });

@@ -1,8 +1,18 @@
 // Findings text for a clear, a borderline and a null result, at one site and over sites.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { analyzePooled, analyzeSite, type SiteAnalysis, type StripObservation } from '../../../shared/analysis/index';
-import { classifyDifference, pooledFindings, rateName, siteFindings } from '../../../shared/reports/findings';
+import {
+  analyzePooled,
+  analyzeSite,
+  type SiteAnalysis,
+  type StripObservation,
+} from '../../../shared/analysis/index';
+import {
+  classifyDifference,
+  pooledFindings,
+  rateName,
+  siteFindings,
+} from '../../../shared/reports/findings';
 import { formatMoney, formatNumber, formatP } from '../../../shared/reports/format-numbers';
 
 interface FindingsFixture {
@@ -10,13 +20,23 @@ interface FindingsFixture {
   labels: Record<string, string>;
   sites: Record<'clear' | 'borderline' | 'null', number[]>;
 }
-const fixture = JSON.parse(readFileSync(new URL('../../../fixtures/reports/findings-sites.json', import.meta.url), 'utf8')) as FindingsFixture;
+const fixture = JSON.parse(
+  readFileSync(new URL('../../../fixtures/reports/findings-sites.json', import.meta.url), 'utf8'),
+) as FindingsFixture;
 
 const rowsOf = (values: number[], site = 'A'): StripObservation[] =>
-  values.map((value, i) => ({ site, block: String(Math.floor(i / 4) + 1), rate: fixture.rates[i % 4]!, value }));
-const analysisOf = (name: keyof FindingsFixture['sites']): SiteAnalysis => analyzeSite(rowsOf(fixture.sites[name]));
-const findingsOf = (analysis: SiteAnalysis, extra: Partial<Parameters<typeof siteFindings>[0]> = {}) =>
-  siteFindings({ analysis, rateLabels: fixture.labels, yieldUnit: 'bu/acre', ...extra });
+  values.map((value, i) => ({
+    site,
+    block: String(Math.floor(i / 4) + 1),
+    rate: fixture.rates[i % 4]!,
+    value,
+  }));
+const analysisOf = (name: keyof FindingsFixture['sites']): SiteAnalysis =>
+  analyzeSite(rowsOf(fixture.sites[name]));
+const findingsOf = (
+  analysis: SiteAnalysis,
+  extra: Partial<Parameters<typeof siteFindings>[0]> = {},
+) => siteFindings({ analysis, rateLabels: fixture.labels, yieldUnit: 'bu/acre', ...extra });
 
 describe('siteFindings', () => {
   it('states a clear difference with its interval and the LSD as the yardstick', () => {
@@ -24,7 +44,9 @@ describe('siteFindings', () => {
     const quarter = analysis.differences.find((d) => d.rate === '0.25')!;
     expect(quarter.p).toBeLessThan(0.001);
     const text = findingsOf(analysis);
-    expect(text[0]).toMatch(/^Seeding rate made a difference to yield at this site .* \(p < 0\.001\)\.$/);
+    expect(text[0]).toMatch(
+      /^Seeding rate made a difference to yield at this site .* \(p < 0\.001\)\.$/,
+    );
     expect(text[1]).toBe(
       `Quarter rate yielded ${formatNumber(-quarter.diff, 1)} bu/acre less than the full rate (95 % confidence interval ${formatNumber(-quarter.ciHigh, 1)} to ${formatNumber(-quarter.ciLow, 1)} less); that is more than this site could put down to chance (LSD ${formatNumber(analysis.lsd, 1)}).`,
     );
@@ -74,21 +96,41 @@ describe('siteFindings', () => {
     values[5] = null;
     values[0] = 30;
     values[10] = 90;
-    const analysis = analyzeSite(values.map((value, i) => ({ block: String(Math.floor(i / 4) + 1), rate: fixture.rates[i % 4]!, value })));
+    const analysis = analyzeSite(
+      values.map((value, i) => ({
+        block: String(Math.floor(i / 4) + 1),
+        rate: fixture.rates[i % 4]!,
+        value,
+      })),
+    );
     const text = findingsOf(analysis).join('\n');
-    expect(text).toMatch(/One strip had no yield \(block 2, half rate\); the analysis filled it in/);
+    expect(text).toMatch(
+      /One strip had no yield \(block 2, half rate\); the analysis filled it in/,
+    );
     expect(text).toMatch(/a lot of variation for a strip trial/);
   });
 });
 
 describe('pooledFindings', () => {
   const sites = (names: (keyof FindingsFixture['sites'])[]) =>
-    names.flatMap((name, i) => rowsOf(fixture.sites[name].map((v) => v + i * 3), `Site ${i + 1}`));
+    names.flatMap((name, i) =>
+      rowsOf(
+        fixture.sites[name].map((v) => v + i * 3),
+        `Site ${i + 1}`,
+      ),
+    );
 
   it('counts how many sites agreed and names what the network could not tell', () => {
     const rows = sites(['null', 'null', 'borderline', 'clear']);
-    const analysis = analyzePooled(rows, { ratesNumeric: { '0.25': 25, '0.5': 50, '1': 100, '2': 200 } });
-    const siteLsd = new Map(['Site 1', 'Site 2', 'Site 3', 'Site 4'].map((s, i) => [s, analyzeSite(rows.filter((r) => r.site === s)).lsd + i * 0]));
+    const analysis = analyzePooled(rows, {
+      ratesNumeric: { '0.25': 25, '0.5': 50, '1': 100, '2': 200 },
+    });
+    const siteLsd = new Map(
+      ['Site 1', 'Site 2', 'Site 3', 'Site 4'].map((s, i) => [
+        s,
+        analyzeSite(rows.filter((r) => r.site === s)).lsd + i * 0,
+      ]),
+    );
     const text = pooledFindings({
       analysis,
       rateLabels: fixture.labels,
@@ -97,17 +139,30 @@ describe('pooledFindings', () => {
       siteDifferences: analysis.siteDifferences.map((d) => ({ ...d, lsd: siteLsd.get(d.site)! })),
       sitesExcluded: [{ name: 'Late field', reason: 'no yields entered yet' }],
     });
-    expect(text[0]).toBe('4 sites were analysed together; 1 site was left out (Late field: no yields entered yet).');
+    expect(text[0]).toBe(
+      '4 sites were analysed together; 1 site was left out (Late field: no yields entered yet).',
+    );
     expect(text[1]).toMatch(/tested against the site × rate interaction/);
     const within = analysis.siteDifferences.filter((d) => d.rate === '0.5' && d.p >= 0.05).length;
-    expect(text.join('\n')).toContain(`At ${within} of 4 sites half rate was within the LSD of the full rate`);
-    expect(text.at(-1)).toMatch(/^What the network could not tell: differences smaller than about .* bu\/acre between rates; whether the answer holds .* one season/);
+    expect(text.join('\n')).toContain(
+      `At ${within} of 4 sites half rate was within the LSD of the full rate`,
+    );
+    expect(text.at(-1)).toMatch(
+      /^What the network could not tell: differences smaller than about .* bu\/acre between rates; whether the answer holds .* one season/,
+    );
   });
 
   it('warns when there are too few sites to travel', () => {
     const rows = sites(['clear', 'null']);
     const analysis = analyzePooled(rows);
-    const text = pooledFindings({ analysis, rateLabels: fixture.labels, yieldUnit: 'bu/acre', seedUnit: 'lb/acre', siteDifferences: [], sitesExcluded: [] });
+    const text = pooledFindings({
+      analysis,
+      rateLabels: fixture.labels,
+      yieldUnit: 'bu/acre',
+      seedUnit: 'lb/acre',
+      siteDifferences: [],
+      sitesExcluded: [],
+    });
     expect(text.at(-1)).toMatch(/only 2 sites; four to six is a usual minimum/);
   });
 });

@@ -23,12 +23,26 @@ const oats = (system: 'imperial' | 'metric' = 'imperial'): StripContext => ({
   grainPricePerBu: 4,
 });
 
-const values = (patch: Partial<ObservationValues>): ObservationValues => ({ ...EMPTY_OBSERVATION, ...patch });
+const values = (patch: Partial<ObservationValues>): ObservationValues => ({
+  ...EMPTY_OBSERVATION,
+  ...patch,
+});
 
 describe('deriveStripValues', () => {
   it('matches a hand-worked imperial oat strip', () => {
     const derived = deriveStripValues(
-      values({ standCounts: [45, 48, 42], standRowLength: 3, tillerPlants: 10, tillerCount: 25, headCounts: [60, 66], headRowLength: 3, grainWeight: 7.4, harvestRows: 4, harvestLength: 50, moisturePct: 13.2 }),
+      values({
+        standCounts: [45, 48, 42],
+        standRowLength: 3,
+        tillerPlants: 10,
+        tillerCount: 25,
+        headCounts: [60, 66],
+        headRowLength: 3,
+        grainWeight: 7.4,
+        harvestRows: 4,
+        harvestLength: 50,
+        moisturePct: 13.2,
+      }),
       oats(),
     );
     // Source: PSU-WS (extension.psu.edu/wheat-stand-assessment): plants/ft² = count in 3 ft × 4 ÷ row width (in).
@@ -50,18 +64,43 @@ describe('deriveStripValues', () => {
   });
 
   it('agrees with the analysis engine’s own yield and per-area conversions', () => {
-    const obs = values({ standCounts: [40, 44, 41, 39], standRowLength: 3, grainWeight: 9.1, harvestRows: 6, harvestLength: 40, moisturePct: 16.4 });
+    const obs = values({
+      standCounts: [40, 44, 41, 39],
+      standRowLength: 3,
+      grainWeight: 9.1,
+      harvestRows: 6,
+      harvestLength: 40,
+      moisturePct: 16.4,
+    });
     const derived = deriveStripValues(obs, oats());
-    const engine = stripYield({ grainGrams: 9.1 * 453.59237, areaSquareFeet: 6 * (8 / 12) * 40, moisturePercent: 16.4, crop: 'oats' });
+    const engine = stripYield({
+      grainGrams: 9.1 * 453.59237,
+      areaSquareFeet: 6 * (8 / 12) * 40,
+      moisturePercent: 16.4,
+      crop: 'oats',
+    });
     expect(derived.yieldBushelsPerAcre).toBeCloseTo(engine.bushelsPerAcre, 9);
     expect(derived.yieldKilogramsPerHectare).toBeCloseTo(engine.kilogramsPerHectare, 6);
-    const perArea = countPerArea({ counts: [40, 44, 41, 39], rowLengthFeet: 3, rowSpacingInches: 8 });
+    const perArea = countPerArea({
+      counts: [40, 44, 41, 39],
+      rowLengthFeet: 3,
+      rowSpacingInches: 8,
+    });
     expect(derived.plantsPerSquareFoot).toBeCloseTo(perArea.perSquareFoot, 12);
     expect(derived.plantsPerSquareMetre).toBeCloseTo(perArea.perSquareMetre, 9);
   });
 
   it('converts metric entries (metres, kilograms, square metres) in the same place', () => {
-    const derived = deriveStripValues(values({ standCounts: [30], standRowLength: 1, grainWeight: 3.2, harvestArea: 20, moisturePct: 14 }), oats('metric'));
+    const derived = deriveStripValues(
+      values({
+        standCounts: [30],
+        standRowLength: 1,
+        grainWeight: 3.2,
+        harvestArea: 20,
+        moisturePct: 14,
+      }),
+      oats('metric'),
+    );
     // Derived from TRADE_FACTS §2: plants/m² = plants per m of row ÷ spacing (m); 30 ÷ 0.2032 = 147.64.
     expect(derived.plantsPerSquareMetre).toBeCloseTo(147.64, 2);
     // 3.2 kg on 20 m² at the standard moisture = 1,600 kg/ha; ÷ 35.87 (NDSU-MC, oats) ≈ 44.6 bu/acre.
@@ -79,7 +118,16 @@ describe('deriveStripValues', () => {
 
 describe('plausibilityWarnings', () => {
   it('warns about establishment over 100 %, fewer heads than plants, moisture outside 8–35 % and an unusual yield', () => {
-    const obs = values({ standCounts: [90], standRowLength: 3, headCounts: [40], headRowLength: 3, grainWeight: 40, harvestRows: 4, harvestLength: 50, moisturePct: 40 });
+    const obs = values({
+      standCounts: [90],
+      standRowLength: 3,
+      headCounts: [40],
+      headRowLength: 3,
+      grainWeight: 40,
+      harvestRows: 4,
+      harvestLength: 50,
+      moisturePct: 40,
+    });
     const derived = deriveStripValues(obs, oats());
     const warnings = plausibilityWarnings(obs, derived, oats().crop);
     expect(warnings.join('\n')).toMatch(/Establishment is \d+ %/);
@@ -89,7 +137,16 @@ describe('plausibilityWarnings', () => {
   });
 
   it('stays quiet for a normal strip', () => {
-    const obs = values({ standCounts: [45], standRowLength: 3, headCounts: [60], headRowLength: 3, grainWeight: 7.4, harvestRows: 4, harvestLength: 50, moisturePct: 13.2 });
+    const obs = values({
+      standCounts: [45],
+      standRowLength: 3,
+      headCounts: [60],
+      headRowLength: 3,
+      grainWeight: 7.4,
+      harvestRows: 4,
+      harvestLength: 50,
+      moisturePct: 13.2,
+    });
     expect(plausibilityWarnings(obs, deriveStripValues(obs, oats()), oats().crop)).toEqual([]);
   });
 });
@@ -97,17 +154,35 @@ describe('plausibilityWarnings', () => {
 describe('recordedGroups and yieldOutliers', () => {
   it('counts a group as in only when its measurement and its row length or area are there', () => {
     expect(recordedGroups(values({ standCounts: [3] }))).toMatchObject({ stand: false });
-    expect(recordedGroups(values({ standCounts: [3], standRowLength: 3, grainWeight: 2, moisturePct: 13, harvestArea: 100 }))).toEqual({ stand: true, tillers: false, heads: false, yield: true });
+    expect(
+      recordedGroups(
+        values({
+          standCounts: [3],
+          standRowLength: 3,
+          grainWeight: 2,
+          moisturePct: 13,
+          harvestArea: 100,
+        }),
+      ),
+    ).toEqual({ stand: true, tillers: false, heads: false, yield: true });
   });
 
   it('flags a strip whose studentized residual exceeds 3, and nothing when the site cannot be analysed', () => {
     const strips = [];
-    const noise = [0.3, -0.2, 0.1, -0.4, 0.2, 0.0, -0.1, 0.3, -0.3, 0.2, 0.1, -0.2, 0.0, 0.4, -0.1, -0.2, 0.3, 0.1];
+    const noise = [
+      0.3, -0.2, 0.1, -0.4, 0.2, 0.0, -0.1, 0.3, -0.3, 0.2, 0.1, -0.2, 0.0, 0.4, -0.1, -0.2, 0.3,
+      0.1,
+    ];
     let i = 0;
     for (let block = 1; block <= 6; block += 1) {
       for (const rate of ['half', 'full', 'double']) {
         const value = 60 + (rate === 'half' ? -5 : rate === 'double' ? 2 : 0) + block + noise[i]!;
-        strips.push({ key: `${block}-${rate}`, block, rate, value: block === 3 && rate === 'full' ? value + 40 : value });
+        strips.push({
+          key: `${block}-${rate}`,
+          block,
+          rate,
+          value: block === 3 && rate === 'full' ? value + 40 : value,
+        });
         i += 1;
       }
     }

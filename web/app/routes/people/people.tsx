@@ -18,7 +18,10 @@ import { plural } from '../../../lib/format';
 import { isCoordinator } from '../../../lib/session';
 
 /** The networks the user coordinates, and the one the `network` search parameter picks (or the first). */
-function coordinatedNetworks(user: SessionUser, wanted: string | null): { networks: Membership[]; current: Membership | undefined } {
+function coordinatedNetworks(
+  user: SessionUser,
+  wanted: string | null,
+): { networks: Membership[]; current: Membership | undefined } {
   const networks = user.memberships.filter((m) => m.role === 'admin' || m.role === 'coordinator');
   return { networks, current: networks.find((m) => m.networkId === wanted) ?? networks[0] };
 }
@@ -39,7 +42,8 @@ export default function PeoplePage() {
   const [params, setParams] = useSearchParams();
   if (!me.data) return <LoadingBlock label="Loading…" />;
   const { networks, current } = coordinatedNetworks(me.data, params.get('network'));
-  if (!current) return <Alert tone="caution">Only coordinators and administrators can manage people.</Alert>;
+  if (!current)
+    return <Alert tone="caution">Only coordinators and administrators can manage people.</Alert>;
   return (
     <>
       <PageHeader
@@ -89,10 +93,16 @@ function NetworkPeople({ membership }: { membership: Membership }) {
     <div className="space-y-8">
       <section aria-labelledby="members-heading" className="space-y-3">
         <h2 id="members-heading" className="text-heading text-ink">
-          Members <span className="text-label font-normal text-ink-muted">({plural(people.data.members.length, 'person', 'people')})</span>
+          Members{' '}
+          <span className="text-label font-normal text-ink-muted">
+            ({plural(people.data.members.length, 'person', 'people')})
+          </span>
         </h2>
         {role === 'coordinator' ? (
-          <p className="text-label text-ink-muted">You can switch people between grower and member; ask an administrator to change coordinators and administrators.</p>
+          <p className="text-label text-ink-muted">
+            You can switch people between grower and member; ask an administrator to change
+            coordinators and administrators.
+          </p>
         ) : null}
         <MemberTable networkId={networkId} members={people.data.members} viewerRole={role} />
       </section>
@@ -107,7 +117,9 @@ function NetworkPeople({ membership }: { membership: Membership }) {
           <h2 id="invite-heading" className="text-heading text-ink">
             Invite someone
           </h2>
-          <p className="text-label text-ink-muted">They get an e-mail with a link to set their name and password; it works for 14 days.</p>
+          <p className="text-label text-ink-muted">
+            They get an e-mail with a link to set their name and password; it works for 14 days.
+          </p>
           <InviteForm networkId={networkId} viewerRole={role} />
         </Card>
       </section>

@@ -3,7 +3,10 @@ import type { QueryClient } from '@tanstack/react-query';
 import { redirect, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { LoadingBlock } from '../../../components/ui/spinner';
 import { meQueryOptions } from '../../../features/auth/api/get-me';
-import { pooledReportQueryOptions, usePooledReport } from '../../../features/reports/api/get-pooled-report';
+import {
+  pooledReportQueryOptions,
+  usePooledReport,
+} from '../../../features/reports/api/get-pooled-report';
 import { MeetingSlides } from '../../../features/reports/components/meeting-slides';
 import { isApiError } from '../../../lib/api-client';
 import { signInPath } from '../../../lib/redirects';
@@ -28,7 +31,11 @@ export default function MeetingPage() {
 
 export function ErrorBoundary() {
   const error = useRouteError();
-  const body = isNotFound(error) ? <NotFoundPanel title="No such trial" /> : isApiError(error, 403) ? <NotPublishedPanel what="network report" /> : null;
+  const body = isNotFound(error) ? (
+    <NotFoundPanel title="No such trial" />
+  ) : isApiError(error, 403) ? (
+    <NotPublishedPanel what="network report" />
+  ) : null;
   if (!body) throw error;
   return <div className="mx-auto max-w-page p-6">{body}</div>;
 }

@@ -1,8 +1,17 @@
 // /shared/:token: the public read-only copy of a published network report (no sign-in).
 import type { QueryClient } from '@tanstack/react-query';
-import { useParams, useRouteError, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import {
+  useParams,
+  useRouteError,
+  useSearchParams,
+  type LoaderFunctionArgs,
+} from 'react-router-dom';
 import { LoadingBlock } from '../../../components/ui/spinner';
-import { publicReportQueryOptions, pooledSearch, usePublicReport } from '../../../features/reports/api/get-pooled-report';
+import {
+  publicReportQueryOptions,
+  pooledSearch,
+  usePublicReport,
+} from '../../../features/reports/api/get-pooled-report';
 import { PooledReportView } from '../../../features/reports/components/pooled-report-view';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
 import { queryFromSearch } from './pooled-report';
@@ -10,7 +19,12 @@ import { queryFromSearch } from './pooled-report';
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ params, request }: LoaderFunctionArgs) => {
-    await queryClient.ensureQueryData(publicReportQueryOptions(String(params.token), queryFromSearch(new URL(request.url).searchParams)));
+    await queryClient.ensureQueryData(
+      publicReportQueryOptions(
+        String(params.token),
+        queryFromSearch(new URL(request.url).searchParams),
+      ),
+    );
     return null;
   };
 
@@ -26,7 +40,12 @@ export default function SharedReportPage() {
       query={query}
       isPublic
       updating={isPlaceholderData}
-      onQuery={(next) => setSearch(new URLSearchParams(pooledSearch(next).slice(1)), { replace: true, preventScrollReset: true })}
+      onQuery={(next) =>
+        setSearch(new URLSearchParams(pooledSearch(next).slice(1)), {
+          replace: true,
+          preventScrollReset: true,
+        })
+      }
     />
   );
 }
@@ -36,7 +55,8 @@ export function ErrorBoundary() {
   if (isNotFound(error))
     return (
       <NotFoundPanel title="This link is not active">
-        The coordinator may have turned the public link off, or the report was withdrawn. Ask them for a new link.
+        The coordinator may have turned the public link off, or the report was withdrawn. Ask them
+        for a new link.
       </NotFoundPanel>
     );
   throw error;

@@ -32,7 +32,15 @@ export function WithSiteStrips({ children }: { children: (data: SiteStrips) => R
   if (query.isError) {
     if (isNotFound(query.error)) return <NotFoundPanel title="Site not found" />;
     return (
-      <Alert tone="danger" title="Could not load this site" action={<Button variant="secondary" onClick={() => void query.refetch()}>Try again</Button>}>
+      <Alert
+        tone="danger"
+        title="Could not load this site"
+        action={
+          <Button variant="secondary" onClick={() => void query.refetch()}>
+            Try again
+          </Button>
+        }
+      >
         {errorSummary(query.error)}
       </Alert>
     );
@@ -43,6 +51,11 @@ export function WithSiteStrips({ children }: { children: (data: SiteStrips) => R
 export function CollectErrorBoundary() {
   const error = useRouteError();
   if (isNotFound(error)) return <NotFoundPanel title="Site not found" />;
-  if (isApiError(error, 403)) return <NotFoundPanel title="Not your site">Only the grower of this site and the trial’s coordinators can enter its numbers.</NotFoundPanel>;
+  if (isApiError(error, 403))
+    return (
+      <NotFoundPanel title="Not your site">
+        Only the grower of this site and the trial’s coordinators can enter its numbers.
+      </NotFoundPanel>
+    );
   throw error;
 }

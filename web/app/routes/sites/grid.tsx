@@ -7,5 +7,14 @@ export const clientLoader = siteStripsLoader;
 export const ErrorBoundary = CollectErrorBoundary;
 
 export default function GridPage() {
-  return <WithSiteStrips>{(data) => (<><SiteHeading site={data.site} title={`${data.site.fieldName}: all strips`} /><StripGrid data={data} /></>)}</WithSiteStrips>;
+  return (
+    <WithSiteStrips>
+      {(data) => (
+        <>
+          <SiteHeading site={data.site} title={`${data.site.fieldName}: all strips`} />
+          <StripGrid data={data} />
+        </>
+      )}
+    </WithSiteStrips>
+  );
 }

@@ -7,5 +7,14 @@ export const clientLoader = siteStripsLoader;
 export const ErrorBoundary = CollectErrorBoundary;
 
 export default function ImportPage() {
-  return <WithSiteStrips>{(data) => (<><SiteHeading site={data.site} title={`${data.site.fieldName}: upload a CSV`} /><ImportPanel data={data} /></>)}</WithSiteStrips>;
+  return (
+    <WithSiteStrips>
+      {(data) => (
+        <>
+          <SiteHeading site={data.site} title={`${data.site.fieldName}: upload a CSV`} />
+          <ImportPanel data={data} />
+        </>
+      )}
+    </WithSiteStrips>
+  );
 }

@@ -30,7 +30,13 @@ export default function PhotosPage() {
   );
 }
 
-function SitePhotoList({ siteId, strips }: { siteId: string; strips: Parameters<typeof PhotoGrid>[0]['strips'] }) {
+function SitePhotoList({
+  siteId,
+  strips,
+}: {
+  siteId: string;
+  strips: Parameters<typeof PhotoGrid>[0]['strips'];
+}) {
   const photos = useSitePhotos(siteId);
   if (!photos.data) return <LoadingBlock label="Loading photos…" />;
   return <PhotoGrid photos={photos.data} strips={strips} />;

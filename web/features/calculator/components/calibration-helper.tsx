@@ -138,16 +138,8 @@ export function CalibrationHelper({
             inputMode="decimal"
             {...field('wheelCircumferenceFt')}
           />
-          <TextField
-            label="Wheel turns"
-            inputMode="numeric"
-            {...field('wheelTurns')}
-          />
-          <TextField
-            label="Seeds counted"
-            inputMode="numeric"
-            {...field('seedsCounted')}
-          />
+          <TextField label="Wheel turns" inputMode="numeric" {...field('wheelTurns')} />
+          <TextField label="Seeds counted" inputMode="numeric" {...field('seedsCounted')} />
           <TextField
             label="Row spacing"
             suffix="in"

@@ -81,11 +81,7 @@ export function SeedCalculator() {
       >
         <fieldset className="grid grid-cols-[1fr_1.3fr] gap-3">
           <legend className="mb-1.5 text-label text-ink">Rate</legend>
-          <TextField
-            label="Amount"
-            inputMode="decimal"
-            {...field('value')}
-          />
+          <TextField label="Amount" inputMode="decimal" {...field('value')} />
           <SelectField
             label="Unit"
             value={v.unit}
@@ -160,11 +156,7 @@ export function SeedCalculator() {
             inputMode="decimal"
             {...field('rowSpacingIn')}
           />
-          <TextField
-            label="Rows per strip"
-            inputMode="numeric"
-            {...field('rowsPerStrip')}
-          />
+          <TextField label="Rows per strip" inputMode="numeric" {...field('rowsPerStrip')} />
           <TextField
             label="Strip length"
             suffix="ft"

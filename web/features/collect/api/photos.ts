@@ -8,7 +8,8 @@ import { collectKeys } from './site-strips';
 export function sitePhotosQueryOptions(siteId: string) {
   return queryOptions({
     queryKey: collectKeys.photos(siteId),
-    queryFn: async ({ signal }) => z.array(PhotoSchema).parse(await api.get(`/api/sites/${siteId}/photos`, { signal })),
+    queryFn: async ({ signal }) =>
+      z.array(PhotoSchema).parse(await api.get(`/api/sites/${siteId}/photos`, { signal })),
   });
 }
 

@@ -8,7 +8,8 @@ import { collectKeys } from './site-strips';
 export function siteAuditQueryOptions(siteId: string) {
   return queryOptions({
     queryKey: collectKeys.audit(siteId),
-    queryFn: async ({ signal }) => z.array(AuditEventSchema).parse(await api.get(`/api/sites/${siteId}/audit`, { signal })),
+    queryFn: async ({ signal }) =>
+      z.array(AuditEventSchema).parse(await api.get(`/api/sites/${siteId}/audit`, { signal })),
   });
 }
 

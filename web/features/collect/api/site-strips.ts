@@ -14,7 +14,8 @@ export const collectKeys = {
 export function siteStripsQueryOptions(siteId: string) {
   return queryOptions({
     queryKey: collectKeys.site(siteId),
-    queryFn: async ({ signal }) => SiteStripsSchema.parse(await api.get(`/api/sites/${siteId}/strips`, { signal })),
+    queryFn: async ({ signal }) =>
+      SiteStripsSchema.parse(await api.get(`/api/sites/${siteId}/strips`, { signal })),
     staleTime: 10_000,
   });
 }
@@ -26,6 +27,8 @@ export function useSiteStrips(siteId: string) {
 /** Puts a strip the server answered with into the cached site list. */
 export function storeStrip(queryClient: QueryClient, strip: StripDto): void {
   queryClient.setQueryData<SiteStrips>(collectKeys.site(strip.siteId), (old) =>
-    old ? { ...old, strips: old.strips.map((s) => (s.stripId === strip.stripId ? strip : s)) } : old,
+    old
+      ? { ...old, strips: old.strips.map((s) => (s.stripId === strip.stripId ? strip : s)) }
+      : old,
   );
 }

@@ -11,7 +11,10 @@ export function CollectNav({ siteId, isCoordinator }: { siteId: string; isCoordi
     ...(isCoordinator ? [{ to: `/sites/${siteId}/history`, label: 'History' }] : []),
   ];
   return (
-    <nav aria-label="Site data" className="no-print -mx-4 mb-5 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+    <nav
+      aria-label="Site data"
+      className="no-print -mx-4 mb-5 overflow-x-auto px-4 sm:mx-0 sm:px-0"
+    >
       <ul className="flex min-w-max gap-1 border-b border-line">
         {items.map((item) => (
           <li key={item.to}>
@@ -21,7 +24,9 @@ export function CollectNav({ siteId, isCoordinator }: { siteId: string; isCoordi
               className={({ isActive }) =>
                 cn(
                   '-mb-px flex min-h-11 items-center border-b-2 px-3 text-label font-semibold no-underline',
-                  isActive ? 'border-accent text-accent' : 'border-transparent text-ink-muted hover:text-ink',
+                  isActive
+                    ? 'border-accent text-accent'
+                    : 'border-transparent text-ink-muted hover:text-ink',
                 )
               }
             >

@@ -5,7 +5,12 @@ import { Button } from '../../../components/ui/button';
 import { discardEdits, overwriteWithMine, type OutboxEntry } from '../lib/outbox';
 import { FIELD_LABELS } from '../lib/strip-values';
 
-const show = (value: unknown) => (value === null || value === undefined || value === '' ? '—' : Array.isArray(value) ? value.join(', ') || '—' : String(value));
+const show = (value: unknown) =>
+  value === null || value === undefined || value === ''
+    ? '—'
+    : Array.isArray(value)
+      ? value.join(', ') || '—'
+      : String(value);
 
 export function ConflictPanel({ entry }: { entry: OutboxEntry }) {
   if (entry.status === 'pending') return null;
@@ -20,7 +25,11 @@ export function ConflictPanel({ entry }: { entry: OutboxEntry }) {
             <Button variant="secondary" onClick={() => discardEdits(entry.stripId)}>
               Reload their values
             </Button>
-            <Button variant="danger" onClick={() => overwriteWithMine(entry.stripId)} disabled={!entry.current}>
+            <Button
+              variant="danger"
+              onClick={() => overwriteWithMine(entry.stripId)}
+              disabled={!entry.current}
+            >
               Save mine over theirs
             </Button>
           </div>
@@ -53,7 +62,11 @@ export function ConflictPanel({ entry }: { entry: OutboxEntry }) {
   return (
     <Alert
       tone="danger"
-      title={entry.status === 'locked' ? 'This site’s data is read-only now' : 'These changes were not accepted'}
+      title={
+        entry.status === 'locked'
+          ? 'This site’s data is read-only now'
+          : 'These changes were not accepted'
+      }
       action={
         <Button variant="secondary" onClick={() => discardEdits(entry.stripId)}>
           Discard my changes

@@ -4,23 +4,45 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { formatDateTime } from '../../../lib/format';
 import { FIELD_LABELS } from '../lib/strip-values';
 
-const show = (value: unknown) => (value === null || value === undefined || value === '' ? '—' : Array.isArray(value) ? value.join(', ') || '—' : String(value));
+const show = (value: unknown) =>
+  value === null || value === undefined || value === ''
+    ? '—'
+    : Array.isArray(value)
+      ? value.join(', ') || '—'
+      : String(value);
 const label = (key: string) => (FIELD_LABELS as Record<string, string>)[key] ?? key;
-const ACTIONS: Record<string, string> = { update: 'edited', import: 'uploaded a CSV that changed', upload: 'added a photo to' };
+const ACTIONS: Record<string, string> = {
+  update: 'edited',
+  import: 'uploaded a CSV that changed',
+  upload: 'added a photo to',
+};
 
 export function HistoryList({ events }: { events: AuditEventDto[] }) {
-  if (events.length === 0) return <EmptyState title="No changes yet">Every change to this site’s numbers shows up here, with who made it.</EmptyState>;
+  if (events.length === 0)
+    return (
+      <EmptyState title="No changes yet">
+        Every change to this site’s numbers shows up here, with who made it.
+      </EmptyState>
+    );
   return (
     <ol className="space-y-3" data-testid="history">
       {events.map((event) => (
         <li key={event.id} className="rounded-card border border-line bg-surface p-4 shadow-card">
           <p className="text-label">
-            <span className="font-semibold text-ink">{event.actorName ?? event.actorEmail ?? 'Someone'}</span>{' '}
+            <span className="font-semibold text-ink">
+              {event.actorName ?? event.actorEmail ?? 'Someone'}
+            </span>{' '}
             <span className="text-ink-muted">{ACTIONS[event.action] ?? event.action}</span>{' '}
             <span className="font-semibold text-ink">
-              {event.strip ? `block ${event.strip.block}, strip ${event.strip.position} (${event.strip.label})` : event.entityType === 'site' ? 'the site' : event.entityType}
+              {event.strip
+                ? `block ${event.strip.block}, strip ${event.strip.position} (${event.strip.label})`
+                : event.entityType === 'site'
+                  ? 'the site'
+                  : event.entityType}
             </span>
-            <span className="block text-caption text-ink-muted">{formatDateTime(event.createdAt)}</span>
+            <span className="block text-caption text-ink-muted">
+              {formatDateTime(event.createdAt)}
+            </span>
           </p>
           {event.after ? (
             <table className="mt-2 w-full table-fixed text-left text-caption">
@@ -43,8 +65,12 @@ export function HistoryList({ events }: { events: AuditEventDto[] }) {
                     <th scope="row" className="py-1 pr-2 font-medium text-ink-muted">
                       {label(key)}
                     </th>
-                    <td className="figures break-words py-1 pr-2 text-ink-muted line-through decoration-ink-muted/40">{show(event.before?.[key])}</td>
-                    <td className="figures break-words py-1 font-semibold text-ink">{show(event.after?.[key])}</td>
+                    <td className="figures break-words py-1 pr-2 text-ink-muted line-through decoration-ink-muted/40">
+                      {show(event.before?.[key])}
+                    </td>
+                    <td className="figures break-words py-1 font-semibold text-ink">
+                      {show(event.after?.[key])}
+                    </td>
                   </tr>
                 ))}
               </tbody>

@@ -51,8 +51,14 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
     setFile(chosen ?? null);
     if (!chosen) return setPreview(null);
     const text = await chosen.text();
-    const table = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy' }).data;
-    const parsed = parseImportCsv(text, { unitSystem: site.unitSystem, fieldName: site.fieldName, strips: data.strips });
+    const table = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), {
+      skipEmptyLines: 'greedy',
+    }).data;
+    const parsed = parseImportCsv(text, {
+      unitSystem: site.unitSystem,
+      fieldName: site.fieldName,
+      strips: data.strips,
+    });
     setPreview({ table, parsed });
   };
 
@@ -64,13 +70,17 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
       <Card className="space-y-3">
         <h2 className="text-heading text-ink">1. Get the template</h2>
         <p className="text-label text-ink-muted">
-          One row per strip, with site, block, position and rate filled in and any numbers already saved. Units follow the trial ({site.unitSystem}). An empty cell leaves the saved value as it is.
+          One row per strip, with site, block, position and rate filled in and any numbers already
+          saved. Units follow the trial ({site.unitSystem}). An empty cell leaves the saved value as
+          it is.
         </p>
         <a className={buttonClasses('secondary')} href={templateUrl(site.siteId)} download>
           Download CSV template
         </a>
         <details className="text-label">
-          <summary className="cursor-pointer font-semibold text-accent">What each column means</summary>
+          <summary className="cursor-pointer font-semibold text-accent">
+            What each column means
+          </summary>
           <dl className="mt-2 grid gap-x-4 gap-y-1 sm:grid-cols-[auto_1fr]">
             {docs.map((d) => (
               <div key={d.header} className="contents">
@@ -98,11 +108,17 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
         {preview ? (
           <>
             {preview.parsed.errors.length > 0 ? (
-              <Alert tone="danger" title={`${plural(preview.parsed.errors.length, 'problem')} to fix before uploading`}>
+              <Alert
+                tone="danger"
+                title={`${plural(preview.parsed.errors.length, 'problem')} to fix before uploading`}
+              >
                 <RowErrors errors={preview.parsed.errors} />
               </Alert>
             ) : (
-              <Alert tone="success" title={`${plural(preview.parsed.rows.length, 'strip row')} ready to upload`} />
+              <Alert
+                tone="success"
+                title={`${plural(preview.parsed.rows.length, 'strip row')} ready to upload`}
+              />
             )}
             <div className="max-h-96 overflow-auto rounded-field border border-line">
               <table className="text-caption" data-testid="import-preview">
@@ -121,7 +137,16 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
                     <tr key={r} className="border-t border-line">
                       <td className="figures px-2 py-1 text-ink-muted">{r + 2}</td>
                       {cells.map((cell, c) => (
-                        <td key={c} className={errorCells.has(`${r + 2}:${(preview.table[0]?.[c] ?? '').trim().toLowerCase()}`) ? 'bg-danger-soft px-2 py-1 font-semibold text-danger' : 'px-2 py-1'}>
+                        <td
+                          key={c}
+                          className={
+                            errorCells.has(
+                              `${r + 2}:${(preview.table[0]?.[c] ?? '').trim().toLowerCase()}`,
+                            )
+                              ? 'bg-danger-soft px-2 py-1 font-semibold text-danger'
+                              : 'px-2 py-1'
+                          }
+                        >
                           {cell}
                         </td>
                       ))}
@@ -136,10 +161,14 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
 
       <Card className="space-y-3">
         <h2 className="text-heading text-ink">3. Upload</h2>
-        <p className="text-label text-ink-muted">All rows are saved together, or none if any row has a problem. Uploading the same file again changes nothing.</p>
+        <p className="text-label text-ink-muted">
+          All rows are saved together, or none if any row has a problem. Uploading the same file
+          again changes nothing.
+        </p>
         {upload.isSuccess ? (
           <Alert tone="success" title="Uploaded">
-            {plural(upload.data.changedStrips, 'strip')} changed, {upload.data.unchangedStrips} already up to date.
+            {plural(upload.data.changedStrips, 'strip')} changed, {upload.data.unchangedStrips}{' '}
+            already up to date.
           </Alert>
         ) : null}
         {upload.isError ? (
@@ -148,7 +177,11 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
             {serverErrors.length > 0 ? <RowErrors errors={serverErrors} /> : null}
           </Alert>
         ) : null}
-        <Button onClick={() => file && upload.mutate(file)} busy={upload.isPending} disabled={!file || !site.canEdit || (preview?.parsed.errors.length ?? 0) > 0}>
+        <Button
+          onClick={() => file && upload.mutate(file)}
+          busy={upload.isPending}
+          disabled={!file || !site.canEdit || (preview?.parsed.errors.length ?? 0) > 0}
+        >
           Upload {file ? file.name : 'file'}
         </Button>
       </Card>

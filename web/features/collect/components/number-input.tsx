@@ -19,7 +19,18 @@ export interface ValueInputProps {
   containerClassName?: string;
 }
 
-export function ValueInput({ label, field, index, kind, values, onPatch, suffix, hint, disabled, containerClassName }: ValueInputProps) {
+export function ValueInput({
+  label,
+  field,
+  index,
+  kind,
+  values,
+  onPatch,
+  suffix,
+  hint,
+  disabled,
+  containerClassName,
+}: ValueInputProps) {
   const column = { field, index, kind };
   const [draft, setDraft] = useState<string | null>(null);
   const [error, setError] = useState<string | undefined>();

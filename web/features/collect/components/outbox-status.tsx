@@ -6,7 +6,9 @@ import { plural } from '../../../lib/format';
 import { flush, useOutbox } from '../lib/outbox';
 
 function useOnline(): boolean {
-  const [online, setOnline] = useState(() => (typeof navigator === 'undefined' ? true : navigator.onLine));
+  const [online, setOnline] = useState(() =>
+    typeof navigator === 'undefined' ? true : navigator.onLine,
+  );
   useEffect(() => {
     const up = () => setOnline(true);
     const down = () => setOnline(false);
@@ -27,7 +29,11 @@ export function OutboxStatus({ siteId, className }: { siteId?: string; className
   const held = entries.length - waiting;
   if (entries.length === 0) {
     return (
-      <p role="status" data-testid="outbox-status" className={cn('text-label text-ink-muted', className)}>
+      <p
+        role="status"
+        data-testid="outbox-status"
+        className={cn('text-label text-ink-muted', className)}
+      >
         <span aria-hidden="true" className="mr-1.5 inline-block size-2 rounded-full bg-field-500" />
         All changes saved{online ? '' : ' · offline'}
       </p>
@@ -45,7 +51,11 @@ export function OutboxStatus({ siteId, className }: { siteId?: string; className
     >
       <span>
         <strong className="figures">{plural(entries.length, 'change')} waiting</strong>
-        {!online ? ' · no signal: they are kept on this device and sent when the connection returns' : waiting > 0 ? ' · sending…' : ''}
+        {!online
+          ? ' · no signal: they are kept on this device and sent when the connection returns'
+          : waiting > 0
+            ? ' · sending…'
+            : ''}
         {held > 0 ? ` · ${plural(held, 'strip')} need${held === 1 ? 's' : ''} your decision` : ''}
       </span>
       {online && waiting > 0 ? (

@@ -2,7 +2,12 @@
 // measurement in, plus reminder e-mails to growers with counts missing.
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { MEASUREMENT_GROUPS, MEASUREMENT_GROUP_NAMES, type MeasurementGroup, type TrialProgress } from '../../../../shared/schemas/strip';
+import {
+  MEASUREMENT_GROUPS,
+  MEASUREMENT_GROUP_NAMES,
+  type MeasurementGroup,
+  type TrialProgress,
+} from '../../../../shared/schemas/strip';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -14,21 +19,29 @@ import { useSendReminders } from '../api/trial-progress';
 export function ProgressTable({ progress }: { progress: TrialProgress }) {
   const [groups, setGroups] = useState<MeasurementGroup[]>([...MEASUREMENT_GROUPS]);
   const remind = useSendReminders(progress.trialId);
-  const missingSites = progress.sites.filter((s) => groups.some((g) => s.recorded[g] < s.stripCount) && !s.publishedAt).length;
+  const missingSites = progress.sites.filter(
+    (s) => groups.some((g) => s.recorded[g] < s.stripCount) && !s.publishedAt,
+  ).length;
   return (
     <div className="space-y-5">
       <div className="overflow-x-auto rounded-card border border-line bg-surface shadow-card">
         <table className="w-full text-left text-label" data-testid="progress-table">
           <thead className="bg-sunken text-caption text-ink-muted">
             <tr>
-              <th scope="col" className="px-3 py-2">Site</th>
+              <th scope="col" className="px-3 py-2">
+                Site
+              </th>
               {MEASUREMENT_GROUPS.map((g) => (
                 <th key={g} scope="col" className="px-3 py-2 text-right">
                   {MEASUREMENT_GROUP_NAMES[g]}
                 </th>
               ))}
-              <th scope="col" className="px-3 py-2">Sown</th>
-              <th scope="col" className="px-3 py-2">Last change</th>
+              <th scope="col" className="px-3 py-2">
+                Sown
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Last change
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -38,21 +51,36 @@ export function ProgressTable({ progress }: { progress: TrialProgress }) {
                   <Link to={`/sites/${site.siteId}`} className="font-semibold">
                     {site.fieldName}
                   </Link>
-                  <span className="block text-caption text-ink-muted">{site.growerName ?? site.growerEmail ?? 'No grower yet'}</span>
+                  <span className="block text-caption text-ink-muted">
+                    {site.growerName ?? site.growerEmail ?? 'No grower yet'}
+                  </span>
                 </th>
                 {MEASUREMENT_GROUPS.map((g) => {
                   const done = site.recorded[g];
                   const complete = site.stripCount > 0 && done === site.stripCount;
                   return (
                     <td key={g} className="px-3 py-2 text-right">
-                      <span className={cn('figures inline-block min-w-14 rounded-full px-2 py-0.5 text-caption font-semibold', complete ? 'bg-accent-soft text-accent' : done > 0 ? 'bg-straw-100 text-straw-800' : 'bg-sunken text-ink-muted')}>
+                      <span
+                        className={cn(
+                          'figures inline-block min-w-14 rounded-full px-2 py-0.5 text-caption font-semibold',
+                          complete
+                            ? 'bg-accent-soft text-accent'
+                            : done > 0
+                              ? 'bg-straw-100 text-straw-800'
+                              : 'bg-sunken text-ink-muted',
+                        )}
+                      >
                         {done}/{site.stripCount}
                       </span>
                     </td>
                   );
                 })}
-                <td className="px-3 py-2 text-caption">{formatDate(site.dates.sowingDate) || '—'}</td>
-                <td className="px-3 py-2 text-caption text-ink-muted">{site.publishedAt ? 'Report published' : formatDateTime(site.lastChangeAt) || '—'}</td>
+                <td className="px-3 py-2 text-caption">
+                  {formatDate(site.dates.sowingDate) || '—'}
+                </td>
+                <td className="px-3 py-2 text-caption text-ink-muted">
+                  {site.publishedAt ? 'Report published' : formatDateTime(site.lastChangeAt) || '—'}
+                </td>
               </tr>
             ))}
           </tbody>
@@ -61,7 +89,10 @@ export function ProgressTable({ progress }: { progress: TrialProgress }) {
 
       <Card className="space-y-3">
         <h2 className="text-heading text-ink">Remind growers</h2>
-        <p className="text-label text-ink-muted">Sends each grower with something missing an e-mail listing how many strips still need each measurement, with a link to their site.</p>
+        <p className="text-label text-ink-muted">
+          Sends each grower with something missing an e-mail listing how many strips still need each
+          measurement, with a link to their site.
+        </p>
         <fieldset className="flex flex-wrap gap-3">
           <legend className="sr-only">Measurements to ask about</legend>
           {MEASUREMENT_GROUPS.map((g) => (
@@ -70,7 +101,11 @@ export function ProgressTable({ progress }: { progress: TrialProgress }) {
                 type="checkbox"
                 className="size-5 accent-[var(--sheaf-accent)]"
                 checked={groups.includes(g)}
-                onChange={(event) => setGroups((current) => (event.target.checked ? [...current, g] : current.filter((x) => x !== g)))}
+                onChange={(event) =>
+                  setGroups((current) =>
+                    event.target.checked ? [...current, g] : current.filter((x) => x !== g),
+                  )
+                }
               />
               {MEASUREMENT_GROUP_NAMES[g]}
             </label>
@@ -82,7 +117,11 @@ export function ProgressTable({ progress }: { progress: TrialProgress }) {
           </Alert>
         ) : null}
         {remind.isError ? <Alert tone="danger">{errorSummary(remind.error)}</Alert> : null}
-        <Button onClick={() => remind.mutate({ groups })} busy={remind.isPending} disabled={groups.length === 0 || missingSites === 0}>
+        <Button
+          onClick={() => remind.mutate({ groups })}
+          busy={remind.isPending}
+          disabled={groups.length === 0 || missingSites === 0}
+        >
           E-mail {plural(missingSites, 'grower')} with missing counts
         </Button>
       </Card>

@@ -15,7 +15,12 @@ const DATE_FIELDS: { key: keyof SiteDates; label: string }[] = [
 ];
 
 export function SiteDatesForm({ site }: { site: SiteContext }) {
-  const [dates, setDates] = useState<SiteDates>({ sowingDate: site.sowingDate, emergenceDate: site.emergenceDate, headingDate: site.headingDate, harvestDate: site.harvestDate });
+  const [dates, setDates] = useState<SiteDates>({
+    sowingDate: site.sowingDate,
+    emergenceDate: site.emergenceDate,
+    headingDate: site.headingDate,
+    harvestDate: site.harvestDate,
+  });
   const update = useUpdateSiteData(site.siteId);
   const fields = apiFieldErrors(update.error);
   const changed = DATE_FIELDS.some(({ key }) => dates[key] !== site[key]);
@@ -28,7 +33,9 @@ export function SiteDatesForm({ site }: { site: SiteContext }) {
       <h2 id="site-dates-title" className="text-heading text-ink">
         Site dates
       </h2>
-      <p className="text-label text-ink-muted">These apply to every strip. Give a date on a strip only when it differs.</p>
+      <p className="text-label text-ink-muted">
+        These apply to every strip. Give a date on a strip only when it differs.
+      </p>
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-1">
         {DATE_FIELDS.map(({ key, label }) => (
           <TextField

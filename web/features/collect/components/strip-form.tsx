@@ -13,12 +13,22 @@ import { ConflictPanel } from './conflict-panel';
 import { ValueInput } from './number-input';
 import { StripPhotos } from './photo-panel';
 
-function Section({ title, children, readout }: { title: string; children: ReactNode; readout?: ReactNode }) {
+function Section({
+  title,
+  children,
+  readout,
+}: {
+  title: string;
+  children: ReactNode;
+  readout?: ReactNode;
+}) {
   return (
     <Card className="space-y-4 p-4 sm:p-5">
       <h2 className="text-heading text-ink">{title}</h2>
       {children}
-      {readout ? <div className="rounded-field bg-accent-soft px-3 py-2.5 text-accent">{readout}</div> : null}
+      {readout ? (
+        <div className="rounded-field bg-accent-soft px-3 py-2.5 text-accent">{readout}</div>
+      ) : null}
     </Card>
   );
 }
@@ -63,7 +73,9 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
               <li key={w}>{w}</li>
             ))}
           </ul>
-          <p className="mt-1 text-caption">Warnings never stop saving: fix the number if it was a slip, or leave a note.</p>
+          <p className="mt-1 text-caption">
+            Warnings never stop saving: fix the number if it was a slip, or leave a note.
+          </p>
         </Alert>
       ) : null}
 
@@ -73,23 +85,62 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
           <Readout
             items={[
               metric
-                ? { label: 'Plants per m²', value: formatNumber(derived.plantsPerSquareMetre), testId: 'plants-per-area' }
-                : { label: 'Plants per ft²', value: formatNumber(derived.plantsPerSquareFoot), testId: 'plants-per-area' },
-              { label: 'Establishment', value: derived.establishmentPercent === null ? '—' : `${formatNumber(derived.establishmentPercent, 0)} %` },
+                ? {
+                    label: 'Plants per m²',
+                    value: formatNumber(derived.plantsPerSquareMetre),
+                    testId: 'plants-per-area',
+                  }
+                : {
+                    label: 'Plants per ft²',
+                    value: formatNumber(derived.plantsPerSquareFoot),
+                    testId: 'plants-per-area',
+                  },
+              {
+                label: 'Establishment',
+                value:
+                  derived.establishmentPercent === null
+                    ? '—'
+                    : `${formatNumber(derived.establishmentPercent, 0)} %`,
+              },
             ]}
           />
         }
       >
-        <p className="text-label text-ink-muted">Plants on each measured length of row; up to {SUBSAMPLES} places in the strip, avoiding the best and worst spots.</p>
+        <p className="text-label text-ink-muted">
+          Plants on each measured length of row; up to {SUBSAMPLES} places in the strip, avoiding
+          the best and worst spots.
+        </p>
         <div className="grid grid-cols-3 gap-3">
           {Array.from({ length: SUBSAMPLES }, (_, i) => (
-            <ValueInput key={i} label={`Count ${i + 1}`} field="standCounts" index={i} kind="int" {...common} />
+            <ValueInput
+              key={i}
+              label={`Count ${i + 1}`}
+              field="standCounts"
+              index={i}
+              kind="int"
+              {...common}
+            />
           ))}
         </div>
-        <ValueInput label="Row length of each count" field="standRowLength" kind="number" suffix={units.length} {...common} />
+        <ValueInput
+          label="Row length of each count"
+          field="standRowLength"
+          kind="number"
+          suffix={units.length}
+          {...common}
+        />
       </Section>
 
-      <Section title="Tillers" readout={<Readout items={[{ label: 'Tillers per plant', value: formatNumber(derived.tillersPerPlant, 2) }]} />}>
+      <Section
+        title="Tillers"
+        readout={
+          <Readout
+            items={[
+              { label: 'Tillers per plant', value: formatNumber(derived.tillersPerPlant, 2) },
+            ]}
+          />
+        }
+      >
         <div className="grid grid-cols-2 gap-3">
           <ValueInput label="Plants examined" field="tillerPlants" kind="int" {...common} />
           <ValueInput label="Tillers counted" field="tillerCount" kind="int" {...common} />
@@ -111,10 +162,23 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
       >
         <div className="grid grid-cols-3 gap-3">
           {Array.from({ length: SUBSAMPLES }, (_, i) => (
-            <ValueInput key={i} label={`Count ${i + 1}`} field="headCounts" index={i} kind="int" {...common} />
+            <ValueInput
+              key={i}
+              label={`Count ${i + 1}`}
+              field="headCounts"
+              index={i}
+              kind="int"
+              {...common}
+            />
           ))}
         </div>
-        <ValueInput label="Row length of each count" field="headRowLength" kind="number" suffix={units.length} {...common} />
+        <ValueInput
+          label="Row length of each count"
+          field="headRowLength"
+          kind="number"
+          suffix={units.length}
+          {...common}
+        />
       </Section>
 
       <Section
@@ -122,24 +186,65 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
         readout={
           <Readout
             items={[
-              { label: 'Yield, bu/acre', value: formatNumber(derived.yieldBushelsPerAcre), testId: 'yield-bu' },
-              { label: 'Yield, kg/ha', value: formatNumber(derived.yieldKilogramsPerHectare, 0), testId: 'yield-kg' },
+              {
+                label: 'Yield, bu/acre',
+                value: formatNumber(derived.yieldBushelsPerAcre),
+                testId: 'yield-bu',
+              },
+              {
+                label: 'Yield, kg/ha',
+                value: formatNumber(derived.yieldKilogramsPerHectare, 0),
+                testId: 'yield-kg',
+              },
             ]}
           />
         }
       >
-        <ValueInput label="Grain weight" field="grainWeight" kind="number" suffix={units.weight} {...common} />
+        <ValueInput
+          label="Grain weight"
+          field="grainWeight"
+          kind="number"
+          suffix={units.weight}
+          {...common}
+        />
         <div className="grid grid-cols-2 gap-3">
-          <ValueInput label="Rows harvested" field="harvestRows" kind="int" hint={site.rowsPerStrip ? `Strip has ${site.rowsPerStrip}` : undefined} {...common} />
-          <ValueInput label="Length harvested" field="harvestLength" kind="number" suffix={units.length} {...common} />
+          <ValueInput
+            label="Rows harvested"
+            field="harvestRows"
+            kind="int"
+            hint={site.rowsPerStrip ? `Strip has ${site.rowsPerStrip}` : undefined}
+            {...common}
+          />
+          <ValueInput
+            label="Length harvested"
+            field="harvestLength"
+            kind="number"
+            suffix={units.length}
+            {...common}
+          />
         </div>
-        <ValueInput label="Or harvested area" field="harvestArea" kind="number" suffix={units.area} hint="Only when it is not rows × length" {...common} />
+        <ValueInput
+          label="Or harvested area"
+          field="harvestArea"
+          kind="number"
+          suffix={units.area}
+          hint="Only when it is not rows × length"
+          {...common}
+        />
         <div className="grid grid-cols-2 gap-3">
           <ValueInput label="Moisture" field="moisturePct" kind="number" suffix="%" {...common} />
-          <ValueInput label="Test weight" field="testWeight" kind="number" suffix={units.testWeight} hint="Optional" {...common} />
+          <ValueInput
+            label="Test weight"
+            field="testWeight"
+            kind="number"
+            suffix={units.testWeight}
+            hint="Optional"
+            {...common}
+          />
         </div>
         <p className="text-caption text-ink-muted">
-          Yield is at {site.standardMoisturePercent ?? '—'} % moisture{site.bushelPounds ? ` and ${site.bushelPounds} lb per bushel` : ''}.
+          Yield is at {site.standardMoisturePercent ?? '—'} % moisture
+          {site.bushelPounds ? ` and ${site.bushelPounds} lb per bushel` : ''}.
         </p>
       </Section>
 

@@ -1,17 +1,39 @@
 // Every strip of a site by block and position, with what is recorded, what is missing and the yield.
 import { Link } from 'react-router-dom';
-import { MEASUREMENT_GROUPS, MEASUREMENT_GROUP_NAMES, type SiteStrips } from '../../../../shared/schemas/strip';
+import {
+  MEASUREMENT_GROUPS,
+  MEASUREMENT_GROUP_NAMES,
+  type SiteStrips,
+} from '../../../../shared/schemas/strip';
 import { recordedGroups } from '../../../../shared/units/strip-derived';
 import { cn } from '../../../lib/cn';
 import { useOutbox } from '../lib/outbox';
 import { effectiveValues, formatNumber, liveDerived } from '../lib/strip-values';
 
-const SHORT: Record<(typeof MEASUREMENT_GROUPS)[number], string> = { stand: 'Stand', tillers: 'Tillers', heads: 'Heads', yield: 'Yield' };
+const SHORT: Record<(typeof MEASUREMENT_GROUPS)[number], string> = {
+  stand: 'Stand',
+  tillers: 'Tillers',
+  heads: 'Heads',
+  yield: 'Yield',
+};
 
 export function StripList({ data }: { data: SiteStrips }) {
   const outbox = useOutbox();
   const blocks = [...new Set(data.strips.map((s) => s.block))].sort((a, b) => a - b);
-  const totals = Object.fromEntries(MEASUREMENT_GROUPS.map((g) => [g, data.strips.filter((s) => recordedGroups(effectiveValues(s, outbox.find((e) => e.stripId === s.stripId)))[g]).length]));
+  const totals = Object.fromEntries(
+    MEASUREMENT_GROUPS.map((g) => [
+      g,
+      data.strips.filter(
+        (s) =>
+          recordedGroups(
+            effectiveValues(
+              s,
+              outbox.find((e) => e.stripId === s.stripId),
+            ),
+          )[g],
+      ).length,
+    ]),
+  );
   return (
     <div className="space-y-6">
       <dl className="grid grid-cols-2 gap-2 sm:grid-cols-4">
@@ -19,7 +41,8 @@ export function StripList({ data }: { data: SiteStrips }) {
           <div key={group} className="rounded-field border border-line bg-surface px-3 py-2">
             <dt className="text-caption text-ink-muted">{MEASUREMENT_GROUP_NAMES[group]}</dt>
             <dd className="figures text-heading text-ink">
-              {totals[group]} <span className="text-label font-normal text-ink-muted">of {data.strips.length}</span>
+              {totals[group]}{' '}
+              <span className="text-label font-normal text-ink-muted">of {data.strips.length}</span>
             </dd>
           </div>
         ))}
@@ -50,7 +73,8 @@ export function StripList({ data }: { data: SiteStrips }) {
                       </span>
                       <span className="min-w-0 flex-1">
                         <span className="block font-semibold text-ink">
-                          {strip.label} <span className="font-normal text-ink-muted">· {strip.rate}× rate</span>
+                          {strip.label}{' '}
+                          <span className="font-normal text-ink-muted">· {strip.rate}× rate</span>
                         </span>
                         <span className="mt-1 flex flex-wrap gap-1">
                           {MEASUREMENT_GROUPS.map((group) => (
@@ -58,23 +82,37 @@ export function StripList({ data }: { data: SiteStrips }) {
                               key={group}
                               className={cn(
                                 'rounded-full px-2 py-0.5 text-caption font-semibold ring-1 ring-inset',
-                                recorded[group] ? 'bg-accent-soft text-accent ring-accent/25' : 'bg-surface text-ink-muted ring-line-strong/50',
+                                recorded[group]
+                                  ? 'bg-accent-soft text-accent ring-accent/25'
+                                  : 'bg-surface text-ink-muted ring-line-strong/50',
                               )}
                             >
                               <span aria-hidden="true">{recorded[group] ? '✓ ' : '○ '}</span>
                               {SHORT[group]}
-                              <span className="sr-only">{recorded[group] ? ' recorded' : ' missing'}</span>
+                              <span className="sr-only">
+                                {recorded[group] ? ' recorded' : ' missing'}
+                              </span>
                             </span>
                           ))}
                         </span>
                       </span>
                       <span className="shrink-0 text-right">
                         <span className="figures block font-semibold text-ink">
-                          {derived.yieldBushelsPerAcre === null ? '—' : formatNumber(derived.yieldBushelsPerAcre)}
+                          {derived.yieldBushelsPerAcre === null
+                            ? '—'
+                            : formatNumber(derived.yieldBushelsPerAcre)}
                         </span>
                         <span className="block text-caption text-ink-muted">bu/acre</span>
-                        {entry ? <span className="block text-caption font-semibold text-caution">waiting</span> : null}
-                        {warnings.length > 0 ? <span className="block text-caption font-semibold text-danger">{warnings.length} ▲</span> : null}
+                        {entry ? (
+                          <span className="block text-caption font-semibold text-caution">
+                            waiting
+                          </span>
+                        ) : null}
+                        {warnings.length > 0 ? (
+                          <span className="block text-caption font-semibold text-danger">
+                            {warnings.length} ▲
+                          </span>
+                        ) : null}
                       </span>
                     </Link>
                   </li>

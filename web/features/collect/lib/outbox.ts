@@ -5,7 +5,11 @@
  * the edit and waits for the grower to reload or overwrite.
  */
 import { useEffect, useSyncExternalStore } from 'react';
-import { StripSchema, type StripDto, type StripValuesPatch } from '../../../../shared/schemas/strip';
+import {
+  StripSchema,
+  type StripDto,
+  type StripValuesPatch,
+} from '../../../../shared/schemas/strip';
 import { api, isApiError } from '../../../lib/api-client';
 import { queryClient } from '../../../lib/query-client';
 import { storeStrip } from '../api/site-strips';
@@ -65,11 +69,21 @@ function subscribe(listener: () => void) {
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
 /** Keeps an edit of one strip; later edits of the same strip merge into it. */
-export function queueEdit(strip: { stripId: string; siteId: string; version: number }, values: StripValuesPatch): void {
+export function queueEdit(
+  strip: { stripId: string; siteId: string; version: number },
+  values: StripValuesPatch,
+): void {
   const existing = entries[strip.stripId];
   const entry: OutboxEntry = existing
     ? { ...existing, values: { ...existing.values, ...values }, updatedAt: Date.now() }
-    : { stripId: strip.stripId, siteId: strip.siteId, baseVersion: strip.version, values, status: 'pending', updatedAt: Date.now() };
+    : {
+        stripId: strip.stripId,
+        siteId: strip.siteId,
+        baseVersion: strip.version,
+        values,
+        status: 'pending',
+        updatedAt: Date.now(),
+      };
   if (entry.status === 'rejected') entry.status = 'pending';
   commit({ ...entries, [strip.stripId]: entry });
   flushSoon();
@@ -95,7 +109,9 @@ function scheduleRetry() {
 async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'> {
   const sent = entry.values;
   try {
-    const strip = StripSchema.parse(await api.patch(`/api/strips/${entry.stripId}`, { version: entry.baseVersion, values: sent }));
+    const strip = StripSchema.parse(
+      await api.patch(`/api/strips/${entry.stripId}`, { version: entry.baseVersion, values: sent }),
+    );
     storeStrip(queryClient, strip);
     const latest = entries[entry.stripId];
     if (!latest) return 'sent';
@@ -105,7 +121,12 @@ async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'>
     }
     const next = { ...entries };
     if (Object.keys(remaining).length === 0) delete next[entry.stripId];
-    else next[entry.stripId] = { ...latest, values: remaining as StripValuesPatch, baseVersion: strip.version };
+    else
+      next[entry.stripId] = {
+        ...latest,
+        values: remaining as StripValuesPatch,
+        baseVersion: strip.version,
+      };
     commit(next);
     return 'sent';
   } catch (error) {
@@ -114,13 +135,31 @@ async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'>
     if (isApiError(error, 409)) {
       const current = StripSchema.safeParse(error.current);
       if (current.success) storeStrip(queryClient, current.data);
-      commit({ ...entries, [entry.stripId]: { ...latest, status: 'conflict', message: error.message, current: current.success ? current.data : undefined } });
+      commit({
+        ...entries,
+        [entry.stripId]: {
+          ...latest,
+          status: 'conflict',
+          message: error.message,
+          current: current.success ? current.data : undefined,
+        },
+      });
     } else if (isApiError(error, 423)) {
-      commit({ ...entries, [entry.stripId]: { ...latest, status: 'locked', message: error.message } });
+      commit({
+        ...entries,
+        [entry.stripId]: { ...latest, status: 'locked', message: error.message },
+      });
     } else if (isApiError(error, 401)) {
       return 'offline';
     } else {
-      commit({ ...entries, [entry.stripId]: { ...latest, status: 'rejected', message: error instanceof Error ? error.message : 'Not accepted' } });
+      commit({
+        ...entries,
+        [entry.stripId]: {
+          ...latest,
+          status: 'rejected',
+          message: error instanceof Error ? error.message : 'Not accepted',
+        },
+      });
     }
     return 'held';
   }
@@ -163,7 +202,16 @@ export function discardEdits(stripId: string): void {
 export function overwriteWithMine(stripId: string): void {
   const entry = entries[stripId];
   if (!entry?.current) return;
-  commit({ ...entries, [stripId]: { ...entry, baseVersion: entry.current.version, status: 'pending', current: undefined, message: undefined } });
+  commit({
+    ...entries,
+    [stripId]: {
+      ...entry,
+      baseVersion: entry.current.version,
+      status: 'pending',
+      current: undefined,
+      message: undefined,
+    },
+  });
   void flush();
 }
 
@@ -184,7 +232,11 @@ function start() {
 /** Every edit not yet accepted by the server; starts the background sender. */
 export function useOutbox(): OutboxEntry[] {
   useEffect(start, []);
-  return useSyncExternalStore(subscribe, () => snapshot, () => snapshot);
+  return useSyncExternalStore(
+    subscribe,
+    () => snapshot,
+    () => snapshot,
+  );
 }
 
 /** The waiting edit of one strip, if any. */

@@ -1,6 +1,9 @@
 // Helpers shared by the strip form and the grid: effective values (server + waiting edits),
 // reading and writing one cell as text, and live derived values and warnings.
-import { ObservationValuesSchema, type ObservationValues } from '../../../../shared/schemas/observation';
+import {
+  ObservationValuesSchema,
+  type ObservationValues,
+} from '../../../../shared/schemas/observation';
 import type { SiteContext, StripDto, StripValuesPatch } from '../../../../shared/schemas/strip';
 import type { ValueColumn } from '../../../../shared/import/columns';
 import {
@@ -12,14 +15,22 @@ import {
 } from '../../../../shared/units/strip-derived';
 import type { OutboxEntry } from './outbox';
 
-export function effectiveValues(strip: StripDto, entry: OutboxEntry | undefined): ObservationValues {
+export function effectiveValues(
+  strip: StripDto,
+  entry: OutboxEntry | undefined,
+): ObservationValues {
   return entry ? { ...strip.values, ...entry.values } : strip.values;
 }
 
 export function siteCrop(site: SiteContext): CropFacts | null {
   if (site.crop && site.crop !== 'custom') return cropFacts(site.crop, null);
   if (site.bushelPounds && site.standardMoisturePercent !== null) {
-    return { name: site.cropName ?? 'Crop', bushelPounds: site.bushelPounds, standardMoisturePercent: site.standardMoisturePercent, usualYieldBushelsPerAcre: null };
+    return {
+      name: site.cropName ?? 'Crop',
+      bushelPounds: site.bushelPounds,
+      standardMoisturePercent: site.standardMoisturePercent,
+      usualYieldBushelsPerAcre: null,
+    };
   }
   return null;
 }
@@ -42,12 +53,16 @@ export function stripContext(site: SiteContext, strip: StripDto): StripContext {
 export function liveDerived(site: SiteContext, strip: StripDto, values: ObservationValues) {
   const derived = deriveStripValues(values, stripContext(site, strip));
   const warnings = plausibilityWarnings(values, derived, siteCrop(site));
-  for (const warning of strip.warnings) if (/stands out/.test(warning) && !warnings.includes(warning)) warnings.push(warning);
+  for (const warning of strip.warnings)
+    if (/stands out/.test(warning) && !warnings.includes(warning)) warnings.push(warning);
   return { derived, warnings };
 }
 
 /** The text a cell shows for a value. */
-export function cellText(values: ObservationValues, column: Pick<ValueColumn, 'field' | 'index'>): string {
+export function cellText(
+  values: ObservationValues,
+  column: Pick<ValueColumn, 'field' | 'index'>,
+): string {
   const value = values[column.field];
   const item = Array.isArray(value) ? value[column.index ?? 0] : value;
   return item === null || item === undefined ? '' : String(item);
@@ -59,7 +74,11 @@ const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)$/;
  * The partial update for typing `text` into one cell, or the reason it cannot be saved.
  * An emptied cell clears the value (a subsample list closes up).
  */
-export function patchForCell(values: ObservationValues, column: Pick<ValueColumn, 'field' | 'index' | 'kind'>, text: string): { patch: StripValuesPatch } | { error: string } {
+export function patchForCell(
+  values: ObservationValues,
+  column: Pick<ValueColumn, 'field' | 'index' | 'kind'>,
+  text: string,
+): { patch: StripValuesPatch } | { error: string } {
   const trimmed = column.kind === 'text' ? text : text.trim().replace(',', '.');
   let value: unknown;
   if (column.kind === 'text') value = trimmed;
@@ -69,7 +88,10 @@ export function patchForCell(values: ObservationValues, column: Pick<ValueColumn
   else value = Number(trimmed);
   if (column.index !== undefined) {
     const list = [...((values[column.field] as number[] | undefined) ?? [])];
-    const cells: (number | null)[] = Array.from({ length: Math.max(list.length, column.index + 1) }, (_, i) => list[i] ?? null);
+    const cells: (number | null)[] = Array.from(
+      { length: Math.max(list.length, column.index + 1) },
+      (_, i) => list[i] ?? null,
+    );
     cells[column.index] = value as number | null;
     const next = cells.filter((v): v is number => v !== null);
     const result = ObservationValuesSchema.shape[column.field as 'standCounts'].safeParse(next);
@@ -104,7 +126,10 @@ export const FIELD_LABELS: Record<keyof ObservationValues, string> = {
 
 export function formatNumber(value: number | null | undefined, digits = 1): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return value.toLocaleString('en', { maximumFractionDigits: digits, minimumFractionDigits: digits });
+  return value.toLocaleString('en', {
+    maximumFractionDigits: digits,
+    minimumFractionDigits: digits,
+  });
 }
 
 export function rateText(strip: Pick<StripDto, 'label' | 'rate'>): string {

@@ -7,7 +7,12 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/form-fields';
 import { TextField } from '../../../components/ui/text-field';
-import { apiFieldErrors, errorSummary, zodFieldErrors, type FieldErrors } from '../../../lib/form-errors';
+import {
+  apiFieldErrors,
+  errorSummary,
+  zodFieldErrors,
+  type FieldErrors,
+} from '../../../lib/form-errors';
 import { roleName } from '../../../lib/format';
 import { useInvite } from '../api/people';
 
@@ -51,7 +56,12 @@ export function InviteForm({ networkId, viewerRole }: { networkId: string; viewe
           onChange={(e) => setEmail(e.target.value)}
           error={errors.email}
         />
-        <SelectField label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)} error={errors.role}>
+        <SelectField
+          label="Role"
+          value={role}
+          onChange={(e) => setRole(e.target.value as Role)}
+          error={errors.role}
+        >
           {roles.map((r) => (
             <option key={r} value={r}>
               {roleName(r)}

@@ -19,7 +19,8 @@ export function MemberTable({
 }) {
   const change = useChangeRole(networkId);
   const allowed = grantableRoles(viewerRole);
-  const cell = 'flex items-center justify-between gap-3 px-4 py-1 md:table-cell md:px-3 md:py-2 md:align-middle';
+  const cell =
+    'flex items-center justify-between gap-3 px-4 py-1 md:table-cell md:px-3 md:py-2 md:align-middle';
   const cellLabel = 'text-caption text-ink-muted md:hidden';
   return (
     <div className="space-y-3">
@@ -31,10 +32,18 @@ export function MemberTable({
       <table className="block w-full text-left text-label md:table md:rounded-card md:border md:border-line md:bg-surface md:shadow-card">
         <thead className="sr-only md:not-sr-only md:table-header-group md:bg-sunken md:text-caption md:text-ink-muted">
           <tr>
-            <th scope="col" className="px-3 py-2">Name</th>
-            <th scope="col" className="px-3 py-2">E-mail</th>
-            <th scope="col" className="px-3 py-2">Role</th>
-            <th scope="col" className="px-3 py-2 text-right">Sites</th>
+            <th scope="col" className="px-3 py-2">
+              Name
+            </th>
+            <th scope="col" className="px-3 py-2">
+              E-mail
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Role
+            </th>
+            <th scope="col" className="px-3 py-2 text-right">
+              Sites
+            </th>
           </tr>
         </thead>
         <tbody className="block space-y-3 md:table-row-group md:space-y-0">
@@ -46,7 +55,10 @@ export function MemberTable({
                 key={m.userId}
                 className="block rounded-card border border-line bg-surface py-2 shadow-card md:table-row md:rounded-none md:border-x-0 md:border-b-0 md:py-0 md:shadow-none"
               >
-                <th scope="row" className="block px-4 pb-1 pt-2 font-semibold text-ink md:table-cell md:px-3 md:py-2 md:align-middle">
+                <th
+                  scope="row"
+                  className="block px-4 pb-1 pt-2 font-semibold text-ink md:table-cell md:px-3 md:py-2 md:align-middle"
+                >
                   {m.name}
                 </th>
                 <td className={cell}>
@@ -61,7 +73,9 @@ export function MemberTable({
                       containerClassName="min-w-40 gap-0"
                       value={m.role}
                       disabled={pending}
-                      onChange={(e) => change.mutate({ userId: m.userId, role: e.target.value as Role })}
+                      onChange={(e) =>
+                        change.mutate({ userId: m.userId, role: e.target.value as Role })
+                      }
                     >
                       {allowed.map((role) => (
                         <option key={role} value={role}>

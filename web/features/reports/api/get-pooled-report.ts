@@ -16,7 +16,10 @@ export function pooledSearch(query: PooledQuery): string {
 export function pooledReportQueryOptions(trialId: string, query: PooledQuery = {}) {
   return queryOptions({
     queryKey: ['reports', 'pooled', trialId, query] as const,
-    queryFn: ({ signal }) => api.get<PooledReport>(`/api/trials/${trialId}/pooled-report${pooledSearch(query)}`, { signal }),
+    queryFn: ({ signal }) =>
+      api.get<PooledReport>(`/api/trials/${trialId}/pooled-report${pooledSearch(query)}`, {
+        signal,
+      }),
     placeholderData: keepPreviousData,
   });
 }
@@ -28,7 +31,11 @@ export function usePooledReport(trialId: string, query: PooledQuery = {}) {
 export function publicReportQueryOptions(token: string, query: PooledQuery = {}) {
   return queryOptions({
     queryKey: ['reports', 'public', token, query] as const,
-    queryFn: ({ signal }) => api.get<PooledReport>(`/api/public/reports/${encodeURIComponent(token)}${pooledSearch(query)}`, { signal }),
+    queryFn: ({ signal }) =>
+      api.get<PooledReport>(
+        `/api/public/reports/${encodeURIComponent(token)}${pooledSearch(query)}`,
+        { signal },
+      ),
     placeholderData: keepPreviousData,
   });
 }

@@ -7,7 +7,8 @@ import { siteReportQueryKey } from './get-site-report';
 export function usePublishSite(siteId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (action: 'publish' | 'unpublish') => api.post<SiteReport>(`/api/sites/${siteId}/${action}`),
+    mutationFn: (action: 'publish' | 'unpublish') =>
+      api.post<SiteReport>(`/api/sites/${siteId}/${action}`),
     onSuccess: (report) => {
       queryClient.setQueryData(siteReportQueryKey(siteId), report);
       void queryClient.invalidateQueries({ queryKey: ['reports'] });
@@ -19,7 +20,8 @@ export function usePublishSite(siteId: string) {
 export function usePublishTrial(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (action: 'publish' | 'unpublish') => api.post<PooledReport>(`/api/trials/${trialId}/${action}`),
+    mutationFn: (action: 'publish' | 'unpublish') =>
+      api.post<PooledReport>(`/api/trials/${trialId}/${action}`),
     onSuccess: () => {
       void queryClient.invalidateQueries({ queryKey: ['reports', 'pooled', trialId] });
       void queryClient.invalidateQueries({ queryKey: ['trials'] });
@@ -30,7 +32,9 @@ export function usePublishTrial(trialId: string) {
 export function usePublicLink(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (enabled: boolean) => api.post<PublicLink>(`/api/trials/${trialId}/public-link`, { enabled }),
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: ['reports', 'pooled', trialId] }),
+    mutationFn: (enabled: boolean) =>
+      api.post<PublicLink>(`/api/trials/${trialId}/public-link`, { enabled }),
+    onSuccess: () =>
+      void queryClient.invalidateQueries({ queryKey: ['reports', 'pooled', trialId] }),
   });
 }

@@ -1,8 +1,17 @@
 // The plain-language findings, first sentence set apart as the headline.
-export function FindingsList({ findings, title = 'What this means' }: { findings: string[]; title?: string }) {
+export function FindingsList({
+  findings,
+  title = 'What this means',
+}: {
+  findings: string[];
+  title?: string;
+}) {
   const [lead, ...rest] = findings;
   return (
-    <section aria-labelledby="findings-title" className="rounded-card border border-line border-l-4 border-l-straw-500 bg-surface p-5 shadow-card sm:p-6">
+    <section
+      aria-labelledby="findings-title"
+      className="rounded-card border border-line border-l-4 border-l-straw-500 bg-surface p-5 shadow-card sm:p-6"
+    >
       <h2 id="findings-title" className="text-heading text-ink">
         {title}
       </h2>

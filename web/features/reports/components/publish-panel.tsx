@@ -20,7 +20,17 @@ export interface PublishPanelProps {
   lockNote?: string;
 }
 
-export function PublishPanel({ what, published, changed, canPublish, busy, error, onAction, children, lockNote }: PublishPanelProps) {
+export function PublishPanel({
+  what,
+  published,
+  changed,
+  canPublish,
+  busy,
+  error,
+  onAction,
+  children,
+  lockNote,
+}: PublishPanelProps) {
   return (
     <div className="no-print space-y-3">
       <div className="flex flex-wrap items-center gap-3">
@@ -55,7 +65,9 @@ export function PublishPanel({ what, published, changed, canPublish, busy, error
             : `This is the ${what} as published; the data have been changed since, and the coordinator may publish an update.`}
         </Alert>
       ) : null}
-      {canPublish && !published && lockNote ? <p className="text-caption text-ink-muted">{lockNote}</p> : null}
+      {canPublish && !published && lockNote ? (
+        <p className="text-caption text-ink-muted">{lockNote}</p>
+      ) : null}
       {error ? <Alert tone="danger">{errorSummary(error)}</Alert> : null}
       {published ? children : null}
     </div>

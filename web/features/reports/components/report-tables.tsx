@@ -1,19 +1,43 @@
 // The report tables: ANOVA, rate means, differences from the reference, components, economics.
 import type { ReactNode } from 'react';
-import type { AnovaRow, PooledMean, RateDifference, RateMean } from '../../../../shared/analysis/types';
+import type {
+  AnovaRow,
+  PooledMean,
+  RateDifference,
+  RateMean,
+} from '../../../../shared/analysis/types';
 import { formatMoney, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
 import type { ComponentRow, EconomicsRow } from '../../../../shared/schemas/report';
 import { cn } from '../../../lib/cn';
 
-export function DataTable({ caption, head, rows, className }: { caption: ReactNode; head: ReactNode[]; rows: ReactNode[][]; className?: string }) {
+export function DataTable({
+  caption,
+  head,
+  rows,
+  className,
+}: {
+  caption: ReactNode;
+  head: ReactNode[];
+  rows: ReactNode[][];
+  className?: string;
+}) {
   return (
     <div className={cn('overflow-x-auto rounded-card border border-line bg-surface', className)}>
       <table className="figures w-full min-w-max border-collapse text-label">
-        <caption className="px-4 pt-3 text-left text-label font-semibold text-ink">{caption}</caption>
+        <caption className="px-4 pt-3 text-left text-label font-semibold text-ink">
+          {caption}
+        </caption>
         <thead>
           <tr>
             {head.map((cell, i) => (
-              <th key={i} scope="col" className={cn('border-b border-line px-4 py-2 font-semibold text-ink-muted', i === 0 ? 'text-left' : 'text-right')}>
+              <th
+                key={i}
+                scope="col"
+                className={cn(
+                  'border-b border-line px-4 py-2 font-semibold text-ink-muted',
+                  i === 0 ? 'text-left' : 'text-right',
+                )}
+              >
                 {cell}
               </th>
             ))}
@@ -41,7 +65,8 @@ export function DataTable({ caption, head, rows, className }: { caption: ReactNo
   );
 }
 
-const pValue = (p: number | undefined) => (p === undefined ? '' : formatP(p).replace('p = ', '').replace('p < ', '< '));
+const pValue = (p: number | undefined) =>
+  p === undefined ? '' : formatP(p).replace('p = ', '').replace('p < ', '< ');
 const SOURCES: Record<string, string> = {
   block: 'Blocks',
   rate: 'Seeding rate',
@@ -52,7 +77,15 @@ const SOURCES: Record<string, string> = {
   'site:rate': 'Site × rate',
 };
 
-export function AnovaTable({ anova, digits, caption = 'Analysis of variance' }: { anova: AnovaRow[]; digits: number; caption?: ReactNode }) {
+export function AnovaTable({
+  anova,
+  digits,
+  caption = 'Analysis of variance',
+}: {
+  anova: AnovaRow[];
+  digits: number;
+  caption?: ReactNode;
+}) {
   return (
     <DataTable
       caption={caption}
@@ -69,7 +102,17 @@ export function AnovaTable({ anova, digits, caption = 'Analysis of variance' }: 
   );
 }
 
-export function MeansTable({ means, label, unit, digits }: { means: (RateMean | PooledMean)[]; label: (rate: string) => string; unit: string; digits: number }) {
+export function MeansTable({
+  means,
+  label,
+  unit,
+  digits,
+}: {
+  means: (RateMean | PooledMean)[];
+  label: (rate: string) => string;
+  unit: string;
+  digits: number;
+}) {
   const letters = means.some((m) => 'group' in m);
   return (
     <DataTable
@@ -86,7 +129,19 @@ export function MeansTable({ means, label, unit, digits }: { means: (RateMean | 
   );
 }
 
-export function DifferencesTable({ differences, label, referenceLabel, unit, digits }: { differences: RateDifference[]; label: (rate: string) => string; referenceLabel: string; unit: string; digits: number }) {
+export function DifferencesTable({
+  differences,
+  label,
+  referenceLabel,
+  unit,
+  digits,
+}: {
+  differences: RateDifference[];
+  label: (rate: string) => string;
+  referenceLabel: string;
+  unit: string;
+  digits: number;
+}) {
   return (
     <DataTable
       caption={`Difference from the ${referenceLabel} rate`}
@@ -101,11 +156,33 @@ export function DifferencesTable({ differences, label, referenceLabel, unit, dig
   );
 }
 
-export function ComponentsTable({ rows, seedUnit, yieldUnit, moneyUnit, digits }: { rows: ComponentRow[]; seedUnit: string; yieldUnit: string; moneyUnit: string; digits: number }) {
+export function ComponentsTable({
+  rows,
+  seedUnit,
+  yieldUnit,
+  moneyUnit,
+  digits,
+}: {
+  rows: ComponentRow[];
+  seedUnit: string;
+  yieldUnit: string;
+  moneyUnit: string;
+  digits: number;
+}) {
   return (
     <DataTable
       caption="Yield components and seed economics (means over strips)"
-      head={['Rate', `Seed (${seedUnit})`, 'Plants/ft²', 'Establishment', 'Tillers/plant', 'Heads/ft²', `Yield (${yieldUnit})`, 'Seed return', `Return over seed (${moneyUnit})`]}
+      head={[
+        'Rate',
+        `Seed (${seedUnit})`,
+        'Plants/ft²',
+        'Establishment',
+        'Tillers/plant',
+        'Heads/ft²',
+        `Yield (${yieldUnit})`,
+        'Seed return',
+        `Return over seed (${moneyUnit})`,
+      ]}
       rows={rows.map((c) => [
         c.label,
         formatNumber(c.seedRate, 1),
@@ -121,11 +198,33 @@ export function ComponentsTable({ rows, seedUnit, yieldUnit, moneyUnit, digits }
   );
 }
 
-export function EconomicsTable({ rows, seedUnit, yieldUnit, moneyUnit, referenceLabel, digits }: { rows: EconomicsRow[]; seedUnit: string; yieldUnit: string; moneyUnit: string; referenceLabel: string; digits: number }) {
+export function EconomicsTable({
+  rows,
+  seedUnit,
+  yieldUnit,
+  moneyUnit,
+  referenceLabel,
+  digits,
+}: {
+  rows: EconomicsRow[];
+  seedUnit: string;
+  yieldUnit: string;
+  moneyUnit: string;
+  referenceLabel: string;
+  digits: number;
+}) {
   return (
     <DataTable
       caption="Return over seed cost, averaged over sites"
-      head={['Rate', `Seed (${seedUnit})`, `Seed cost (${moneyUnit})`, `Yield (${yieldUnit})`, `Grain value (${moneyUnit})`, 'Return over seed', `Versus ${referenceLabel}`]}
+      head={[
+        'Rate',
+        `Seed (${seedUnit})`,
+        `Seed cost (${moneyUnit})`,
+        `Yield (${yieldUnit})`,
+        `Grain value (${moneyUnit})`,
+        'Return over seed',
+        `Versus ${referenceLabel}`,
+      ]}
       rows={rows.map((e) => [
         e.label,
         formatNumber(e.seedRate, 1),
@@ -133,7 +232,9 @@ export function EconomicsTable({ rows, seedUnit, yieldUnit, moneyUnit, reference
         formatNumber(e.meanYield, digits),
         formatMoney(e.grainValue),
         formatMoney(e.returnOverSeedCost),
-        e.versusReference === null ? '–' : `${e.versusReference > 0.005 ? '+' : ''}${formatMoney(e.versusReference)}`,
+        e.versusReference === null
+          ? '–'
+          : `${e.versusReference > 0.005 ? '+' : ''}${formatMoney(e.versusReference)}`,
       ])}
     />
   );

@@ -28,9 +28,19 @@ function download(url: string, fileName: string) {
   link.remove();
 }
 
-const slug = (text: string) => text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'chart';
+const slug = (text: string) =>
+  text
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '') || 'chart';
 
-export function VegaChart({ spec, title, description, downloads = true, className }: VegaChartProps) {
+export function VegaChart({
+  spec,
+  title,
+  description,
+  downloads = true,
+  className,
+}: VegaChartProps) {
   const container = useRef<HTMLDivElement>(null);
   const view = useRef<ChartView | null>(null);
   const [state, setState] = useState<'loading' | 'ready' | 'failed'>('loading');
@@ -41,7 +51,10 @@ export function VegaChart({ spec, title, description, downloads = true, classNam
     let finalize: (() => void) | undefined;
     setState('loading');
     (async () => {
-      const [{ default: embed }, { expressionInterpreter }] = await Promise.all([import('vega-embed'), import('vega-interpreter')]);
+      const [{ default: embed }, { expressionInterpreter }] = await Promise.all([
+        import('vega-embed'),
+        import('vega-interpreter'),
+      ]);
       if (cancelled || !container.current) return;
       const result = await embed(container.current, JSON.parse(specKey), {
         actions: false,
@@ -88,17 +101,31 @@ export function VegaChart({ spec, title, description, downloads = true, classNam
         data-state={state}
         className="w-full min-h-24"
       />
-      {state === 'loading' ? <p className="py-6 text-center text-label text-ink-muted">Drawing the chart…</p> : null}
-      {state === 'failed' ? <p className="py-6 text-center text-label text-danger">The chart could not be drawn; the table below has the same numbers.</p> : null}
+      {state === 'loading' ? (
+        <p className="py-6 text-center text-label text-ink-muted">Drawing the chart…</p>
+      ) : null}
+      {state === 'failed' ? (
+        <p className="py-6 text-center text-label text-danger">
+          The chart could not be drawn; the table below has the same numbers.
+        </p>
+      ) : null}
       {description || downloads ? (
         <figcaption className="mt-2 flex flex-wrap items-start justify-between gap-2 text-caption text-ink-muted">
           {description ? <span className="max-w-prose">{description}</span> : <span />}
           {downloads && state === 'ready' ? (
             <span className="no-print flex gap-1">
-              <button type="button" onClick={saveSvg} className="rounded-field px-2 py-1 font-semibold text-accent hover:bg-accent-soft">
+              <button
+                type="button"
+                onClick={saveSvg}
+                className="rounded-field px-2 py-1 font-semibold text-accent hover:bg-accent-soft"
+              >
                 SVG
               </button>
-              <button type="button" onClick={savePng} className="rounded-field px-2 py-1 font-semibold text-accent hover:bg-accent-soft">
+              <button
+                type="button"
+                onClick={savePng}
+                className="rounded-field px-2 py-1 font-semibold text-accent hover:bg-accent-soft"
+              >
                 PNG
               </button>
             </span>

@@ -96,10 +96,7 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
       </fieldset>
       <div className="grid gap-4 sm:grid-cols-2">
         {mode === 'member' ? (
-          <SelectField
-            label="Grower"
-            {...field('growerUserId')}
-          >
+          <SelectField label="Grower" {...field('growerUserId')}>
             <option value="">{people.isPending ? 'Loading people…' : 'Choose a person…'}</option>
             {(people.data ?? []).map((p) => (
               <option key={p.userId} value={p.userId}>
@@ -116,31 +113,16 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
             {...field('growerEmail')}
           />
         )}
-        <TextField
-          label="Field name"
-          required
-          {...field('fieldName')}
-        />
-        <TextField
-          label="Soil"
-          {...field('soil')}
-          placeholder="e.g. silt loam"
-        />
-        <TextField
-          label="Previous crop"
-          {...field('previousCrop')}
-        />
+        <TextField label="Field name" required {...field('fieldName')} />
+        <TextField label="Soil" {...field('soil')} placeholder="e.g. silt loam" />
+        <TextField label="Previous crop" {...field('previousCrop')} />
         <TextField
           label="Fertility"
           {...field('fertility')}
           placeholder="e.g. compost 3 t/acre"
           containerClassName="sm:col-span-2"
         />
-        <TextAreaField
-          label="Notes"
-          {...field('notes')}
-          containerClassName="sm:col-span-2"
-        />
+        <TextAreaField label="Notes" {...field('notes')} containerClassName="sm:col-span-2" />
       </div>
       <Button type="submit" busy={enrol.isPending}>
         Enrol site
