@@ -36,8 +36,6 @@ export async function recordAuditsInBulk(
   events: readonly AuditInput[],
 ): Promise<void> {
   for (let start = 0; start < events.length; start += 1000) {
-    await manager
-      .getRepository(AuditEvent)
-      .insert(events.slice(start, start + 1000).map(auditRow));
+    await manager.getRepository(AuditEvent).insert(events.slice(start, start + 1000).map(auditRow));
   }
 }

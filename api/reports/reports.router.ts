@@ -53,16 +53,16 @@ export function createReportsRouter(ctx: RouterContext) {
 
   routes.get('/trials/:trialId/pooled-report', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    sendTagged(req, res, await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query));
+    sendTagged(
+      req,
+      res,
+      await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
+    );
   });
 
   routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    const { report } = await reports.pooledReport(
-      param(req, 'trialId'),
-      req.access ?? null,
-      query,
-    );
+    const { report } = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
     const pdf = await htmlToPdf(await pooledReportHtml(report));
     res.set('Content-Type', 'application/pdf');
     res.set(

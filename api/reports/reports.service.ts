@@ -153,7 +153,11 @@ async function withdrawSnapshots(
     select: { id: true },
     where: { ...where, withdrawnAt: IsNull() },
   });
-  if (live.length > 0) await repository.update(live.map((s) => s.id), { withdrawnAt: new Date() });
+  if (live.length > 0)
+    await repository.update(
+      live.map((s) => s.id),
+      { withdrawnAt: new Date() },
+    );
   return live.map((s) => s.id);
 }
 

@@ -105,7 +105,9 @@ describe('report reads follow the data', () => {
       version: strip.version,
       values: { notes: 'changed after the first read' },
     });
-    const changed = await grower.agent.get(`/api/sites/${siteId}/report`).set('If-None-Match', etag);
+    const changed = await grower.agent
+      .get(`/api/sites/${siteId}/report`)
+      .set('If-None-Match', etag);
     expect(changed.status).toBe(200);
     expect(changed.headers.etag).not.toBe(etag);
   });
