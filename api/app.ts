@@ -65,6 +65,13 @@ export function createApp(deps: AppDeps): Express {
   // No ETag hashing of large JSON bodies on every request; static files keep their own ETags.
   app.set('etag', false);
   if (config.TRUST_PROXY === 'on') app.set('trust proxy', 1);
+  if (config.NODE_ENV === 'test') {
+    // Lets tests see that requests reach different worker processes; never sent outside tests.
+    app.use((_req, res, next) => {
+      res.set('X-Sheaf-Worker', String(process.pid));
+      next();
+    });
+  }
 
   app.use(
     helmet({

@@ -107,31 +107,6 @@ describe('invitations', () => {
     const res = await clientFor(t.app).get('/api/invitations/not-a-real-token-at-all');
     expect(res.status).toBe(404);
   });
-});
-
-describe('invitation rate limit', () => {
-  let t: TestApp;
-  let net: BuiltNetwork;
-  beforeAll(async () => {
-    // RATE_LIMIT_LOGIN 1 → five invitations an hour per coordinator.
-    t = await createTestApp({ RATE_LIMIT_LOGIN: '1' });
-    net = await buildNetwork(t.dataSource, 'Invite limit');
-  });
-  afterAll(() => t.close());
-
-  it('answers 429 once a coordinator sends too many invitations in an hour', async () => {
-    const coordinator = await signIn(t.app, net.emails.coordinator);
-    const statuses: number[] = [];
-    for (let i = 0; i < 6; i += 1) {
-      const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, {
-        email: `bulk${i}-${net.suffix}@test.example`,
-        role: 'member',
-      });
-      statuses.push(res.status);
-    }
-    expect(statuses).toEqual([201, 201, 201, 201, 201, 429]);
-  });
-
   it('gives the new account the site it was enrolled for when the grower accepts', async () => {
     const coordinator = await signIn(t.app, net.emails.coordinator);
     const trialId = await buildActiveTrial(coordinator, net.networkId, { name: 'Enrol trial' });
@@ -159,5 +134,29 @@ describe('invitation rate limit', () => {
         growerEmail: email,
       }),
     ]);
+  });
+});
+
+describe('invitation rate limit', () => {
+  let t: TestApp;
+  let net: BuiltNetwork;
+  beforeAll(async () => {
+    // RATE_LIMIT_LOGIN 1 → five invitations an hour per coordinator.
+    t = await createTestApp({ RATE_LIMIT_LOGIN: '1' });
+    net = await buildNetwork(t.dataSource, 'Invite limit');
+  });
+  afterAll(() => t.close());
+
+  it('answers 429 once a coordinator sends too many invitations in an hour', async () => {
+    const coordinator = await signIn(t.app, net.emails.coordinator);
+    const statuses: number[] = [];
+    for (let i = 0; i < 6; i += 1) {
+      const res = await coordinator.post(`/api/networks/${net.networkId}/invitations`, {
+        email: `bulk${i}-${net.suffix}@test.example`,
+        role: 'member',
+      });
+      statuses.push(res.status);
+    }
+    expect(statuses).toEqual([201, 201, 201, 201, 201, 429]);
   });
 });
