@@ -13,7 +13,7 @@ import { CROPS, type CropKey } from '../../shared/units/crops';
 import { recordAudit } from '../audit/audit.service';
 import { Conflict, Locked, NotFound } from '../errors';
 import { isCoordinating } from '../middleware/access';
-import { SOWING_RECORDED_SQL } from '../trials/trials.presenter';
+import { SOWING_RECORDED_SQL } from '../lib/sowing-recorded';
 
 interface SiteRow {
   id: string;

@@ -3,7 +3,7 @@
 import seedrandom from 'seedrandom';
 import type { DataSource, EntityManager } from 'typeorm';
 import { randomizeRcbd } from '../../shared/design/randomize-rcbd';
-import { hashPassword } from '../../api/auth/auth.service';
+import bcrypt from 'bcryptjs';
 
 export const DEMO_PASSWORD = 'sheaf-demo';
 export const DEMO_NETWORK_SLUG = 'millbrook-valley-grain-circle';
@@ -84,7 +84,8 @@ export async function seedDemo(dataSource: DataSource): Promise<boolean> {
     DEMO_NETWORK_SLUG,
   ]);
   if (existing.length > 0) return false;
-  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  // bcrypt directly (db/ does not import api/); sign-in reads the cost from the hash itself.
+  const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 11);
   await dataSource.transaction(async (manager) => {
     const [network] = await manager.query(
       `INSERT INTO networks (name, slug, is_demo) VALUES ($1, $2, true) RETURNING id`,

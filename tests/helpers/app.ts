@@ -10,7 +10,7 @@ import { createApp } from '../../api/app';
 import { readConfig, type AppConfig } from '../../api/config/env';
 import { startMailCatcher, type MailCatcher } from '../../api/mail/mail-catcher';
 import { createSmtpMailer } from '../../api/mail/mailer';
-import { hashPassword } from '../../api/auth/auth.service';
+import { hashPassword } from '../../api/lib/passwords';
 import { createDataSource } from '../../db/data-source';
 
 export const DEMO_PASSWORD = 'sheaf-demo';
