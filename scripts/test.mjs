@@ -1,6 +1,8 @@
-// npm test: install what is missing (npm deps, PostgreSQL, Chromium), build the web app,
-// start a throw-away PostgreSQL cluster on 127.0.0.1, migrate and load the demo, run every
-// test with vitest, then stop and delete the cluster. Exits non-zero on any failure.
+// npm test: install what is missing (npm deps, PostgreSQL, Chromium), check formatting, lint
+// and types (full run only), build the web app, start a throw-away PostgreSQL cluster on
+// 127.0.0.1, migrate and load the demo, run every test with vitest, then stop and delete the
+// cluster. Exits non-zero on any failure. `npm test -- tests/some/path` runs chosen files and
+// skips the static checks (they cover the whole tree, which is not what a chosen run is for).
 import fs from 'node:fs';
 import path from 'node:path';
 import { ensureDebianPackage, ensureNodeModules } from './lib/deps.mjs';
@@ -13,9 +15,11 @@ import {
   stopWhenOrphaned,
 } from './lib/env.mjs';
 import { freePort, startCluster } from './lib/postgres.mjs';
+import { runStaticChecks } from './lib/static-checks.mjs';
 
 const extraArgs = process.argv.slice(2);
 ensureNodeModules();
+if (extraArgs.length === 0 && !runStaticChecks()) process.exit(1);
 if (!ensureDebianPackage('/usr/bin/chromium', 'chromium')) process.exit(1);
 ensureDebianPackage('/usr/bin/pdfinfo', 'poppler-utils');
 const webDist = buildWeb();
