@@ -1,7 +1,6 @@
 // TypeORM DataSource for PostgreSQL; schema changes only through migrations.
 import 'reflect-metadata';
 import { DataSource } from 'typeorm';
-import { DataChangeSubscriber } from './data-changes';
 import { ENTITIES } from './entities/index';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
 
@@ -13,8 +12,6 @@ export function createDataSource(
     type: 'postgres',
     url: databaseUrl,
     entities: ENTITIES,
-    // Counts writes so read caches know when to recompute (see data-changes.ts).
-    subscribers: [DataChangeSubscriber],
     migrations: [InitialSchema1764633600000],
     synchronize: false,
     migrationsRun: false,

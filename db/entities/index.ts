@@ -12,6 +12,7 @@ import { Site } from './site.entity';
 import { Strip } from './strip.entity';
 import { Trial } from './trial.entity';
 import { User } from './user.entity';
+import { UserSession } from './user-session.entity';
 
 export const ENTITIES = [
   User,
@@ -27,4 +28,5 @@ export const ENTITIES = [
   PasswordResetToken,
   AuditEvent,
   ReportSnapshot,
+  UserSession,
 ];

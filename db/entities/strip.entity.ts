@@ -5,9 +5,11 @@ import {
   Index,
   JoinColumn,
   ManyToOne,
+  OneToOne,
   PrimaryGeneratedColumn,
   type Relation,
 } from 'typeorm';
+import type { Observation } from './observation.entity';
 import { RateLevelRow } from './rate-level.entity';
 import { Site } from './site.entity';
 
@@ -42,4 +44,9 @@ export class Strip {
   /** Optimistic-lock version of the strip's observations. */
   @Column({ type: 'integer', default: 1 })
   version!: number;
+
+  /** What was measured on the strip; absent until the first entry. */
+  // Named by string so this file needs only the type (observation.entity imports Strip).
+  @OneToOne('Observation', (observation: Observation) => observation.strip)
+  observation?: Relation<Observation> | null;
 }
