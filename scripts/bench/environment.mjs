@@ -117,6 +117,8 @@ export async function startServer({ database, workers, webDist, profileDir }) {
   const forked = serverWorkerCount(server.pid);
   const stop = async () => {
     if (server.exitCode !== null) return;
+    // Let requests still in flight when the load stopped finish before the server shuts down.
+    await new Promise((resolve) => setTimeout(resolve, 1000));
     server.kill('SIGTERM');
     await new Promise((resolve) => {
       const timer = setTimeout(() => {
