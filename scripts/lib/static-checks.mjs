@@ -1,6 +1,10 @@
 // The static checks `npm test` runs before any test: formatting, lint (with the architecture
-// rules) and types. Each runs even when an earlier one failed, so one run lists every problem.
+// rules), types, and the probe test that shows the architecture rules refuse what they should.
+// Each runs even when an earlier one failed, so one run lists every problem.
 import { spawnSync } from 'node:child_process';
+
+/** The probe tests of the lint rules; the full run's main vitest pass leaves them out. */
+export const ARCHITECTURE_TESTS = 'tests/lint';
 
 const CHECKS = [
   {
@@ -11,6 +15,12 @@ const CHECKS = [
   {
     name: 'types (tsc --noEmit)',
     args: ['node_modules/typescript/bin/tsc', '--noEmit', '-p', 'tsconfig.json'],
+  },
+  {
+    // It writes probe files into api/, web/, shared/ and db/ for a few seconds, so it runs here,
+    // alone, not beside the tests that read every file under api/.
+    name: `architecture probes (vitest run ${ARCHITECTURE_TESTS})`,
+    args: ['node_modules/vitest/vitest.mjs', 'run', ARCHITECTURE_TESTS],
   },
 ];
 
