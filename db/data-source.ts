@@ -3,6 +3,7 @@ import 'reflect-metadata';
 import { DataSource } from 'typeorm';
 import { ENTITIES } from './entities/index';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
+import { RateLimitHits1765000000000 } from './migrations/1765000000000-rate-limit-hits';
 
 export function createDataSource(
   databaseUrl: string,
@@ -12,7 +13,7 @@ export function createDataSource(
     type: 'postgres',
     url: databaseUrl,
     entities: ENTITIES,
-    migrations: [InitialSchema1764633600000],
+    migrations: [InitialSchema1764633600000, RateLimitHits1765000000000],
     synchronize: false,
     migrationsRun: false,
     uuidExtension: 'pgcrypto',

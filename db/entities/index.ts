@@ -7,6 +7,7 @@ import { Network } from './network.entity';
 import { Observation } from './observation.entity';
 import { PasswordResetToken } from './password-reset-token.entity';
 import { RateLevelRow } from './rate-level.entity';
+import { RateLimitHit } from './rate-limit-hit.entity';
 import { ReportSnapshot } from './report-snapshot.entity';
 import { Site } from './site.entity';
 import { Strip } from './strip.entity';
@@ -29,4 +30,5 @@ export const ENTITIES = [
   AuditEvent,
   ReportSnapshot,
   UserSession,
+  RateLimitHit,
 ];
