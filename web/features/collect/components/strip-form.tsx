@@ -56,7 +56,7 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
   const units = entryUnits(site.unitSystem);
   const disabled = !site.canEdit;
   const onPatch = (patch: StripValuesPatch) => queueEdit(strip, patch);
-  const common = { values, onPatch, disabled };
+  const common = { values, onPatch, disabled, strip, entry };
   const order = [...data.strips].sort((a, b) => a.block - b.block || a.position - b.position);
   const index = order.findIndex((s) => s.stripId === strip.stripId);
   const previous = order[index - 1];
@@ -282,14 +282,14 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
       <nav aria-label="Other strips" className="flex justify-between gap-2 pt-2">
         {previous ? (
           <ButtonLink variant="secondary" to={`/sites/${site.siteId}/strips/${previous.stripId}`}>
-            ← B{previous.block} · strip {previous.position}
+            ← Plot {previous.plotNumber}
           </ButtonLink>
         ) : (
           <span />
         )}
         {next ? (
           <ButtonLink variant="secondary" to={`/sites/${site.siteId}/strips/${next.stripId}`}>
-            B{next.block} · strip {next.position} →
+            Plot {next.plotNumber} →
           </ButtonLink>
         ) : (
           <ButtonLink variant="secondary" to={`/sites/${site.siteId}`}>

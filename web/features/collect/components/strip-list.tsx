@@ -65,11 +65,13 @@ export function StripList({ data }: { data: SiteStrips }) {
                     <Link
                       to={`/sites/${data.site.siteId}/strips/${strip.stripId}`}
                       className="flex items-center gap-3 px-4 py-3 no-underline hover:bg-accent-soft"
-                      aria-label={`Block ${strip.block}, strip ${strip.position}, ${strip.label} rate`}
+                      aria-label={`Plot ${strip.plotNumber}, block ${strip.block}, ${strip.label} rate`}
                     >
                       <span className="figures flex size-11 shrink-0 flex-col items-center justify-center rounded-field bg-straw-100 text-straw-800">
-                        <span className="text-caption leading-none">strip</span>
-                        <span className="text-label font-bold leading-tight">{strip.position}</span>
+                        <span className="text-caption leading-none">plot</span>
+                        <span className="text-label font-bold leading-tight">
+                          {strip.plotNumber}
+                        </span>
                       </span>
                       <span className="min-w-0 flex-1">
                         <span className="block font-semibold text-ink">

@@ -118,6 +118,7 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
           <table className="figures w-full border-collapse text-label">
             <thead>
               <tr className="border-b-2 border-ink text-left">
+                <th className="py-1 pr-2">Plot</th>
                 <th className="py-1 pr-2">Block</th>
                 <th className="py-1 pr-2">Strip</th>
                 <th className="py-1 pr-2">Rate</th>
@@ -129,6 +130,7 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
             <tbody>
               {strips.map((s) => (
                 <tr key={s.stripId} className="border-b border-line">
+                  <td className="py-1.5 pr-2 font-semibold">{s.plotNumber}</td>
                   <td className="py-1.5 pr-2">{s.block}</td>
                   <td className="py-1.5 pr-2">{s.position}</td>
                   <td className="py-1.5 pr-2">
@@ -312,7 +314,7 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
               {strips.map((s) => (
                 <tr key={s.stripId}>
                   <td className="h-9 border border-ink px-1 font-semibold">
-                    {s.block}-{s.position}
+                    {s.plotNumber}
                   </td>
                   <td className="border border-ink px-1">{s.label}</td>
                   {Array.from({ length: 14 }, (_, i) => (
