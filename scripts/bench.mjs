@@ -2,7 +2,9 @@
 // throw-away PostgreSQL, a 5,000-row CSV import, and the web bundle sizes a first visit loads.
 // BENCH_DURATION (seconds per endpoint, default 20), BENCH_WARMUP (unrecorded seconds before
 // each, default 3) and BENCH_CONNECTIONS (default 50).
-// BENCH_ONLY=site,pooled,patch,import,bundle,analysis runs only those parts; BENCH_PROFILE=folder
+// BENCH_ONLY=site,pooled,patch,import,bundle,lighthouse,analysis runs only those parts (lighthouse:
+// the Lighthouse npm package in Debian's Chromium, mobile emulation with its default simulated
+// slow 4G and 4× CPU slowdown, on the sign-in page and a grower's site page); BENCH_PROFILE=folder
 // starts the server with --cpu-prof and leaves its CPU profile there for profiling.
 import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -115,6 +117,26 @@ try {
     .map((c) => c.split(';')[0])
     .join('; ');
   const headers = { cookie, 'x-csrf-token': csrfToken };
+
+  /** A session cookie for a demo account, for pages measured as that person. */
+  async function signInCookie(origin, email) {
+    const first = await fetch(`${origin}/api/auth/csrf`);
+    const jar = first.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
+    const { csrfToken: token } = await first.json();
+    const res = await fetch(`${origin}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', cookie: jar, 'x-csrf-token': token },
+      body: JSON.stringify({ email, password: 'sheaf-demo' }),
+    });
+    if (res.status !== 200) throw new Error(`bench sign-in as ${email} failed: ${res.status}`);
+    return res.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
+  }
 
   const summarize = (name, r, allowed = []) => {
     const non2xx = r.non2xx;
@@ -322,6 +344,58 @@ try {
       }),
     ];
     await browser.close();
+  }
+
+  if (runs('lighthouse')) {
+    console.log('\n== Lighthouse (mobile, simulated slow 4G, 4× CPU slowdown) ==');
+    const { default: lighthouse } = await import('lighthouse');
+    const { chromium } = await import('playwright-core');
+    const debugPort = await freePort();
+    const browser = await chromium.launch({
+      executablePath: '/usr/bin/chromium',
+      args: [
+        '--headless',
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-background-networking',
+        `--remote-debugging-port=${debugPort}`,
+      ],
+    });
+    const growerCookie = await signInCookie(base, 'grower1@millbrook.example');
+    const mine = await (
+      await fetch(`${base}/api/sites/mine`, { headers: { cookie: growerCookie } })
+    ).json();
+    const siteId = (Array.isArray(mine) ? mine : mine.items)[0].id;
+    const audit = async (label, url, cookieHeader) => {
+      const runnerResult = await lighthouse(url, {
+        port: debugPort,
+        output: 'json',
+        logLevel: 'error',
+        onlyCategories: ['performance', 'accessibility'],
+        ...(cookieHeader ? { extraHeaders: { Cookie: cookieHeader } } : {}),
+      });
+      const lhr = runnerResult.lhr;
+      const row = {
+        page: label,
+        performance: Math.round((lhr.categories.performance.score ?? 0) * 100),
+        accessibility: Math.round((lhr.categories.accessibility.score ?? 0) * 100),
+        largestContentfulPaintSeconds:
+          Math.round(lhr.audits['largest-contentful-paint'].numericValue / 100) / 10,
+        transferredKilobytes: Math.round(lhr.audits['total-byte-weight'].numericValue / 1024),
+      };
+      console.log(
+        `${label}: performance ${row.performance}, accessibility ${row.accessibility}, LCP ${row.largestContentfulPaintSeconds} s, ${row.transferredKilobytes} KiB transferred`,
+      );
+      return row;
+    };
+    try {
+      results.lighthouse = [
+        await audit('sign-in page', `${base}/sign-in`),
+        await audit('grower site page', `${base}/sites/${siteId}`, growerCookie),
+      ];
+    } finally {
+      await browser.close();
+    }
   }
 } catch (error) {
   console.error(`[bench] ${error.stack ?? error}`);

@@ -63,6 +63,8 @@ export async function openPage(
     viewport: { width, height: width < 500 ? 844 : 900 },
     // Growers work west of UTC: every page is looked at in Central time unless a test says otherwise.
     timezoneId: BROWSER_TIMEZONE,
+    // The offline service worker answers some requests itself; tests that check it allow it.
+    serviceWorkers: 'block',
     ...options,
   });
   const page = await context.newPage();
@@ -126,9 +128,14 @@ const AXE_SETTLE_MS = 400;
 function watchAccessibility(page: Page, errors: string[]) {
   let timer: ReturnType<typeof setTimeout> | null = null;
   const seen = new Set<string>();
+  // Each page once: a test that returns to the same page does not pay for another check.
+  const checked = new Set<string>();
   const check = async () => {
     timer = null;
     if (page.isClosed()) return;
+    const where = new URL(page.url()).pathname;
+    if (checked.has(where)) return;
+    checked.add(where);
     try {
       await page.waitForLoadState('load', { timeout: 5000 });
       for (const problem of await accessibilityProblems(page)) {

@@ -185,18 +185,38 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
         title="Threshed grain"
         readout={
           <Readout
-            items={[
-              {
-                label: 'Yield, bu/acre',
-                value: formatNumber(derived.yieldBushelsPerAcre),
-                testId: 'yield-bu',
-              },
-              {
-                label: 'Yield, kg/ha',
-                value: formatNumber(derived.yieldKilogramsPerHectare, 0),
-                testId: 'yield-kg',
-              },
-            ]}
+            items={
+              metric
+                ? [
+                    {
+                      label: 'Yield, t/ha',
+                      value: formatNumber(
+                        derived.yieldKilogramsPerHectare === null
+                          ? null
+                          : derived.yieldKilogramsPerHectare / 1000,
+                        2,
+                      ),
+                      testId: 'yield-t',
+                    },
+                    {
+                      label: 'Yield, kg/ha',
+                      value: formatNumber(derived.yieldKilogramsPerHectare, 0),
+                      testId: 'yield-kg',
+                    },
+                  ]
+                : [
+                    {
+                      label: 'Yield, bu/acre',
+                      value: formatNumber(derived.yieldBushelsPerAcre),
+                      testId: 'yield-bu',
+                    },
+                    {
+                      label: 'Yield, kg/ha',
+                      value: formatNumber(derived.yieldKilogramsPerHectare, 0),
+                      testId: 'yield-kg',
+                    },
+                  ]
+            }
           />
         }
       >
@@ -243,8 +263,8 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
           />
         </div>
         <p className="text-caption text-ink-muted">
-          Yield is at {site.standardMoisturePercent ?? '—'} % moisture
-          {site.bushelPounds ? ` and ${site.bushelPounds} lb per bushel` : ''}.
+          Yield is at the crop’s standard moisture, {site.standardMoisturePercent ?? '—'} %
+          {site.bushelPounds && !metric ? `, and ${site.bushelPounds} lb per bushel` : ''}.
         </p>
       </Section>
 

@@ -19,6 +19,7 @@ const SHORT: Record<(typeof MEASUREMENT_GROUPS)[number], string> = {
 
 export function StripList({ data }: { data: SiteStrips }) {
   const outbox = useOutbox();
+  const metric = data.site.unitSystem === 'metric';
   const blocks = [...new Set(data.strips.map((s) => s.block))].sort((a, b) => a - b);
   const totals = Object.fromEntries(
     MEASUREMENT_GROUPS.map((g) => [
@@ -100,11 +101,18 @@ export function StripList({ data }: { data: SiteStrips }) {
                       </span>
                       <span className="shrink-0 text-right">
                         <span className="figures block font-semibold text-ink">
-                          {derived.yieldBushelsPerAcre === null
-                            ? '—'
+                          {metric
+                            ? formatNumber(
+                                derived.yieldKilogramsPerHectare === null
+                                  ? null
+                                  : derived.yieldKilogramsPerHectare / 1000,
+                                2,
+                              )
                             : formatNumber(derived.yieldBushelsPerAcre)}
                         </span>
-                        <span className="block text-caption text-ink-muted">bu/acre</span>
+                        <span className="block text-caption text-ink-muted">
+                          {metric ? 't/ha' : 'bu/acre'}
+                        </span>
                         {entry ? (
                           <span className="block text-caption font-semibold text-caution">
                             waiting
