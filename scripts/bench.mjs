@@ -375,6 +375,12 @@ try {
         ...(cookieHeader ? { extraHeaders: { Cookie: cookieHeader } } : {}),
       });
       const lhr = runnerResult.lhr;
+      // The full report, to see what the score is made of (open it in any JSON viewer).
+      fs.mkdirSync(DATA_DIR, { recursive: true });
+      fs.writeFileSync(
+        path.join(DATA_DIR, `lighthouse-${label.replace(/\W+/g, '-')}.json`),
+        JSON.stringify(lhr),
+      );
       const row = {
         page: label,
         performance: Math.round((lhr.categories.performance.score ?? 0) * 100),
