@@ -7,7 +7,8 @@
 //   BENCH_DURATION     seconds recorded per measurement, default 20
 //   BENCH_WARMUP       unrecorded seconds of the same load before each, default 5
 //   BENCH_CONNECTIONS  connections of the saturation runs, default 50
-//   BENCH_ONLY         parts to run: analysis, site, pooled, patch, import, bundle (comma list).
+//   BENCH_ONLY         parts to run: analysis, site, pooled, patch, import, bundle, lighthouse
+//                      (comma list; lighthouse: mobile emulation, simulated slow 4G, 4× CPU).
 //                      "analysis" alone needs no web build and no PostgreSQL.
 //   BENCH_PROFILE      folder: start the server with --cpu-prof and leave its CPU profiles there
 //
@@ -22,6 +23,7 @@ import { runBundle } from './bench/bundle.mjs';
 import { signIn, startDatabase, startServer } from './bench/environment.mjs';
 import { ENDPOINTS, runHttp } from './bench/http.mjs';
 import { runImport } from './bench/import.mjs';
+import { runLighthouse } from './bench/lighthouse.mjs';
 import { options } from './bench/options.mjs';
 import { printTable } from './bench/table.mjs';
 
@@ -49,6 +51,13 @@ const SERVER_PARTS = [
     needsWebBuild: true,
     run: (ctx) => runBundle({ base: ctx.server.base, webDist: ctx.webDist }),
     keep: (results, value) => (results.bundle = value),
+  },
+  {
+    name: 'lighthouse',
+    selected: () => options.runs('lighthouse'),
+    needsWebBuild: true,
+    run: (ctx) => runLighthouse({ base: ctx.server.base }),
+    keep: (results, value) => (results.lighthouse = value),
   },
 ];
 

@@ -13,6 +13,7 @@ import { newRandomizationSeed } from '../../shared/design/randomize-rcbd';
 import { randomizeSite } from '../../shared/design/randomize-site';
 import { rateTable } from '../../shared/design/rate-table';
 import { calibrateSeeder } from '../../shared/units/calibration';
+import { plotNumber } from '../../shared/units/plot-number';
 import { CROPS, type CropKey } from '../../shared/units/crops';
 import { recordAudit } from '../audit/audit.service';
 import { Conflict, Locked, NotFound } from '../errors';
@@ -219,6 +220,7 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       block.strips.push({
         stripId: s.id,
         position: s.position,
+        plotNumber: plotNumber(s.block, s.position),
         rateLevelId: s.rateLevelId,
         rate: s.rateLevel!.multiplier,
         label: s.rateLevel!.label,

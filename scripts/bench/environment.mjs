@@ -135,7 +135,7 @@ export async function startServer({ database, workers, webDist, profileDir }) {
 }
 
 /** Signs in as the demo coordinator; returns the headers a signed-in request carries. */
-export async function signIn(base) {
+export async function signIn(base, email = 'coordinator@millbrook.example') {
   const csrfRes = await fetch(`${base}/api/auth/csrf`);
   const csrfCookie = csrfRes.headers
     .getSetCookie()
@@ -145,7 +145,7 @@ export async function signIn(base) {
   const login = await fetch(`${base}/api/auth/login`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', cookie: csrfCookie, 'x-csrf-token': csrfToken },
-    body: JSON.stringify({ email: 'coordinator@millbrook.example', password: 'sheaf-demo' }),
+    body: JSON.stringify({ email, password: 'sheaf-demo' }),
   });
   if (login.status !== 200) throw new Error(`bench sign-in failed: ${login.status}`);
   const cookie = login.headers

@@ -70,6 +70,8 @@ interface BaseOptions {
   /** Type scale for projectors (1 = page). */
   scale?: number;
   title?: string;
+  /** One sentence on what the chart shows; screen readers announce it as the chart's name. */
+  description?: string;
 }
 
 const sorted = <T extends { order: number }>(items: readonly T[]) =>
@@ -106,6 +108,9 @@ export function rateMeansSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      `Mean yield (${input.yieldUnit}) at each seeding rate with its 95 % confidence interval; open points are the single strips.`,
     width: 'container',
     height: 260 * (options.scale ?? 1),
     autosize: { type: 'fit-x', contains: 'padding' },
@@ -197,6 +202,9 @@ export function componentsSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      'Stand, tillers and heads at each seeding rate: the yield components, means over blocks.',
     config: chartConfig(theme, options.scale),
     data: { values },
     columns: options.columns ?? 3,
@@ -257,6 +265,9 @@ export function stripMapSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      'The strips as laid out in the field, block by block, shaded by yield.',
     width: 'container',
     height: Math.max(1, blocks.length) * 44 * (options.scale ?? 1),
     autosize: { type: 'fit-x', contains: 'padding' },
@@ -339,6 +350,9 @@ export function forestSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      'Difference in yield from the reference rate at each site, with 95 % confidence intervals.',
     width: 'container',
     height: Math.max(2, rows.length) * 26 * (options.scale ?? 1),
     autosize: { type: 'fit-x', contains: 'padding' },
@@ -489,6 +503,9 @@ export function responseCurveSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      'Yield at each seeding rate with the fitted response curve and its optimum rates.',
     width: 'container',
     height: 280 * (options.scale ?? 1),
     autosize: { type: 'fit-x', contains: 'padding' },
@@ -507,5 +524,13 @@ export function pooledMeansSpec(
   },
   options: BaseOptions = {},
 ): ChartSpec {
-  return rateMeansSpec({ means: input.means, strips: [], yieldUnit: input.yieldUnit }, options);
+  return rateMeansSpec(
+    { means: input.means, strips: [], yieldUnit: input.yieldUnit },
+    {
+      ...options,
+      description:
+        options.description ??
+        `Mean yield (${input.yieldUnit}) at each seeding rate over all sites, with its 95 % confidence interval (tested against site × rate).`,
+    },
+  );
 }

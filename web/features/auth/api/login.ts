@@ -6,10 +6,14 @@ import {
   type SessionUser,
 } from '../../../../shared/schemas/auth';
 import { api } from '../../../lib/api-client';
+import { forgetOfflineReads } from '../../../lib/offline-reads';
 import { meQueryKey } from './get-me';
 
 export async function login(input: LoginInput): Promise<SessionUser> {
-  return SessionUserSchema.parse(await api.post('/api/auth/login', input));
+  const user = SessionUserSchema.parse(await api.post('/api/auth/login', input));
+  // Another account may have used this browser: its offline copies go before anything is shown.
+  await forgetOfflineReads();
+  return user;
 }
 
 export function useLogin() {

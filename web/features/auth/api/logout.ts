@@ -1,6 +1,7 @@
 // Signs out: ends the server session, forgets the CSRF token and every cached answer.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, resetCsrfToken } from '../../../lib/api-client';
+import { forgetOfflineReads } from '../../../lib/offline-reads';
 import { meQueryKey } from './get-me';
 
 export async function logout(): Promise<void> {
@@ -17,6 +18,7 @@ export function useLogout() {
   return useMutation({
     mutationFn: logout,
     onSettled: () => {
+      void forgetOfflineReads();
       queryClient.clear();
       queryClient.setQueryData(meQueryKey, null);
     },

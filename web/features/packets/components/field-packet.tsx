@@ -4,6 +4,7 @@ import { Link } from 'react-router-dom';
 import type { Layout } from '../../../../shared/schemas/layout';
 import type { SiteDetail } from '../../../../shared/schemas/site';
 import { rateTable } from '../../../../shared/design/rate-table';
+import { METRES_PER_FOOT } from '../../../../shared/units/constants';
 import { StripMap } from './strip-map';
 
 const one = new Intl.NumberFormat('en', { maximumFractionDigits: 1 });
@@ -56,7 +57,19 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
   const t = site.trial;
   const rows = rateTable({ ...t, rateLevels: t.rateLevels });
   const strips = layout.blocks.flatMap((b) => b.strips.map((s) => ({ ...s, block: b.block })));
-  const rowLength = t.stripLengthFt ? `${t.stripLengthFt} ft` : 'the strip length';
+  const metric = t.unitSystem === 'metric';
+  // A metric trial reads lengths in m and cm (1 ft = 0.3048 m, 1 in = 2.54 cm, exact).
+  const length = (feet: number | null) =>
+    feet === null ? '—' : metric ? `${one.format(feet * METRES_PER_FOOT)} m` : `${feet} ft`;
+  const spacing = (inches: number | null) =>
+    inches === null
+      ? '—'
+      : metric
+        ? `${one.format((inches * METRES_PER_FOOT * 100) / 12)} cm`
+        : `${inches} in`;
+  const perRowLength = (perFoot: number) => (metric ? perFoot / METRES_PER_FOOT : perFoot);
+  const rowUnit = metric ? 'm' : 'ft';
+  const rowLength = t.stripLengthFt ? length(t.stripLengthFt) : 'the strip length';
   const harvestRows = t.rowsPerStrip ? Math.max(1, t.rowsPerStrip - 2 * (t.borderRows ?? 0)) : null;
 
   return (
@@ -73,7 +86,7 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
           {t.cropName ?? 'Crop'} {t.season ? `· season ${t.season}` : ''} · grower{' '}
           {site.grower.name ?? site.grower.email ?? '—'} · {t.blocksPerSite} blocks ×{' '}
           {t.rateLevels.length} rates = {strips.length} strips of {t.rowsPerStrip} rows at{' '}
-          {t.rowSpacingIn} in, {t.stripLengthFt} ft long
+          {spacing(t.rowSpacingIn)}, {length(t.stripLengthFt)} long
           {t.borderRows
             ? `, ${t.borderRows} border row${t.borderRows > 1 ? 's' : ''} each side`
             : ''}
@@ -114,14 +127,16 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
             : ''}
           . If your seed lot differs, tell your coordinator before you weigh.
         </p>
-        <div className="overflow-x-auto">
+        {/* A scrolling box takes keyboard focus so it can be scrolled without a mouse. */}
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Seed per strip">
           <table className="figures w-full border-collapse text-label">
             <thead>
               <tr className="border-b-2 border-ink text-left">
+                <th className="py-1 pr-2">Plot</th>
                 <th className="py-1 pr-2">Block</th>
                 <th className="py-1 pr-2">Strip</th>
                 <th className="py-1 pr-2">Rate</th>
-                <th className="py-1 pr-2 text-right">Seeds / ft of row</th>
+                <th className="py-1 pr-2 text-right">Seeds / {rowUnit} of row</th>
                 <th className="py-1 pr-2 text-right">Grams</th>
                 <th className="py-1 text-center">Weighed ✓</th>
               </tr>
@@ -129,13 +144,16 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
             <tbody>
               {strips.map((s) => (
                 <tr key={s.stripId} className="border-b border-line">
+                  <td className="py-1.5 pr-2 font-semibold">{s.plotNumber}</td>
                   <td className="py-1.5 pr-2">{s.block}</td>
                   <td className="py-1.5 pr-2">{s.position}</td>
                   <td className="py-1.5 pr-2">
                     {s.label} ×{s.rate}
                   </td>
                   <td className="py-1.5 pr-2 text-right">
-                    {s.seedsPerFootOfRow === null ? '—' : one.format(s.seedsPerFootOfRow)}
+                    {s.seedsPerFootOfRow === null
+                      ? '—'
+                      : one.format(perRowLength(s.seedsPerFootOfRow))}
                   </td>
                   <td className="py-1.5 pr-2 text-right font-semibold">
                     {s.seedGrams > 0 ? one.format(s.seedGrams) : '—'}
@@ -274,7 +292,7 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
           Stand and head counts are per 3 ft of row unless you write another length. Enter the
           numbers in Sheaf after each count.
         </p>
-        <div className="overflow-x-auto">
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Field sheet">
           <table className="sheet figures w-full min-w-[44rem] border-collapse text-caption">
             <thead>
               <tr className="text-left">
@@ -311,9 +329,7 @@ export function FieldPacket({ site, layout }: { site: SiteDetail; layout: Layout
             <tbody>
               {strips.map((s) => (
                 <tr key={s.stripId}>
-                  <td className="h-9 border border-ink px-1 font-semibold">
-                    {s.block}-{s.position}
-                  </td>
+                  <td className="h-9 border border-ink px-1 font-semibold">{s.plotNumber}</td>
                   <td className="border border-ink px-1">{s.label}</td>
                   {Array.from({ length: 14 }, (_, i) => (
                     <td key={i} className="border border-ink" />

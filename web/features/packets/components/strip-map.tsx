@@ -101,7 +101,7 @@ export function StripMap({
                     textAnchor="end"
                     fill="#6a5a49"
                   >
-                    {strip.position}
+                    {strip.plotNumber}
                   </text>
                   <rect
                     x={GUTTER}
