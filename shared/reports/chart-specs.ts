@@ -1,41 +1,37 @@
 // Vega-Lite specs for the report charts, as pure functions of report data so they can be
 // tested and rendered the same way in the browser and in the server's PDF.
 
+import { DARK_CHART, LIGHT_CHART, soil, white, type ChartColours } from '../brand/colours';
+
 /** A Vega-Lite top-level spec (kept as plain JSON so shared/ needs no charting import). */
 export type ChartSpec = Record<string, unknown>;
 
-export interface ChartTheme {
+/** Fonts and colours of one chart theme; every colour comes from shared/brand/colours.ts. */
+export interface ChartTheme extends ChartColours {
   font: string;
-  ink: string;
-  muted: string;
-  line: string;
-  accent: string;
-  highlight: string;
-  background: string;
   /** Sequential colour scheme for yield maps. */
   scheme: string;
+  /** Label colours on the light and dark halves of the yield map's scale. */
+  onLight: string;
+  onDark: string;
 }
 
+const CHART_FONT = 'Inter Variable, Inter, system-ui, sans-serif';
+
 export const LIGHT_CHART_THEME: ChartTheme = {
-  font: 'Inter Variable, Inter, system-ui, sans-serif',
-  ink: '#26201b',
-  muted: '#6a5a49',
-  line: '#e2dacf',
-  accent: '#1d4f2e',
-  highlight: '#bf8c2c',
-  background: '#ffffff',
+  ...LIGHT_CHART,
+  font: CHART_FONT,
   scheme: 'yellowgreen',
+  onLight: soil[900],
+  onDark: white,
 };
 
 export const DARK_CHART_THEME: ChartTheme = {
-  font: 'Inter Variable, Inter, system-ui, sans-serif',
-  ink: '#fbf6e9',
-  muted: '#c9bcab',
-  line: '#2b4a35',
-  accent: '#e4c06a',
-  highlight: '#74b487',
-  background: '#10301c',
+  ...DARK_CHART,
+  font: CHART_FONT,
   scheme: 'yellowgreen',
+  onLight: soil[900],
+  onDark: white,
 };
 
 /** Shared config: the app's font and colours, quiet grid lines, readable label sizes. */
@@ -140,7 +136,7 @@ export function rateMeansSpec(
         data: { values: input.means.map((m) => ({ ...m })) },
         layer: [
           {
-            mark: { type: 'rule', color: theme.accent, strokeWidth: 2.5 * (options.scale ?? 1) },
+            mark: { type: 'rule', color: theme.estimate, strokeWidth: 2.5 * (options.scale ?? 1) },
             encoding: { x, y: { ...y, field: 'ciLow' }, y2: { field: 'ciHigh' } },
           },
           {
@@ -148,7 +144,7 @@ export function rateMeansSpec(
               type: 'point',
               filled: true,
               size: 110 * (options.scale ?? 1),
-              color: theme.accent,
+              color: theme.estimate,
               opacity: 1,
             },
             encoding: {
@@ -214,7 +210,7 @@ export function componentsSpec(
     spec: {
       width: (options.panelWidth ?? 140) * (options.scale ?? 1),
       height: 150 * (options.scale ?? 1),
-      mark: { type: 'bar', color: theme.highlight, cornerRadiusEnd: 2 },
+      mark: { type: 'bar', color: theme.bar, cornerRadiusEnd: 2 },
       encoding: {
         x: { field: 'label', type: 'nominal', sort: order, title: null, axis: { labelAngle: 0 } },
         y: { field: 'value', type: 'quantitative', title: null },
@@ -298,9 +294,9 @@ export function stripMapSpec(
           color: {
             condition: {
               test: `datum.yield !== null && datum.yield > ${midpoint}`,
-              value: '#ffffff',
+              value: theme.onDark,
             },
-            value: '#26201b',
+            value: theme.onLight,
           },
         },
       },
@@ -360,7 +356,7 @@ export function forestSpec(
               x2: { field: 'ciHigh' },
               // Conditions rather than a second colour scale: the point layer colours by kind too.
               color: {
-                condition: { test: "datum.kind === 'pooled'", value: theme.accent },
+                condition: { test: "datum.kind === 'pooled'", value: theme.estimate },
                 value: theme.muted,
               },
             },
@@ -381,7 +377,7 @@ export function forestSpec(
                 value: 70 * (options.scale ?? 1),
               },
               color: {
-                condition: { test: "datum.kind === 'pooled'", value: theme.accent },
+                condition: { test: "datum.kind === 'pooled'", value: theme.estimate },
                 value: theme.ink,
               },
               tooltip: [
@@ -451,7 +447,7 @@ export function responseCurveSpec(
     });
     layers.push({
       data: { values: line },
-      mark: { type: 'line', color: theme.accent, strokeWidth: 3 * (options.scale ?? 1) },
+      mark: { type: 'line', color: theme.curve, strokeWidth: 3 * (options.scale ?? 1) },
       encoding: { x: { ...x, field: 'seedRate' }, y: { ...y, field: 'fitted' } },
     });
   }
@@ -477,7 +473,7 @@ export function responseCurveSpec(
               title: null,
               scale: {
                 domain: ['Highest yield', 'Best return over seed'],
-                range: [theme.accent, theme.highlight],
+                range: [theme.agronomicOptimum, theme.economicOptimum],
               },
               legend: { orient: 'bottom', labelLimit: 0 },
             },

@@ -6,10 +6,11 @@ import {
   type SessionUser,
 } from '../../../../shared/schemas/auth';
 import { api } from '../../../lib/api-client';
+import { authKeys } from '../../../lib/query-keys';
 import { meQueryKey } from './get-me';
 
 export async function login(input: LoginInput): Promise<SessionUser> {
-  return SessionUserSchema.parse(await api.post('/api/auth/login', input));
+  return api.post('/api/auth/login', SessionUserSchema, input);
 }
 
 export function useLogin() {
@@ -18,7 +19,7 @@ export function useLogin() {
     mutationFn: login,
     onSuccess: (user) => {
       // Another account may have used this browser: drop its cached data first.
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'auth' });
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
       queryClient.setQueryData(meQueryKey, user);
     },
   });

@@ -12,11 +12,8 @@ import { SelectField } from '../../../components/ui/form-fields';
 import { TextField } from '../../../components/ui/text-field';
 import { errorSummary } from '../../../lib/form-errors';
 import { cn } from '../../../lib/cn';
-import {
-  useCalibrationSite,
-  useMySitesForCalibration,
-  useSaveCalibration,
-} from '../api/calibration';
+import { useSaveCalibration } from '../api/calibration';
+import { useMySites, useSite } from '../../../lib/queries/sites';
 import { numberFieldErrors, parseNumberInput as num } from '../lib/number-input';
 import { fieldBinder } from '../../../lib/bind-field';
 
@@ -39,8 +36,8 @@ export function CalibrationHelper({
   const [siteId, setSiteId] = useState<string | null>(initialSiteId);
   const [rateLabel, setRateLabel] = useState<string>('');
   const set = (patch: Partial<typeof v>) => setV((s) => ({ ...s, ...patch }));
-  const mySites = useMySitesForCalibration(Boolean(user));
-  const site = useCalibrationSite(siteId);
+  const mySites = useMySites(Boolean(user));
+  const site = useSite(siteId);
   const save = useSaveCalibration(siteId ?? '');
 
   const targets = useMemo(
