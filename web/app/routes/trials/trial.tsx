@@ -15,7 +15,8 @@ import { useSendAllPackets } from '../../../features/trials/api/trial-mutations'
 import { EnrolSiteForm } from '../../../features/trials/components/enrol-site-form';
 import { RateSummaryTable } from '../../../features/trials/components/rate-summary-table';
 import { SitesTable } from '../../../features/trials/components/sites-table';
-import { CROP_LABELS, UNIT_LABELS } from '../../../features/trials/components/trial-wizard';
+import { TrialDesignSummary } from '../../../features/trials/components/trial-design-summary';
+import { countOf, cropLabel } from '../../../../shared/labels/labels';
 import { errorSummary } from '../../../lib/form-errors';
 import { trialStatusName } from '../../../lib/format';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
@@ -42,11 +43,10 @@ export default function TrialPage() {
   );
   if (!trial) return <LoadingBlock />;
   const active = trial.status === 'active';
-  const crop = trial.crop
-    ? trial.crop === 'custom'
-      ? (trial.customCrop?.name ?? 'Custom crop')
-      : CROP_LABELS[trial.crop]
-    : 'Crop not chosen';
+  const crop =
+    trial.crop === 'custom'
+      ? (trial.customCrop?.name ?? cropLabel('custom'))
+      : cropLabel(trial.crop);
 
   return (
     <>
@@ -96,7 +96,7 @@ export default function TrialPage() {
           title={`Packet e-mail sent to ${sendAll.data.sent.length} grower${sendAll.data.sent.length === 1 ? '' : 's'}`}
         >
           {sendAll.data.skipped.length > 0
-            ? `${sendAll.data.skipped.length} site(s) skipped: ${sendAll.data.skipped.map((s) => s.reason).join('; ')}.`
+            ? `${countOf(sendAll.data.skipped.length, 'site')} skipped: ${sendAll.data.skipped.map((s) => s.reason).join('; ')}.`
             : null}
         </Alert>
       ) : null}
@@ -152,40 +152,11 @@ export default function TrialPage() {
         <aside className="space-y-6">
           <Card>
             <h2 className="text-heading text-ink">Design</h2>
-            <dl className="mt-3 space-y-2 text-label">
-              {[
-                [
-                  'Reference rate',
-                  trial.referenceRate
-                    ? `${trial.referenceRate} ${UNIT_LABELS[trial.referenceUnit ?? 'lb/acre']}`
-                    : '—',
-                ],
-                ['Rates', trial.rateLevels.map((l) => `${l.label} ×${l.multiplier}`).join(', ')],
-                ['Blocks per site', trial.blocksPerSite ?? '—'],
-                [
-                  'Strip',
-                  trial.rowsPerStrip
-                    ? `${trial.rowsPerStrip} rows at ${trial.rowSpacingIn} in × ${trial.stripLengthFt} ft`
-                    : '—',
-                ],
-                ['Border rows', trial.borderRows ?? '—'],
-                [
-                  'Seed lot',
-                  trial.thousandKernelWeightG
-                    ? `${trial.thousandKernelWeightG} g/1,000 · ${trial.germinationPct ?? '?'} % germ. · ${trial.emergencePct ?? '?'} % emergence`
-                    : '—',
-                ],
-                [
-                  'Prices',
-                  `seed $${trial.seedPricePerLb ?? 0}/lb · grain $${trial.grainPricePerBu ?? 0}/bu`,
-                ],
-              ].map(([k, v]) => (
-                <div key={String(k)}>
-                  <dt className="text-ink-muted">{k}</dt>
-                  <dd className="font-normal text-ink">{v}</dd>
-                </div>
-              ))}
-            </dl>
+            <TrialDesignSummary
+              design={{ ...trial, customCrop: trial.customCrop ?? null }}
+              stacked
+              className="mt-3"
+            />
             {trial.designLocked && trial.canEdit ? (
               <p className="mt-3 text-caption text-ink-muted">
                 Rates and blocks are fixed: a site is randomized.
