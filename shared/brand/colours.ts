@@ -214,6 +214,7 @@ export const RATE_RAMP_LIGHT: ReadonlySet<string> = new Set(RATE_RAMP.slice(0, 4
 
 /** Colours for printed pages (field packet, report PDF) and e-mails. */
 export const PRINT = {
+  paper: white,
   ink: soil[900],
   muted: soil[600],
   line: soil[200],

@@ -3,6 +3,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { Link, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { rateTable } from '../../../../shared/design/rate-table';
+import type { TrialDetail } from '../../../../shared/schemas/trial';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { Button, ButtonLink } from '../../../components/ui/button';
@@ -30,6 +31,47 @@ export const clientLoader =
 
 const linkClass =
   'inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent hover:bg-accent-soft';
+
+/** Links onward: progress (coordinators), the pooled report and meeting view, the calculator. */
+function TrialLinksCard({ trial }: { trial: TrialDetail }) {
+  return (
+    <Card>
+      <h2 className="text-heading text-ink">Reports and tools</h2>
+      <ul className="mt-2 flex flex-col">
+        {trial.canEdit ? (
+          <li>
+            <Link className={linkClass} to={`/trials/${trial.id}/progress`}>
+              Data progress
+            </Link>
+          </li>
+        ) : null}
+        {trial.canEdit || trial.pooledPublishedAt ? (
+          <>
+            <li>
+              <Link className={linkClass} to={`/trials/${trial.id}/report`}>
+                Pooled report
+              </Link>
+            </li>
+            <li>
+              <Link className={linkClass} to={`/trials/${trial.id}/meeting`}>
+                Meeting view
+              </Link>
+            </li>
+          </>
+        ) : (
+          <li className="px-3 py-2 text-label text-ink-muted">
+            The pooled report appears here once the coordinator publishes it.
+          </li>
+        )}
+        <li>
+          <Link className={linkClass} to="/calculator">
+            Seed calculator
+          </Link>
+        </li>
+      </ul>
+    </Card>
+  );
+}
 
 export default function TrialPage() {
   const { trialId } = useParams();
@@ -163,41 +205,7 @@ export default function TrialPage() {
               </p>
             ) : null}
           </Card>
-          <Card>
-            <h2 className="text-heading text-ink">Reports and tools</h2>
-            <ul className="mt-2 flex flex-col">
-              {trial.canEdit ? (
-                <li>
-                  <Link className={linkClass} to={`/trials/${trial.id}/progress`}>
-                    Data progress
-                  </Link>
-                </li>
-              ) : null}
-              {trial.canEdit || trial.pooledPublishedAt ? (
-                <>
-                  <li>
-                    <Link className={linkClass} to={`/trials/${trial.id}/report`}>
-                      Pooled report
-                    </Link>
-                  </li>
-                  <li>
-                    <Link className={linkClass} to={`/trials/${trial.id}/meeting`}>
-                      Meeting view
-                    </Link>
-                  </li>
-                </>
-              ) : (
-                <li className="px-3 py-2 text-label text-ink-muted">
-                  The pooled report appears here once the coordinator publishes it.
-                </li>
-              )}
-              <li>
-                <Link className={linkClass} to="/calculator">
-                  Seed calculator
-                </Link>
-              </li>
-            </ul>
-          </Card>
+          <TrialLinksCard trial={trial} />
         </aside>
       </div>
     </>
