@@ -180,6 +180,8 @@ export function componentsSpec(
 ): ChartSpec {
   const theme = options.theme ?? LIGHT_CHART_THEME;
   const order = input.rows.map((r) => r.label);
+  // Rate labels are turned when there are many, so they never run together ("quarterhalf").
+  const labelAngle = order.length > 3 ? -40 : 0;
   const measures = [
     { key: 'plantsPerSquareFoot', title: 'Plants per ft²' },
     { key: 'tillersPerPlant', title: 'Tillers per plant' },
@@ -212,7 +214,14 @@ export function componentsSpec(
       height: 150 * (options.scale ?? 1),
       mark: { type: 'bar', color: theme.bar, cornerRadiusEnd: 2 },
       encoding: {
-        x: { field: 'label', type: 'nominal', sort: order, title: null, axis: { labelAngle: 0 } },
+        x: {
+          field: 'label',
+          type: 'nominal',
+          sort: order,
+          title: null,
+          axis: { labelAngle, labelAlign: labelAngle ? 'right' : 'center', labelPadding: 4 },
+          scale: { paddingInner: 0.25 },
+        },
         y: { field: 'value', type: 'quantitative', title: null },
         tooltip: [
           { field: 'measure', title: 'Measure' },
@@ -226,7 +235,8 @@ export function componentsSpec(
 }
 
 /**
- * The strip map: blocks down, positions across, each strip coloured by its yield and
+ * The strip map, drawn the way the field packet's map is: blocks from the start edge down and,
+ * within each block, strips in sowing order, one bar per strip coloured by its yield and
  * labelled with its rate, so a grower can see a wet corner or a weak block at a glance.
  */
 export function stripMapSpec(
@@ -237,35 +247,34 @@ export function stripMapSpec(
   options: BaseOptions = {},
 ): ChartSpec {
   const theme = options.theme ?? LIGHT_CHART_THEME;
-  const values = input.strips.map((s) => ({
-    block: `Block ${s.block}`,
-    blockNumber: s.block,
+  const scale = options.scale ?? 1;
+  const ordered = [...input.strips].sort((a, b) => a.block - b.block || a.position - b.position);
+  const values = ordered.map((s) => ({
+    strip: `Block ${s.block} · strip ${s.position}`,
+    block: s.block,
     position: s.position,
     label: s.label,
     yield: s.yield,
-    text: s.yield === null ? `${s.label}\nno yield` : s.label,
+    text: s.yield === null ? `${s.label} · no yield` : s.label,
   }));
   const yields = values.map((v) => v.yield).filter((y): y is number => y !== null);
   const midpoint = yields.length > 0 ? (Math.min(...yields) + Math.max(...yields)) / 2 : 0;
-  const blocks = [...new Set(values.map((v) => v.blockNumber))]
-    .sort((a, b) => a - b)
-    .map((b) => `Block ${b}`);
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
     width: 'container',
-    height: Math.max(1, blocks.length) * 44 * (options.scale ?? 1),
+    height: Math.max(1, values.length) * 24 * scale,
     autosize: { type: 'fit-x', contains: 'padding' },
     config: chartConfig(theme, options.scale),
     data: { values },
     encoding: {
-      x: {
-        field: 'position',
+      y: {
+        field: 'strip',
         type: 'ordinal',
-        title: 'Strip position in the block',
-        axis: { labelAngle: 0 },
+        title: '▼ from the start edge',
+        sort: values.map((v) => v.strip),
+        axis: { labelLimit: 0 },
       },
-      y: { field: 'block', type: 'ordinal', title: null, sort: blocks },
     },
     layer: [
       {
@@ -280,16 +289,16 @@ export function stripMapSpec(
           },
           tooltip: [
             { field: 'block', title: 'Block' },
-            { field: 'position', title: 'Position' },
+            { field: 'position', title: 'Strip' },
             { field: 'label', title: 'Rate' },
             { field: 'yield', title: `Yield (${input.yieldUnit})`, format: '.1f' },
           ],
         },
       },
       {
-        mark: { type: 'text', fontSize: 11 * (options.scale ?? 1), fontWeight: 600 },
+        mark: { type: 'text', fontSize: 11 * scale, fontWeight: 600 },
         encoding: {
-          text: { field: 'label' },
+          text: { field: 'text' },
           // Light text on the darker (higher-yield) half of the colour scale keeps labels readable.
           color: {
             condition: {
@@ -327,7 +336,7 @@ export function forestSpec(
       : []),
   ];
   const order = sorted(rows).map((r) => r.site);
-  const y = { field: 'site', type: 'nominal', title: null, sort: order };
+  const y = { field: 'site', type: 'nominal', title: null, sort: order, axis: { labelLimit: 0 } };
   const x = {
     type: 'quantitative',
     title: `${input.rateLabel} minus ${input.referenceLabel} (${input.yieldUnit})`,
@@ -415,7 +424,12 @@ export function responseCurveSpec(
   options: BaseOptions = {},
 ): ChartSpec {
   const theme = options.theme ?? LIGHT_CHART_THEME;
-  const x = { type: 'quantitative', title: `Seeding rate (${input.seedUnit})` };
+  // Padding keeps the points at the lowest and highest rates inside the plot.
+  const x = {
+    type: 'quantitative',
+    title: `Seeding rate (${input.seedUnit})`,
+    scale: { zero: false, nice: true, padding: 12 },
+  };
   const y = { type: 'quantitative', title: `Yield (${input.yieldUnit})`, scale: { zero: false } };
   const layers: ChartSpec[] = [
     {
@@ -475,7 +489,7 @@ export function responseCurveSpec(
                 domain: ['Highest yield', 'Best return over seed'],
                 range: [theme.agronomicOptimum, theme.economicOptimum],
               },
-              legend: { orient: 'bottom', labelLimit: 0 },
+              legend: { orient: 'bottom', direction: 'vertical', labelLimit: 0 },
             },
           },
         },

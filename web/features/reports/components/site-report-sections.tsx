@@ -1,6 +1,6 @@
 // The site report's sections, each its own component taking the whole report, so a new section
 // is one component and one line in SiteReportView.
-import { useMemo } from 'react';
+import { useCallback, useMemo } from 'react';
 import {
   componentsSpec,
   rateMeansSpec,
@@ -52,9 +52,15 @@ export function SiteChartsSection({
     () => stripMapSpec({ strips: report.strips, yieldUnit: unit }),
     [report.strips, unit],
   );
-  const partsSpec = useMemo(
-    () => componentsSpec({ rows: report.components.byRate }),
-    [report.components.byRate],
+  const rows = report.components.byRate;
+  // Three panels side by side when there is room, stacked on a phone; redrawn on resize.
+  const partsSpec = useCallback(
+    (width: number) => {
+      const columns = width < 560 ? 1 : 3;
+      const panelWidth = Math.floor((width - 70 * columns) / columns);
+      return componentsSpec({ rows }, { columns, panelWidth });
+    },
+    [rows],
   );
   const hasComponents = report.components.byRate.some(
     (c) => c.plantsPerSquareFoot !== null || c.headsPerSquareFoot !== null,
@@ -84,7 +90,7 @@ export function SiteChartsSection({
       {hasComponents ? (
         <ChartCard>
           <VegaChart
-            spec={partsSpec}
+            specForWidth={partsSpec}
             title="Yield components"
             description="Plants, tillers and heads by rate: thin stands often make up with more tillers."
           />
