@@ -15,17 +15,19 @@ import { applyServerErrors, Form, useZodForm } from '../../../lib/forms/zod-form
 import { useTrialPeople } from '../api/get-trial';
 import { useEnrolSite } from '../api/trial-mutations';
 
+const site = CreateSiteInputSchema.shape;
+
 /** The boxes as typed; the grower is a chosen person or an e-mail, by the mode radio. */
 const EnrolSiteFormSchema = z
   .object({
     mode: z.enum(['member', 'invite']),
     growerUserId: z.string(),
     growerEmail: z.string(),
-    fieldName: z.string(),
-    soil: z.string(),
-    previousCrop: z.string(),
-    fertility: z.string(),
-    notes: z.string(),
+    fieldName: site.fieldName,
+    soil: site.soil,
+    previousCrop: site.previousCrop,
+    fertility: site.fertility,
+    notes: site.notes,
   })
   .superRefine((v, ctx) => {
     if (v.mode === 'member' && !v.growerUserId)
