@@ -42,7 +42,7 @@ export function PooledReportView({
   const { trial, analysis } = report;
   const publish = usePublishTrial(trial.id);
   return (
-    <div className={cn('space-y-8', updating && 'opacity-70 transition-opacity')}>
+    <div className={cn('report-page space-y-8', updating && 'opacity-70 transition-opacity')}>
       <PageHeader
         back={back}
         eyebrow={`Network report · ${[trial.cropName, trial.season].filter(Boolean).join(', ')}`}

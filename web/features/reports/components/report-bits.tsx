@@ -29,7 +29,11 @@ export function Section({
   children: ReactNode;
 }) {
   return (
-    <section aria-labelledby={`${id}-title`} className="space-y-4 break-inside-avoid-page">
+    <section
+      id={id}
+      aria-labelledby={`${id}-title`}
+      className="report-section space-y-4 break-inside-avoid-page"
+    >
       <div>
         <h2 id={`${id}-title`} className="text-heading text-ink">
           {title}

@@ -20,7 +20,7 @@ export function SiteReportView({ report, back }: { report: SiteReport; back?: Ba
   const { site, analysis } = report;
   const publish = usePublishSite(site.id);
   return (
-    <div className="space-y-8">
+    <div className="report-page space-y-8">
       <PageHeader
         back={back}
         eyebrow={`Site report · ${site.trialName}`}
