@@ -111,7 +111,7 @@ describe('the web client as a house to live in', () => {
       });
       expect(sent.status).toBe(201);
       const mail = await server.testApp.mailCatcher.waitFor((m) => m.to.includes(invitee));
-      const link = /https?:\/\/\S+\/invitations?\/[\w-]+/.exec(mail.text)?.[0];
+      const link = /https?:\/\/\S+\/invite\/[\w-]+/.exec(mail.text)?.[0];
       expect(link).toBeTruthy();
       const { page, close } = await openPage(browser, width);
       await page.goto(`${server.baseUrl}${new URL(link!).pathname}`);
