@@ -53,7 +53,7 @@ export function PooledReportView({
             <>
               <Link
                 to={`/trials/${trial.id}/meeting`}
-                className={buttonClasses('primary', 'md', 'no-underline')}
+                className={buttonClasses('primary', 'md', 'no-underline no-print')}
               >
                 Meeting view
               </Link>
