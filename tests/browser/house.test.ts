@@ -50,14 +50,15 @@ describe('the web client as a house to live in', () => {
       await page.goto(`${server.baseUrl}/trials/new`);
       await page.getByLabel(/Trial name/).fill('Invented rough-edge trial');
       await page.getByRole('button', { name: 'Save and continue' }).click();
-      await page.getByText('Choose a crop', { exact: true }).waitFor();
+      const cropError = page.locator('[id$="-error"]', { hasText: 'Choose a crop' });
+      await cropError.waitFor();
       expect(await page.getByText(/Invalid option/).count()).toBe(0);
       expect(await pageWidth(page)).toBeLessThanOrEqual(width);
       // Focus moves to the first field in error, not the button.
       expect(await page.evaluate(() => document.activeElement?.tagName)).toBe('SELECT');
       await screenshot(page, `house-wizard-crop-${width}`);
       await page.getByLabel('Crop').selectOption('oats');
-      await page.getByText('Choose a crop', { exact: true }).waitFor({ state: 'detached' });
+      await cropError.waitFor({ state: 'detached' });
       expect(errors).toEqual([]);
       await close();
     });
