@@ -1,20 +1,11 @@
 // Display wording for values from the API: crop names, statuses, dates and counts.
 import type { CropKey, TrialStatus } from '../../shared/schemas/trial';
 import type { Role } from '../../shared/schemas/common';
+import { cropLabel } from '../../shared/labels/labels';
 
-const CROP_NAMES: Record<CropKey, string> = {
-  wheat: 'Winter wheat',
-  springWheat: 'Spring wheat',
-  oats: 'Oats',
-  hullessOats: 'Hulless oats',
-  barley: 'Barley',
-  rye: 'Rye',
-  custom: 'Other crop',
-};
-
+/** A crop's display name; the words live in shared/labels/labels.ts. */
 export function cropName(crop: CropKey | string | null | undefined): string {
-  if (!crop) return 'Crop not chosen';
-  return CROP_NAMES[crop as CropKey] ?? crop;
+  return cropLabel(crop);
 }
 
 const STATUS_NAMES: Record<TrialStatus, string> = {
