@@ -41,9 +41,19 @@ async function main() {
     port: mailCatcher?.port ?? config.SMTP_PORT,
     from: config.MAIL_FROM,
   });
-  const app = createApp({ config, dataSource, sessionPool, mailer, mailCatcher });
+  const app = createApp({
+    config,
+    dataSource,
+    sessionPool,
+    mailer,
+    mailCatcher,
+    jobs: { queue: 'default' },
+  });
   const server = http.createServer(app);
   server.keepAliveTimeout = 5000;
+  // A client that trickles its headers or body in is cut off instead of holding a socket.
+  server.headersTimeout = 10_000;
+  server.requestTimeout = 30_000;
   await new Promise<void>((resolve) => server.listen(config.PORT, config.HOST, resolve));
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
@@ -59,6 +69,7 @@ async function main() {
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
     server.close(async () => {
+      await app.locals.jobRunner?.stop();
       await Promise.allSettled([dataSource.destroy(), sessionPool.end(), mailCatcher?.close()]);
       process.exit(0);
     });

@@ -12,6 +12,11 @@ import { Site } from './site.entity';
 import { Strip } from './strip.entity';
 import { Trial } from './trial.entity';
 import { User } from './user.entity';
+import { SignInFailure } from './sign-in-failure.entity';
+import { RateLimitCounter } from './rate-limit-counter.entity';
+import { Job } from './job.entity';
+import { IdempotencyKey } from './idempotency-key.entity';
+import { ReportPdf } from './report-pdf.entity';
 
 export const ENTITIES = [
   User,
@@ -27,4 +32,9 @@ export const ENTITIES = [
   PasswordResetToken,
   AuditEvent,
   ReportSnapshot,
+  SignInFailure,
+  RateLimitCounter,
+  Job,
+  IdempotencyKey,
+  ReportPdf,
 ];

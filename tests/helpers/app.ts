@@ -54,13 +54,22 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     port: mailCatcher.port,
     from: config.MAIL_FROM,
   });
-  const app = createApp({ config, dataSource, sessionPool, mailer, mailCatcher });
+  // Each test app runs its own job queue, so its mail reaches its own catcher.
+  const app = createApp({
+    config,
+    dataSource,
+    sessionPool,
+    mailer,
+    mailCatcher,
+    jobs: { queue: `test-${crypto.randomBytes(6).toString('hex')}`, pollMs: 200 },
+  });
   return {
     app,
     config,
     dataSource,
     mailCatcher,
     async close() {
+      await app.locals.jobRunner?.stop();
       await Promise.allSettled([dataSource.destroy(), sessionPool.end(), mailCatcher.close()]);
     },
   };
@@ -88,11 +97,15 @@ export function clientFor(app: Express) {
     get: (url: string) => agent.get(url),
     // The token is fetched before the request is built: the agent copies cookies at creation.
     post: async (url: string, body?: object) => {
-      const token = await csrf();
-      return agent
+      const sent = await csrf();
+      const res = await agent
         .post(url)
-        .set('X-CSRF-Token', token)
+        .set('X-CSRF-Token', sent)
         .send(body ?? {});
+      // Sign-in hands out the new session's token.
+      const fresh = res.headers['x-csrf-token'];
+      if (typeof fresh === 'string') token = fresh;
+      return res;
     },
     patch: async (url: string, body?: object) => {
       const token = await csrf();

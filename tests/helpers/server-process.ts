@@ -69,5 +69,6 @@ export async function signInOverHttp(base: string, email: string, password = 'sh
     .getSetCookie()
     .map((c) => c.split(';')[0])
     .join('; ');
-  return { cookie, 'x-csrf-token': csrfToken };
+  // The token changes at sign-in: use the one the sign-in answer carries.
+  return { cookie, 'x-csrf-token': login.headers.get('x-csrf-token') ?? csrfToken };
 }
