@@ -8,6 +8,7 @@ import { createApp } from './app';
 import { readConfig } from './config/env';
 import { startMailCatcher, type MailCatcher } from './mail/mail-catcher';
 import { createSmtpMailer } from './mail/mailer';
+import { closePdfBrowser } from './reports/reports.pdf';
 
 async function connectWithRetry(init: () => Promise<unknown>, attempts = 30): Promise<void> {
   for (let i = 1; ; i += 1) {
@@ -49,11 +50,17 @@ async function main() {
     mailCatcher,
     jobs: { queue: 'default' },
   });
-  const server = http.createServer(app);
+  // A client that trickles its headers or body in is cut off (408) instead of holding a socket;
+  // the timeouts are checked every second rather than Node's default 30 s.
+  const server = http.createServer(
+    {
+      headersTimeout: config.HEADERS_TIMEOUT_MS,
+      requestTimeout: Math.max(config.REQUEST_TIMEOUT_MS, config.HEADERS_TIMEOUT_MS),
+      connectionsCheckingInterval: 1000,
+    },
+    app,
+  );
   server.keepAliveTimeout = 5000;
-  // A client that trickles its headers or body in is cut off instead of holding a socket.
-  server.headersTimeout = 10_000;
-  server.requestTimeout = 30_000;
   await new Promise<void>((resolve) => server.listen(config.PORT, config.HOST, resolve));
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
@@ -70,6 +77,7 @@ async function main() {
     force.unref();
     server.close(async () => {
       await app.locals.jobRunner?.stop();
+      await closePdfBrowser();
       await Promise.allSettled([dataSource.destroy(), sessionPool.end(), mailCatcher?.close()]);
       process.exit(0);
     });

@@ -26,10 +26,8 @@ function failAll(error: Error) {
 
 function getWorker(): Worker {
   if (worker) return worker;
-  // The worker is TypeScript: load it through tsx whether or not this process was started so.
-  const created = new Worker(new URL('./parse-worker.ts', import.meta.url), {
-    execArgv: ['--import', 'tsx'],
-  });
+  // The worker is TypeScript: its entry registers tsx first, however this process was started.
+  const created = new Worker(new URL('./parse-worker-entry.mjs', import.meta.url));
   created.unref();
   created.on('message', (message: { id: number; result?: ParsedImport; error?: string }) => {
     const job = pending.get(message.id);

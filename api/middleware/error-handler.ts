@@ -1,7 +1,7 @@
 // The only place that writes error JSON: { error: { code, message, fields?, rows? } }.
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
-import { AppError } from '../errors';
+import { AppError, Busy } from '../errors';
 
 /** Turns a zod issue path into the dotted field name the client shows the message beside. */
 function fieldName(path: readonly PropertyKey[]): string {
@@ -101,6 +101,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return;
   }
   if (err instanceof AppError) {
+    if (err instanceof Busy) res.set('Retry-After', String(err.retryAfterSeconds));
     res
       .status(err.status)
       .json({ error: { code: err.code, message: err.message, ...err.details } });

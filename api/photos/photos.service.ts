@@ -47,7 +47,7 @@ function present(row: Attachment, uploader: string | null): PhotoDto {
  * position, camera serial or time) except its colour profile, plus a small JPEG preview.
  */
 async function cleanPhoto(buffer: Buffer, mime: PhotoType) {
-  const upright = () => sharp(buffer, { failOn: 'error' }).rotate().keepIccProfile();
+  const upright = () => sharp(buffer, { failOn: 'none' }).rotate().keepIccProfile();
   const full =
     mime === 'image/jpeg'
       ? upright().jpeg({ quality: 90, mozjpeg: true })

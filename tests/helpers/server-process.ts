@@ -32,7 +32,7 @@ export async function startServerProcess(
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error('server did not start')), 30_000);
+    const timer = setTimeout(() => reject(new Error('server did not start')), 60_000);
     child.stdout!.on('data', (chunk: Buffer) => {
       if (chunk.toString().includes('listening on')) {
         clearTimeout(timer);

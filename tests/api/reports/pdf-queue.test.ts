@@ -1,0 +1,104 @@
+// PDF printing goes through one shared Chromium with a small bounded queue (429 with
+// Retry-After beyond it), and a repeated request for an unchanged report reuses the stored PDF.
+import fs from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Busy } from '../../../api/errors';
+import { closePdfBrowser, pdfRenderCount, siteReportPdf } from '../../../api/reports/reports.pdf';
+import { createTestApp, demoIds, signIn, type Client, type TestApp } from '../../helpers/app';
+
+/** Processes descended from this test process whose command name mentions Chromium. */
+function chromiumDescendants(): number {
+  const parents = new Map<number, number>();
+  const names = new Map<number, string>();
+  for (const entry of fs.readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const stat = fs.readFileSync(`/proc/${entry}/stat`, 'utf8');
+      const close = stat.lastIndexOf(')');
+      names.set(Number(entry), stat.slice(stat.indexOf('(') + 1, close));
+      parents.set(Number(entry), Number(stat.slice(close + 2).split(' ')[1]));
+    } catch {
+      // The process ended while we looked.
+    }
+  }
+  let count = 0;
+  for (const [pid, name] of names) {
+    if (!/chrom/i.test(name)) continue;
+    for (let up = parents.get(pid); up !== undefined && up > 1; up = parents.get(up)) {
+      if (up === process.pid) {
+        count += 1;
+        break;
+      }
+    }
+  }
+  return count;
+}
+
+const binary = (res: import('supertest').Response) => res.body as Buffer;
+
+describe('PDF printing queue', () => {
+  let t: TestApp;
+  let coordinator: Client;
+  let siteIds: string[];
+  beforeAll(async () => {
+    t = await createTestApp();
+    coordinator = await signIn(t.app, 'coordinator@millbrook.example');
+    siteIds = (await demoIds(t.dataSource)).sites.map((s) => s.id);
+  });
+  afterAll(async () => {
+    await closePdfBrowser();
+    await t.close();
+  });
+
+  const getPdf = (url: string) =>
+    coordinator.agent
+      .get(url)
+      .buffer(true)
+      .parse((response, callback) => {
+        const chunks: Buffer[] = [];
+        response.on('data', (chunk: Buffer) => chunks.push(chunk));
+        response.on('end', () => callback(null, Buffer.concat(chunks)));
+      });
+
+  it('prints eight reports at once with one browser, refusing the overflow with Retry-After', async () => {
+    expect(siteIds).toHaveLength(8);
+    // The eight reports' data, read first, so the printing below is all that runs at once.
+    const reports = await Promise.all(
+      siteIds.map(async (id) => (await coordinator.get(`/api/sites/${id}/report`)).body),
+    );
+    await t.dataSource.query('DELETE FROM report_pdfs');
+    let most = 0;
+    const watch = setInterval(() => (most = Math.max(most, chromiumDescendants())), 100);
+    // Six fill the two printing slots and the four waiting places…
+    const queued = reports.slice(0, 6).map((report) => siteReportPdf(report, t.dataSource));
+    await new Promise((resolve) => setTimeout(resolve, 200));
+    // …so the seventh, over HTTP, is told when to come back, and so is the eighth.
+    const overHttp = await getPdf(`/api/sites/${siteIds[6]}/report.pdf`);
+    const direct = await siteReportPdf(reports[7], t.dataSource).catch((error: unknown) => error);
+    const printed = await Promise.all(queued);
+    clearInterval(watch);
+
+    expect(overHttp.status).toBe(429);
+    expect(Number(overHttp.headers['retry-after'])).toBeGreaterThan(0);
+    expect(JSON.parse(String(overHttp.body)).error.code).toBe('rate_limited');
+    expect(direct).toBeInstanceOf(Busy);
+    for (const pdf of printed) expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    // One Chromium is a handful of processes (browser, zygotes, utility, renderers); a browser
+    // per request made 87 for eight requests. Common practice, no published source.
+    expect(most).toBeGreaterThan(0);
+    expect(most).toBeLessThanOrEqual(20);
+  });
+
+  it('serves a repeated request for an unchanged report from the stored PDF', async () => {
+    const url = `/api/sites/${siteIds[0]}/report.pdf`;
+    const first = await getPdf(url);
+    expect(first.status).toBe(200);
+    const printedBefore = pdfRenderCount();
+    const again = await getPdf(url);
+    expect(again.status).toBe(200);
+    expect(pdfRenderCount()).toBe(printedBefore);
+    expect(Buffer.compare(binary(again), binary(first))).toBe(0);
+    const rows = await t.dataSource.query('SELECT count(*)::int AS n FROM report_pdfs');
+    expect(rows[0].n).toBeGreaterThanOrEqual(1);
+  });
+});
