@@ -10,7 +10,7 @@ import {
 import { AppError, Unauthenticated } from '../errors';
 import type { Policies } from '../middleware/access';
 import { CSRF_HEADER, type Csrf } from '../middleware/csrf';
-import { PgRateLimitStore } from '../middleware/pg-rate-limit-store';
+import { PostgresRateLimitStore } from '../middleware/rate-limit-store';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 import type { AuthService } from './auth.service';
 import { createSignInLimiter } from './sign-in-limiter';
@@ -52,7 +52,7 @@ export function createAuthRouter(deps: {
     limit: deps.loginLimit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    store: new PgRateLimitStore(deps.dataSource, 'password-reset:'),
+    store: new PostgresRateLimitStore(deps.dataSource, 'password-reset:'),
     handler: tooMany('Too many reset requests; wait a few minutes'),
   });
 

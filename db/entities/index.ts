@@ -7,16 +7,17 @@ import { Network } from './network.entity';
 import { Observation } from './observation.entity';
 import { PasswordResetToken } from './password-reset-token.entity';
 import { RateLevelRow } from './rate-level.entity';
+import { RateLimitHit } from './rate-limit-hit.entity';
 import { ReportSnapshot } from './report-snapshot.entity';
 import { Site } from './site.entity';
 import { Strip } from './strip.entity';
 import { Trial } from './trial.entity';
 import { User } from './user.entity';
 import { SignInFailure } from './sign-in-failure.entity';
-import { RateLimitCounter } from './rate-limit-counter.entity';
 import { Job } from './job.entity';
 import { IdempotencyKey } from './idempotency-key.entity';
 import { ReportPdf } from './report-pdf.entity';
+import { UserSession } from './user-session.entity';
 
 export const ENTITIES = [
   User,
@@ -33,8 +34,9 @@ export const ENTITIES = [
   AuditEvent,
   ReportSnapshot,
   SignInFailure,
-  RateLimitCounter,
   Job,
   IdempotencyKey,
   ReportPdf,
+  UserSession,
+  RateLimitHit,
 ];

@@ -1,4 +1,4 @@
-// Shared state for several worker processes: sign-in failures, rate-limit counters, the job
+// Shared state for several worker processes: sign-in failures, the job
 // queue, idempotency keys and stored report PDFs; photo thumbnails.
 import type { MigrationInterface, QueryRunner } from 'typeorm';
 
@@ -16,12 +16,6 @@ export class SecurityTables1765100000000 implements MigrationInterface {
       CREATE INDEX sign_in_failures_account_address ON sign_in_failures (account, address, failed_at);
       CREATE INDEX sign_in_failures_address ON sign_in_failures (address, failed_at);
       CREATE INDEX sign_in_failures_failed_at ON sign_in_failures (failed_at);
-
-      CREATE TABLE rate_limit_counters (
-        key text PRIMARY KEY,
-        hits integer NOT NULL,
-        reset_at timestamptz NOT NULL
-      );
 
       CREATE TABLE jobs (
         id uuid PRIMARY KEY DEFAULT gen_random_uuid(),
@@ -65,7 +59,7 @@ export class SecurityTables1765100000000 implements MigrationInterface {
     await queryRunner.query(`
       ALTER TABLE attachments DROP COLUMN thumbnail_name;
       DROP TABLE report_pdfs; DROP TABLE idempotency_keys; DROP TABLE jobs;
-      DROP TABLE rate_limit_counters; DROP TABLE sign_in_failures;
+      DROP TABLE sign_in_failures;
     `);
   }
 }

@@ -3,7 +3,6 @@
 // (another worker process) sees the same counts.
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Express } from 'express';
 import {
   buildNetwork,
   createTestApp,
@@ -13,7 +12,7 @@ import {
 } from '../../helpers/app';
 
 /** One sign-in attempt from a given client address (TRUST_PROXY=on reads X-Forwarded-For). */
-async function signInFrom(app: Express, address: string, email: string, password: string) {
+async function signInFrom(app: string, address: string, email: string, password: string) {
   const agent = request.agent(app);
   const csrf = await agent.get('/api/auth/csrf').set('X-Forwarded-For', address);
   return agent
