@@ -107,7 +107,6 @@ export function createApp(deps: AppDeps): Express {
     mailer: deps.mailer,
     publicUrl: config.PUBLIC_URL,
     jobQueue: deps.jobs?.queue,
-    onJobQueued: () => jobRunner?.poke(),
   });
   if (deps.jobs)
     jobRunner = startJobRunner(dataSource, auth.jobHandlers, {

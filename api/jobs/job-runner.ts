@@ -95,7 +95,9 @@ export function startJobRunner(
       await runOne(job);
       ran += 1;
     }
-    await jobs.delete({ doneAt: LessThan(new Date(Date.now() - KEEP_DONE_MS)), queue });
+    // Finished jobs are kept a day for operators; clearing them now and then is enough.
+    if (ran > 0 || Math.random() < 0.01)
+      await jobs.delete({ doneAt: LessThan(new Date(Date.now() - KEEP_DONE_MS)), queue });
     return ran;
   }
 

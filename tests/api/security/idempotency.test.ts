@@ -67,12 +67,15 @@ describe('Idempotency-Key', () => {
   it('keeps keys in PostgreSQL for 24 hours', async () => {
     const key = `form-${net.suffix}-3`;
     await postTrial(`Kept ${net.suffix}`, key);
-    const rows = await t.dataSource.query(
-      'SELECT status, created_at FROM idempotency_keys WHERE key = $1',
-      [key],
-    );
+    // The answer is stored as the response finishes: give it a moment.
+    let rows: { status: number | null }[] = [];
+    for (let i = 0; i < 40; i += 1) {
+      rows = await t.dataSource.query('SELECT status FROM idempotency_keys WHERE key = $1', [key]);
+      if (rows[0]?.status) break;
+      await new Promise((resolve) => setTimeout(resolve, 50));
+    }
     expect(rows).toHaveLength(1);
-    expect(rows[0].status).toBe(201);
+    expect(rows[0]?.status).toBe(201);
     await t.dataSource.query(
       `UPDATE idempotency_keys SET created_at = now() - interval '25 hours' WHERE key = $1`,
       [key],
