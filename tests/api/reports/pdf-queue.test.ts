@@ -1,7 +1,10 @@
 // PDF printing goes through one shared Chromium with a small bounded queue (429 with
 // Retry-After beyond it), and a repeated request for an unchanged report reuses the stored PDF.
 import fs from 'node:fs';
+import express from 'express';
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { errorHandler } from '../../../api/middleware/error-handler';
 import { Busy } from '../../../api/errors';
 import { closePdfBrowser, siteReportPdf } from '../../../api/reports/reports.pdf';
 import { createTestApp, demoIds, signIn, type Client, type TestApp } from '../../helpers/app';
@@ -71,24 +74,36 @@ describe('PDF printing queue', () => {
     await Promise.all(Array.from({ length: 5 }, () => t.dataSource.query('SELECT pg_sleep(0.05)')));
     let most = 0;
     const watch = setInterval(() => (most = Math.max(most, chromiumDescendants())), 100);
-    // Six fill the two printing slots and the four waiting places…
-    const queued = reports.slice(0, 6).map((report) => siteReportPdf(report, t.dataSource));
-    await new Promise((resolve) => setTimeout(resolve, 200));
-    // …so the seventh, over HTTP, is told when to come back, and so is the eighth.
-    const overHttp = await getPdf(`/api/sites/${siteIds[6]}/report.pdf`);
-    const direct = await siteReportPdf(reports[7], t.dataSource).catch((error: unknown) => error);
-    const printed = await Promise.all(queued);
+    // Six fill the two printing slots and the four waiting places; the next two are refused.
+    const outcomes = await Promise.allSettled(
+      reports.map((report) => siteReportPdf(report, t.dataSource)),
+    );
     clearInterval(watch);
-
-    expect(overHttp.status).toBe(429);
-    expect(Number(overHttp.headers['retry-after'])).toBeGreaterThan(0);
-    expect(JSON.parse(String(overHttp.body)).error.code).toBe('rate_limited');
-    expect(direct).toBeInstanceOf(Busy);
+    const printed = outcomes.flatMap((o) => (o.status === 'fulfilled' ? [o.value] : []));
+    const refused = outcomes.flatMap((o) => (o.status === 'rejected' ? [o.reason] : []));
+    expect(printed).toHaveLength(6);
+    expect(refused).toHaveLength(2);
+    for (const error of refused) {
+      expect(error).toBeInstanceOf(Busy);
+      expect(error.retryAfterSeconds).toBeGreaterThan(0);
+    }
     for (const pdf of printed) expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
     // One Chromium is a handful of processes (browser, zygotes, utility, renderers); a browser
     // per request made 87 for eight requests. Common practice, no published source.
     expect(most).toBeGreaterThan(0);
     expect(most).toBeLessThanOrEqual(20);
+  });
+
+  it('answers a refused print with 429, a Retry-After header and the usual error body', async () => {
+    const app = express();
+    app.get('/busy', () => {
+      throw new Busy(5);
+    });
+    app.use(errorHandler);
+    const res = await request(app).get('/busy');
+    expect(res.status).toBe(429);
+    expect(res.headers['retry-after']).toBe('5');
+    expect(res.body.error.code).toBe('rate_limited');
   });
 
   it('serves a repeated request for an unchanged report from the stored PDF', async () => {
