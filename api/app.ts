@@ -27,7 +27,7 @@ import { createPolicies } from './middleware/access';
 import { createCsrf } from './middleware/csrf';
 import { rejectUnsafeText } from './middleware/body-guard';
 import { idempotency } from './middleware/idempotency';
-import { startJobRunner, type JobRunner } from './jobs/job-runner';
+import { startJobRunner, type JobRunner } from './lib/job-runner';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
 import { createReportsRouter } from './reports/reports.router';
@@ -136,7 +136,7 @@ export function createApp(deps: AppDeps): Express {
   // Health answers before sessions so it works with the database down.
   app.use('/api', createHealthRouter(ctx));
 
-  const passport = createPassport(auth);
+  const passport = createPassport(auth, dataSource);
   app.use('/api', express.json({ limit: '1mb' }));
   app.use('/api', rejectUnsafeText);
   app.use('/api', createSessionMiddleware(config, deps.sessionPool));

@@ -12,6 +12,7 @@ import type { Policies } from '../middleware/access';
 import { CSRF_HEADER, type Csrf } from '../middleware/csrf';
 import { PostgresRateLimitStore } from '../middleware/rate-limit-store';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
+import { logIn } from '../lib/session-login';
 import type { AuthService } from './auth.service';
 import { createSignInLimiter } from './sign-in-limiter';
 
@@ -19,20 +20,6 @@ function tooMany(message: string) {
   return (_req: Request, _res: Response, next: NextFunction) =>
     next(new AppError(429, 'rate_limited', message));
 }
-
-/** Logs the user in and rotates the session id (the CSRF token follows the new session). */
-function logIn(req: Request, user: Express.User): Promise<void> {
-  return new Promise((resolve, reject) => {
-    req.session.regenerate((err) => {
-      if (err) return reject(err);
-      req.login(user, { keepSessionInfo: true } as Parameters<typeof req.login>[1], (loginErr) =>
-        loginErr ? reject(loginErr) : resolve(),
-      );
-    });
-  });
-}
-
-export { logIn };
 
 export function createAuthRouter(deps: {
   auth: AuthService;

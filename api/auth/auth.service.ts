@@ -6,19 +6,15 @@ import { PasswordResetToken } from '../../db/entities/password-reset-token.entit
 import { User } from '../../db/entities/user.entity';
 import type { SessionUser } from '../../shared/schemas/auth';
 import { AppError } from '../errors';
-import { enqueueJob, type JobHandlers } from '../jobs/job-runner';
+import { enqueueJob, type JobHandlers } from '../lib/job-runner';
 import { composeMail, type Mailer } from '../mail/mailer';
+import { BCRYPT_COST, hashPassword } from '../lib/passwords';
 import { hashToken, newToken } from '../lib/tokens';
 
-export const BCRYPT_COST = 11;
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
 export const RESET_MAIL_JOB = 'password-reset-mail';
 // Compared against when the e-mail is unknown, so both failures take about as long.
 const DUMMY_HASH = bcrypt.hashSync('sheaf-timing-equaliser', BCRYPT_COST);
-
-export function hashPassword(password: string): Promise<string> {
-  return bcrypt.hash(password, BCRYPT_COST);
-}
 
 export function createAuthService(deps: {
   dataSource: DataSource;

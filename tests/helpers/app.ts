@@ -12,7 +12,7 @@ import { createApp } from '../../api/app';
 import { readConfig, type AppConfig } from '../../api/config/env';
 import type { RouteEntry } from '../../api/lib/route-table';
 import { fetchCaughtMail } from '../../api/mail/mail-catcher';
-import { hashPassword } from '../../api/auth/auth.service';
+import { hashPassword } from '../../api/lib/passwords';
 import { createDataSource } from '../../db/data-source';
 import type { CaughtMail } from '../../shared/schemas/auth';
 import { freePort, startApiServer } from './spawn-server';
@@ -34,6 +34,8 @@ export interface TestApp {
   mailCatcher: MailReader;
   /** Every route and its access policy, as the app registers them. */
   routes: RouteEntry[];
+  /** The environment the server was started with (to start another one like it). */
+  serverEnv: Record<string, string>;
   close(): Promise<void>;
 }
 
@@ -107,6 +109,7 @@ export async function createTestApp(
     dataSource,
     mailCatcher: mailReader(shared.catcherUrl),
     routes: routeTable(config, dataSource),
+    serverEnv,
     async close() {
       await Promise.allSettled([dataSource.destroy(), stop()]);
     },
