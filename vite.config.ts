@@ -138,7 +138,8 @@ export default defineConfig({
   build: {
     outDir: 'dist/web',
     emptyOutDir: true,
-    sourcemap: true,
+    // No source maps in the served build: they would publish the full source.
+    sourcemap: false,
     // The lazily loaded chart chunk is ~0.9 MB; every page a first visit loads stays far below this.
     chunkSizeWarningLimit: 1000,
     rolldownOptions: {

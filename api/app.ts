@@ -24,7 +24,10 @@ import type { RouteEntry } from './lib/route-table';
 import type { RouterContext } from './lib/router-context';
 import type { Mailer } from './mail/mailer';
 import { createPolicies } from './middleware/access';
-import { requireCsrf } from './middleware/csrf';
+import { createCsrf } from './middleware/csrf';
+import { rejectUnsafeText } from './middleware/body-guard';
+import { idempotency } from './middleware/idempotency';
+import { startJobRunner, type JobRunner } from './lib/job-runner';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
 import { createReportsRouter } from './reports/reports.router';
@@ -37,6 +40,8 @@ export interface AppDeps {
   /** pg pool for the session store. */
   sessionPool: pg.Pool;
   mailer: Mailer;
+  /** Run background jobs (password-reset mail) of this queue in this process. */
+  jobs?: { queue: string; pollMs?: number };
 }
 
 /**
@@ -96,7 +101,23 @@ export function createApp(deps: AppDeps): Express {
   );
 
   const policies = createPolicies(dataSource);
-  const auth = createAuthService({ dataSource, mailer: deps.mailer, publicUrl: config.PUBLIC_URL });
+  let jobRunner: JobRunner | null = null;
+  const auth = createAuthService({
+    dataSource,
+    mailer: deps.mailer,
+    publicUrl: config.PUBLIC_URL,
+    jobQueue: deps.jobs?.queue,
+  });
+  if (deps.jobs)
+    jobRunner = startJobRunner(dataSource, auth.jobHandlers, {
+      queue: deps.jobs.queue,
+      pollMs: deps.jobs.pollMs,
+    });
+  app.locals.jobRunner = jobRunner;
+  const csrf = createCsrf({
+    secret: config.SESSION_SECRET,
+    secure: config.NODE_ENV === 'production',
+  });
   const invitations = createInvitationsService({
     dataSource,
     mailer: deps.mailer,
@@ -117,15 +138,24 @@ export function createApp(deps: AppDeps): Express {
 
   const passport = createPassport(auth, dataSource);
   app.use('/api', express.json({ limit: '1mb' }));
+  app.use('/api', rejectUnsafeText);
   app.use('/api', createSessionMiddleware(config, deps.sessionPool));
   // passport.session() sets up req.login/logout itself; initialize() only adds a compatibility
   // shim for old strategies, and cost ~5 % of a cached report request.
   app.use('/api', passport.session());
-  app.use('/api', requireCsrf);
+  app.use('/api', csrf.require);
+  app.use('/api', idempotency(dataSource));
 
   app.use(
     '/api/auth',
-    createAuthRouter({ auth, policies, table, loginLimit: config.RATE_LIMIT_LOGIN }),
+    createAuthRouter({
+      auth,
+      policies,
+      table,
+      loginLimit: config.RATE_LIMIT_LOGIN,
+      dataSource,
+      csrf,
+    }),
   );
   app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_LOGIN * 5 }));
   app.use('/api', createHomeRouter(ctx));

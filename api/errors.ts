@@ -56,3 +56,14 @@ export class ServiceUnavailable extends AppError {
     super(503, 'service_unavailable', message);
   }
 }
+
+/** Too much work queued (e.g. PDF printing): 429 with a Retry-After header. */
+export class Busy extends AppError {
+  constructor(readonly retryAfterSeconds: number) {
+    super(
+      429,
+      'rate_limited',
+      `The server is busy printing; try again in ${retryAfterSeconds} seconds`,
+    );
+  }
+}

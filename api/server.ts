@@ -10,6 +10,7 @@ import { createDataSource } from '../db/data-source';
 import { createApp } from './app';
 import { readConfig, type AppConfig } from './config/env';
 import { createSmtpMailer } from './mail/mailer';
+import { closePdfBrowser } from './reports/reports.pdf';
 
 async function connectWithRetry(init: () => Promise<unknown>, attempts = 30): Promise<void> {
   for (let i = 1; ; i += 1) {
@@ -39,8 +40,23 @@ async function serve(config: AppConfig, announce: (port: number) => void) {
     port: config.SMTP_PORT,
     from: config.MAIL_FROM,
   });
-  const app = createApp({ config, dataSource, sessionPool, mailer });
-  const server = http.createServer(app);
+  const app = createApp({
+    config,
+    dataSource,
+    sessionPool,
+    mailer,
+    jobs: { queue: 'default' },
+  });
+  // A client that trickles its headers or body in is cut off (408) instead of holding a socket;
+  // the timeouts are checked every second rather than Node's default 30 s.
+  const server = http.createServer(
+    {
+      headersTimeout: config.HEADERS_TIMEOUT_MS,
+      requestTimeout: Math.max(config.REQUEST_TIMEOUT_MS, config.HEADERS_TIMEOUT_MS),
+      connectionsCheckingInterval: 1000,
+    },
+    app,
+  );
   server.keepAliveTimeout = 5000;
   await new Promise<void>((resolve) => server.listen(config.PORT, config.HOST, resolve));
   const address = server.address();
@@ -53,6 +69,8 @@ async function serve(config: AppConfig, announce: (port: number) => void) {
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
     server.close(async () => {
+      await app.locals.jobRunner?.stop();
+      await closePdfBrowser();
       await Promise.allSettled([dataSource.destroy(), sessionPool.end()]);
       process.exit(0);
     });

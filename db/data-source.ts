@@ -4,6 +4,7 @@ import { DataSource } from 'typeorm';
 import { ENTITIES } from './entities/index';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
 import { RateLimitHits1765000000000 } from './migrations/1765000000000-rate-limit-hits';
+import { SecurityTables1765100000000 } from './migrations/1765100000000-security-tables';
 
 export function createDataSource(
   databaseUrl: string,
@@ -13,7 +14,11 @@ export function createDataSource(
     type: 'postgres',
     url: databaseUrl,
     entities: ENTITIES,
-    migrations: [InitialSchema1764633600000, RateLimitHits1765000000000],
+    migrations: [
+      InitialSchema1764633600000,
+      RateLimitHits1765000000000,
+      SecurityTables1765100000000,
+    ],
     synchronize: false,
     migrationsRun: false,
     uuidExtension: 'pgcrypto',

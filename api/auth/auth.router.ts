@@ -1,6 +1,7 @@
 // Sign-in, sign-out, the current user, CSRF token and password reset.
 import { Router, type NextFunction, type Request, type Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
+import type { DataSource } from 'typeorm';
 import {
   LoginInputSchema,
   PasswordResetCompleteSchema,
@@ -8,10 +9,12 @@ import {
 } from '../../shared/schemas/auth';
 import { AppError, Unauthenticated } from '../errors';
 import type { Policies } from '../middleware/access';
-import { csrfTokenFor } from '../middleware/csrf';
+import { CSRF_HEADER, type Csrf } from '../middleware/csrf';
+import { PostgresRateLimitStore } from '../middleware/rate-limit-store';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 import { logIn } from '../lib/session-login';
 import type { AuthService } from './auth.service';
+import { createSignInLimiter } from './sign-in-limiter';
 
 function tooMany(message: string) {
   return (_req: Request, _res: Response, next: NextFunction) =>
@@ -23,48 +26,46 @@ export function createAuthRouter(deps: {
   policies: Policies;
   table: RouteEntry[];
   loginLimit: number;
+  dataSource: DataSource;
+  csrf: Csrf;
 }) {
   const router = Router();
   const routes = secureRouter(router, deps.table, '/api/auth');
-  const { auth, policies } = deps;
+  const { auth, policies, csrf } = deps;
+  const limiter = createSignInLimiter(deps.dataSource, deps.loginLimit);
 
-  const perIp = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: deps.loginLimit * 5,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: tooMany('Too many sign-in attempts from here; wait a few minutes'),
-  });
-  const perAccount = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: deps.loginLimit,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: (req) =>
-      `account:${String(req.body?.email ?? '')
-        .trim()
-        .toLowerCase()}`,
-    handler: tooMany('Too many sign-in attempts for this account; wait a few minutes'),
-  });
   const resetLimit = rateLimit({
     windowMs: 15 * 60 * 1000,
     limit: deps.loginLimit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    store: new PostgresRateLimitStore(deps.dataSource, 'password-reset:'),
     handler: tooMany('Too many reset requests; wait a few minutes'),
   });
 
   routes.get('/csrf', policies.public, (req, res) => {
-    res.json({ csrfToken: csrfTokenFor(req) });
+    res.set('Cache-Control', 'no-store');
+    res.json({ csrfToken: csrf.tokenFor(req, res) });
   });
 
-  routes.post('/login', policies.public, perIp, perAccount, async (req, res) => {
+  routes.post('/login', policies.public, async (req, res) => {
     const input = LoginInputSchema.parse(req.body);
+    const address = req.ip ?? 'unknown';
+    if (await limiter.isBlocked(input.email, address)) {
+      throw new AppError(
+        429,
+        'rate_limited',
+        'Too many wrong passwords for this account from here; wait 15 minutes or reset the password',
+      );
+    }
     const user = await auth.verifyPassword(input.email, input.password);
-    if (!user) throw new Unauthenticated('The e-mail or password is not right');
+    if (!user) {
+      await limiter.recordFailure(input.email, address);
+      throw new Unauthenticated('The e-mail or password is not right');
+    }
+    await limiter.recordSuccess(input.email, address);
     await logIn(req, user);
+    res.set(CSRF_HEADER, csrf.tokenFor(req, res));
     res.json(await auth.describeUser(user.id));
   });
 
@@ -74,6 +75,7 @@ export function createAuthRouter(deps: {
     );
     await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
     res.clearCookie('sheaf.sid');
+    csrf.clear(res);
     res.status(204).end();
   });
 

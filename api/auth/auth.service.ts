@@ -1,14 +1,18 @@
 // Accounts: password checks, the session user with memberships, password reset by e-mail.
 import bcrypt from 'bcryptjs';
-import type { DataSource } from 'typeorm';
+import { IsNull, MoreThan, type DataSource } from 'typeorm';
+import { Membership } from '../../db/entities/membership.entity';
+import { PasswordResetToken } from '../../db/entities/password-reset-token.entity';
+import { User } from '../../db/entities/user.entity';
 import type { SessionUser } from '../../shared/schemas/auth';
-import type { Role } from '../../shared/schemas/common';
 import { AppError } from '../errors';
+import { enqueueJob, type JobHandlers } from '../lib/job-runner';
 import { composeMail, type Mailer } from '../mail/mailer';
 import { BCRYPT_COST, hashPassword } from '../lib/passwords';
 import { hashToken, newToken } from '../lib/tokens';
 
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
+export const RESET_MAIL_JOB = 'password-reset-mail';
 // Compared against when the e-mail is unknown, so both failures take about as long.
 const DUMMY_HASH = bcrypt.hashSync('sheaf-timing-equaliser', BCRYPT_COST);
 
@@ -16,59 +20,69 @@ export function createAuthService(deps: {
   dataSource: DataSource;
   mailer: Mailer;
   publicUrl: string;
+  /** The job queue this app's background mail goes to (tests give each app its own). */
+  jobQueue?: string;
 }) {
   const { dataSource, mailer, publicUrl } = deps;
+  const users = dataSource.getRepository(User);
+  const jobQueue = deps.jobQueue ?? 'default';
 
   async function verifyPassword(email: string, password: string) {
-    const rows: { id: string; email: string; name: string; password_hash: string }[] =
-      await dataSource.query('SELECT id, email, name, password_hash FROM users WHERE email = $1', [
-        email.trim().toLowerCase(),
-      ]);
-    const user = rows[0];
-    const ok = await bcrypt.compare(password, user?.password_hash ?? DUMMY_HASH);
+    const user = await users.findOne({
+      select: { id: true, email: true, name: true, passwordHash: true },
+      where: { email: email.trim().toLowerCase() },
+    });
+    const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
     if (!user || !ok) return null;
     return { id: user.id, email: user.email, name: user.name };
   }
 
   async function findSessionUser(id: string) {
-    const rows: { id: string; email: string; name: string }[] = await dataSource.query(
-      'SELECT id, email, name FROM users WHERE id = $1',
-      [id],
-    );
-    return rows[0] ?? null;
+    return users.findOne({ select: { id: true, email: true, name: true }, where: { id } });
   }
 
   async function describeUser(id: string): Promise<SessionUser> {
     const user = await findSessionUser(id);
     if (!user) throw new AppError(401, 'unauthenticated', 'Sign in to continue');
-    const memberships: { network_id: string; name: string; role: Role }[] = await dataSource.query(
-      `SELECT m.network_id, n.name, m.role FROM memberships m JOIN networks n ON n.id = m.network_id
-        WHERE m.user_id = $1 ORDER BY n.name`,
-      [id],
-    );
+    const memberships = await dataSource
+      .getRepository(Membership)
+      .createQueryBuilder('m')
+      .innerJoinAndSelect('m.network', 'n')
+      .where('m.userId = :id', { id })
+      .orderBy('n.name')
+      .getMany();
     return {
-      ...user,
+      id: user.id,
+      email: user.email,
+      name: user.name,
       memberships: memberships.map((m) => ({
-        networkId: m.network_id,
-        networkName: m.name,
+        networkId: m.networkId,
+        networkName: m.network!.name,
         role: m.role,
       })),
     };
   }
 
-  /** Sends a reset link when the address has an account; says nothing either way. */
+  /**
+   * Queues the reset mail and returns: known and unknown addresses cost the same one insert,
+   * so the answer's timing says nothing about which addresses have accounts.
+   */
   async function requestPasswordReset(email: string): Promise<void> {
-    const rows: { id: string; name: string }[] = await dataSource.query(
-      'SELECT id, name FROM users WHERE email = $1',
-      [email],
-    );
-    const user = rows[0];
+    // No nudge to this process's runner: the mail goes out at the next poll of any worker, so
+    // the work after a known address does not slow this process's next answers either.
+    await enqueueJob(dataSource.manager, jobQueue, RESET_MAIL_JOB, { email });
+  }
+
+  /** The job: writes a token and sends the link when the address has an account. */
+  async function sendPasswordResetMail(email: string): Promise<void> {
+    const user = await users.findOne({ select: { id: true, name: true }, where: { email } });
     if (!user) return;
     const { token, hash } = newToken();
-    await dataSource.query(
-      'INSERT INTO password_reset_tokens (user_id, token_hash, expires_at) VALUES ($1, $2, $3)',
-      [user.id, hash, new Date(Date.now() + RESET_LIFETIME_MS)],
-    );
+    await dataSource.getRepository(PasswordResetToken).insert({
+      userId: user.id,
+      tokenHash: hash,
+      expiresAt: new Date(Date.now() + RESET_LIFETIME_MS),
+    });
     await mailer.send(
       composeMail({
         to: email,
@@ -85,36 +99,32 @@ export function createAuthService(deps: {
   async function completePasswordReset(token: string, password: string): Promise<void> {
     const passwordHash = await hashPassword(password);
     await dataSource.transaction(async (manager) => {
-      const rows: { id: string; user_id: string }[] = await manager.query(
-        `SELECT id, user_id FROM password_reset_tokens
-          WHERE token_hash = $1 AND used_at IS NULL AND expires_at > now() FOR UPDATE`,
-        [hashToken(token)],
-      );
-      const row = rows[0];
+      const tokens = manager.getRepository(PasswordResetToken);
+      const row = await tokens.findOne({
+        where: { tokenHash: hashToken(token), usedAt: IsNull(), expiresAt: MoreThan(new Date()) },
+        lock: { mode: 'pessimistic_write' },
+      });
       if (!row) {
         throw new AppError(
           400,
           'validation_failed',
           'This reset link is invalid, used or expired; ask for a new one',
-          {
-            fields: { token: 'invalid, used or expired' },
-          },
+          { fields: { token: 'invalid, used or expired' } },
         );
       }
-      await manager.query('UPDATE users SET password_hash = $1 WHERE id = $2', [
-        passwordHash,
-        row.user_id,
-      ]);
-      await manager.query(
-        'UPDATE password_reset_tokens SET used_at = now() WHERE user_id = $1 AND used_at IS NULL',
-        [row.user_id],
-      );
-      // Signing out everywhere: a reset usually means the old password leaked.
+      await manager.getRepository(User).update(row.userId, { passwordHash });
+      await tokens.update({ userId: row.userId, usedAt: IsNull() }, { usedAt: new Date() });
+      // Signing out everywhere: a reset usually means the old password leaked. Raw SQL: the
+      // session table belongs to connect-pg-simple (no entity) and the user id is inside jsonb.
       await manager.query(`DELETE FROM user_sessions WHERE sess->'passport'->>'user' = $1`, [
-        row.user_id,
+        row.userId,
       ]);
     });
   }
+
+  const jobHandlers: JobHandlers = {
+    [RESET_MAIL_JOB]: (payload) => sendPasswordResetMail(String(payload.email)),
+  };
 
   return {
     verifyPassword,
@@ -122,6 +132,8 @@ export function createAuthService(deps: {
     describeUser,
     requestPasswordReset,
     completePasswordReset,
+    jobHandlers,
+    jobQueue,
   };
 }
 

@@ -19,6 +19,9 @@ const EnvSchema = z.object({
   WEB_DIST: z.string().default('dist/web'),
   TRUST_PROXY: z.enum(['on', 'off']).default('off'),
   RATE_LIMIT_LOGIN: z.coerce.number().int().min(1).default(10),
+  /** A client must send all its headers within this time, and the whole request within the next. */
+  HEADERS_TIMEOUT_MS: z.coerce.number().int().min(100).default(10_000),
+  REQUEST_TIMEOUT_MS: z.coerce.number().int().min(100).default(30_000),
 });
 
 export type AppConfig = z.infer<typeof EnvSchema>;

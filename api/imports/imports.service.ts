@@ -1,8 +1,8 @@
 // CSV import of a site's strip values: all rows checked first, then written in one transaction;
 // a file whose values are already stored changes nothing.
+import iconv from 'iconv-lite';
 import type { DataSource } from 'typeorm';
 import { buildImportTemplate } from '../../shared/import/build-template';
-import { parseImportCsv } from '../../shared/import/parse-import';
 import type { ImportResult } from '../../shared/schemas/import';
 import { ObservationValuesSchema, type ObservationValues } from '../../shared/schemas/observation';
 import { recordAuditsInBulk, type AuditInput } from '../audit/audit.service';
@@ -15,6 +15,10 @@ import {
   lockSiteForChange,
   writeObservationsInBulk,
 } from '../lib/strip-data';
+import { parseImportInWorker } from './csv-parser';
+
+/** How many problems an answer lists; the message counts the rest. */
+export const MAX_LISTED_PROBLEMS = 100;
 
 /** Reads an uploaded file as CSV text, refusing anything that is not text by its content. */
 export async function csvText(buffer: Buffer, declaredType: string): Promise<string> {
@@ -37,8 +41,9 @@ export async function csvText(buffer: Buffer, declaredType: string): Promise<str
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(buffer);
   } catch {
-    // Older spreadsheet programs save CSV in the Windows Western encoding.
-    return new TextDecoder('windows-1252').decode(buffer);
+    // Older spreadsheet programs save CSV in the Windows Western encoding. Not TextDecoder:
+    // Node 20's 'windows-1252' decoder reads bytes 0x80–0x9F as control characters (latin1).
+    return iconv.decode(buffer, 'win1252');
   }
 }
 
@@ -67,19 +72,36 @@ export function createImportsService(deps: { dataSource: DataSource }) {
     },
 
     async importCsv(siteId: string, text: string, actorUserId: string): Promise<ImportResult> {
+      // Parsed before the transaction, in a worker thread: a large file neither blocks other
+      // requests nor holds the site's lock while it is read. The layout of strips (block,
+      // position, rate) does not change once a trial is randomized.
+      const siteBefore = await loadSite(dataSource.manager, siteId);
+      const parsed = await parseImportInWorker(text, {
+        unitSystem: siteBefore.unitSystem,
+        fieldName: siteBefore.fieldName,
+        strips: (await loadSiteStrips(dataSource.manager, siteId)).map((s) => ({
+          block: s.block,
+          position: s.position,
+          label: s.label,
+          rate: s.rate,
+        })),
+      });
       return dataSource.transaction(async (manager) => {
         const site = await lockSiteForChange(manager, siteId);
         const strips = await loadSiteStrips(manager, siteId, { lock: true });
-        const parsed = parseImportCsv(text, {
-          unitSystem: site.unitSystem,
-          fieldName: site.fieldName,
-          strips,
-        });
         const byKey = new Map(strips.map((s) => [`${s.block}:${s.position}`, s]));
         const planned = [];
         const errors = [...parsed.errors];
         for (const row of parsed.rows) {
-          const strip = byKey.get(`${row.block}:${row.position}`)!;
+          const strip = byKey.get(`${row.block}:${row.position}`);
+          if (!strip) {
+            errors.push({
+              row: row.row,
+              column: 'position',
+              message: 'This strip is gone; reload the page',
+            });
+            continue;
+          }
           const merged = ObservationValuesSchema.safeParse({ ...strip.values, ...row.patch });
           if (!merged.success) {
             errors.push({
@@ -93,9 +115,11 @@ export function createImportsService(deps: { dataSource: DataSource }) {
         }
         if (errors.length > 0) {
           errors.sort((a, b) => a.row - b.row);
+          const listed = errors.slice(0, MAX_LISTED_PROBLEMS);
+          const more = errors.length - listed.length;
           throw new InvalidRows(
-            `${errors.length === 1 ? 'One problem' : `${errors.length} problems`} in the file; nothing was saved. Fix ${errors.length === 1 ? 'it' : 'them'} and upload again.`,
-            errors,
+            `${errors.length === 1 ? 'One problem' : `${errors.length.toLocaleString('en-US')} problems`} in the file; nothing was saved. Fix ${errors.length === 1 ? 'it' : 'them'} and upload again.${more > 0 ? ` The first ${listed.length} are listed; ${more.toLocaleString('en-US')} more are not shown.` : ''}`,
+            listed,
           );
         }
         const writes: { stripId: string; values: ObservationValues }[] = [];

@@ -10,6 +10,7 @@ import { singleFile } from '../lib/upload';
 import { createPhotosService } from './photos.service';
 
 const ListQuerySchema = z.object({ stripId: z.uuid().optional() });
+const FileQuerySchema = z.object({ size: z.enum(['full', 'thumbnail']).default('full') });
 
 export function createPhotosRouter(ctx: RouterContext) {
   const router = Router();
@@ -42,7 +43,8 @@ export function createPhotosRouter(ctx: RouterContext) {
     '/photos/:photoId',
     ctx.policies.attachmentReader('photoId'),
     async (req, res, next) => {
-      const file = await photos.file(String(req.params.photoId));
+      const query = FileQuerySchema.parse(req.query);
+      const file = await photos.file(String(req.params.photoId), query.size);
       res.set('Content-Type', file.mimeType);
       res.set('Content-Length', String(file.sizeBytes));
       res.set('X-Content-Type-Options', 'nosniff');

@@ -1,7 +1,10 @@
 // PDF export: a print document built on the server (findings, tables and the charts rendered
-// to SVG by Vega in Node) and printed by Chromium through playwright-core.
+// to SVG by Vega in Node), printed by one shared Chromium through playwright-core with a small
+// bounded queue, and stored in PostgreSQL so an unchanged report is not printed again.
+import crypto from 'node:crypto';
 import fs from 'node:fs';
-import { chromium } from 'playwright-core';
+import { chromium, type Browser } from 'playwright-core';
+import { LessThan, type DataSource } from 'typeorm';
 import { parse, View } from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
 import {
@@ -20,6 +23,8 @@ import {
 } from '../../shared/reports/format-numbers';
 import { rateName } from '../../shared/reports/findings';
 import type { PooledReport, SiteReport } from '../../shared/schemas/report';
+import { ReportPdf } from '../../db/entities/report-pdf.entity';
+import { Busy } from '../errors';
 import { escapeHtml as esc } from '../mail/mailer';
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -318,31 +323,135 @@ export async function pooledReportHtml(report: PooledReport): Promise<string> {
   return page(`${trial.name} — network report`, parts.join('\n'));
 }
 
-/** Prints an HTML document to PDF with Debian's Chromium. */
-export async function htmlToPdf(html: string): Promise<Buffer> {
+const MAX_RENDERING = 2;
+const MAX_WAITING = 4;
+const RETRY_AFTER_SECONDS = 5;
+const KEEP_STORED_MS = 30 * 24 * 60 * 60 * 1000;
+
+let browser: Promise<Browser> | null = null;
+let rendering = 0;
+const waiting: (() => void)[] = [];
+/** Same document asked for twice at once: print it once (keyed by the digest of its HTML). */
+const inFlight = new Map<string, Promise<Buffer>>();
+let renders = 0;
+
+/** How many PDFs this process has printed with Chromium (tests check stored PDFs are reused). */
+export function pdfRenderCount(): number {
+  return renders;
+}
+
+/** One Chromium per process, started on first use and again if it crashes. */
+function sharedBrowser(): Promise<Browser> {
   if (!fs.existsSync(CHROMIUM)) throw new Error(`Chromium is not installed at ${CHROMIUM}`);
-  const browser = await chromium.launch({
-    executablePath: CHROMIUM,
-    args: [
-      '--headless',
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--no-first-run',
-    ],
-  });
-  try {
-    const context = await browser.newContext({ javaScriptEnabled: false });
-    const page = await context.newPage();
-    await page.setContent(html, { waitUntil: 'load' });
-    return await page.pdf({
-      format: 'Letter',
-      printBackground: true,
-      margin: { top: '16mm', bottom: '16mm', left: '14mm', right: '14mm' },
+  browser ??= chromium
+    .launch({
+      executablePath: CHROMIUM,
+      args: [
+        '--headless',
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+        '--no-first-run',
+      ],
+    })
+    .then((launched) => {
+      launched.on('disconnected', () => {
+        browser = null;
+      });
+      return launched;
+    })
+    .catch((error: unknown) => {
+      browser = null;
+      throw error;
     });
-  } finally {
-    await browser.close();
+  return browser;
+}
+
+/** Closes the shared browser (server shutdown, tests). */
+export async function closePdfBrowser(): Promise<void> {
+  const current = browser;
+  browser = null;
+  if (current) await (await current).close().catch(() => undefined);
+}
+
+/** Waits for one of the few rendering slots, or refuses at once when the queue is full. */
+async function takeSlot(): Promise<void> {
+  if (rendering < MAX_RENDERING) {
+    rendering += 1;
+    return;
   }
+  if (waiting.length >= MAX_WAITING) throw new Busy(RETRY_AFTER_SECONDS);
+  await new Promise<void>((resolve) => waiting.push(resolve));
+}
+
+function releaseSlot(): void {
+  const next = waiting.shift();
+  if (next) next();
+  else rendering -= 1;
+}
+
+/** Builds the HTML and prints it, holding one of the few slots for both. */
+async function render(html: () => Promise<string>): Promise<Buffer> {
+  await takeSlot();
+  try {
+    const document = await html();
+    const context = await (await sharedBrowser()).newContext({ javaScriptEnabled: false });
+    try {
+      const page = await context.newPage();
+      await page.setContent(document, { waitUntil: 'load' });
+      renders += 1;
+      return await page.pdf({
+        format: 'Letter',
+        printBackground: true,
+        margin: { top: '16mm', bottom: '16mm', left: '14mm', right: '14mm' },
+      });
+    } finally {
+      await context.close().catch(() => undefined);
+    }
+  } finally {
+    releaseSlot();
+  }
+}
+
+/**
+ * Prints a document to PDF through the process's one Chromium, at most two at a time with four
+ * waiting (429 with Retry-After beyond that). A report printed before (same report data, same
+ * day, as its printed date shows) is read back from PostgreSQL instead, without building its HTML.
+ * The key is the report, not the HTML: Vega's SVG numbers its clip paths anew on every render.
+ */
+async function printOnce(
+  kind: string,
+  report: unknown,
+  html: () => Promise<string>,
+  dataSource: DataSource,
+): Promise<Buffer> {
+  const digest = crypto
+    .createHash('sha256')
+    .update(`${kind}\n${new Date().toISOString().slice(0, 10)}\n${JSON.stringify(report)}`)
+    .digest('hex');
+  const stored = dataSource.getRepository(ReportPdf);
+  const found = await stored.findOneBy({ digest });
+  if (found) return found.pdf;
+  let printing = inFlight.get(digest);
+  if (!printing) {
+    printing = render(html)
+      .then(async (pdf) => {
+        await stored.createQueryBuilder().insert().values({ digest, pdf }).orIgnore().execute();
+        await stored.delete({ createdAt: LessThan(new Date(Date.now() - KEEP_STORED_MS)) });
+        return pdf;
+      })
+      .finally(() => inFlight.delete(digest));
+    inFlight.set(digest, printing);
+  }
+  return printing;
+}
+
+export function siteReportPdf(report: SiteReport, dataSource: DataSource): Promise<Buffer> {
+  return printOnce('site', report, () => siteReportHtml(report), dataSource);
+}
+
+export function pooledReportPdf(report: PooledReport, dataSource: DataSource): Promise<Buffer> {
+  return printOnce('pooled', report, () => pooledReportHtml(report), dataSource);
 }

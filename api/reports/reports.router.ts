@@ -6,7 +6,7 @@ import { NotFound } from '../errors';
 import { secureRouter } from '../lib/route-table';
 import { sendTagged } from '../lib/send-tagged';
 import type { RouterContext } from '../lib/router-context';
-import { htmlToPdf, pooledReportHtml, siteReportHtml } from './reports.pdf';
+import { pooledReportPdf, siteReportPdf } from './reports.pdf';
 import { createReportsService } from './reports.service';
 
 const param = (req: Request, name: string) => String(req.params[name]);
@@ -32,7 +32,7 @@ export function createReportsRouter(ctx: RouterContext) {
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
     const { report } = await reports.siteReport(param(req, 'siteId'), req.access ?? null);
-    const pdf = await htmlToPdf(await siteReportHtml(report));
+    const pdf = await siteReportPdf(report, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
     res.set(
       'Content-Disposition',
@@ -63,7 +63,7 @@ export function createReportsRouter(ctx: RouterContext) {
   routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
     const { report } = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
-    const pdf = await htmlToPdf(await pooledReportHtml(report));
+    const pdf = await pooledReportPdf(report, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
     res.set(
       'Content-Disposition',

@@ -159,6 +159,8 @@ export function createTrialsService(deps: {
       }),
       sites: siteRows.map(presentSiteRow),
       viewerRole: role,
+      // The public link opens the pooled report to anyone who has it: coordinators only.
+      publicLinkToken: coordinating ? trial.publicLinkToken : null,
       canEdit: coordinating,
       designLocked: Number(counts?.randomized ?? 0) > 0,
     };
@@ -266,16 +268,10 @@ export function createTrialsService(deps: {
           'SELECT id FROM users WHERE email = $1',
           [input.growerEmail],
         );
-        if (user) {
-          const role = await roleIn(trial.network_id, user.id, manager);
-          if (!role) {
-            throw new ValidationError(
-              'That address has a Sheaf account outside this network: invite them to the network first',
-              {
-                growerEmail: 'has an account that is not in this network',
-              },
-            );
-          }
+        // An account outside this network is treated as an unknown address (a pending site and
+        // an invitation), so coordinators cannot learn who has an account elsewhere.
+        const role = user ? await roleIn(trial.network_id, user.id, manager) : null;
+        if (user && role) {
           growerUserId = user.id;
         } else {
           growerEmail = input.growerEmail;

@@ -20,6 +20,10 @@ export class Attachment {
   @Column({ name: 'stored_name', type: 'text' })
   storedName!: string;
 
+  /** Generated name of the small JPEG preview; null for photos stored before thumbnails. */
+  @Column({ name: 'thumbnail_name', type: 'text', nullable: true })
+  thumbnailName!: string | null;
+
   @Column({ name: 'original_name', type: 'text' })
   originalName!: string;
 

@@ -13,6 +13,10 @@ import { Site } from './site.entity';
 import { Strip } from './strip.entity';
 import { Trial } from './trial.entity';
 import { User } from './user.entity';
+import { SignInFailure } from './sign-in-failure.entity';
+import { Job } from './job.entity';
+import { IdempotencyKey } from './idempotency-key.entity';
+import { ReportPdf } from './report-pdf.entity';
 import { UserSession } from './user-session.entity';
 
 export const ENTITIES = [
@@ -29,6 +33,10 @@ export const ENTITIES = [
   PasswordResetToken,
   AuditEvent,
   ReportSnapshot,
+  SignInFailure,
+  Job,
+  IdempotencyKey,
+  ReportPdf,
   UserSession,
   RateLimitHit,
 ];

@@ -2,7 +2,13 @@
 import { z } from 'zod';
 import { RoleSchema } from './common';
 
-export const EmailSchema = z.email('Enter a valid e-mail address').trim().toLowerCase();
+// Mail servers take at most 254 characters in an address and 64 before the @ (RFC 5321 4.5.3.1).
+export const EmailSchema = z
+  .email('Enter a valid e-mail address')
+  .max(254, 'An e-mail address has at most 254 characters')
+  .refine((email) => email.indexOf('@') <= 64, 'The part before the @ has at most 64 characters')
+  .trim()
+  .toLowerCase();
 export const PasswordSchema = z
   .string()
   .min(8, 'Use at least 8 characters')

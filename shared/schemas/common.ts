@@ -18,6 +18,7 @@ export const ERROR_CODES = [
   'payload_too_large',
   'unsupported_media_type',
   'rate_limited',
+  'insufficient_storage',
   'service_unavailable',
   'internal_error',
 ] as const;

@@ -16,6 +16,8 @@ export const PhotoSchema = z.object({
   uploadedBy: z.string().nullable(),
   createdAt: z.string(),
   url: z.string(),
+  /** A small JPEG preview (at most 400 px on the longest side) for lists and pages. */
+  thumbnailUrl: z.string(),
 });
 export type PhotoDto = z.infer<typeof PhotoSchema>;
 

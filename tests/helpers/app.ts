@@ -138,11 +138,15 @@ export function clientFor(app: string) {
     get: (url: string) => agent.get(url),
     // The token is fetched before the request is built: the agent copies cookies at creation.
     post: async (url: string, body?: object) => {
-      const token = await csrf();
-      return agent
+      const sent = await csrf();
+      const res = await agent
         .post(url)
-        .set('X-CSRF-Token', token)
+        .set('X-CSRF-Token', sent)
         .send(body ?? {});
+      // Sign-in hands out the new session's token.
+      const fresh = res.headers['x-csrf-token'];
+      if (typeof fresh === 'string') token = fresh;
+      return res;
     },
     patch: async (url: string, body?: object) => {
       const token = await csrf();

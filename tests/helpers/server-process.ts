@@ -32,7 +32,7 @@ export async function startServerProcess(
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error('server did not start')), 30_000);
+    const timer = setTimeout(() => reject(new Error('server did not start')), 60_000);
     child.stdout!.on('data', (chunk: Buffer) => {
       if (chunk.toString().includes('listening on')) {
         clearTimeout(timer);
@@ -69,5 +69,6 @@ export async function signInOverHttp(base: string, email: string, password = 'sh
     .getSetCookie()
     .map((c) => c.split(';')[0])
     .join('; ');
-  return { cookie, 'x-csrf-token': csrfToken };
+  // The token changes at sign-in: use the one the sign-in answer carries.
+  return { cookie, 'x-csrf-token': login.headers.get('x-csrf-token') ?? csrfToken };
 }

@@ -159,8 +159,39 @@ export class UnexpectedResponseError extends Error {
   }
 }
 
+function randomKey(): string {
+  if (typeof crypto !== 'undefined' && 'randomUUID' in crypto) return crypto.randomUUID();
+  return `${Date.now().toString(36)}-${Math.random().toString(36).slice(2)}${Math.random().toString(36).slice(2)}`;
+}
+
+/** Recent submissions by path and body: a second click on the same form reuses the first key. */
+const recentSubmissions = new Map<string, { key: string; at: number }>();
+const SAME_SUBMISSION_MS = 10_000;
+
+/** One Idempotency-Key per form submission: the same path and body within 10 s share it. */
+function idempotencyKeyFor(path: string, body: unknown): string {
+  if (body instanceof FormData) return randomKey();
+  const now = Date.now();
+  for (const [fingerprint, entry] of recentSubmissions)
+    if (now - entry.at > SAME_SUBMISSION_MS) recentSubmissions.delete(fingerprint);
+  const fingerprint = `${path}\n${JSON.stringify(body ?? null)}`;
+  const recent = recentSubmissions.get(fingerprint);
+  if (recent) return recent.key;
+  const key = randomKey();
+  recentSubmissions.set(fingerprint, { key, at: now });
+  return key;
+}
+
 async function sendAndRead(method: Method, path: string, options: RequestOptions) {
   if (!UNSAFE_METHODS.has(method)) return readBody(await send(method, path, options));
+  // One key per submission, kept for the retry below: a double submit or a retried request
+  // then gets the first answer instead of making a second record. Not for sign-in and the like:
+  // their answers set cookies, which a repeated answer would not.
+  if (method === 'POST' && !path.startsWith('/api/auth/'))
+    options = {
+      ...options,
+      headers: { 'Idempotency-Key': idempotencyKeyFor(path, options.body), ...options.headers },
+    };
   try {
     return await readBody(await send(method, path, options, await getCsrfToken()));
   } catch (error) {

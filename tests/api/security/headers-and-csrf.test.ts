@@ -30,22 +30,36 @@ describe('security headers', () => {
     expect(res.headers['x-powered-by']).toBeUndefined();
   });
 
-  it('marks the session cookie Secure in production and never sends it over plain HTTP', async () => {
+  it('marks the session and CSRF cookies Secure in production and never sends the session over plain HTTP', async () => {
     const prod = await createTestApp({
       NODE_ENV: 'production',
       MAIL_CATCHER: 'off',
       TRUST_PROXY: 'on',
     });
     try {
-      const overHttps = await request(prod.app)
-        .get('/api/auth/csrf')
-        .set('X-Forwarded-Proto', 'https');
-      const cookie = String(overHttps.headers['set-cookie']);
-      expect(cookie).toMatch(/sheaf\.sid=/);
-      expect(cookie).toMatch(/; Secure/);
-      expect(cookie).toMatch(/HttpOnly/);
-      const overHttp = await request(prod.app).get('/api/auth/csrf');
-      expect(overHttp.headers['set-cookie']).toBeUndefined();
+      const signInOver = async (proto: 'https' | 'http') => {
+        const agent = request.agent(prod.app);
+        const csrf = await agent.get('/api/auth/csrf').set('X-Forwarded-Proto', proto);
+        const csrfCookie = String(csrf.headers['set-cookie']);
+        expect(csrfCookie).toMatch(/sheaf\.csrf=.*; Secure/);
+        expect(csrfCookie).toMatch(/HttpOnly/);
+        // Secure cookies are not sent back over plain HTTP: hand it over as a browser on HTTPS would.
+        const cookie = csrfCookie.split(';')[0]!;
+        return agent
+          .post('/api/auth/login')
+          .set('X-Forwarded-Proto', proto)
+          .set('Cookie', cookie)
+          .set('X-CSRF-Token', csrf.body.csrfToken)
+          .send({ email: 'member@millbrook.example', password: 'sheaf-demo' });
+      };
+      const overHttps = await signInOver('https');
+      expect(overHttps.status).toBe(200);
+      const session = String(overHttps.headers['set-cookie']);
+      expect(session).toMatch(
+        /sheaf\.sid=[^;]+; Path=\/; Expires=[^;]+; HttpOnly; Secure; SameSite=Lax/,
+      );
+      const overHttp = await signInOver('http');
+      expect(String(overHttp.headers['set-cookie'])).not.toMatch(/sheaf\.sid=/);
     } finally {
       await prod.close();
     }

@@ -106,7 +106,7 @@ export function PhotoGrid({ photos, strips }: { photos: PhotoDto[]; strips?: Str
           >
             <a href={photo.url} target="_blank" rel="noreferrer">
               <img
-                src={photo.url}
+                src={photo.thumbnailUrl}
                 alt={photo.caption || 'Field photo'}
                 loading="lazy"
                 className="aspect-[4/3] w-full object-cover"

@@ -200,7 +200,7 @@ export function SiteNotesSection({ report }: SiteReportSectionProps) {
               className="overflow-hidden rounded-card border border-line bg-surface"
             >
               <img
-                src={photo.url}
+                src={`${photo.url}?size=thumbnail`}
                 alt={photo.caption || 'Photo from the field'}
                 loading="lazy"
                 className="aspect-[4/3] w-full object-cover"
