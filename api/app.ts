@@ -13,6 +13,7 @@ import { createCalcRouter } from './calc/calc.router';
 import { createHealthRouter } from './health/health.router';
 import { createImportsRouter } from './imports/imports.router';
 import { createPeopleRouter } from './people/people.router';
+import { createSiteChangesRouter } from './people/site-changes.router';
 import { createPhotosRouter } from './photos/photos.router';
 import { createProgressRouter } from './progress/progress.router';
 import { createSiteDataRouter } from './site-data/site-data.router';
@@ -56,6 +57,7 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createProgressRouter,
   createSiteDataRouter,
   createPeopleRouter,
+  createSiteChangesRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {

@@ -4,6 +4,7 @@ import { DataSource } from 'typeorm';
 import { DataChangeSubscriber } from './data-changes';
 import { ENTITIES } from './entities/index';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
+import { NetworksAndTrialLife1765400000000 } from './migrations/1765400000000-networks-and-trial-life';
 
 export function createDataSource(
   databaseUrl: string,
@@ -15,7 +16,7 @@ export function createDataSource(
     entities: ENTITIES,
     // Counts writes so read caches know when to recompute (see data-changes.ts).
     subscribers: [DataChangeSubscriber],
-    migrations: [InitialSchema1764633600000],
+    migrations: [InitialSchema1764633600000, NetworksAndTrialLife1765400000000],
     synchronize: false,
     migrationsRun: false,
     uuidExtension: 'pgcrypto',

@@ -47,7 +47,7 @@ interface SiteRow {
 interface TrialRow {
   id: string;
   name: string;
-  status: 'draft' | 'active' | 'closed';
+  status: 'draft' | 'in-field' | 'harvest-in' | 'closed';
   crop: string | null;
   custom_crop: CustomCrop | null;
   season: string | null;
@@ -201,9 +201,9 @@ export function createSitesService(deps: { dataSource: DataSource }) {
         'SELECT status, blocks_per_site FROM trials WHERE id = $1',
         [site.trial_id],
       );
-      if (!trial || trial.status !== 'active') {
+      if (!trial || trial.status !== 'in-field') {
         throw new Conflict(
-          'Finish the trial design first: strips are randomized once the trial is active',
+          'Finish the trial design first: strips are randomized once the trial is in the field',
         );
       }
       const levels: { id: string }[] = await manager.query(

@@ -6,6 +6,7 @@ import { Membership } from './membership.entity';
 import { Network } from './network.entity';
 import { Observation } from './observation.entity';
 import { PasswordResetToken } from './password-reset-token.entity';
+import { PendingSignUp } from './pending-sign-up.entity';
 import { RateLevelRow } from './rate-level.entity';
 import { ReportSnapshot } from './report-snapshot.entity';
 import { Site } from './site.entity';
@@ -25,6 +26,7 @@ export const ENTITIES = [
   Attachment,
   Invitation,
   PasswordResetToken,
+  PendingSignUp,
   AuditEvent,
   ReportSnapshot,
 ];

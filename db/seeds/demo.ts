@@ -119,7 +119,7 @@ async function seedOatTrial(
     `INSERT INTO trials (network_id, name, question, status, crop, season, unit_system, reference_rate, reference_unit,
         blocks_per_site, rows_per_strip, row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g,
         germination_pct, emergence_pct, seed_price_per_lb, grain_price_per_bu, created_by)
-     VALUES ($1, $2, $3, 'active', 'hullessOats', '2027', 'imperial', $4, 'lb/acre', 4, $5, $6, $7, 1, $8, $9, $10, 0.9, 9.5, $11)
+     VALUES ($1, $2, $3, 'in-field', 'hullessOats', '2027', 'imperial', $4, 'lb/acre', 4, $5, $6, $7, 1, $8, $9, $10, 0.9, 9.5, $11)
      RETURNING id`,
     [
       networkId,

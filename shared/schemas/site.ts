@@ -94,7 +94,7 @@ export type CalibrationRecordDto = z.infer<typeof CalibrationRecordSchema>;
 export const SiteTrialContextSchema = z.object({
   id: z.uuid(),
   name: z.string(),
-  status: z.enum(['draft', 'active', 'closed']),
+  status: z.enum(['draft', 'in-field', 'harvest-in', 'closed']),
   crop: z.string().nullable(),
   cropName: z.string().nullable(),
   season: z.string().nullable(),

@@ -41,7 +41,7 @@ export default function TrialPage() {
     [trial],
   );
   if (!trial) return <LoadingBlock />;
-  const active = trial.status === 'active';
+  const active = trial.status === 'in-field' || trial.status === 'harvest-in';
   const crop = trial.crop
     ? trial.crop === 'custom'
       ? (trial.customCrop?.name ?? 'Custom crop')

@@ -8,10 +8,17 @@ import { cropName, plural, trialStatusName } from '../../../lib/format';
 
 const STATUS_TONE: Record<TrialStatus, BadgeTone> = {
   draft: 'straw',
-  active: 'field',
+  'in-field': 'field',
+  'harvest-in': 'field',
   closed: 'neutral',
 };
-const STATUS_ORDER: Record<TrialStatus, number> = { active: 0, draft: 1, closed: 2 };
+/** What needs attention first: a harvest to close, then trials in the field, then drafts. */
+const STATUS_ORDER: Record<TrialStatus, number> = {
+  'harvest-in': 0,
+  'in-field': 1,
+  draft: 2,
+  closed: 3,
+};
 
 export function TrialCardList({ trials }: { trials: readonly TrialSummary[] }) {
   if (trials.length === 0) {

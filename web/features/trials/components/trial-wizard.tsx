@@ -296,7 +296,7 @@ export function TrialWizard({
     for (let i = 0; i < STEP_FIELDS.length; i += 1) Object.assign(all, validateStep(i));
     setErrors(all);
     if (Object.keys(all).length > 0) return;
-    const result = await save(trial?.status === 'draft' || !trial ? { status: 'active' } : {});
+    const result = await save(trial?.status === 'draft' || !trial ? { status: 'in-field' } : {});
     if (result) navigate(`/trials/${result.id}`);
   }
 
