@@ -55,9 +55,11 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createImportsRouter,
   createPhotosRouter,
   createProgressRouter,
+  // Before site data: it answers PATCH /sites/:siteId for hand-over, lost and naming and passes
+  // dates and notes on.
+  createSiteChangesRouter,
   createSiteDataRouter,
   createPeopleRouter,
-  createSiteChangesRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {

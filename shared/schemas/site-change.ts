@@ -17,6 +17,7 @@ export const SiteChangeInputSchema = z
     namedInReports: z.boolean().optional(),
   })
   .strict();
+export const SITE_CHANGE_KEYS: readonly string[] = Object.keys(SiteChangeInputSchema.shape);
 export type SiteChangeInput = z.infer<typeof SiteChangeInputSchema>;
 
 export const SiteChangeResultSchema = z.object({
