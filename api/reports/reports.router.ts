@@ -8,6 +8,7 @@ import { secureRouter } from '../lib/route-table';
 import type { RouterContext } from '../lib/router-context';
 import { htmlToPdf, pooledReportHtml, siteReportHtml } from './reports.pdf';
 import { createReportsService } from './reports.service';
+import { createReportPrivacy } from '../privacy/report-privacy';
 
 const param = (req: Request, name: string) => String(req.params[name]);
 const fileName = (text: string) =>
@@ -25,14 +26,20 @@ export function createReportsRouter(ctx: RouterContext) {
     mailer: ctx.mailer,
     publicUrl: ctx.config.PUBLIC_URL,
   });
+  // Growers' privacy applies to every report body this router sends (see report-privacy.ts).
+  const privacy = createReportPrivacy(ctx.dataSource);
 
   routes.get('/sites/:siteId/report', policies.siteReader(), async (req, res) => {
     res.set('Cache-Control', 'private, no-cache');
-    sendJson(res, await reports.siteReport(param(req, 'siteId'), req.access ?? null));
+    const report = await reports.siteReport(param(req, 'siteId'), req.access ?? null);
+    sendJson(res, await privacy.siteReport(report, req.access));
   });
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
-    const report = await reports.siteReport(param(req, 'siteId'), req.access ?? null);
+    const report = await privacy.siteReport(
+      await reports.siteReport(param(req, 'siteId'), req.access ?? null),
+      req.access,
+    );
     const pdf = await htmlToPdf(await siteReportHtml(report));
     res.set('Content-Type', 'application/pdf');
     res.set(
@@ -55,12 +62,16 @@ export function createReportsRouter(ctx: RouterContext) {
   routes.get('/trials/:trialId/pooled-report', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
     res.set('Cache-Control', 'private, no-cache');
-    sendJson(res, await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query));
+    const report = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
+    sendJson(res, await privacy.pooledReport(report, req.access));
   });
 
   routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    const report = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
+    const report = await privacy.pooledReport(
+      await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
+      req.access,
+    );
     const pdf = await htmlToPdf(await pooledReportHtml(report));
     res.set('Content-Type', 'application/pdf');
     res.set(
@@ -94,7 +105,7 @@ export function createReportsRouter(ctx: RouterContext) {
     if (!token.success) throw new NotFound('Report');
     res.set('Cache-Control', 'no-store');
     res.set('X-Robots-Tag', 'noindex');
-    res.json(await reports.publicReport(token.data, query));
+    res.json(await privacy.pooledReport(await reports.publicReport(token.data, query), null));
   });
 
   routes.get('/trials/:trialId/export.csv', policies.trialCoordinator(), async (req, res) => {

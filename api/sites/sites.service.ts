@@ -14,6 +14,7 @@ import { recordAudit } from '../audit/audit.service';
 import { Conflict, Locked, NotFound } from '../errors';
 import { isCoordinating } from '../middleware/access';
 import { SOWING_RECORDED_SQL } from '../trials/trials.presenter';
+import { farmLabel } from '../privacy/site-names';
 
 interface SiteRow {
   id: string;
@@ -40,6 +41,10 @@ interface SiteRow {
   calibrations: CalibrationRecordDto[];
   published_at: Date | null;
   data_version: number;
+  named_in_reports: boolean;
+  report_number: number;
+  lost_reason: string | null;
+  packet_reissued_at: Date | null;
   created_at: Date;
   updated_at: Date;
 }
@@ -78,7 +83,8 @@ export function createSitesService(deps: { dataSource: DataSource }) {
               to_char(s.heading_date, 'YYYY-MM-DD') AS heading_date, to_char(s.harvest_date, 'YYYY-MM-DD') AS harvest_date,
               s.randomization_seed, s.randomized_at, ${SOWING_RECORDED_SQL} AS sowing_recorded,
               (SELECT count(*) FROM strips st WHERE st.site_id = s.id) AS strip_count,
-              s.calibrations, s.published_at, s.data_version, s.created_at, s.updated_at
+              s.calibrations, s.published_at, s.data_version, s.created_at, s.updated_at,
+              s.named_in_reports, s.report_number, s.lost_reason, s.packet_reissued_at
          FROM sites s JOIN trials t ON t.id = s.trial_id JOIN networks n ON n.id = t.network_id
          LEFT JOIN users u ON u.id = s.grower_user_id
         WHERE s.id = $1`,
@@ -171,6 +177,12 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       dataVersion: row.data_version,
       viewerRole: role,
       isGrower,
+      namedInReports: row.named_in_reports,
+      reportLabel: farmLabel(row.report_number),
+      lostReason: row.lost_reason,
+      packetReissuedAt: row.packet_reissued_at
+        ? new Date(row.packet_reissued_at).toISOString()
+        : null,
       canCoordinate: isCoordinating(role),
       createdAt: new Date(row.created_at).toISOString(),
       updatedAt: new Date(row.updated_at).toISOString(),
