@@ -9,9 +9,11 @@ import type { AppConfig } from './config/env';
 import { createAdminRouter } from './admin/admin.router';
 import { createAuthRouter } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
+import { createSignUpRouter } from './auth/sign-up.router';
 import { createCalcRouter } from './calc/calc.router';
 import { createHealthRouter } from './health/health.router';
 import { createImportsRouter } from './imports/imports.router';
+import { createNetworksRouter } from './networks/networks.router';
 import { createPeopleRouter } from './people/people.router';
 import { createSiteChangesRouter } from './people/site-changes.router';
 import { createPhotosRouter } from './photos/photos.router';
@@ -60,6 +62,7 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createSiteChangesRouter,
   createSiteDataRouter,
   createPeopleRouter,
+  createNetworksRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {
@@ -127,6 +130,7 @@ export function createApp(deps: AppDeps): Express {
     '/api/auth',
     createAuthRouter({ auth, policies, table, loginLimit: config.RATE_LIMIT_LOGIN }),
   );
+  app.use('/api/auth', createSignUpRouter(ctx));
   app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_LOGIN * 5 }));
   app.use('/api', createHomeRouter(ctx));
   app.use(

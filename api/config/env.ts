@@ -16,6 +16,8 @@ const EnvSchema = z.object({
   WEB_DIST: z.string().default('dist/web'),
   TRUST_PROXY: z.enum(['on', 'off']).default('off'),
   RATE_LIMIT_LOGIN: z.coerce.number().int().min(1).default(10),
+  /** "open": anyone may sign up and start a network; "invite-only": people join by invitation. */
+  SIGNUP: z.enum(['open', 'invite-only']).default('open'),
 });
 
 export type AppConfig = z.infer<typeof EnvSchema>;

@@ -197,13 +197,23 @@ async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
       net.userIds.coordinator,
     ],
   );
+  // A person of their own for :userId, so removing them (DELETE …/members/:userId) leaves the
+  // personas' memberships alone.
+  const [person] = await q(
+    `INSERT INTO users (email, name, password_hash) VALUES ($1, 'Matrix person', 'x') RETURNING id`,
+    [`matrix-person-${crypto.randomUUID()}@test.example`],
+  );
+  await q(`INSERT INTO memberships (user_id, network_id, role) VALUES ($1, $2, 'member')`, [
+    person.id,
+    net.networkId,
+  ]);
   return {
     networkId: net.networkId,
     trialId: trial.id,
     siteId: site.id,
     stripId,
     photoId: photo.id,
-    memberUserId: net.userIds.member,
+    memberUserId: person.id,
     invitationId: invitation.id,
   };
 }
