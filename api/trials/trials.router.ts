@@ -8,6 +8,7 @@ import type { RouterContext } from '../lib/router-context';
 import { createPacketsService } from '../packets/packets.service';
 import { createSitesService } from '../sites/sites.service';
 import { createTrialsService } from './trials.service';
+import { createTrialArchiveService } from './trial-archive.service';
 
 export function createTrialsRouter(ctx: RouterContext) {
   const router = Router();
@@ -19,6 +20,7 @@ export function createTrialsRouter(ctx: RouterContext) {
     publicUrl: ctx.config.PUBLIC_URL,
   });
   const sites = createSitesService({ dataSource: ctx.dataSource });
+  const archives = createTrialArchiveService(ctx.dataSource);
   const packets = createPacketsService({
     dataSource: ctx.dataSource,
     mailer: ctx.mailer,
@@ -47,6 +49,14 @@ export function createTrialsRouter(ctx: RouterContext) {
 
   routes.get('/trials/:trialId/amendments', ctx.policies.trialReader(), async (req, res) => {
     res.json(await trials.amendments(String(req.params.trialId)));
+  });
+
+  routes.get('/trials/:trialId/archive.zip', ctx.policies.trialCoordinator(), async (req, res) => {
+    const { fileName, zip } = await archives.build(String(req.params.trialId));
+    res.set('Content-Type', 'application/zip');
+    res.set('Content-Disposition', `attachment; filename="${fileName}"`);
+    res.set('Cache-Control', 'no-store');
+    res.send(zip);
   });
 
   routes.get('/trials/:trialId/people', ctx.policies.trialCoordinator(), async (req, res) => {
