@@ -13,6 +13,7 @@ import { createSignUpRouter } from './auth/sign-up.router';
 import { createCalcRouter } from './calc/calc.router';
 import { createHealthRouter } from './health/health.router';
 import { createImportsRouter } from './imports/imports.router';
+import { createHistoryRouter } from './audit/history.router';
 import { createNetworksRouter } from './networks/networks.router';
 import { createPeopleRouter } from './people/people.router';
 import { createSiteChangesRouter } from './people/site-changes.router';
@@ -63,6 +64,7 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createSiteDataRouter,
   createPeopleRouter,
   createNetworksRouter,
+  createHistoryRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {
