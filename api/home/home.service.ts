@@ -16,7 +16,13 @@ export function createHomeService(dataSource: DataSource) {
       status: TrialSummary['status'];
       site_count: string;
     }[] = await dataSource.query(
-      `SELECT t.id, t.network_id, n.name AS network_name, t.name, t.crop, t.season, t.status,
+      // "harvest-in" follows from the data: every site has a yield or is marked lost.
+      `SELECT t.id, t.network_id, n.name AS network_name, t.name, t.crop, t.season,
+                CASE WHEN t.status = 'in-field' AND EXISTS (SELECT 1 FROM sites s WHERE s.trial_id = t.id)
+                      AND NOT EXISTS (SELECT 1 FROM sites s WHERE s.trial_id = t.id AND s.lost_reason IS NULL
+                        AND NOT EXISTS (SELECT 1 FROM strips st JOIN observations o ON o.strip_id = st.id
+                                         WHERE st.site_id = s.id AND o.grain_weight IS NOT NULL))
+                     THEN 'harvest-in' ELSE t.status END AS status,
                 (SELECT count(*) FROM sites s WHERE s.trial_id = t.id) AS site_count
            FROM trials t
            JOIN networks n ON n.id = t.network_id

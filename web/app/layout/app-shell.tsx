@@ -6,6 +6,8 @@ import { Wordmark } from '../../components/layout/wordmark';
 import { buttonClasses } from '../../components/ui/button';
 import { cn } from '../../lib/cn';
 import { isDemoUser } from '../../lib/session';
+import { NetworkSwitcher } from '../../features/networks/components/network-switcher';
+import { scopeToNetwork, useCurrentNetworkId } from '../../features/networks/lib/current-network';
 import { navItemsFor } from './nav-items';
 import { AccountDetails, UserMenu, useSignOut } from './user-menu';
 
@@ -28,6 +30,7 @@ function NavigationProgress() {
 
 function PhoneMenu({ user, onNavigate }: { user: SessionUser; onNavigate: () => void }) {
   const { signOut, busy } = useSignOut();
+  const scoped = scopeToNetwork(user, useCurrentNetworkId(user));
   return (
     <div
       id="phone-menu"
@@ -35,7 +38,7 @@ function PhoneMenu({ user, onNavigate }: { user: SessionUser; onNavigate: () => 
     >
       <nav aria-label="Main" className="mb-4">
         <ul className="space-y-1">
-          {navItemsFor(user).map((item) => (
+          {navItemsFor(scoped).map((item) => (
             <li key={item.to}>
               <NavLink
                 to={item.to}
@@ -63,6 +66,8 @@ function PhoneMenu({ user, onNavigate }: { user: SessionUser; onNavigate: () => 
 
 function Header({ user }: { user: SessionUser | null }) {
   const [menuOpen, setMenuOpen] = useState(false);
+  const networkId = useCurrentNetworkId(user);
+  const scoped = user ? scopeToNetwork(user, networkId) : null;
   const location = useLocation();
   useEffect(() => setMenuOpen(false), [location.pathname]);
 
@@ -76,7 +81,7 @@ function Header({ user }: { user: SessionUser | null }) {
           <>
             <nav aria-label="Main" className="hidden flex-1 md:block">
               <ul className="flex items-center gap-1">
-                {navItemsFor(user).map((item) => (
+                {navItemsFor(scoped!).map((item) => (
                   <li key={item.to}>
                     <NavLink
                       to={item.to}
@@ -96,12 +101,13 @@ function Header({ user }: { user: SessionUser | null }) {
                 ))}
               </ul>
             </nav>
-            <div className="ml-auto hidden md:block">
+            <NetworkSwitcher user={user} className="ml-auto" />
+            <div className="hidden md:block">
               <UserMenu user={user} />
             </div>
             <button
               type="button"
-              className="ml-auto flex min-h-11 items-center gap-2 rounded-field px-3 text-label font-semibold text-field-50 hover:bg-field-900 md:hidden"
+              className="flex min-h-11 items-center gap-2 rounded-field px-3 text-label font-semibold text-field-50 hover:bg-field-900 md:hidden"
               aria-expanded={menuOpen}
               aria-controls="phone-menu"
               onClick={() => setMenuOpen((v) => !v)}

@@ -10,7 +10,13 @@ import { Card } from '../../../components/ui/card';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
 import { useMe } from '../../../features/auth/api/get-me';
-import { trialQueryOptions, useTrial } from '../../../features/trials/api/get-trial';
+import {
+  trialQueryOptions,
+  useTrial,
+  useTrialPeople,
+} from '../../../features/trials/api/get-trial';
+import { SiteLifeActions } from '../../../features/trials/components/site-life-actions';
+import { TrialLifePanel } from '../../../features/trials/components/trial-life-panel';
 import { useSendAllPackets } from '../../../features/trials/api/trial-mutations';
 import { EnrolSiteForm } from '../../../features/trials/components/enrol-site-form';
 import { RateSummaryTable } from '../../../features/trials/components/rate-summary-table';
@@ -33,6 +39,7 @@ const linkClass =
 export default function TrialPage() {
   const { trialId } = useParams();
   const { data: trial } = useTrial(trialId!);
+  const people = useTrialPeople(trialId!, trial?.canEdit ?? false);
   const { data: me } = useMe();
   const [enrolOpen, setEnrolOpen] = useState(false);
   const sendAll = useSendAllPackets(trialId!);
@@ -134,6 +141,13 @@ export default function TrialPage() {
               canEdit={trial.canEdit}
               viewerId={me?.id}
               active={active}
+              extra={
+                trial.canEdit && trial.status !== 'draft'
+                  ? (site) => (
+                      <SiteLifeActions trialId={trial.id} site={site} people={people.data ?? []} />
+                    )
+                  : undefined
+              }
             />
           </section>
           <section aria-labelledby="rates-title" className="space-y-3">
@@ -150,6 +164,7 @@ export default function TrialPage() {
           </section>
         </div>
         <aside className="space-y-6">
+          <TrialLifePanel trial={trial} />
           <Card>
             <h2 className="text-heading text-ink">Design</h2>
             <dl className="mt-3 space-y-2 text-label">

@@ -20,7 +20,24 @@ const STATUS_ORDER: Record<TrialStatus, number> = {
   closed: 3,
 };
 
+/** Current trials first (what needs attention on top), closed ones apart below. */
 export function TrialCardList({ trials }: { trials: readonly TrialSummary[] }) {
+  const closed = trials.filter((t) => t.status === 'closed');
+  if (trials.length === 0 || closed.length === 0) return <TrialCards trials={trials} />;
+  return (
+    <div className="space-y-8">
+      <TrialCards trials={trials.filter((t) => t.status !== 'closed')} />
+      <section aria-labelledby="closed-trials" className="space-y-3" data-testid="closed-trials">
+        <h2 id="closed-trials" className="text-heading text-ink-muted">
+          Closed trials (read-only)
+        </h2>
+        <TrialCards trials={closed} />
+      </section>
+    </div>
+  );
+}
+
+function TrialCards({ trials }: { trials: readonly TrialSummary[] }) {
   if (trials.length === 0) {
     return (
       <EmptyState

@@ -21,6 +21,8 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { apiFieldErrors, errorSummary } from '../../../lib/form-errors';
+import { isApiError } from '../../../lib/api-client';
+import { AmendDesignDialog } from './amend-design-dialog';
 import { cn } from '../../../lib/cn';
 import { useCreateTrial, useUpdateTrial } from '../api/trial-mutations';
 import { SelectField, TextAreaField } from '../../../components/ui/form-fields';
@@ -254,6 +256,8 @@ export function TrialWizard({
     return fields;
   }
 
+  const [amend, setAmend] = useState<{ extra: UpdateTrialInput; fields: string[] } | null>(null);
+
   async function save(extra: UpdateTrialInput = {}): Promise<TrialDetail | null> {
     setSaved(null);
     try {
@@ -276,9 +280,23 @@ export function TrialWizard({
       setSaved(result.status === 'draft' ? 'Draft saved' : 'Changes saved');
       return result;
     } catch (error) {
+      if (isApiError(error) && error.code === 'design_locked' && !extra.amendReason) {
+        // Sown already: ask for a reason and resend the same change as an amendment.
+        setAmend({ extra, fields: Object.keys(error.fields) });
+        return null;
+      }
       setErrors(apiFieldErrors(error));
       setSaved(null);
       return null;
+    }
+  }
+
+  async function amendWith(reason: string) {
+    if (!amend) return;
+    const result = await save({ ...amend.extra, amendReason: reason });
+    if (result) {
+      setAmend(null);
+      navigate(`/trials/${result.id}`);
     }
   }
 
@@ -305,6 +323,15 @@ export function TrialWizard({
 
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[14rem_minmax(0,1fr)]">
+      {amend ? (
+        <AmendDesignDialog
+          fields={amend.fields}
+          busy={update.isPending}
+          error={errors.amendReason}
+          onAmend={(reason) => void amendWith(reason)}
+          onCancel={() => setAmend(null)}
+        />
+      ) : null}
       <nav aria-label="Wizard steps" className="no-print min-w-0">
         <ol className="flex gap-2 overflow-x-auto pb-1 lg:flex-col lg:overflow-visible">
           {STEPS.map((name, index) => (
