@@ -36,6 +36,7 @@ function PhoneMenu({ user, onNavigate }: { user: SessionUser; onNavigate: () => 
       id="phone-menu"
       className="border-t border-field-700 bg-surface px-4 pb-5 pt-3 shadow-raised md:hidden"
     >
+      <NetworkSwitcher user={user} className="mb-4 block" />
       <nav aria-label="Main" className="mb-4">
         <ul className="space-y-1">
           {navItemsFor(scoped).map((item) => (
@@ -101,13 +102,13 @@ function Header({ user }: { user: SessionUser | null }) {
                 ))}
               </ul>
             </nav>
-            <NetworkSwitcher user={user} className="ml-auto" />
+            <NetworkSwitcher user={user} className="ml-auto hidden md:block" />
             <div className="hidden md:block">
               <UserMenu user={user} />
             </div>
             <button
               type="button"
-              className="flex min-h-11 items-center gap-2 rounded-field px-3 text-label font-semibold text-field-50 hover:bg-field-900 md:hidden"
+              className="ml-auto flex min-h-11 items-center gap-2 rounded-field px-3 text-label font-semibold text-field-50 hover:bg-field-900 md:hidden"
               aria-expanded={menuOpen}
               aria-controls="phone-menu"
               onClick={() => setMenuOpen((v) => !v)}

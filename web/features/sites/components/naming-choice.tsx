@@ -7,7 +7,8 @@ export function NamingChoice({ siteId }: { siteId: string }) {
   const site = useSiteDetail(siteId);
   const setNaming = useSetNaming(siteId);
   if (!site.data?.isGrower) return null;
-  const named = site.data.namedInReports;
+  // Show the choice at once; the server's answer follows.
+  const named = setNaming.isPending ? setNaming.variables : site.data.namedInReports;
   return (
     <Card data-testid="naming-choice">
       <h2 className="text-heading text-ink">How reports name your farm</h2>
@@ -15,7 +16,7 @@ export function NamingChoice({ siteId }: { siteId: string }) {
         Other growers and members see your results in network reports. Your e-mail, fertility and
         notes are never shown to them.
       </p>
-      <fieldset className="mt-3 space-y-2" disabled={setNaming.isPending}>
+      <fieldset className="mt-3 space-y-2">
         <legend className="sr-only">Name in network reports</legend>
         <label className="flex min-h-11 items-center gap-3 text-label text-ink">
           <input
