@@ -1,5 +1,6 @@
 // What readers who do not coordinate a network may see of its growers: field names only where
 // the grower agreed (otherwise "Farm C"), and never e-mail addresses, fertility or notes.
+import crypto from 'node:crypto';
 import type { DataSource } from 'typeorm';
 import type { PooledReport, SiteReport } from '../../shared/schemas/report';
 import type { SiteDetail } from '../../shared/schemas/site';
@@ -107,5 +108,27 @@ export function createReportPrivacy(dataSource: DataSource) {
     };
   }
 
-  return { siteReport, pooledReport, siteDetail, naming };
+  /**
+   * The same for a report sent with an ETag: the tag also names what the viewer may see of
+   * the farms, so a grower's naming change never leaves a stale 304 behind.
+   */
+  async function tagged<T extends SiteReport | PooledReport>(
+    input: { etag: string; report: T },
+    access: AccessContext | null | undefined,
+  ): Promise<{ etag: string; report: T }> {
+    const trialId = 'site' in input.report ? input.report.site.trialId : input.report.trial.id;
+    const trialNaming = await naming(trialId);
+    const view = trialNaming
+      ? JSON.stringify([...renames(trialNaming, viewerOf(access, trialNaming.networkId))])
+      : '';
+    const report = (
+      'site' in input.report
+        ? await siteReport(input.report, access)
+        : await pooledReport(input.report as PooledReport, access)
+    ) as T;
+    const digest = crypto.createHash('sha256').update(view).digest('hex').slice(0, 16);
+    return { etag: `${input.etag}-${digest}`, report };
+  }
+
+  return { siteReport, pooledReport, siteDetail, naming, tagged };
 }

@@ -1,10 +1,10 @@
 // Report routes: site and pooled reports, publishing, the public link and the exports.
-import { sendJson } from '../lib/send-json';
 import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { PooledQuerySchema, PublicLinkInputSchema } from '../../shared/schemas/report';
 import { NotFound } from '../errors';
 import { secureRouter } from '../lib/route-table';
+import { sendTagged } from '../lib/send-tagged';
 import type { RouterContext } from '../lib/router-context';
 import { htmlToPdf, pooledReportHtml, siteReportHtml } from './reports.pdf';
 import { createReportsService } from './reports.service';
@@ -30,13 +30,18 @@ export function createReportsRouter(ctx: RouterContext) {
   const privacy = createReportPrivacy(ctx.dataSource);
 
   routes.get('/sites/:siteId/report', policies.siteReader(), async (req, res) => {
-    res.set('Cache-Control', 'private, no-cache');
-    const report = await reports.siteReport(param(req, 'siteId'), req.access ?? null);
-    sendJson(res, await privacy.siteReport(report, req.access));
+    sendTagged(
+      req,
+      res,
+      await privacy.tagged(
+        await reports.siteReport(param(req, 'siteId'), req.access ?? null),
+        req.access,
+      ),
+    );
   });
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
-    const report = await privacy.siteReport(
+    const { report } = await privacy.tagged(
       await reports.siteReport(param(req, 'siteId'), req.access ?? null),
       req.access,
     );
@@ -61,14 +66,19 @@ export function createReportsRouter(ctx: RouterContext) {
 
   routes.get('/trials/:trialId/pooled-report', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    res.set('Cache-Control', 'private, no-cache');
-    const report = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
-    sendJson(res, await privacy.pooledReport(report, req.access));
+    sendTagged(
+      req,
+      res,
+      await privacy.tagged(
+        await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
+        req.access,
+      ),
+    );
   });
 
   routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    const report = await privacy.pooledReport(
+    const { report } = await privacy.tagged(
       await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
       req.access,
     );
@@ -105,7 +115,9 @@ export function createReportsRouter(ctx: RouterContext) {
     if (!token.success) throw new NotFound('Report');
     res.set('Cache-Control', 'no-store');
     res.set('X-Robots-Tag', 'noindex');
-    res.json(await privacy.pooledReport(await reports.publicReport(token.data, query), null));
+    res.json(
+      await privacy.pooledReport((await reports.publicReport(token.data, query)).report, null),
+    );
   });
 
   routes.get('/trials/:trialId/export.csv', policies.trialCoordinator(), async (req, res) => {

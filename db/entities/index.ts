@@ -8,11 +8,13 @@ import { Observation } from './observation.entity';
 import { PasswordResetToken } from './password-reset-token.entity';
 import { PendingSignUp } from './pending-sign-up.entity';
 import { RateLevelRow } from './rate-level.entity';
+import { RateLimitHit } from './rate-limit-hit.entity';
 import { ReportSnapshot } from './report-snapshot.entity';
 import { Site } from './site.entity';
 import { Strip } from './strip.entity';
 import { Trial } from './trial.entity';
 import { User } from './user.entity';
+import { UserSession } from './user-session.entity';
 
 export const ENTITIES = [
   User,
@@ -29,4 +31,6 @@ export const ENTITIES = [
   PendingSignUp,
   AuditEvent,
   ReportSnapshot,
+  UserSession,
+  RateLimitHit,
 ];

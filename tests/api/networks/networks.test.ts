@@ -12,9 +12,6 @@ import {
 } from '../../helpers/app';
 import { buildActiveTrial, enrol } from '../trials/builders';
 
-/** The membership lookup may be kept for up to two seconds until the API reads it fresh on every request. */
-const waitForMembershipCache = () => new Promise((resolve) => setTimeout(resolve, 2100));
-
 function confirmationToken(text: string): string {
   const match = /\/sign-up\/confirm\/([A-Za-z0-9_-]+)/.exec(text);
   if (!match) throw new Error(`no confirmation link in: ${text}`);
@@ -119,7 +116,6 @@ describe('starting networks and belonging to several', () => {
     const started = await ina.client.post('/api/networks', { name: 'South Circle' });
     expect(started.status).toBe(201);
     const south = started.body.id as string;
-    await waitForMembershipCache();
     const mine = await ina.client.get('/api/networks');
     expect(mine.body.map((n: { name: string }) => n.name)).toEqual([
       'North Circle',

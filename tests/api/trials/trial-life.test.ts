@@ -147,7 +147,6 @@ describe('a trial’s life and its design lock', () => {
       'referenceRate',
     );
 
-    t.mailCatcher.messages.length = 0;
     const amended = await coordinator.patch(`/api/trials/${trialId}`, {
       referenceRate: 120,
       amendReason: 'The seed lot ran out; the new lot is bolder seed',
