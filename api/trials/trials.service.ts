@@ -80,6 +80,11 @@ const FIELD_WORDS: Record<string, string> = {
 const HAS_YIELD_SQL = `EXISTS (SELECT 1 FROM strips st JOIN observations o ON o.strip_id = st.id
   WHERE st.site_id = s.id AND o.grain_weight IS NOT NULL)`;
 
+// Counts over a trial's sites, built once from fixed SQL fragments (no input reaches them).
+const WITH_YIELD_COUNT = `count(*) FILTER (WHERE ${HAS_YIELD_SQL})::int`;
+const HARVESTED_COUNT = `count(*) FILTER (WHERE ${HAS_YIELD_SQL} OR s.lost_reason IS NOT NULL)::int`;
+const SOWN_COUNT = `count(*) FILTER (WHERE ${SOWING_RECORDED_SQL})::int`;
+
 export function designLockedError(fields: string[]): AppError {
   return new AppError(
     409,
@@ -136,14 +141,11 @@ export function createTrialsService(deps: {
   async function harvestOf(db: EntityManager, trialId: string) {
     const row = await sitesOf(db, trialId)
       .select('count(*)::int', 'sites')
-      .addSelect(`count(*) FILTER (WHERE ${HAS_YIELD_SQL})::int`, 'withYield')
+      .addSelect(WITH_YIELD_COUNT, 'withYield')
       .addSelect('count(*) FILTER (WHERE s.lost_reason IS NOT NULL)::int', 'lost')
-      .addSelect(
-        `count(*) FILTER (WHERE ${HAS_YIELD_SQL} OR s.lost_reason IS NOT NULL)::int`,
-        'done',
-      )
+      .addSelect(HARVESTED_COUNT, 'done')
       .addSelect('count(s.randomized_at)::int', 'randomized')
-      .addSelect(`count(*) FILTER (WHERE ${SOWING_RECORDED_SQL})::int`, 'sown')
+      .addSelect(SOWN_COUNT, 'sown')
       .getRawOne<{
         sites: number;
         withYield: number;
