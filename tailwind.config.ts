@@ -2,74 +2,27 @@
  * Sheaf's theme: the single source for palette, type scale and radii.
  *
  * Tailwind v4 reads this file through `@config "../../tailwind.config.ts"` in
- * web/styles/app.css. Raw scales (straw, field, soil, rust, slate) are fixed colours;
- * the semantic colours (canvas, surface, ink, accent…) point at CSS variables that
- * app.css sets for the light theme and for `.theme-dark` (the projector / meeting view),
+ * web/styles/app.css. Every colour comes from shared/brand/colours.ts (also read by charts,
+ * print and mail). Raw scales (straw, field, soil, rust, slate) are fixed colours; the
+ * semantic colours (canvas, surface, ink, accent…) point at CSS variables that the plugin
+ * below sets for the light theme and for `.theme-dark` (the projector / meeting view),
  * so components use `bg-surface text-ink` and switch theme without a `dark:` prefix.
  */
 import type { Config } from 'tailwindcss';
+import plugin from 'tailwindcss/plugin';
+import {
+  DARK,
+  LIGHT,
+  cssVariables,
+  field,
+  rust,
+  slate,
+  soil,
+  straw,
+  type ThemeTokens,
+} from './shared/brand/colours';
 
-/** Warm wheat and straw: highlights, badges, the wordmark's ear. */
-const straw = {
-  50: '#fbf6e9',
-  100: '#f6ebcc',
-  200: '#eed79a',
-  300: '#e4c06a',
-  400: '#d6a743',
-  500: '#bf8c2c',
-  600: '#9c6f22',
-  700: '#7b561f',
-  800: '#5f431d',
-  900: '#48341a',
-};
-
-/** Deep field green: actions, links, the header. */
-const field = {
-  50: '#edf6f0',
-  100: '#d3e9da',
-  200: '#a7d2b4',
-  300: '#74b487',
-  400: '#47955f',
-  500: '#2c7a45',
-  600: '#216337',
-  700: '#1d4f2e',
-  800: '#173f25',
-  900: '#10301c',
-  950: '#0a1f12',
-};
-
-/** Soil browns: text, lines and neutral surfaces. */
-const soil = {
-  50: '#f9f7f4',
-  100: '#f1ede7',
-  200: '#e2dacf',
-  300: '#c9bcab',
-  400: '#a69581',
-  500: '#85735f',
-  600: '#6a5a49',
-  700: '#524539',
-  800: '#3a3129',
-  900: '#26201b',
-  950: '#171310',
-};
-
-/** Rust: errors and destructive actions. */
-const rust = {
-  50: '#fcf1ee',
-  100: '#f8dcd4',
-  200: '#efb5a5',
-  500: '#c04a2c',
-  600: '#a23b21',
-  700: '#83301c',
-};
-
-/** Slate blue: neutral information, distinct from the green of actions. */
-const slate = {
-  50: '#eef3f8',
-  100: '#d9e4ef',
-  600: '#2f5d8a',
-  700: '#264b70',
-};
+const semanticNames = Object.keys(LIGHT) as (keyof ThemeTokens)[];
 
 const semantic = (name: string) => `var(--sheaf-${name})`;
 
@@ -83,24 +36,7 @@ export default {
         soil,
         rust,
         slate,
-        canvas: semantic('canvas'),
-        surface: semantic('surface'),
-        sunken: semantic('sunken'),
-        ink: semantic('ink'),
-        'ink-muted': semantic('ink-muted'),
-        line: semantic('line'),
-        'line-strong': semantic('line-strong'),
-        accent: semantic('accent'),
-        'accent-hover': semantic('accent-hover'),
-        'accent-soft': semantic('accent-soft'),
-        'on-accent': semantic('on-accent'),
-        focus: semantic('focus'),
-        danger: semantic('danger'),
-        'danger-soft': semantic('danger-soft'),
-        info: semantic('info'),
-        'info-soft': semantic('info-soft'),
-        caution: semantic('caution'),
-        'caution-soft': semantic('caution-soft'),
+        ...Object.fromEntries(semanticNames.map((name) => [name, semantic(name)])),
       },
       fontFamily: {
         sans: ['"Inter Variable"', 'Inter', 'system-ui', 'sans-serif'],
@@ -133,4 +69,13 @@ export default {
       },
     },
   },
+  // The light theme on :root and the projector theme on .theme-dark, from the shared tokens.
+  plugins: [
+    plugin(({ addBase }) =>
+      addBase({
+        ':root': { ...cssVariables(LIGHT), colorScheme: 'light' },
+        '.theme-dark': { ...cssVariables(DARK), colorScheme: 'dark' },
+      }),
+    ),
+  ],
 } satisfies Config;

@@ -124,7 +124,7 @@ export function createApp(deps: AppDeps): Express {
   // Health answers before sessions so it works with the database down.
   app.use('/api', createHealthRouter(ctx));
 
-  const passport = createPassport(auth);
+  const passport = createPassport(auth, dataSource);
   app.use('/api', express.json({ limit: '1mb' }));
   app.use('/api', createSessionMiddleware(config, deps.sessionPool));
   // passport.session() sets up req.login/logout itself; initialize() only adds a compatibility
@@ -153,9 +153,8 @@ export function createApp(deps: AppDeps): Express {
 
   const webRoot = path.resolve(config.WEB_DIST);
   if (fs.existsSync(path.join(webRoot, 'index.html'))) {
-    app.use(
-      express.static(webRoot, { index: false, maxAge: '1h', setHeaders: cacheImmutableAssets }),
-    );
+    app.use(precompressed(webRoot));
+    app.use(express.static(webRoot, { index: false, maxAge: '1h', setHeaders: staticHeaders }));
     app.get('/{*splat}', (_req, res) => {
       res.set('Cache-Control', 'no-cache');
       // root keeps the dot-folder check off the build folder itself (e.g. .data/web-x).
@@ -166,7 +165,50 @@ export function createApp(deps: AppDeps): Express {
   return app;
 }
 
-function cacheImmutableAssets(res: express.Response, filePath: string) {
-  if (filePath.includes(`${path.sep}assets${path.sep}`))
+const ENCODINGS = [
+  { name: 'br', suffix: '.br' },
+  { name: 'gzip', suffix: '.gz' },
+] as const;
+
+/**
+ * Serves the .br or .gz copy the build wrote beside a text asset when the browser accepts it.
+ * The list of copies is read once: the build folder does not change while the server runs.
+ */
+function precompressed(webRoot: string): express.RequestHandler {
+  const copies = new Set<string>();
+  const walk = (dir: string) => {
+    for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
+      const full = path.join(dir, entry.name);
+      if (entry.isDirectory()) walk(full);
+      else if (/\.(br|gz)$/.test(entry.name))
+        copies.add(`/${path.relative(webRoot, full).split(path.sep).join('/')}`);
+    }
+  };
+  walk(webRoot);
+  return (req, res, next) => {
+    if (req.method !== 'GET' && req.method !== 'HEAD') return next();
+    const accepted = String(req.headers['accept-encoding'] ?? '');
+    for (const encoding of ENCODINGS) {
+      if (!copies.has(req.path + encoding.suffix)) continue;
+      res.vary('Accept-Encoding');
+      if (!new RegExp(`\\b${encoding.name}\\b`).test(accepted)) continue;
+      req.url = req.url.replace(req.path, req.path + encoding.suffix);
+      break;
+    }
+    next();
+  };
+}
+
+/** Hashed assets never change: a year, immutable. The shell and the service worker: always ask. */
+function staticHeaders(res: express.Response, filePath: string) {
+  const encoding = ENCODINGS.find((e) => filePath.endsWith(e.suffix));
+  const original = encoding ? filePath.slice(0, -encoding.suffix.length) : filePath;
+  if (encoding) {
+    res.set('Content-Encoding', encoding.name);
+    res.type(path.extname(original));
+  }
+  if (original.includes(`${path.sep}assets${path.sep}`))
     res.set('Cache-Control', 'public, max-age=31536000, immutable');
+  else if (/(sw\.js|registerSW\.js|manifest\.webmanifest|index\.html)$/.test(original))
+    res.set('Cache-Control', 'no-cache');
 }

@@ -3,7 +3,7 @@ import { Router } from 'express';
 import { SignUpConfirmSchema, SignUpInputSchema } from '../../shared/schemas/network';
 import { secureRouter } from '../lib/route-table';
 import type { RouterContext } from '../lib/router-context';
-import { logIn } from './auth.router';
+import { logIn } from '../lib/session-login';
 import { createSignUpService } from './sign-up.service';
 
 export function createSignUpRouter(ctx: RouterContext) {

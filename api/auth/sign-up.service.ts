@@ -7,8 +7,8 @@ import { User } from '../../db/entities/user.entity';
 import { AppError, Conflict, Forbidden } from '../errors';
 import { hashToken, newToken } from '../lib/tokens';
 import { composeMail, type Mailer } from '../mail/mailer';
-import { startNetwork } from '../networks/networks.service';
-import { hashPassword } from './auth.service';
+import { startNetwork } from '../lib/start-network';
+import { hashPassword } from '../lib/passwords';
 
 const CONFIRM_LIFETIME_MS = 48 * 60 * 60 * 1000;
 

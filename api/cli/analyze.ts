@@ -2,6 +2,8 @@
 import { readFileSync } from 'node:fs';
 import Papa from 'papaparse';
 import { analyzeTrial, type StripObservation } from '../../shared/analysis/index';
+import { csvDelimiter } from '../../shared/import/parse-import';
+import { parseDecimal } from '../../shared/units/parse-decimal';
 
 class InputError extends Error {}
 
@@ -41,8 +43,11 @@ function parseArguments(argv: readonly string[]): {
 }
 
 function readRows(text: string, wanted?: string): { response: string; rows: StripObservation[] } {
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), {
+  const clean = text.replace(/^\uFEFF/, '');
+  const parsed = Papa.parse<Record<string, string>>(clean, {
     header: true,
+    // A spreadsheet set to a decimal comma saves with semicolons.
+    delimiter: csvDelimiter(clean),
     skipEmptyLines: 'greedy',
     transformHeader: (header) => header.trim(),
   });
@@ -62,9 +67,10 @@ function readRows(text: string, wanted?: string): { response: string; rows: Stri
   } else if (candidates.includes('yield')) response = 'yield';
   else {
     const numeric = candidates.find((column) =>
-      parsed.data.some(
-        (row) => (row[column] ?? '').trim() !== '' && Number.isFinite(Number(row[column])),
-      ),
+      parsed.data.some((row) => {
+        const read = parseDecimal(row[column] ?? '');
+        return read.ok && read.value !== null;
+      }),
     );
     if (numeric === undefined) throw new InputError('row 1 (header): no numeric response column');
     response = numeric;
@@ -77,10 +83,10 @@ function readRows(text: string, wanted?: string): { response: string; rows: Stri
       if (field(column) === '') throw new InputError(`row ${rowNumber}, column "${column}": empty`);
     }
     const raw = field(response);
-    const value = raw === '' ? null : Number(raw);
-    if (value !== null && !Number.isFinite(value)) {
-      throw new InputError(`row ${rowNumber}, column "${response}": "${raw}" is not a number`);
-    }
+    const read = parseDecimal(raw);
+    if (!read.ok)
+      throw new InputError(`row ${rowNumber}, column "${response}": "${raw}": ${read.message}`);
+    const value = read.value;
     const site = field('site');
     const entry = blocksBySite.get(site) ?? { blocks: new Set<string>(), firstRow: rowNumber };
     entry.blocks.add(field('block'));

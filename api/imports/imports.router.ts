@@ -12,13 +12,20 @@ export function createImportsRouter(ctx: RouterContext) {
   const routes = secureRouter(router, ctx.table, '/api');
   const imports = createImportsService({ dataSource: ctx.dataSource });
 
-  routes.get('/sites/:siteId/import-template.csv', ctx.policies.siteGrower(), async (req, res) => {
-    const { fileName, csv } = await imports.template(String(req.params.siteId));
-    res.set('Content-Type', 'text/csv; charset=utf-8');
-    res.set('Content-Disposition', `attachment; filename="${fileName}"`);
-    res.set('Cache-Control', 'no-store');
-    res.send(`\uFEFF${csv}\r\n`);
-  });
+  // The export is the template with every stored value: a grower edits it in a spreadsheet and
+  // uploads it unchanged or changed; the same columns go both ways.
+  for (const [path, kind] of [
+    ['/sites/:siteId/import-template.csv', 'strips'],
+    ['/sites/:siteId/export.csv', 'export'],
+  ] as const) {
+    routes.get(path, ctx.policies.siteGrower(), async (req, res) => {
+      const { fileName, csv } = await imports.template(String(req.params.siteId), kind);
+      res.set('Content-Type', 'text/csv; charset=utf-8');
+      res.set('Content-Disposition', `attachment; filename="${fileName}"`);
+      res.set('Cache-Control', 'no-store');
+      res.send(`\uFEFF${csv}\r\n`);
+    });
+  }
 
   routes.post(
     '/sites/:siteId/import',

@@ -45,7 +45,10 @@ export async function csvText(buffer: Buffer, declaredType: string): Promise<str
 export function createImportsService(deps: { dataSource: DataSource }) {
   const { dataSource } = deps;
   return {
-    async template(siteId: string): Promise<{ fileName: string; csv: string }> {
+    async template(
+      siteId: string,
+      kind: 'strips' | 'export' = 'strips',
+    ): Promise<{ fileName: string; csv: string }> {
       const site = await loadSite(dataSource.manager, siteId);
       const strips = await loadSiteStrips(dataSource.manager, siteId);
       const slug =
@@ -54,7 +57,7 @@ export function createImportsService(deps: { dataSource: DataSource }) {
           .replace(/[^a-z0-9]+/g, '-')
           .replace(/^-|-$/g, '') || 'site';
       return {
-        fileName: `sheaf-${slug}-strips.csv`,
+        fileName: `sheaf-${slug}-${kind}.csv`,
         csv: buildImportTemplate({
           unitSystem: site.unitSystem,
           fieldName: site.fieldName,

@@ -2,6 +2,7 @@
 // used by the strip, import and site-data features.
 import { analyzeSite } from '../../shared/analysis/index';
 import type { SiteContext, StripDto } from '../../shared/schemas/strip';
+import { plotNumber } from '../../shared/units/plot-number';
 import {
   cropFacts,
   deriveStripValues,
@@ -93,6 +94,7 @@ export function presentStrips(
       siteId: strip.siteId,
       block: strip.block,
       position: strip.position,
+      plotNumber: plotNumber(strip.block, strip.position),
       rateLevelId: strip.rateLevelId,
       rate: strip.rate,
       label: strip.label,

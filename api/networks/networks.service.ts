@@ -2,8 +2,7 @@
 // one with everything in it (trials, sites, data, photos, invitations, history).
 import fs from 'node:fs/promises';
 import path from 'node:path';
-import crypto from 'node:crypto';
-import { In, type DataSource, type EntityManager } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
 import type { NetworkSummary } from '../../shared/schemas/network';
 import { Attachment } from '../../db/entities/attachment.entity';
 import { AuditEvent } from '../../db/entities/audit-event.entity';
@@ -15,37 +14,8 @@ import { Strip } from '../../db/entities/strip.entity';
 import { Trial } from '../../db/entities/trial.entity';
 import { User } from '../../db/entities/user.entity';
 import { recordAudit } from '../audit/audit.service';
+import { startNetwork } from '../lib/start-network';
 import { Forbidden, NotFound, ValidationError } from '../errors';
-
-function slugFor(name: string): string {
-  const base = name
-    .toLowerCase()
-    .normalize('NFKD')
-    .replace(/[^a-z0-9]+/g, '-')
-    .replace(/^-|-$/g, '')
-    .slice(0, 40);
-  return `${base || 'network'}-${crypto.randomBytes(3).toString('hex')}`;
-}
-
-/** Creates a network with `userId` as its admin, inside the caller's transaction. */
-export async function startNetwork(
-  manager: EntityManager,
-  name: string,
-  userId: string,
-): Promise<string> {
-  const network = await manager
-    .getRepository(Network)
-    .save(manager.getRepository(Network).create({ name, slug: slugFor(name), isDemo: false }));
-  await manager.getRepository(Membership).insert({ userId, networkId: network.id, role: 'admin' });
-  await recordAudit(manager, {
-    actorUserId: userId,
-    entityType: 'network',
-    entityId: network.id,
-    action: 'create',
-    after: { name },
-  });
-  return network.id;
-}
 
 export function createNetworksService(deps: { dataSource: DataSource; uploadDir: string }) {
   const { dataSource } = deps;

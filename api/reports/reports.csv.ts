@@ -1,5 +1,6 @@
 // The trial's strips as CSV: raw observations and derived values, one strip per row, with
 // text cells defused so a spreadsheet never runs them as formulas.
+import { plotNumber } from '../../shared/units/plot-number';
 import type { DerivedValues } from '../../shared/schemas/observation';
 import type { DerivedStrip, SiteRow, TrialFacts } from './reports.presenter';
 
@@ -53,6 +54,7 @@ export function stripsCsv(
     'previous_crop',
     'block',
     'position',
+    'plot',
     'rate_multiplier',
     'rate_label',
     'seeds_sown',
@@ -97,6 +99,7 @@ export function stripsCsv(
       site?.previousCrop ?? '',
       s.strip.block,
       s.strip.position,
+      plotNumber(s.strip.block, s.strip.position),
       Number(s.rate),
       s.label,
       o?.seedsSown ?? null,

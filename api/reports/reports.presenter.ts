@@ -29,6 +29,7 @@ import {
   GRAMS_PER_POUND,
   KG_PER_HA_PER_LB_PER_ACRE,
 } from '../../shared/units/constants';
+import { plotNumber } from '../../shared/units/plot-number';
 import { cropFacts, deriveStripValues, type StripContext } from '../../shared/units/strip-derived';
 
 /** Trial facts the reports need, as loaded from the trials row. */
@@ -305,6 +306,7 @@ export function buildSiteReport(input: {
     id: s.strip.id,
     block: s.strip.block,
     position: s.strip.position,
+    plotNumber: plotNumber(s.strip.block, s.strip.position),
     rate: s.rate,
     label: s.label,
     yield: s.yield,

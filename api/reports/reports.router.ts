@@ -8,7 +8,7 @@ import { sendTagged } from '../lib/send-tagged';
 import type { RouterContext } from '../lib/router-context';
 import { htmlToPdf, pooledReportHtml, siteReportHtml } from './reports.pdf';
 import { createReportsService } from './reports.service';
-import { createReportPrivacy } from '../privacy/report-privacy';
+import { createReportPrivacy } from '../lib/report-privacy';
 
 const param = (req: Request, name: string) => String(req.params[name]);
 const fileName = (text: string) =>

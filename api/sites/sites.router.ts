@@ -5,7 +5,7 @@ import { secureRouter } from '../lib/route-table';
 import type { RouterContext } from '../lib/router-context';
 import { createPacketsService } from '../packets/packets.service';
 import { createSitesService } from './sites.service';
-import { createReportPrivacy } from '../privacy/report-privacy';
+import { createReportPrivacy } from '../lib/report-privacy';
 
 export function createSitesRouter(ctx: RouterContext) {
   const router = Router();

@@ -13,10 +13,11 @@ import { newRandomizationSeed } from '../../shared/design/randomize-rcbd';
 import { randomizeSite } from '../../shared/design/randomize-site';
 import { rateTable } from '../../shared/design/rate-table';
 import { calibrateSeeder } from '../../shared/units/calibration';
+import { plotNumber } from '../../shared/units/plot-number';
 import { CROPS, type CropKey } from '../../shared/units/crops';
 import { recordAudit } from '../audit/audit.service';
 import { Conflict, Locked, NotFound } from '../errors';
-import { farmLabel } from '../privacy/site-names';
+import { farmLabel } from '../lib/site-names';
 import { findSiteWithDesign, loadSiteStrips, type StripRecord } from '../lib/strip-data';
 import { growsSite, isCoordinating } from '../middleware/access';
 
@@ -224,6 +225,7 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       block.strips.push({
         stripId: s.id,
         position: s.position,
+        plotNumber: plotNumber(s.block, s.position),
         rateLevelId: s.rateLevelId,
         rate: s.rateLevel!.multiplier,
         label: s.rateLevel!.label,

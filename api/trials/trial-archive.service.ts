@@ -13,7 +13,7 @@ import { Strip } from '../../db/entities/strip.entity';
 import { Trial } from '../../db/entities/trial.entity';
 import { User } from '../../db/entities/user.entity';
 import { NotFound } from '../errors';
-import { farmLabel } from '../privacy/site-names';
+import { farmLabel } from '../lib/site-names';
 
 type Cell = string | number | boolean | null | undefined | Date;
 

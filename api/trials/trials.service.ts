@@ -27,13 +27,9 @@ import { AppError, Conflict, Forbidden, Locked, NotFound, ValidationError } from
 import type { InvitationsService } from '../invitations/invitations.service';
 import { composeMail, type Mailer } from '../mail/mailer';
 import { isCoordinating } from '../middleware/access';
-import { seesPrivateDetails, siteNameFor } from '../privacy/site-names';
-import {
-  presentSiteRow,
-  presentTrial,
-  SOWING_RECORDED_SQL,
-  type SiteRowQuery,
-} from './trials.presenter';
+import { SOWING_RECORDED_SQL } from '../lib/sowing-recorded';
+import { seesPrivateDetails, siteNameFor } from '../lib/site-names';
+import { presentSiteRow, presentTrial, type SiteRowQuery } from './trials.presenter';
 
 /** Stored status changes a coordinator may ask for; "harvest-in" follows from the data. */
 const ALLOWED_STATUS_CHANGES: Record<TrialStatus, TrialStatus[]> = {

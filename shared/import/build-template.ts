@@ -3,6 +3,7 @@
 import Papa from 'papaparse';
 import type { ObservationValues } from '../schemas/observation';
 import type { UnitSystem } from '../schemas/trial';
+import { plotNumber } from '../units/plot-number';
 import { templateHeaders, valueColumns } from './columns';
 
 export interface TemplateStrip {
@@ -22,6 +23,7 @@ export function buildImportTemplate(input: {
   const strips = [...input.strips].sort((a, b) => a.block - b.block || a.position - b.position);
   const rows = strips.map((strip) => [
     input.fieldName,
+    String(plotNumber(strip.block, strip.position)),
     String(strip.block),
     String(strip.position),
     strip.label,

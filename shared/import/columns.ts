@@ -21,7 +21,7 @@ export interface ValueColumn {
   meaning: string;
 }
 
-export const IDENTITY_HEADERS = ['site', 'block', 'position', 'rate'] as const;
+export const IDENTITY_HEADERS = ['site', 'plot', 'block', 'position', 'rate'] as const;
 export const SUBSAMPLES = 6;
 
 const UNIT_SUFFIX: Record<UnitSystem, Record<UnitKey, string>> = {
@@ -201,6 +201,11 @@ export function templateHeaders(system: UnitSystem): string[] {
 export function columnDocs(system: UnitSystem): { header: string; meaning: string }[] {
   return [
     { header: 'site', meaning: 'The field name of the site (filled in; must match)' },
+    {
+      header: 'plot',
+      meaning:
+        'Plot number, block × 100 + position, as on the map and stakes (filled in; identifies the strip)',
+    },
     { header: 'block', meaning: 'Block number (filled in; identifies the strip)' },
     {
       header: 'position',

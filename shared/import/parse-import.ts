@@ -5,6 +5,8 @@ import { ObservationValuesSchema } from '../schemas/observation';
 import type { ImportRowError } from '../schemas/import';
 import type { StripValuesPatch } from '../schemas/strip';
 import type { UnitSystem } from '../schemas/trial';
+import { parseDecimal } from '../units/parse-decimal';
+import { plotNumber } from '../units/plot-number';
 import { otherSystemHeader, templateHeaders, valueColumns, type ValueColumn } from './columns';
 
 export interface ImportStripRef {
@@ -34,7 +36,6 @@ export interface ParsedImport {
   errors: ImportRowError[];
 }
 
-const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)$/;
 /** Spreadsheets run cells starting with these as formulas; the template prefixes them with '. */
 const FORMULA_START = /^'[=+\-@\t\r]/;
 
@@ -47,9 +48,28 @@ function readCell(raw: string, column: ValueColumn): { value: unknown } | { erro
   const text = column.kind === 'text' ? raw : raw.trim();
   if (column.kind === 'text') return { value: text };
   if (column.kind === 'date') return { value: text };
-  if (/^\d+,\d+$/.test(text)) return { error: 'Use a point for decimals, e.g. 12.5' };
-  if (!NUMBER.test(text)) return { error: `"${text.slice(0, 40)}" is not a number` };
-  return { value: Number(text) };
+  const read = parseDecimal(text);
+  if (!read.ok) return { error: `${read.message} ("${text.slice(0, 40)}")` };
+  return { value: read.value };
+}
+
+/**
+ * The cell separator: a spreadsheet set to a decimal comma saves CSV with semicolons. Template
+ * headers never contain a comma or a semicolon, so the header line tells which one the file uses.
+ */
+export function csvDelimiter(text: string): ',' | ';' | '\t' {
+  const header = text.split(/\r?\n/, 1)[0] ?? '';
+  const count = (ch: string) => header.split(ch).length - 1;
+  const counts = { ',': count(','), ';': count(';'), '\t': count('\t') } as const;
+  if (counts[';'] > counts[','] && counts[';'] >= counts['\t']) return ';';
+  if (counts['\t'] > counts[',']) return '\t';
+  return ',';
+}
+
+/** A whole number from an identity cell (block, position, plot), or null. */
+function wholeNumber(text: string): number | null {
+  const read = parseDecimal(text);
+  return read.ok && read.value !== null && Number.isInteger(read.value) ? read.value : null;
 }
 
 function checkField(
@@ -68,7 +88,11 @@ function checkField(
  */
 export function parseImportCsv(text: string, context: ImportContext): ParsedImport {
   const errors: ImportRowError[] = [];
-  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy' });
+  const clean = text.replace(/^\uFEFF/, '');
+  const parsed = Papa.parse<string[]>(clean, {
+    skipEmptyLines: 'greedy',
+    delimiter: csvDelimiter(clean),
+  });
   const table = parsed.data;
   const headerRow = (table[0] ?? []).map((h) => h.trim().toLowerCase());
   if (headerRow.length === 0) {
@@ -99,13 +123,20 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
     }
     seen.add(header);
   });
-  for (const required of ['block', 'position'] as const) {
-    if (!seen.has(required))
-      errors.push({ row: 1, column: required, message: `The ${required} column is missing` });
+  if (!seen.has('plot')) {
+    for (const required of ['block', 'position'] as const) {
+      if (!seen.has(required))
+        errors.push({
+          row: 1,
+          column: required,
+          message: `The ${required} column is missing (or give a plot column)`,
+        });
+    }
   }
   if (errors.length > 0) return { headers: headerRow, rows: [], errors };
 
   const stripByKey = new Map(context.strips.map((s) => [`${s.block}:${s.position}`, s]));
+  const stripByPlot = new Map(context.strips.map((s) => [plotNumber(s.block, s.position), s]));
   const rowsSeen = new Map<string, number>();
   const rows: ParsedImportRow[] = [];
   table.slice(1).forEach((cells, offset) => {
@@ -124,13 +155,27 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
         message: 'This row has more cells than the header has columns',
       });
     }
-    const block = Number(cell('block').trim());
-    const position = Number(cell('position').trim());
-    if (!Number.isInteger(block) || cell('block').trim() === '') {
+    const plotText = cell('plot').trim();
+    const plot = wholeNumber(plotText);
+    if (plotText !== '' && (plot === null || !stripByPlot.has(plot))) {
+      errors.push({
+        row: rowNumber,
+        column: 'plot',
+        message: `This site has no plot "${plotText.slice(0, 20)}"`,
+      });
+      return;
+    }
+    const fromPlot = plot === null ? undefined : stripByPlot.get(plot);
+    const blockText = cell('block').trim();
+    const positionText = cell('position').trim();
+    const block = blockText === '' && fromPlot ? fromPlot.block : wholeNumber(blockText);
+    const position =
+      positionText === '' && fromPlot ? fromPlot.position : wholeNumber(positionText);
+    if (block === null) {
       errors.push({ row: rowNumber, column: 'block', message: 'Give the block number' });
       return;
     }
-    if (!Number.isInteger(position) || cell('position').trim() === '') {
+    if (position === null) {
       errors.push({
         row: rowNumber,
         column: 'position',
@@ -145,6 +190,14 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
         row: rowNumber,
         column: 'position',
         message: `This site has no strip at block ${block}, position ${position}`,
+      });
+      return;
+    }
+    if (fromPlot && fromPlot !== strip) {
+      errors.push({
+        row: rowNumber,
+        column: 'plot',
+        message: `Plot ${plot} is block ${fromPlot.block}, position ${fromPlot.position}, not block ${block}, position ${position}`,
       });
       return;
     }
@@ -166,11 +219,11 @@ export function parseImportCsv(text: string, context: ImportContext): ParsedImpo
       });
     }
     const rate = cell('rate').trim();
+    const rateRead = parseDecimal(rate.replace(/\s*[x×]$/i, ''));
     if (
       rate !== '' &&
       rate.toLowerCase() !== strip.label.toLowerCase() &&
-      Number(rate) !== strip.rate &&
-      Number(rate.replace(/[x×]$/i, '')) !== strip.rate
+      !(rateRead.ok && rateRead.value === strip.rate)
     ) {
       errors.push({
         row: rowNumber,

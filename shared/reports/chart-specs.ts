@@ -1,41 +1,37 @@
 // Vega-Lite specs for the report charts, as pure functions of report data so they can be
 // tested and rendered the same way in the browser and in the server's PDF.
 
+import { DARK_CHART, LIGHT_CHART, soil, white, type ChartColours } from '../brand/colours';
+
 /** A Vega-Lite top-level spec (kept as plain JSON so shared/ needs no charting import). */
 export type ChartSpec = Record<string, unknown>;
 
-export interface ChartTheme {
+/** Fonts and colours of one chart theme; every colour comes from shared/brand/colours.ts. */
+export interface ChartTheme extends ChartColours {
   font: string;
-  ink: string;
-  muted: string;
-  line: string;
-  accent: string;
-  highlight: string;
-  background: string;
   /** Sequential colour scheme for yield maps. */
   scheme: string;
+  /** Label colours on the light and dark halves of the yield map's scale. */
+  onLight: string;
+  onDark: string;
 }
 
+const CHART_FONT = 'Inter Variable, Inter, system-ui, sans-serif';
+
 export const LIGHT_CHART_THEME: ChartTheme = {
-  font: 'Inter Variable, Inter, system-ui, sans-serif',
-  ink: '#26201b',
-  muted: '#6a5a49',
-  line: '#e2dacf',
-  accent: '#1d4f2e',
-  highlight: '#bf8c2c',
-  background: '#ffffff',
+  ...LIGHT_CHART,
+  font: CHART_FONT,
   scheme: 'yellowgreen',
+  onLight: soil[900],
+  onDark: white,
 };
 
 export const DARK_CHART_THEME: ChartTheme = {
-  font: 'Inter Variable, Inter, system-ui, sans-serif',
-  ink: '#fbf6e9',
-  muted: '#c9bcab',
-  line: '#2b4a35',
-  accent: '#e4c06a',
-  highlight: '#74b487',
-  background: '#10301c',
+  ...DARK_CHART,
+  font: CHART_FONT,
   scheme: 'yellowgreen',
+  onLight: soil[900],
+  onDark: white,
 };
 
 /** Shared config: the app's font and colours, quiet grid lines, readable label sizes. */
@@ -70,6 +66,8 @@ interface BaseOptions {
   /** Type scale for projectors (1 = page). */
   scale?: number;
   title?: string;
+  /** One sentence on what the chart shows; screen readers announce it as the chart's name. */
+  description?: string;
 }
 
 const sorted = <T extends { order: number }>(items: readonly T[]) =>
@@ -106,6 +104,9 @@ export function rateMeansSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      `Mean yield (${input.yieldUnit}) at each seeding rate with its 95 % confidence interval; open points are the single strips.`,
     width: 'container',
     height: 260 * (options.scale ?? 1),
     autosize: { type: 'fit-x', contains: 'padding' },
@@ -140,7 +141,7 @@ export function rateMeansSpec(
         data: { values: input.means.map((m) => ({ ...m })) },
         layer: [
           {
-            mark: { type: 'rule', color: theme.accent, strokeWidth: 2.5 * (options.scale ?? 1) },
+            mark: { type: 'rule', color: theme.estimate, strokeWidth: 2.5 * (options.scale ?? 1) },
             encoding: { x, y: { ...y, field: 'ciLow' }, y2: { field: 'ciHigh' } },
           },
           {
@@ -148,7 +149,7 @@ export function rateMeansSpec(
               type: 'point',
               filled: true,
               size: 110 * (options.scale ?? 1),
-              color: theme.accent,
+              color: theme.estimate,
               opacity: 1,
             },
             encoding: {
@@ -184,6 +185,8 @@ export function componentsSpec(
 ): ChartSpec {
   const theme = options.theme ?? LIGHT_CHART_THEME;
   const order = input.rows.map((r) => r.label);
+  // Rate labels are turned when there are many, so they never run together ("quarterhalf").
+  const labelAngle = order.length > 3 ? -40 : 0;
   const measures = [
     { key: 'plantsPerSquareFoot', title: 'Plants per ft²' },
     { key: 'tillersPerPlant', title: 'Tillers per plant' },
@@ -197,6 +200,9 @@ export function componentsSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      'Stand, tillers and heads at each seeding rate: the yield components, means over blocks.',
     config: chartConfig(theme, options.scale),
     data: { values },
     columns: options.columns ?? 3,
@@ -214,9 +220,16 @@ export function componentsSpec(
     spec: {
       width: (options.panelWidth ?? 140) * (options.scale ?? 1),
       height: 150 * (options.scale ?? 1),
-      mark: { type: 'bar', color: theme.highlight, cornerRadiusEnd: 2 },
+      mark: { type: 'bar', color: theme.bar, cornerRadiusEnd: 2 },
       encoding: {
-        x: { field: 'label', type: 'nominal', sort: order, title: null, axis: { labelAngle: 0 } },
+        x: {
+          field: 'label',
+          type: 'nominal',
+          sort: order,
+          title: null,
+          axis: { labelAngle, labelAlign: labelAngle ? 'right' : 'center', labelPadding: 4 },
+          scale: { paddingInner: 0.25 },
+        },
         y: { field: 'value', type: 'quantitative', title: null },
         tooltip: [
           { field: 'measure', title: 'Measure' },
@@ -230,7 +243,8 @@ export function componentsSpec(
 }
 
 /**
- * The strip map: blocks down, positions across, each strip coloured by its yield and
+ * The strip map, drawn the way the field packet's map is: blocks from the start edge down and,
+ * within each block, strips in sowing order, one bar per strip coloured by its yield and
  * labelled with its rate, so a grower can see a wet corner or a weak block at a glance.
  */
 export function stripMapSpec(
@@ -241,35 +255,37 @@ export function stripMapSpec(
   options: BaseOptions = {},
 ): ChartSpec {
   const theme = options.theme ?? LIGHT_CHART_THEME;
-  const values = input.strips.map((s) => ({
-    block: `Block ${s.block}`,
-    blockNumber: s.block,
+  const scale = options.scale ?? 1;
+  const ordered = [...input.strips].sort((a, b) => a.block - b.block || a.position - b.position);
+  const values = ordered.map((s) => ({
+    strip: `Block ${s.block} · strip ${s.position}`,
+    block: s.block,
     position: s.position,
     label: s.label,
     yield: s.yield,
-    text: s.yield === null ? `${s.label}\nno yield` : s.label,
+    text: s.yield === null ? `${s.label} · no yield` : s.label,
   }));
   const yields = values.map((v) => v.yield).filter((y): y is number => y !== null);
   const midpoint = yields.length > 0 ? (Math.min(...yields) + Math.max(...yields)) / 2 : 0;
-  const blocks = [...new Set(values.map((v) => v.blockNumber))]
-    .sort((a, b) => a - b)
-    .map((b) => `Block ${b}`);
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      'The strips as laid out in the field, block by block, shaded by yield.',
     width: 'container',
-    height: Math.max(1, blocks.length) * 44 * (options.scale ?? 1),
+    height: Math.max(1, values.length) * 24 * scale,
     autosize: { type: 'fit-x', contains: 'padding' },
     config: chartConfig(theme, options.scale),
     data: { values },
     encoding: {
-      x: {
-        field: 'position',
+      y: {
+        field: 'strip',
         type: 'ordinal',
-        title: 'Strip position in the block',
-        axis: { labelAngle: 0 },
+        title: '▼ from the start edge',
+        sort: values.map((v) => v.strip),
+        axis: { labelLimit: 0 },
       },
-      y: { field: 'block', type: 'ordinal', title: null, sort: blocks },
     },
     layer: [
       {
@@ -284,23 +300,23 @@ export function stripMapSpec(
           },
           tooltip: [
             { field: 'block', title: 'Block' },
-            { field: 'position', title: 'Position' },
+            { field: 'position', title: 'Strip' },
             { field: 'label', title: 'Rate' },
             { field: 'yield', title: `Yield (${input.yieldUnit})`, format: '.1f' },
           ],
         },
       },
       {
-        mark: { type: 'text', fontSize: 11 * (options.scale ?? 1), fontWeight: 600 },
+        mark: { type: 'text', fontSize: 11 * scale, fontWeight: 600 },
         encoding: {
-          text: { field: 'label' },
+          text: { field: 'text' },
           // Light text on the darker (higher-yield) half of the colour scale keeps labels readable.
           color: {
             condition: {
               test: `datum.yield !== null && datum.yield > ${midpoint}`,
-              value: '#ffffff',
+              value: theme.onDark,
             },
-            value: '#26201b',
+            value: theme.onLight,
           },
         },
       },
@@ -331,7 +347,7 @@ export function forestSpec(
       : []),
   ];
   const order = sorted(rows).map((r) => r.site);
-  const y = { field: 'site', type: 'nominal', title: null, sort: order };
+  const y = { field: 'site', type: 'nominal', title: null, sort: order, axis: { labelLimit: 0 } };
   const x = {
     type: 'quantitative',
     title: `${input.rateLabel} minus ${input.referenceLabel} (${input.yieldUnit})`,
@@ -339,6 +355,9 @@ export function forestSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      'Difference in yield from the reference rate at each site, with 95 % confidence intervals.',
     width: 'container',
     height: Math.max(2, rows.length) * 26 * (options.scale ?? 1),
     autosize: { type: 'fit-x', contains: 'padding' },
@@ -360,7 +379,7 @@ export function forestSpec(
               x2: { field: 'ciHigh' },
               // Conditions rather than a second colour scale: the point layer colours by kind too.
               color: {
-                condition: { test: "datum.kind === 'pooled'", value: theme.accent },
+                condition: { test: "datum.kind === 'pooled'", value: theme.estimate },
                 value: theme.muted,
               },
             },
@@ -381,7 +400,7 @@ export function forestSpec(
                 value: 70 * (options.scale ?? 1),
               },
               color: {
-                condition: { test: "datum.kind === 'pooled'", value: theme.accent },
+                condition: { test: "datum.kind === 'pooled'", value: theme.estimate },
                 value: theme.ink,
               },
               tooltip: [
@@ -419,7 +438,12 @@ export function responseCurveSpec(
   options: BaseOptions = {},
 ): ChartSpec {
   const theme = options.theme ?? LIGHT_CHART_THEME;
-  const x = { type: 'quantitative', title: `Seeding rate (${input.seedUnit})` };
+  // Padding keeps the points at the lowest and highest rates inside the plot.
+  const x = {
+    type: 'quantitative',
+    title: `Seeding rate (${input.seedUnit})`,
+    scale: { zero: false, nice: true, padding: 12 },
+  };
   const y = { type: 'quantitative', title: `Yield (${input.yieldUnit})`, scale: { zero: false } };
   const layers: ChartSpec[] = [
     {
@@ -451,7 +475,7 @@ export function responseCurveSpec(
     });
     layers.push({
       data: { values: line },
-      mark: { type: 'line', color: theme.accent, strokeWidth: 3 * (options.scale ?? 1) },
+      mark: { type: 'line', color: theme.curve, strokeWidth: 3 * (options.scale ?? 1) },
       encoding: { x: { ...x, field: 'seedRate' }, y: { ...y, field: 'fitted' } },
     });
   }
@@ -477,9 +501,9 @@ export function responseCurveSpec(
               title: null,
               scale: {
                 domain: ['Highest yield', 'Best return over seed'],
-                range: [theme.accent, theme.highlight],
+                range: [theme.agronomicOptimum, theme.economicOptimum],
               },
-              legend: { orient: 'bottom', labelLimit: 0 },
+              legend: { orient: 'bottom', direction: 'vertical', labelLimit: 0 },
             },
           },
         },
@@ -489,6 +513,9 @@ export function responseCurveSpec(
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     ...(options.title ? { title: options.title } : {}),
+    description:
+      options.description ??
+      'Yield at each seeding rate with the fitted response curve and its optimum rates.',
     width: 'container',
     height: 280 * (options.scale ?? 1),
     autosize: { type: 'fit-x', contains: 'padding' },
@@ -507,5 +534,13 @@ export function pooledMeansSpec(
   },
   options: BaseOptions = {},
 ): ChartSpec {
-  return rateMeansSpec({ means: input.means, strips: [], yieldUnit: input.yieldUnit }, options);
+  return rateMeansSpec(
+    { means: input.means, strips: [], yieldUnit: input.yieldUnit },
+    {
+      ...options,
+      description:
+        options.description ??
+        `Mean yield (${input.yieldUnit}) at each seeding rate over all sites, with its 95 % confidence interval (tested against site × rate).`,
+    },
+  );
 }

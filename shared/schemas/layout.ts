@@ -5,6 +5,8 @@ export const LayoutStripSchema = z.object({
   stripId: z.uuid(),
   /** Position within the block, 1 = first strip in field order. */
   position: z.number().int().min(1),
+  /** Plot number, unique within the site: block × 100 + position (101, 102 … 201 …). */
+  plotNumber: z.number().int(),
   rateLevelId: z.uuid(),
   /** Multiplier of the reference rate (0.5 = half). */
   rate: z.number(),

@@ -27,6 +27,15 @@ export const NetworkPeopleSchema = z.object({
 });
 export type NetworkPeople = z.infer<typeof NetworkPeopleSchema>;
 
+/** POST /api/networks/:networkId/invitations: the invitation just sent. */
+export const InvitationCreatedSchema = z.object({
+  id: z.uuid(),
+  email: z.string(),
+  role: RoleSchema,
+  expiresAt: z.string(),
+});
+export type InvitationCreated = z.infer<typeof InvitationCreatedSchema>;
+
 export const MemberRoleUpdateSchema = z.object({
   role: RoleSchema,
 });

@@ -94,6 +94,8 @@ export const ReportStripSchema = z.object({
   id: z.uuid(),
   block: z.number(),
   position: z.number(),
+  /** Plot number, unique within the site: block × 100 + position. */
+  plotNumber: z.number(),
   rate: z.string(),
   label: z.string(),
   yield: z.number().nullable(),

@@ -30,6 +30,8 @@ export const StripSchema = z.object({
   siteId: z.uuid(),
   block: z.number().int(),
   position: z.number().int(),
+  /** Plot number, unique within the site: block × 100 + position. */
+  plotNumber: z.number().int(),
   rateLevelId: z.uuid(),
   /** Multiplier of the reference rate. */
   rate: z.number(),

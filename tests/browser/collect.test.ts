@@ -53,7 +53,7 @@ describe('collecting strip data in the browser', () => {
   it('lists the strips of the site with what is missing', async () => {
     await page.goto(`${server.baseUrl}/sites/${site.siteId}`);
     await page.getByRole('heading', { name: 'Ridge field' }).waitFor();
-    await expect(page.getByRole('link', { name: /Block 1, strip 1/ }).count()).resolves.toBe(1);
+    await expect(page.getByRole('link', { name: /^Plot 101,/ }).count()).resolves.toBe(1);
     expect(await page.getByText('missing').count()).toBeGreaterThan(0);
     await screenshot(page, 'collect-site-390');
     const overflow = await page.evaluate(
@@ -64,8 +64,8 @@ describe('collecting strip data in the browser', () => {
 
   it('enters a stand count and grain weight on the phone form and shows the derived yield', async () => {
     const strip = site.strips[0]!;
-    await page.getByRole('link', { name: /Block 1, strip 1/ }).click();
-    await page.getByRole('heading', { name: 'Block 1 · strip 1' }).waitFor();
+    await page.getByRole('link', { name: /^Plot 101,/ }).click();
+    await page.getByRole('heading', { name: 'Plot 101' }).waitFor();
     await page.getByLabel('Count 1', { exact: true }).first().fill('44');
     await page.getByLabel('Count 2', { exact: true }).first().fill('46');
     await page.getByLabel('Count 3', { exact: true }).first().fill('45');
@@ -115,7 +115,7 @@ describe('collecting strip data in the browser', () => {
     await page.getByLabel('Test weight').fill('38.5');
     await page.getByTestId('outbox-status').filter({ hasText: '1 change waiting' }).waitFor();
     await page.reload();
-    await page.getByRole('heading', { name: 'Block 1 · strip 1' }).waitFor();
+    await page.getByRole('heading', { name: 'Plot 101' }).waitFor();
     expect(await page.getByLabel('Test weight').inputValue()).toBe('38.5');
     await page.getByTestId('outbox-status').filter({ hasText: '1 change waiting' }).waitFor();
     await page.unroute('**/api/strips/**');

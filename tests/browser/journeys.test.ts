@@ -153,7 +153,8 @@ describe('journeys through the navigation', () => {
 
       expect(errors).toEqual([]);
       await close();
-    });
+      // Many pages, each also checked by axe-core: more than the default minute on 2 shared cores.
+    }, 180_000);
   }
 
   it('shows a member only the published reports, without edit controls', async () => {
@@ -243,5 +244,5 @@ describe('journeys through the navigation', () => {
       expect(errors).toEqual([]);
       await close();
     }
-  });
+  }, 180_000);
 });

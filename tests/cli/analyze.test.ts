@@ -1,4 +1,7 @@
 import { spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 
@@ -61,9 +64,33 @@ describe('analyze CLI', () => {
     expect(yieldRun.sites[2].missingEstimates).toHaveLength(1);
   });
 
+  it('reads a semicolon-separated file with decimal commas the same as the comma file', () => {
+    const source = fs.readFileSync('fixtures/analysis/gomez-seeding-rate.csv', 'utf8');
+    // Yields in tonnes with a decimal comma (4 decimals: "5,113" alone is refused as ambiguous).
+    const semicolons = source
+      .split('\n')
+      .map((line, i) => {
+        if (i === 0 || line === '') return line.replaceAll(',', ';');
+        const cells = line.split(',');
+        const kg = Number(cells.pop());
+        return [...cells, (kg / 1000).toFixed(4).replace('.', ',')].join(';');
+      })
+      .join('\n');
+    const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'sheaf-cli-')), 'semi.csv');
+    fs.writeFileSync(file, semicolons);
+    const result = run(file, '--reference', '100');
+    expect(result.stderr).toBe('');
+    const rate = JSON.parse(result.stdout).sites[0].anova.find(
+      (r: { source: string }) => r.source === 'rate',
+    );
+    // Source: Gomez & Gomez (1984), Table 2.6, p. 28: treatment SS 1,198,331 kg² → 1.198331 t².
+    expect(rate.ss).toBeCloseTo(1.198331, 5);
+    expect(rate.f.toFixed(2)).toBe('2.17');
+  });
+
   it.each([
     ['bad-missing-column.csv', /row 1 \(header\), column "block": missing/],
-    ['bad-non-numeric.csv', /row 3, column "yield": "abc" is not a number/],
+    ['bad-non-numeric.csv', /row 3, column "yield": "abc": Enter a number/],
     ['bad-one-block.csv', /row 6, column "block": site "B" has only one block/],
   ])('exits 2 with a one-line message for %s', (file, message) => {
     const result = run(`fixtures/analysis/${file}`);

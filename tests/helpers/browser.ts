@@ -2,6 +2,7 @@
 // Debian's Chromium driven by playwright-core.
 import fs from 'node:fs';
 import path from 'node:path';
+import { AxeBuilder } from '@axe-core/playwright';
 import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
 import { createTestApp, type TestApp } from './app';
 
@@ -48,6 +49,10 @@ export async function openPage(
 ) {
   const context = await browser.newContext({
     viewport: { width, height: width < 500 ? 844 : 900 },
+    // Growers work west of UTC: every page is looked at in Central time unless a test says otherwise.
+    timezoneId: BROWSER_TIMEZONE,
+    // The offline service worker answers some requests itself; tests that check it allow it.
+    serviceWorkers: 'block',
     ...options,
   });
   const page = await context.newPage();
@@ -68,9 +73,79 @@ export async function signInThroughUi(
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
 }
 
+/** The browser's time zone in tests: west of UTC, where date-only values used to shift. */
+export const BROWSER_TIMEZONE = process.env.BROWSER_TIMEZONE ?? 'America/Chicago';
+
+const axeRuns = new WeakMap<Page, Promise<unknown>>();
+
+/** Serious and critical accessibility problems axe-core finds on the page, one line each. */
+export async function accessibilityProblems(page: Page): Promise<string[]> {
+  // axe-core runs one check at a time in a page: queue behind a check already running.
+  const previous = axeRuns.get(page) ?? Promise.resolve();
+  const run = previous
+    .catch(() => undefined)
+    .then(() =>
+      new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze(),
+    );
+  axeRuns.set(page, run);
+  const results = await run;
+  return results.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map(
+      (v) =>
+        `axe ${v.id} (${v.impact}) on ${new URL(page.url()).pathname}: ${v.help} — ${v.nodes
+          .slice(0, 3)
+          .map((n) => n.target.join(' '))
+          .join('; ')}`,
+    );
+}
+
+/** Fails when axe-core finds a serious or critical problem on the page as it is now. */
+export async function expectAccessible(page: Page): Promise<void> {
+  const problems = await accessibilityProblems(page);
+  if (problems.length > 0) throw new Error(problems.join('\n'));
+}
+
+const AXE_SETTLE_MS = 400;
+
+/**
+ * Runs axe-core on every page a test opens (each load and each in-app navigation, once the
+ * page has been still for a moment) and adds what it finds to `errors`, so every test that
+ * asserts no errors also asserts no serious or critical accessibility problem.
+ */
+function watchAccessibility(page: Page, errors: string[]) {
+  let timer: ReturnType<typeof setTimeout> | null = null;
+  const seen = new Set<string>();
+  // Each page once: a test that returns to the same page does not pay for another check.
+  const checked = new Set<string>();
+  const check = async () => {
+    timer = null;
+    if (page.isClosed()) return;
+    const where = new URL(page.url()).pathname;
+    if (checked.has(where)) return;
+    checked.add(where);
+    try {
+      await page.waitForLoadState('load', { timeout: 5000 });
+      for (const problem of await accessibilityProblems(page)) {
+        if (seen.has(problem)) continue;
+        seen.add(problem);
+        errors.push(problem);
+      }
+    } catch {
+      // The page navigated or closed while axe ran: the next navigation is checked instead.
+    }
+  };
+  page.on('framenavigated', (frame) => {
+    if (frame !== page.mainFrame()) return;
+    if (timer) clearTimeout(timer);
+    timer = setTimeout(() => void check(), AXE_SETTLE_MS);
+  });
+}
+
 /** Collects page errors and failed same-origin requests so a test can assert none happened. */
 export function watchErrors(page: Page): string[] {
   const errors: string[] = [];
+  watchAccessibility(page, errors);
   page.on('pageerror', (error) => errors.push(`pageerror: ${error.message}`));
   page.on('console', (message) => {
     if (

@@ -2,6 +2,7 @@
  * The one way the web app talks to the Sheaf API: JSON in and out, same-origin cookies,
  * a CSRF token on every state-changing request, and typed `ApiError`s for non-2xx answers.
  */
+import { z } from 'zod';
 import { CsrfTokenSchema } from '../../shared/schemas/auth';
 import type { ApiErrorBody } from '../../shared/schemas/common';
 
@@ -140,35 +141,102 @@ function fallbackCode(status: number): string {
   return status >= 500 ? 'internal_error' : 'request_failed';
 }
 
-/** Sends one request and parses the JSON answer (`undefined` for 204). */
-export async function request<T>(
-  method: Method,
-  path: string,
-  options: RequestOptions = {},
-): Promise<T> {
-  if (!UNSAFE_METHODS.has(method)) {
-    return (await readBody(await send(method, path, options))) as T;
+/**
+ * An answer whose shape is not what the page expects (an older or newer server, a proxy's error
+ * page): named here, at the API boundary, instead of crashing a component later.
+ */
+export class UnexpectedResponseError extends Error {
+  readonly path: string;
+  readonly issues: z.core.$ZodIssue[];
+
+  constructor(method: Method, path: string, error: z.ZodError) {
+    const first = error.issues[0];
+    const where = first?.path.length ? ` at ${first.path.join('.')}` : '';
+    super(`${method} ${path} answered an unexpected shape${where}: ${first?.message ?? ''}`);
+    this.name = 'UnexpectedResponseError';
+    this.path = path;
+    this.issues = error.issues;
   }
+}
+
+async function sendAndRead(method: Method, path: string, options: RequestOptions) {
+  if (!UNSAFE_METHODS.has(method)) return readBody(await send(method, path, options));
   try {
-    return (await readBody(await send(method, path, options, await getCsrfToken()))) as T;
+    return await readBody(await send(method, path, options, await getCsrfToken()));
   } catch (error) {
     // The token expires with the session: fetch a fresh one and try exactly once more.
     if (isApiError(error, 403) && error.code === 'csrf_invalid') {
       resetCsrfToken();
-      return (await readBody(await send(method, path, options, await getCsrfToken()))) as T;
+      return readBody(await send(method, path, options, await getCsrfToken()));
     }
     throw error;
   }
 }
 
+/** Sends one request and parses its JSON answer with the response's schema. */
+export async function request<S extends z.ZodType>(
+  method: Method,
+  path: string,
+  schema: S,
+  options: RequestOptions = {},
+): Promise<z.output<S>> {
+  const body = await sendAndRead(method, path, options);
+  const parsed = schema.safeParse(body);
+  if (!parsed.success) throw new UnexpectedResponseError(method, path, parsed.error);
+  return parsed.data;
+}
+
+/** A 204 answer, or one whose body the caller does not need. */
+export const NoContent = z.unknown().transform(() => undefined);
+
+/** Sends one request whose answer the caller parses itself (kept for callers outside web/features that parse). */
+export function requestUnparsed(method: Method, path: string, options: RequestOptions = {}) {
+  return sendAndRead(method, path, options) as Promise<unknown>;
+}
+
+type ReadOptions = Omit<RequestOptions, 'body'>;
+
+function get<S extends z.ZodType>(
+  path: string,
+  schema: S,
+  options?: ReadOptions,
+): Promise<z.output<S>>;
+function get(path: string, options?: ReadOptions): Promise<unknown>;
+function get(path: string, schemaOrOptions?: z.ZodType | ReadOptions, options?: ReadOptions) {
+  return schemaOrOptions instanceof z.ZodType
+    ? request('GET', path, schemaOrOptions, options)
+    : requestUnparsed('GET', path, schemaOrOptions);
+}
+
+function writer(method: Exclude<Method, 'GET'>) {
+  function write<S extends z.ZodType>(
+    path: string,
+    schema: S,
+    body?: unknown,
+    options?: RequestOptions,
+  ): Promise<z.output<S>>;
+  function write(path: string, body?: unknown, options?: RequestOptions): Promise<unknown>;
+  function write(
+    path: string,
+    schemaOrBody?: unknown,
+    bodyOrOptions?: unknown,
+    options?: RequestOptions,
+  ) {
+    return schemaOrBody instanceof z.ZodType
+      ? request(method, path, schemaOrBody, { ...options, body: bodyOrOptions })
+      : requestUnparsed(method, path, { ...(bodyOrOptions as RequestOptions), body: schemaOrBody });
+  }
+  return write;
+}
+
+/**
+ * `api.get(path, Schema)` and `api.post(path, Schema, body)` parse the answer with the schema;
+ * the forms without a schema return `unknown` for callers that parse it themselves.
+ */
 export const api = {
-  get: <T>(path: string, options?: Omit<RequestOptions, 'body'>) =>
-    request<T>('GET', path, options),
-  post: <T>(path: string, body?: unknown, options?: RequestOptions) =>
-    request<T>('POST', path, { ...options, body }),
-  patch: <T>(path: string, body?: unknown, options?: RequestOptions) =>
-    request<T>('PATCH', path, { ...options, body }),
-  put: <T>(path: string, body?: unknown, options?: RequestOptions) =>
-    request<T>('PUT', path, { ...options, body }),
-  delete: <T>(path: string, options?: RequestOptions) => request<T>('DELETE', path, options),
+  get,
+  post: writer('POST'),
+  patch: writer('PATCH'),
+  put: writer('PUT'),
+  delete: writer('DELETE'),
 };

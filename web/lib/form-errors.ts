@@ -1,6 +1,6 @@
 // Turns zod issues and API errors into per-field messages and one summary line for forms.
 import { z } from 'zod';
-import { isApiError } from './api-client';
+import { isApiError, UnexpectedResponseError } from './api-client';
 
 export type FieldErrors = Record<string, string>;
 
@@ -30,7 +30,7 @@ export function errorSummary(error: unknown): string {
     if (error.status >= 500) return 'Something went wrong on the server. Try again in a moment.';
     return error.message;
   }
-  if (error instanceof z.ZodError) {
+  if (error instanceof z.ZodError || error instanceof UnexpectedResponseError) {
     return 'The server sent an answer this page does not understand. Reload the page; if it happens again, tell your coordinator.';
   }
   return error instanceof Error ? error.message : 'Something went wrong.';

@@ -1,20 +1,11 @@
 // Display wording for values from the API: crop names, statuses, dates and counts.
 import type { CropKey, TrialStatus } from '../../shared/schemas/trial';
 import type { Role } from '../../shared/schemas/common';
+import { cropLabel } from '../../shared/labels/labels';
 
-const CROP_NAMES: Record<CropKey, string> = {
-  wheat: 'Winter wheat',
-  springWheat: 'Spring wheat',
-  oats: 'Oats',
-  hullessOats: 'Hulless oats',
-  barley: 'Barley',
-  rye: 'Rye',
-  custom: 'Other crop',
-};
-
+/** A crop's display name; the words live in shared/labels/labels.ts. */
 export function cropName(crop: CropKey | string | null | undefined): string {
-  if (!crop) return 'Crop not chosen';
-  return CROP_NAMES[crop as CropKey] ?? crop;
+  return cropLabel(crop);
 }
 
 const STATUS_NAMES: Record<TrialStatus, string> = {
@@ -56,8 +47,21 @@ const dateTimeFormat = new Intl.DateTimeFormat('en', {
   minute: '2-digit',
 });
 
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+const DATE_ONLY = /^(\d{4})-(\d{2})-(\d{2})$/;
+
+/**
+ * A calendar date ("2027-04-15" → "Apr 15, 2027") read from its digits, never through a
+ * local-time Date: west of UTC that would show the day before. A full timestamp is shown as the
+ * day it is in the browser's time zone.
+ */
 export function formatDate(iso: string | null | undefined): string {
   if (!iso) return '';
+  const parts = DATE_ONLY.exec(iso);
+  if (parts) {
+    const month = MONTHS[Number(parts[2]) - 1];
+    return month ? `${month} ${Number(parts[3])}, ${parts[1]}` : iso;
+  }
   const date = new Date(iso);
   return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
 }

@@ -67,7 +67,7 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
     expect(res.body.error.code).toBe('invalid_rows');
     expect(res.body.error.message).toMatch(/nothing was saved/);
     expect(res.body.error.rows).toEqual([
-      { row: 3, column: 'moisture_pct', message: expect.stringMatching(/not a number/) },
+      { row: 3, column: 'moisture_pct', message: expect.stringMatching(/^Enter a number/) },
     ]);
     expect(await observationCount(site.siteId)).toBe(0);
     expect(await versions(site.siteId)).toEqual([1, 1, 1, 1, 1, 1]);
@@ -129,7 +129,7 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
     expect(rows[3].notes).toBe(`<script>alert('x')</script> lodged after storm`);
   });
 
-  it('offers a template prefilled with site, block, position and rate, guarding formula-like cells', async () => {
+  it('offers a template prefilled with site, plot, block, position and rate, guarding formula-like cells', async () => {
     const res = await grower.get(`/api/sites/${site.siteId}/import-template.csv`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
@@ -138,8 +138,9 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
     );
     const parsed = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, ''), { skipEmptyLines: true });
     const [header, ...rows] = parsed.data;
-    expect(header!.slice(0, 6)).toEqual([
+    expect(header!.slice(0, 7)).toEqual([
       'site',
+      'plot',
       'block',
       'position',
       'rate',
@@ -149,8 +150,11 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
     expect(header).toContain('grain_weight_lb');
     expect(header).toContain('moisture_pct');
     expect(rows).toHaveLength(6);
-    expect(rows.map((r) => r.slice(0, 4).join(','))).toEqual(
-      site.strips.map((s) => `Fixture field,${s.block},${s.position},${s.label}`),
+    // Common practice, no published source: field trials number plots block × 100 + position.
+    expect(rows.map((r) => r.slice(0, 5).join(','))).toEqual(
+      site.strips.map(
+        (s) => `Fixture field,${s.block * 100 + s.position},${s.block},${s.position},${s.label}`,
+      ),
     );
     const notes = header!.indexOf('notes');
     // A spreadsheet would run a cell starting with "="; the template guards it with an apostrophe.
@@ -164,6 +168,67 @@ describe('CSV import: GET /api/sites/:siteId/import-template.csv and POST /api/s
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ rows: 6, changedStrips: 0, unchangedStrips: 6 });
     expect(await versions(site.siteId)).toEqual(before);
+  });
+
+  it('exports the same columns as the template, and the export imports back changing nothing', async () => {
+    const template = await grower.get(`/api/sites/${site.siteId}/import-template.csv`);
+    const exported = await grower.get(`/api/sites/${site.siteId}/export.csv`);
+    expect(exported.status).toBe(200);
+    expect(exported.headers['content-disposition']).toMatch(/sheaf-fixture-field-export\.csv/);
+    const headerOf = (text: string) => text.replace(/^\uFEFF/, '').split('\r\n')[0];
+    expect(headerOf(exported.text)).toBe(headerOf(template.text));
+    // Stored values come back out: the first strip's stand counts sit in stand_1…stand_3.
+    const [header, first] = Papa.parse<string[]>(exported.text.replace(/^\uFEFF/, ''), {
+      skipEmptyLines: true,
+    }).data;
+    expect(first![header!.indexOf('stand_2')]).toBe('47');
+    const before = await versions(site.siteId);
+    const dataBefore = await dataVersion(t.dataSource, site.siteId);
+    const res = await upload(grower, site.siteId, Buffer.from(exported.text, 'utf8'));
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ rows: 6, changedStrips: 0, unchangedStrips: 6 });
+    expect(await versions(site.siteId)).toEqual(before);
+    expect(await dataVersion(t.dataSource, site.siteId)).toBe(dataBefore);
+  });
+
+  it('imports a semicolon-separated file with decimal commas, found by plot number alone', async () => {
+    const [strip] = site.strips;
+    const plot = strip!.block * 100 + strip!.position;
+    const csv = `site;plot;moisture_pct;grain_weight_lb\r\nFixture field;${plot};12,5;7,25\r\n`;
+    const res = await upload(grower, site.siteId, Buffer.from(csv, 'utf8'));
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ rows: 1, changedStrips: 1 });
+    const list = await grower.get(`/api/sites/${site.siteId}/strips`);
+    const stored = list.body.strips.find((s: { stripId: string }) => s.stripId === strip!.id);
+    expect(stored.values).toMatchObject({ moisturePct: 12.5, grainWeight: 7.25 });
+    expect(stored.plotNumber).toBe(plot);
+  });
+
+  it('refuses a thousands separator and letters with the same words as the forms', async () => {
+    const csv = 'site;block;position;seeds_sown;moisture_pct\r\nFixture field;1;1;1.234,5;x\r\n';
+    const res = await upload(grower, site.siteId, Buffer.from(csv, 'utf8'));
+    expect(res.status).toBe(422);
+    expect(res.body.error.rows).toEqual([
+      {
+        row: 2,
+        column: 'seeds_sown',
+        message: expect.stringMatching(/^Write 1234 or 1234\.5, without thousands separators/),
+      },
+      { row: 2, column: 'moisture_pct', message: expect.stringMatching(/^Enter a number/) },
+    ]);
+  });
+
+  it('names the plot column when the plot and the block and position disagree', async () => {
+    const csv = 'site,plot,block,position\r\nFixture field,102,2,1\r\n';
+    const res = await upload(grower, site.siteId, Buffer.from(csv, 'utf8'));
+    expect(res.status).toBe(422);
+    expect(res.body.error.rows).toEqual([
+      {
+        row: 2,
+        column: 'plot',
+        message: expect.stringMatching(/^Plot 102 is block 1, position 2/),
+      },
+    ]);
   });
 
   it('answers 415 for a file that is not CSV by its content, whatever its name', async () => {

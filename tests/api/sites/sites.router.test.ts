@@ -7,7 +7,14 @@ interface LayoutBody {
   seed: string;
   blocks: {
     block: number;
-    strips: { stripId: string; position: number; rate: number; label: string; seedGrams: number }[];
+    strips: {
+      stripId: string;
+      position: number;
+      plotNumber: number;
+      rate: number;
+      label: string;
+      seedGrams: number;
+    }[];
   }[];
 }
 
@@ -84,6 +91,10 @@ describe('site design API', () => {
         expect(block.strips.map((s) => s.rate).sort((a, b) => a - b)).toEqual([0.25, 0.5, 1, 2]);
       }
       expect(new Set(orders(layout)).size).toBe(4);
+      // Common practice, no published source: plots numbered block × 100 + position.
+      expect(layout.blocks.flatMap((b) => b.strips.map((s) => s.plotNumber))).toEqual([
+        101, 102, 103, 104, 201, 202, 203, 204, 301, 302, 303, 304, 401, 402, 403, 404,
+      ]);
       const detail = await coordinator.get(`/api/sites/${siteId}`);
       expect(detail.body).toMatchObject({
         randomized: true,

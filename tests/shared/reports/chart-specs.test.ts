@@ -33,6 +33,14 @@ describe('chart specs', () => {
     });
     compiles(spec);
     expect((spec.config as { font: string }).font).toMatch(/Inter/);
+    // Vega names the drawn chart after its description (the SVG's aria-label).
+    expect(compiles(spec).description).toBe(
+      'Mean yield (bu/acre) at each seeding rate with its 95 % confidence interval; open points are the single strips.',
+    );
+    expect(
+      rateMeansSpec({ means, strips: [], yieldUnit: 'bu/acre' }, { description: 'Own words.' })
+        .description,
+    ).toBe('Own words.');
     const layers = spec.layer as { data: { values: unknown[] } }[];
     expect(layers[0]!.data.values).toHaveLength(1);
     expect(layers[1]!.data.values).toEqual(means);
@@ -65,6 +73,7 @@ describe('chart specs', () => {
       pooled: { diff: -0.5, ciLow: -2, ciHigh: 1 },
     });
     compiles(forest);
+    expect(forest.description).toMatch(/^Difference in yield from the reference rate/);
     expect(JSON.stringify(forest)).toContain('All sites (pooled)');
     const curve = responseCurveSpec(
       {

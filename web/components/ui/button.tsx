@@ -9,7 +9,7 @@ export type ButtonSize = 'md' | 'lg';
 
 const base =
   'inline-flex items-center justify-center gap-2 rounded-field font-semibold transition-colors ' +
-  'disabled:cursor-not-allowed disabled:opacity-60 select-none whitespace-nowrap';
+  'disabled:cursor-not-allowed disabled:opacity-60 select-none text-center text-balance';
 
 const variants: Record<ButtonVariant, string> = {
   primary: 'bg-accent text-on-accent hover:bg-accent-hover shadow-sm',
@@ -18,10 +18,11 @@ const variants: Record<ButtonVariant, string> = {
   danger: 'bg-danger text-on-accent hover:opacity-90',
 };
 
-// 44 px minimum height: comfortable with a thumb, or a gloved finger.
+// 44 px minimum height: comfortable with a thumb, or a gloved finger. Long labels wrap inside
+// the button rather than run out of it on a phone.
 const sizes: Record<ButtonSize, string> = {
-  md: 'min-h-11 px-4 text-label',
-  lg: 'min-h-12 px-5 text-body',
+  md: 'min-h-11 px-4 py-2 text-label',
+  lg: 'min-h-12 px-5 py-2.5 text-body',
 };
 
 export function buttonClasses(

@@ -2,28 +2,30 @@
 import {
   useId,
   type ReactNode,
+  type Ref,
   type SelectHTMLAttributes,
   type TextareaHTMLAttributes,
 } from 'react';
 import { cn } from '../../lib/cn';
-
-const control =
-  'block min-h-11 w-full rounded-field border bg-surface px-3 text-body text-ink focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30';
+import { FieldError, fieldErrorId } from './field-error';
+import { controlClass } from './text-field';
 
 interface FieldFrameProps {
   id: string;
   label: ReactNode;
   hint?: ReactNode;
   error?: string;
+  disabled?: boolean;
   className?: string;
   children: ReactNode;
 }
 
-function FieldFrame({ id, label, hint, error, className, children }: FieldFrameProps) {
+function FieldFrame({ id, label, hint, error, disabled, className, children }: FieldFrameProps) {
   return (
-    <div className={cn('flex flex-col gap-1.5', className)}>
+    <div className={cn('flex min-w-0 flex-col gap-1.5', className)}>
       <label htmlFor={id} className="text-label text-ink">
         {label}
+        {disabled ? <span className="ml-1.5 text-caption text-ink-muted">(fixed)</span> : null}
       </label>
       {hint ? (
         <p id={`${id}-hint`} className="text-caption text-ink-muted">
@@ -31,24 +33,20 @@ function FieldFrame({ id, label, hint, error, className, children }: FieldFrameP
         </p>
       ) : null}
       {children}
-      {error ? (
-        <p
-          id={`${id}-error`}
-          className="flex items-start gap-1.5 text-caption font-medium text-danger"
-        >
-          <span aria-hidden="true">▲</span>
-          {error}
-        </p>
-      ) : null}
+      <FieldError controlId={id} message={error} />
     </div>
   );
 }
+
+const describedBy = (id: string, hint: unknown, error: unknown) =>
+  [hint ? `${id}-hint` : '', error ? fieldErrorId(id) : ''].filter(Boolean).join(' ') || undefined;
 
 export interface SelectFieldProps extends Omit<SelectHTMLAttributes<HTMLSelectElement>, 'id'> {
   label: ReactNode;
   hint?: ReactNode;
   error?: string;
   containerClassName?: string;
+  ref?: Ref<HTMLSelectElement>;
 }
 
 export function SelectField({
@@ -62,15 +60,19 @@ export function SelectField({
 }: SelectFieldProps) {
   const id = useId();
   return (
-    <FieldFrame id={id} label={label} hint={hint} error={error} className={containerClassName}>
+    <FieldFrame
+      id={id}
+      label={label}
+      hint={hint}
+      error={error}
+      disabled={rest.disabled}
+      className={containerClassName}
+    >
       <select
         id={id}
         aria-invalid={error ? true : undefined}
-        aria-describedby={
-          [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') ||
-          undefined
-        }
-        className={cn(control, error ? 'border-danger' : 'border-line-strong', className)}
+        aria-describedby={describedBy(id, hint, error)}
+        className={cn(controlClass, error ? 'border-danger' : 'border-line-strong', className)}
         {...rest}
       >
         {children}
@@ -87,6 +89,7 @@ export interface TextAreaFieldProps extends Omit<
   hint?: ReactNode;
   error?: string;
   containerClassName?: string;
+  ref?: Ref<HTMLTextAreaElement>;
 }
 
 export function TextAreaField({
@@ -99,15 +102,24 @@ export function TextAreaField({
 }: TextAreaFieldProps) {
   const id = useId();
   return (
-    <FieldFrame id={id} label={label} hint={hint} error={error} className={containerClassName}>
+    <FieldFrame
+      id={id}
+      label={label}
+      hint={hint}
+      error={error}
+      disabled={rest.disabled}
+      className={containerClassName}
+    >
       <textarea
         id={id}
         aria-invalid={error ? true : undefined}
-        aria-describedby={
-          [hint ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') ||
-          undefined
-        }
-        className={cn(control, 'py-2', error ? 'border-danger' : 'border-line-strong', className)}
+        aria-describedby={describedBy(id, hint, error)}
+        className={cn(
+          controlClass,
+          'py-2',
+          error ? 'border-danger' : 'border-line-strong',
+          className,
+        )}
         rows={3}
         {...rest}
       />

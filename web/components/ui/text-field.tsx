@@ -1,6 +1,7 @@
 // A labelled text input with hint and error text wired up for screen readers and phone keyboards.
 import { forwardRef, useId, type InputHTMLAttributes, type ReactNode } from 'react';
 import { cn } from '../../lib/cn';
+import { FieldError, fieldErrorId } from './field-error';
 
 export interface TextFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'id'> {
   label: ReactNode;
@@ -13,6 +14,13 @@ export interface TextFieldProps extends Omit<InputHTMLAttributes<HTMLInputElemen
   containerClassName?: string;
 }
 
+/** Looks of every text-like control; a disabled one is sunken, dashed and muted. */
+export const controlClass = cn(
+  'block min-h-11 w-full min-w-0 rounded-field border bg-surface px-3 text-body text-ink',
+  'placeholder:text-ink-muted/70 focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30',
+  'disabled:cursor-not-allowed disabled:border-dashed disabled:bg-disabled-bg disabled:text-disabled-ink',
+);
+
 export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function TextField(
   { label, hint, error, suffix, id, className, containerClassName, required, ...rest },
   ref,
@@ -20,9 +28,9 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
   const autoId = useId();
   const inputId = id ?? autoId;
   const hintId = hint ? `${inputId}-hint` : undefined;
-  const errorId = error ? `${inputId}-error` : undefined;
+  const errorId = error ? fieldErrorId(inputId) : undefined;
   return (
-    <div className={cn('flex flex-col gap-1.5', containerClassName)}>
+    <div className={cn('flex min-w-0 flex-col gap-1.5', containerClassName)}>
       <label htmlFor={inputId} className="text-label text-ink">
         {label}
         {required ? (
@@ -30,6 +38,7 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
             *
           </span>
         ) : null}
+        {rest.disabled ? <span className="ml-1.5 text-caption text-ink-muted">(fixed)</span> : null}
       </label>
       {hint ? (
         <p id={hintId} className="text-caption text-ink-muted">
@@ -44,10 +53,9 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
           aria-invalid={error ? true : undefined}
           aria-describedby={[hintId, errorId].filter(Boolean).join(' ') || undefined}
           className={cn(
-            'block min-h-11 w-full rounded-field border bg-surface px-3 text-body text-ink',
-            'placeholder:text-ink-muted/70 focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30',
+            controlClass,
             error ? 'border-danger' : 'border-line-strong',
-            suffix ? 'pr-20' : undefined,
+            suffix ? 'pr-16' : undefined,
             className,
           )}
           {...rest}
@@ -58,12 +66,7 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
           </span>
         ) : null}
       </div>
-      {error ? (
-        <p id={errorId} className="flex items-start gap-1.5 text-caption font-medium text-danger">
-          <span aria-hidden="true">▲</span>
-          {error}
-        </p>
-      ) : null}
+      <FieldError controlId={inputId} message={error} />
     </div>
   );
 });

@@ -13,7 +13,7 @@ import { useScopedUser } from '../../../features/networks/lib/current-network';
 import { ReportList } from '../../../features/home/components/report-list';
 import { SiteCardList } from '../../../features/home/components/site-card-list';
 import { TrialCardList } from '../../../features/home/components/trial-card-list';
-import { mySitesQueryOptions, useMySites } from '../../../features/sites/api/get-my-sites';
+import { mySitesQueryOptions, useMySites } from '../../../lib/queries/sites';
 import { trialQueryOptions } from '../../../features/trials/api/get-trial';
 import { trialsQueryOptions, useTrials } from '../../../features/trials/api/get-trials';
 import { errorSummary } from '../../../lib/form-errors';

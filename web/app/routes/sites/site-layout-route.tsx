@@ -8,7 +8,7 @@ import {
   siteQueryOptions,
   useLayout,
   useSite,
-} from '../../../features/packets/api/get-site';
+} from '../../../lib/queries/sites';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
 
 export const siteLayoutLoader =

@@ -23,8 +23,8 @@ export default function StripPage() {
                 to: `/sites/${data.site.siteId}`,
                 label: `All strips of ${data.site.fieldName}`,
               }}
-              title={`Block ${strip.block} · strip ${strip.position}`}
-              description={`${strip.label} rate (${strip.rate}× the reference) · ${data.site.fieldName}`}
+              title={`Plot ${strip.plotNumber}`}
+              description={`Block ${strip.block}, strip ${strip.position} · ${strip.label} rate (${strip.rate}× the reference) · ${data.site.fieldName}`}
             />
             <StripForm key={strip.stripId} data={data} strip={strip} />
           </>

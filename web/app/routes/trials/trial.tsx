@@ -3,6 +3,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { Link, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { rateTable } from '../../../../shared/design/rate-table';
+import type { TrialDetail } from '../../../../shared/schemas/trial';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { Button, ButtonLink } from '../../../components/ui/button';
@@ -21,7 +22,8 @@ import { useSendAllPackets } from '../../../features/trials/api/trial-mutations'
 import { EnrolSiteForm } from '../../../features/trials/components/enrol-site-form';
 import { RateSummaryTable } from '../../../features/trials/components/rate-summary-table';
 import { SitesTable } from '../../../features/trials/components/sites-table';
-import { CROP_LABELS, UNIT_LABELS } from '../../../features/trials/components/trial-wizard';
+import { TrialDesignSummary } from '../../../features/trials/components/trial-design-summary';
+import { countOf, cropLabel } from '../../../../shared/labels/labels';
 import { errorSummary } from '../../../lib/form-errors';
 import { trialStatusName } from '../../../lib/format';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
@@ -36,6 +38,47 @@ export const clientLoader =
 const linkClass =
   'inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent hover:bg-accent-soft';
 
+/** Links onward: progress (coordinators), the pooled report and meeting view, the calculator. */
+function TrialLinksCard({ trial }: { trial: TrialDetail }) {
+  return (
+    <Card>
+      <h2 className="text-heading text-ink">Reports and tools</h2>
+      <ul className="mt-2 flex flex-col">
+        {trial.canEdit ? (
+          <li>
+            <Link className={linkClass} to={`/trials/${trial.id}/progress`}>
+              Data progress
+            </Link>
+          </li>
+        ) : null}
+        {trial.canEdit || trial.pooledPublishedAt ? (
+          <>
+            <li>
+              <Link className={linkClass} to={`/trials/${trial.id}/report`}>
+                Pooled report
+              </Link>
+            </li>
+            <li>
+              <Link className={linkClass} to={`/trials/${trial.id}/meeting`}>
+                Meeting view
+              </Link>
+            </li>
+          </>
+        ) : (
+          <li className="px-3 py-2 text-label text-ink-muted">
+            The pooled report appears here once the coordinator publishes it.
+          </li>
+        )}
+        <li>
+          <Link className={linkClass} to="/calculator">
+            Seed calculator
+          </Link>
+        </li>
+      </ul>
+    </Card>
+  );
+}
+
 export default function TrialPage() {
   const { trialId } = useParams();
   const { data: trial } = useTrial(trialId!);
@@ -49,11 +92,10 @@ export default function TrialPage() {
   );
   if (!trial) return <LoadingBlock />;
   const active = trial.status === 'in-field' || trial.status === 'harvest-in';
-  const crop = trial.crop
-    ? trial.crop === 'custom'
-      ? (trial.customCrop?.name ?? 'Custom crop')
-      : CROP_LABELS[trial.crop]
-    : 'Crop not chosen';
+  const crop =
+    trial.crop === 'custom'
+      ? (trial.customCrop?.name ?? cropLabel('custom'))
+      : cropLabel(trial.crop);
 
   return (
     <>
@@ -103,7 +145,7 @@ export default function TrialPage() {
           title={`Packet e-mail sent to ${sendAll.data.sent.length} grower${sendAll.data.sent.length === 1 ? '' : 's'}`}
         >
           {sendAll.data.skipped.length > 0
-            ? `${sendAll.data.skipped.length} site(s) skipped: ${sendAll.data.skipped.map((s) => s.reason).join('; ')}.`
+            ? `${countOf(sendAll.data.skipped.length, 'site')} skipped: ${sendAll.data.skipped.map((s) => s.reason).join('; ')}.`
             : null}
         </Alert>
       ) : null}
@@ -167,81 +209,18 @@ export default function TrialPage() {
           <TrialLifePanel trial={trial} />
           <Card>
             <h2 className="text-heading text-ink">Design</h2>
-            <dl className="mt-3 space-y-2 text-label">
-              {[
-                [
-                  'Reference rate',
-                  trial.referenceRate
-                    ? `${trial.referenceRate} ${UNIT_LABELS[trial.referenceUnit ?? 'lb/acre']}`
-                    : '—',
-                ],
-                ['Rates', trial.rateLevels.map((l) => `${l.label} ×${l.multiplier}`).join(', ')],
-                ['Blocks per site', trial.blocksPerSite ?? '—'],
-                [
-                  'Strip',
-                  trial.rowsPerStrip
-                    ? `${trial.rowsPerStrip} rows at ${trial.rowSpacingIn} in × ${trial.stripLengthFt} ft`
-                    : '—',
-                ],
-                ['Border rows', trial.borderRows ?? '—'],
-                [
-                  'Seed lot',
-                  trial.thousandKernelWeightG
-                    ? `${trial.thousandKernelWeightG} g/1,000 · ${trial.germinationPct ?? '?'} % germ. · ${trial.emergencePct ?? '?'} % emergence`
-                    : '—',
-                ],
-                [
-                  'Prices',
-                  `seed $${trial.seedPricePerLb ?? 0}/lb · grain $${trial.grainPricePerBu ?? 0}/bu`,
-                ],
-              ].map(([k, v]) => (
-                <div key={String(k)}>
-                  <dt className="text-ink-muted">{k}</dt>
-                  <dd className="font-normal text-ink">{v}</dd>
-                </div>
-              ))}
-            </dl>
+            <TrialDesignSummary
+              design={{ ...trial, customCrop: trial.customCrop ?? null }}
+              stacked
+              className="mt-3"
+            />
             {trial.designLocked && trial.canEdit ? (
               <p className="mt-3 text-caption text-ink-muted">
                 Rates and blocks are fixed: a site is randomized.
               </p>
             ) : null}
           </Card>
-          <Card>
-            <h2 className="text-heading text-ink">Reports and tools</h2>
-            <ul className="mt-2 flex flex-col">
-              {trial.canEdit ? (
-                <li>
-                  <Link className={linkClass} to={`/trials/${trial.id}/progress`}>
-                    Data progress
-                  </Link>
-                </li>
-              ) : null}
-              {trial.canEdit || trial.pooledPublishedAt ? (
-                <>
-                  <li>
-                    <Link className={linkClass} to={`/trials/${trial.id}/report`}>
-                      Pooled report
-                    </Link>
-                  </li>
-                  <li>
-                    <Link className={linkClass} to={`/trials/${trial.id}/meeting`}>
-                      Meeting view
-                    </Link>
-                  </li>
-                </>
-              ) : (
-                <li className="px-3 py-2 text-label text-ink-muted">
-                  The pooled report appears here once the coordinator publishes it.
-                </li>
-              )}
-              <li>
-                <Link className={linkClass} to="/calculator">
-                  Seed calculator
-                </Link>
-              </li>
-            </ul>
-          </Card>
+          <TrialLinksCard trial={trial} />
         </aside>
       </div>
     </>

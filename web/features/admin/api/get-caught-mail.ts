@@ -3,12 +3,12 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { CaughtMailSchema } from '../../../../shared/schemas/auth';
 import { api } from '../../../lib/api-client';
+import { adminKeys } from '../../../lib/query-keys';
 
 export function caughtMailQueryOptions() {
   return queryOptions({
-    queryKey: ['admin', 'mail'],
-    queryFn: async ({ signal }) =>
-      z.array(CaughtMailSchema).parse(await api.get('/api/admin/mail', { signal })),
+    queryKey: adminKeys.mail(),
+    queryFn: ({ signal }) => api.get('/api/admin/mail', z.array(CaughtMailSchema), { signal }),
     staleTime: 10_000,
   });
 }

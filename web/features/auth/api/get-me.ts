@@ -2,12 +2,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { SessionUserSchema, type SessionUser } from '../../../../shared/schemas/auth';
 import { api, isApiError } from '../../../lib/api-client';
+import { authKeys } from '../../../lib/query-keys';
 
-export const meQueryKey = ['auth', 'me'] as const;
+export const meQueryKey = authKeys.me();
 
 export async function getMe(signal?: AbortSignal): Promise<SessionUser | null> {
   try {
-    return SessionUserSchema.parse(await api.get('/api/auth/me', { signal }));
+    return await api.get('/api/auth/me', SessionUserSchema, { signal });
   } catch (error) {
     if (isApiError(error, 401)) return null;
     throw error;

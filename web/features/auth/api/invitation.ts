@@ -7,15 +7,16 @@ import {
   type SessionUser,
 } from '../../../../shared/schemas/auth';
 import { api } from '../../../lib/api-client';
+import { authKeys, invitationKeys } from '../../../lib/query-keys';
 import { meQueryKey } from './get-me';
 
 export function invitationQueryOptions(token: string) {
   return queryOptions({
-    queryKey: ['invitations', token],
-    queryFn: async ({ signal }) =>
-      InvitationPreviewSchema.parse(
-        await api.get(`/api/invitations/${encodeURIComponent(token)}`, { signal }),
-      ),
+    queryKey: invitationKeys.detail(token),
+    queryFn: ({ signal }) =>
+      api.get(`/api/invitations/${encodeURIComponent(token)}`, InvitationPreviewSchema, {
+        signal,
+      }),
     staleTime: Infinity,
   });
 }
@@ -25,7 +26,7 @@ export function useInvitation(token: string) {
 }
 
 export async function acceptInvitation(input: InvitationAccept): Promise<SessionUser> {
-  return SessionUserSchema.parse(await api.post('/api/invitations/accept', input));
+  return api.post('/api/invitations/accept', SessionUserSchema, input);
 }
 
 export function useAcceptInvitation() {
@@ -33,7 +34,7 @@ export function useAcceptInvitation() {
   return useMutation({
     mutationFn: acceptInvitation,
     onSuccess: (user) => {
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'auth' });
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
       queryClient.setQueryData(meQueryKey, user);
     },
   });

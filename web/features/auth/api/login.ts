@@ -6,10 +6,15 @@ import {
   type SessionUser,
 } from '../../../../shared/schemas/auth';
 import { api } from '../../../lib/api-client';
+import { forgetOfflineReads } from '../../../lib/offline-reads';
+import { authKeys } from '../../../lib/query-keys';
 import { meQueryKey } from './get-me';
 
 export async function login(input: LoginInput): Promise<SessionUser> {
-  return SessionUserSchema.parse(await api.post('/api/auth/login', input));
+  const user = await api.post('/api/auth/login', SessionUserSchema, input);
+  // Another account may have used this browser: its offline copies go before anything is shown.
+  await forgetOfflineReads();
+  return user;
 }
 
 export function useLogin() {
@@ -18,7 +23,7 @@ export function useLogin() {
     mutationFn: login,
     onSuccess: (user) => {
       // Another account may have used this browser: drop its cached data first.
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'auth' });
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
       queryClient.setQueryData(meQueryKey, user);
     },
   });

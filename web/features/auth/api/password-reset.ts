@@ -5,17 +5,17 @@ import type {
   PasswordResetCompleteSchema,
   PasswordResetRequestSchema,
 } from '../../../../shared/schemas/auth';
-import { api } from '../../../lib/api-client';
+import { NoContent, api } from '../../../lib/api-client';
 
 export type PasswordResetRequest = z.infer<typeof PasswordResetRequestSchema>;
 export type PasswordResetComplete = z.infer<typeof PasswordResetCompleteSchema>;
 
 export function requestPasswordReset(input: PasswordResetRequest): Promise<void> {
-  return api.post<void>('/api/auth/password-reset', input);
+  return api.post('/api/auth/password-reset', NoContent, input);
 }
 
 export function completePasswordReset(input: PasswordResetComplete): Promise<void> {
-  return api.post<void>('/api/auth/password-reset/complete', input);
+  return api.post('/api/auth/password-reset/complete', NoContent, input);
 }
 
 export function useRequestPasswordReset() {

@@ -1,5 +1,4 @@
 // Shows what an invitation is for and creates the invited person's account from name and password.
-import { useState, type FormEvent } from 'react';
 import {
   InvitationAcceptSchema,
   type InvitationPreview,
@@ -7,13 +6,9 @@ import {
 } from '../../../../shared/schemas/auth';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { TextField } from '../../../components/ui/text-field';
-import {
-  apiFieldErrors,
-  errorSummary,
-  zodFieldErrors,
-  type FieldErrors,
-} from '../../../lib/form-errors';
+import { FormTextField } from '../../../components/ui/form-controls';
+import { errorSummary } from '../../../lib/form-errors';
+import { applyServerErrors, Form, useZodForm } from '../../../lib/forms/zod-form';
 import { formatDate, roleName } from '../../../lib/format';
 import { useAcceptInvitation } from '../api/invitation';
 
@@ -34,23 +29,9 @@ export function AcceptInvitationForm({
   onAccepted: (user: SessionUser) => void;
 }) {
   const accept = useAcceptInvitation();
-  const [name, setName] = useState('');
-  const [password, setPassword] = useState('');
-  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
-
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    const parsed = InvitationAcceptSchema.safeParse({ token, name, password });
-    if (!parsed.success) {
-      setFieldErrors(zodFieldErrors(parsed.error));
-      return;
-    }
-    setFieldErrors({});
-    accept.mutate(parsed.data, {
-      onSuccess: onAccepted,
-      onError: (error) => setFieldErrors(apiFieldErrors(error)),
-    });
-  }
+  const form = useZodForm(InvitationAcceptSchema, {
+    defaultValues: { token, name: '', password: '' },
+  });
 
   return (
     <div className="space-y-6">
@@ -69,31 +50,36 @@ export function AcceptInvitationForm({
         <dt className="text-ink-muted">Open until</dt>
         <dd className="text-ink">{formatDate(invitation.expiresAt)}</dd>
       </dl>
-      <form onSubmit={submit} noValidate className="space-y-5">
+      <Form
+        form={form}
+        onSubmit={(input) =>
+          accept.mutate(input, {
+            onSuccess: onAccepted,
+            onError: (error) => applyServerErrors(form, error),
+          })
+        }
+        className="space-y-5"
+      >
         {accept.error ? <Alert tone="danger">{errorSummary(accept.error)}</Alert> : null}
-        <TextField
+        <FormTextField
+          name="name"
           label="Your name"
           hint="As the network knows you; shown on the sites you grow."
           autoComplete="name"
           required
-          value={name}
-          onChange={(e) => setName(e.target.value)}
-          error={fieldErrors.name}
         />
-        <TextField
+        <FormTextField
+          name="password"
           label="Choose a password"
           type="password"
           autoComplete="new-password"
           hint="At least 8 characters."
           required
-          value={password}
-          onChange={(e) => setPassword(e.target.value)}
-          error={fieldErrors.password}
         />
         <Button type="submit" size="lg" className="w-full" busy={accept.isPending}>
           Join {invitation.networkName}
         </Button>
-      </form>
+      </Form>
     </div>
   );
 }

@@ -1,37 +1,28 @@
 // Sets a new password from the token in a reset link.
-import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
+import { z } from 'zod';
 import { PasswordResetCompleteSchema } from '../../../../shared/schemas/auth';
 import { Alert } from '../../../components/ui/alert';
 import { Button, ButtonLink } from '../../../components/ui/button';
-import { TextField } from '../../../components/ui/text-field';
+import { FormTextField } from '../../../components/ui/form-controls';
 import { isApiError } from '../../../lib/api-client';
-import {
-  apiFieldErrors,
-  errorSummary,
-  zodFieldErrors,
-  type FieldErrors,
-} from '../../../lib/form-errors';
+import { errorSummary } from '../../../lib/form-errors';
+import { applyServerErrors, Form, useZodForm } from '../../../lib/forms/zod-form';
 import { useCompletePasswordReset } from '../api/password-reset';
+
+/** The API's schema plus the second password box, which must match the first. */
+const NewPasswordFormSchema = PasswordResetCompleteSchema.extend({ confirm: z.string() })
+  .refine((v) => v.confirm === v.password, {
+    message: 'The two passwords differ',
+    path: ['confirm'],
+  })
+  .transform(({ token, password }) => ({ token, password }));
 
 export function NewPasswordForm({ token }: { token: string }) {
   const complete = useCompletePasswordReset();
-  const [password, setPassword] = useState('');
-  const [confirm, setConfirm] = useState('');
-  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
-
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    const parsed = PasswordResetCompleteSchema.safeParse({ token, password });
-    const errors = parsed.success ? {} : zodFieldErrors(parsed.error);
-    if (password && confirm !== password) errors.confirm = 'The two passwords differ';
-    if (Object.keys(errors).length > 0 || !parsed.success) {
-      setFieldErrors(errors);
-      return;
-    }
-    setFieldErrors({});
-    complete.mutate(parsed.data, { onError: (error) => setFieldErrors(apiFieldErrors(error)) });
-  }
+  const form = useZodForm(NewPasswordFormSchema, {
+    defaultValues: { token, password: '', confirm: '' },
+  });
 
   if (complete.isSuccess) {
     return (
@@ -47,9 +38,16 @@ export function NewPasswordForm({ token }: { token: string }) {
   }
 
   const linkProblem =
-    fieldErrors.token ?? (isApiError(complete.error, 400) && !complete.error.fields.password);
+    Boolean(form.formState.errors.token) ||
+    (isApiError(complete.error, 400) && !complete.error.fields.password);
   return (
-    <form onSubmit={submit} noValidate className="space-y-5">
+    <Form
+      form={form}
+      onSubmit={(input) =>
+        complete.mutate(input, { onError: (error) => applyServerErrors(form, error) })
+      }
+      className="space-y-5"
+    >
       {linkProblem ? (
         <Alert tone="danger" title="This link no longer works">
           Reset links expire and work only once.{' '}
@@ -61,28 +59,24 @@ export function NewPasswordForm({ token }: { token: string }) {
       ) : complete.error ? (
         <Alert tone="danger">{errorSummary(complete.error)}</Alert>
       ) : null}
-      <TextField
+      <FormTextField
+        name="password"
         label="New password"
         type="password"
         autoComplete="new-password"
         hint="At least 8 characters. A short sentence is easy to remember."
         required
-        value={password}
-        onChange={(e) => setPassword(e.target.value)}
-        error={fieldErrors.password}
       />
-      <TextField
+      <FormTextField
+        name="confirm"
         label="New password again"
         type="password"
         autoComplete="new-password"
         required
-        value={confirm}
-        onChange={(e) => setConfirm(e.target.value)}
-        error={fieldErrors.confirm}
       />
       <Button type="submit" size="lg" className="w-full" busy={complete.isPending}>
         Save new password
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -1,42 +1,30 @@
 // E-mail and password form that signs a user in and hands the session user to the caller.
-import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { LoginInputSchema, type SessionUser } from '../../../../shared/schemas/auth';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { TextField } from '../../../components/ui/text-field';
+import { FormTextField } from '../../../components/ui/form-controls';
 import { isApiError } from '../../../lib/api-client';
-import {
-  apiFieldErrors,
-  errorSummary,
-  zodFieldErrors,
-  type FieldErrors,
-} from '../../../lib/form-errors';
+import { errorSummary } from '../../../lib/form-errors';
+import { applyServerErrors, Form, useZodForm } from '../../../lib/forms/zod-form';
 import { useLogin } from '../api/login';
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => void }) {
   const login = useLogin();
-  const [email, setEmail] = useState('');
-  const [password, setPassword] = useState('');
-  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
-
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    const parsed = LoginInputSchema.safeParse({ email, password });
-    if (!parsed.success) {
-      setFieldErrors(zodFieldErrors(parsed.error));
-      return;
-    }
-    setFieldErrors({});
-    login.mutate(parsed.data, {
-      onSuccess: onSignedIn,
-      onError: (error) => setFieldErrors(apiFieldErrors(error)),
-    });
-  }
+  const form = useZodForm(LoginInputSchema, { defaultValues: { email: '', password: '' } });
 
   const wrongPassword = isApiError(login.error, 401);
   return (
-    <form onSubmit={submit} noValidate className="space-y-5">
+    <Form
+      form={form}
+      onSubmit={(input) =>
+        login.mutate(input, {
+          onSuccess: onSignedIn,
+          onError: (error) => applyServerErrors(form, error),
+        })
+      }
+      className="space-y-5"
+    >
       {login.error ? (
         <Alert
           tone="danger"
@@ -47,28 +35,22 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
             : errorSummary(login.error)}
         </Alert>
       ) : null}
-      <TextField
+      <FormTextField
+        name="email"
         label="E-mail address"
         type="email"
-        name="email"
         inputMode="email"
         autoComplete="username"
         autoCapitalize="none"
         spellCheck={false}
         required
-        value={email}
-        onChange={(e) => setEmail(e.target.value)}
-        error={fieldErrors.email}
       />
-      <TextField
+      <FormTextField
+        name="password"
         label="Password"
         type="password"
-        name="password"
         autoComplete="current-password"
         required
-        value={password}
-        onChange={(e) => setPassword(e.target.value)}
-        error={fieldErrors.password}
       />
       <Button type="submit" size="lg" className="w-full" busy={login.isPending}>
         {login.isPending ? 'Signing in…' : 'Sign in'}
@@ -78,6 +60,6 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
           Forgot your password?
         </Link>
       </p>
-    </form>
+    </Form>
   );
 }

@@ -1,6 +1,7 @@
 // A site's change history for the coordinator: who changed which values, from what to what.
 import type { AuditEventDto } from '../../../../shared/schemas/strip';
 import { EmptyState } from '../../../components/ui/empty-state';
+import { plotNumber } from '../../../../shared/units/plot-number';
 import { formatDateTime } from '../../../lib/format';
 import { FIELD_LABELS } from '../lib/strip-values';
 
@@ -35,7 +36,7 @@ export function HistoryList({ events }: { events: AuditEventDto[] }) {
             <span className="text-ink-muted">{ACTIONS[event.action] ?? event.action}</span>{' '}
             <span className="font-semibold text-ink">
               {event.strip
-                ? `block ${event.strip.block}, strip ${event.strip.position} (${event.strip.label})`
+                ? `plot ${plotNumber(event.strip.block, event.strip.position)} (${event.strip.label})`
                 : event.entityType === 'site'
                   ? 'the site'
                   : event.entityType}

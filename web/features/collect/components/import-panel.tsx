@@ -2,7 +2,11 @@
 // (the same parser the server runs), then upload it: every row is saved, or none.
 import { useMemo, useState } from 'react';
 import { columnDocs } from '../../../../shared/import/columns';
-import { parseImportCsv, type ParsedImport } from '../../../../shared/import/parse-import';
+import {
+  csvDelimiter,
+  parseImportCsv,
+  type ParsedImport,
+} from '../../../../shared/import/parse-import';
 import type { ImportRowError } from '../../../../shared/schemas/import';
 import type { SiteStrips } from '../../../../shared/schemas/strip';
 import { Alert } from '../../../components/ui/alert';
@@ -51,8 +55,10 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
     setFile(chosen ?? null);
     if (!chosen) return setPreview(null);
     const text = await chosen.text();
-    const table = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), {
+    const clean = text.replace(/^\uFEFF/, '');
+    const table = Papa.parse<string[]>(clean, {
       skipEmptyLines: 'greedy',
+      delimiter: csvDelimiter(clean),
     }).data;
     const parsed = parseImportCsv(text, {
       unitSystem: site.unitSystem,
@@ -70,9 +76,11 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
       <Card className="space-y-3">
         <h2 className="text-heading text-ink">1. Get the template</h2>
         <p className="text-label text-ink-muted">
-          One row per strip, with site, block, position and rate filled in and any numbers already
-          saved. Units follow the trial ({site.unitSystem}). An empty cell leaves the saved value as
-          it is.
+          One row per strip, with site, plot, block, position and rate filled in and every number
+          already saved: the same file is the site’s export, so you can edit it in a spreadsheet and
+          upload it back. Units follow the trial ({site.unitSystem}). An empty cell leaves the saved
+          value as it is. Decimals may be written 12.5 or 12,5; files saved with semicolons (as
+          spreadsheets set to a decimal comma do) are read too.
         </p>
         <a className={buttonClasses('secondary')} href={templateUrl(site.siteId)} download>
           Download CSV template

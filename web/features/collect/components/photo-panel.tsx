@@ -66,7 +66,7 @@ export function PhotoUploader({
             <option value="">The whole site</option>
             {strips.map((s) => (
               <option key={s.stripId} value={s.stripId}>
-                Block {s.block} · strip {s.position} · {s.label}
+                Plot {s.plotNumber} (block {s.block}) · {s.label}
               </option>
             ))}
           </select>
@@ -115,11 +115,7 @@ export function PhotoGrid({ photos, strips }: { photos: PhotoDto[]; strips?: Str
             <div className="space-y-0.5 p-2 text-caption">
               {photo.caption ? <p className="text-ink">{photo.caption}</p> : null}
               <p className="text-ink-muted">
-                {strip
-                  ? `Block ${strip.block} · strip ${strip.position} · `
-                  : photo.stripId
-                    ? ''
-                    : 'Whole site · '}
+                {strip ? `Plot ${strip.plotNumber} · ` : photo.stripId ? '' : 'Whole site · '}
                 {formatDateTime(photo.createdAt)}
               </p>
             </div>

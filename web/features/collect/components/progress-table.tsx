@@ -24,7 +24,13 @@ export function ProgressTable({ progress }: { progress: TrialProgress }) {
   ).length;
   return (
     <div className="space-y-5">
-      <div className="overflow-x-auto rounded-card border border-line bg-surface shadow-card">
+      {/* A scrolling box takes keyboard focus so it can be scrolled without a mouse. */}
+      <div
+        className="overflow-x-auto rounded-card border border-line bg-surface shadow-card"
+        tabIndex={0}
+        role="region"
+        aria-label="Progress by site"
+      >
         <table className="w-full text-left text-label" data-testid="progress-table">
           <thead className="bg-sunken text-caption text-ink-muted">
             <tr>

@@ -56,7 +56,7 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
   const units = entryUnits(site.unitSystem);
   const disabled = !site.canEdit;
   const onPatch = (patch: StripValuesPatch) => queueEdit(strip, patch);
-  const common = { values, onPatch, disabled };
+  const common = { values, onPatch, disabled, strip, entry };
   const order = [...data.strips].sort((a, b) => a.block - b.block || a.position - b.position);
   const index = order.findIndex((s) => s.stripId === strip.stripId);
   const previous = order[index - 1];
@@ -185,18 +185,38 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
         title="Threshed grain"
         readout={
           <Readout
-            items={[
-              {
-                label: 'Yield, bu/acre',
-                value: formatNumber(derived.yieldBushelsPerAcre),
-                testId: 'yield-bu',
-              },
-              {
-                label: 'Yield, kg/ha',
-                value: formatNumber(derived.yieldKilogramsPerHectare, 0),
-                testId: 'yield-kg',
-              },
-            ]}
+            items={
+              metric
+                ? [
+                    {
+                      label: 'Yield, t/ha',
+                      value: formatNumber(
+                        derived.yieldKilogramsPerHectare === null
+                          ? null
+                          : derived.yieldKilogramsPerHectare / 1000,
+                        2,
+                      ),
+                      testId: 'yield-t',
+                    },
+                    {
+                      label: 'Yield, kg/ha',
+                      value: formatNumber(derived.yieldKilogramsPerHectare, 0),
+                      testId: 'yield-kg',
+                    },
+                  ]
+                : [
+                    {
+                      label: 'Yield, bu/acre',
+                      value: formatNumber(derived.yieldBushelsPerAcre),
+                      testId: 'yield-bu',
+                    },
+                    {
+                      label: 'Yield, kg/ha',
+                      value: formatNumber(derived.yieldKilogramsPerHectare, 0),
+                      testId: 'yield-kg',
+                    },
+                  ]
+            }
           />
         }
       >
@@ -243,8 +263,8 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
           />
         </div>
         <p className="text-caption text-ink-muted">
-          Yield is at {site.standardMoisturePercent ?? '—'} % moisture
-          {site.bushelPounds ? ` and ${site.bushelPounds} lb per bushel` : ''}.
+          Yield is at the crop’s standard moisture, {site.standardMoisturePercent ?? '—'} %
+          {site.bushelPounds && !metric ? `, and ${site.bushelPounds} lb per bushel` : ''}.
         </p>
       </Section>
 
@@ -282,14 +302,14 @@ export function StripForm({ data, strip }: { data: SiteStrips; strip: StripDto }
       <nav aria-label="Other strips" className="flex justify-between gap-2 pt-2">
         {previous ? (
           <ButtonLink variant="secondary" to={`/sites/${site.siteId}/strips/${previous.stripId}`}>
-            ← B{previous.block} · strip {previous.position}
+            ← Plot {previous.plotNumber}
           </ButtonLink>
         ) : (
           <span />
         )}
         {next ? (
           <ButtonLink variant="secondary" to={`/sites/${site.siteId}/strips/${next.stripId}`}>
-            B{next.block} · strip {next.position} →
+            Plot {next.plotNumber} →
           </ButtonLink>
         ) : (
           <ButtonLink variant="secondary" to={`/sites/${site.siteId}`}>

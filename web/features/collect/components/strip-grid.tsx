@@ -1,5 +1,6 @@
-// The whole site as a grid (@tanstack/react-table v8): arrow keys move, Enter moves down, and a
-// block of cells pasted from a spreadsheet fills the strips and columns from the focused cell.
+// The whole site as a grid (@tanstack/react-table v8): one Tab stop (the last cell used), arrow
+// keys move inside, Enter moves down, and a block of cells pasted from a spreadsheet fills the
+// strips and columns from the focused cell.
 import {
   createColumnHelper,
   flexRender,
@@ -7,7 +8,15 @@ import {
   useReactTable,
   type ColumnDef,
 } from '@tanstack/react-table';
-import { useMemo, useRef, useState, type ClipboardEvent, type KeyboardEvent } from 'react';
+import {
+  createContext,
+  useContext,
+  useMemo,
+  useRef,
+  useState,
+  type ClipboardEvent,
+  type KeyboardEvent,
+} from 'react';
 import type { ObservationValues } from '../../../../shared/schemas/observation';
 import type { SiteStrips, StripDto, StripValuesPatch } from '../../../../shared/schemas/strip';
 import { valueColumns, type ValueColumn } from '../../../../shared/import/columns';
@@ -15,6 +24,7 @@ import { entryUnits } from '../../../../shared/units/strip-derived';
 import { Alert } from '../../../components/ui/alert';
 import { cn } from '../../../lib/cn';
 import { queueEdit, useOutbox } from '../lib/outbox';
+import { clearUnsaved, fieldKey, markUnsaved, unsavedField } from '../lib/unsaved-fields';
 import {
   cellText,
   effectiveValues,
@@ -74,6 +84,9 @@ function gridLabel(column: ValueColumn, system: 'imperial' | 'metric'): string {
   }
 }
 
+/** The cell that holds the grid's one Tab stop, as "row:col". */
+const ActiveCell = createContext('0:0');
+
 function focusCell(row: number, col: number) {
   const input = document.querySelector<HTMLInputElement>(`[data-cell="${row}:${col}"]`);
   if (input) {
@@ -87,6 +100,7 @@ function GridCell({
   col,
   data,
   column,
+  label,
   disabled,
   onPaste,
 }: {
@@ -94,18 +108,22 @@ function GridCell({
   col: number;
   data: GridRow;
   column: ValueColumn;
+  label: string;
   disabled: boolean;
   onPaste: (event: ClipboardEvent<HTMLInputElement>, row: number, col: number) => void;
 }) {
-  const [draft, setDraft] = useState<string | null>(null);
-  const [error, setError] = useState<string | undefined>();
+  const key = fieldKey(data.strip.stripId, column.field, column.index);
+  const [draft, setDraft] = useState<string | null>(() => unsavedField(key)?.text ?? null);
+  const [error, setError] = useState<string | undefined>(() => unsavedField(key)?.message);
+  const active = useContext(ActiveCell) === `${row}:${col}`;
   const text = draft ?? cellText(data.values, column);
   return (
     <input
       data-cell={`${row}:${col}`}
-      aria-label={`Block ${data.strip.block} strip ${data.strip.position}, ${column.header}`}
+      tabIndex={active ? 0 : -1}
+      aria-label={`Plot ${data.strip.plotNumber}, ${label}${error ? `, not saved: ${error}` : ''}`}
       aria-invalid={error ? true : undefined}
-      title={error}
+      title={error ? `Not saved: ${error}` : undefined}
       disabled={disabled}
       inputMode={
         column.kind === 'int' ? 'numeric' : column.kind === 'number' ? 'decimal' : undefined
@@ -118,10 +136,23 @@ function GridCell({
         error && 'bg-danger-soft ring-2 ring-inset ring-danger',
       )}
       onChange={(event) => {
-        setDraft(event.target.value);
-        const result = patchForCell(data.values, column, event.target.value);
-        if ('error' in result) return setError(result.error);
+        const next = event.target.value;
+        setDraft(next);
+        const result = patchForCell(data.values, column, next);
+        if ('error' in result) {
+          setError(result.error);
+          markUnsaved({
+            key,
+            siteId: data.strip.siteId,
+            stripId: data.strip.stripId,
+            place: `Plot ${data.strip.plotNumber}, ${label}`,
+            text: next,
+            message: result.error,
+          });
+          return;
+        }
         setError(undefined);
+        clearUnsaved(key);
         queueEdit(data.strip, result.patch);
       }}
       onBlur={() => {
@@ -136,6 +167,7 @@ export function StripGrid({ data }: { data: SiteStrips }) {
   const { site } = data;
   const outbox = useOutbox();
   const [pasteErrors, setPasteErrors] = useState<string[]>([]);
+  const [activeCell, setActiveCell] = useState('0:0');
   const columns = useMemo(
     () => valueColumns(site.unitSystem).filter((c) => c.kind !== 'date'),
     [site.unitSystem],
@@ -189,7 +221,7 @@ export function StripGrid({ data }: { data: SiteStrips }) {
         const result = patchForCell(state.values, column, cell);
         if ('error' in result) {
           errors.push(
-            `Block ${target.strip.block} strip ${target.strip.position}, ${column.header}: ${result.error} ("${cell.slice(0, 20)}")`,
+            `Plot ${target.strip.plotNumber}, ${column.header}: ${result.error} ("${cell.slice(0, 20)}")`,
           );
           return;
         }
@@ -210,6 +242,7 @@ export function StripGrid({ data }: { data: SiteStrips }) {
     const cell = target.dataset?.cell;
     if (!cell) return;
     const [row, col] = cell.split(':').map(Number) as [number, number];
+    const last = columns.length - 1;
     const atStart = target.selectionStart === 0 && target.selectionEnd === 0;
     const atEnd = target.selectionStart === target.value.length;
     if (event.key === 'ArrowDown' || (event.key === 'Enter' && !event.shiftKey)) {
@@ -224,6 +257,12 @@ export function StripGrid({ data }: { data: SiteStrips }) {
     } else if (event.key === 'ArrowRight' && (atEnd || target.selectionStart === null)) {
       event.preventDefault();
       focusCell(row, col + 1);
+    } else if (event.key === 'Home' && event.ctrlKey) {
+      event.preventDefault();
+      focusCell(0, 0);
+    } else if (event.key === 'End' && event.ctrlKey) {
+      event.preventDefault();
+      focusCell(rows.length - 1, last);
     }
   };
 
@@ -231,12 +270,10 @@ export function StripGrid({ data }: { data: SiteStrips }) {
     () => [
       columnHelper.display({
         id: 'strip',
-        header: 'Strip',
+        header: 'Plot',
         cell: ({ row }) => (
           <span className="block whitespace-nowrap px-2 text-label">
-            <span className="font-semibold">
-              B{row.original.strip.block} · {row.original.strip.position}
-            </span>{' '}
+            <span className="font-semibold">{row.original.strip.plotNumber}</span>{' '}
             <span className="text-ink-muted">{row.original.strip.label}</span>
             {row.original.waiting ? (
               <span className="ml-1 text-caution" title="Waiting to be sent">
@@ -264,6 +301,7 @@ export function StripGrid({ data }: { data: SiteStrips }) {
               col={col}
               data={row.original}
               column={column}
+              label={gridLabel(column, site.unitSystem)}
               disabled={disabled}
               onPaste={paste}
             />
@@ -288,7 +326,7 @@ export function StripGrid({ data }: { data: SiteStrips }) {
       }),
       columnHelper.display({
         id: 'yield',
-        header: 'bu/acre',
+        header: site.unitSystem === 'metric' ? 'Yield t/ha' : 'Yield bu/acre',
         cell: ({ row }) => {
           const { derived, warnings } = liveDerived(site, row.original.strip, row.original.values);
           return (
@@ -296,7 +334,14 @@ export function StripGrid({ data }: { data: SiteStrips }) {
               className="figures block px-2 text-right font-semibold"
               title={warnings.join('\n')}
             >
-              {formatNumber(derived.yieldBushelsPerAcre)}
+              {site.unitSystem === 'metric'
+                ? formatNumber(
+                    derived.yieldKilogramsPerHectare === null
+                      ? null
+                      : derived.yieldKilogramsPerHectare / 1000,
+                    2,
+                  )
+                : formatNumber(derived.yieldBushelsPerAcre)}
               {warnings.length > 0 ? <span className="ml-1 text-danger">▲</span> : null}
             </span>
           );
@@ -315,9 +360,10 @@ export function StripGrid({ data }: { data: SiteStrips }) {
   return (
     <div className="space-y-3">
       <p className="text-label text-ink-muted">
-        Units: lengths in {units.length}, weight in {units.weight}, area in {units.area}. Arrow keys
-        move between cells, Enter moves down, and you can paste a block of cells copied from a
-        spreadsheet.
+        Units: lengths in {units.length}, weight in {units.weight}, area in {units.area}. Yield is
+        at the crop’s standard moisture. The grid is one stop for the Tab key: arrow keys move
+        between cells, Enter moves down, Tab leaves the grid, and you can paste a block of cells
+        copied from a spreadsheet.
       </p>
       {pasteErrors.length > 0 ? (
         <Alert tone="danger" title="Some pasted cells were not taken">
@@ -328,55 +374,61 @@ export function StripGrid({ data }: { data: SiteStrips }) {
           </ul>
         </Alert>
       ) : null}
-      <div
-        className="overflow-x-auto rounded-card border border-line bg-surface shadow-card"
-        onKeyDown={keyDown}
-      >
-        <table className="border-collapse text-body" data-testid="strip-grid">
-          <thead className="bg-sunken">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header, i) => (
-                  <th
-                    key={header.id}
-                    scope="col"
-                    className={cn(
-                      'border-b border-line px-2 py-2 text-left text-caption font-semibold text-ink-muted',
-                      i === 0 && 'sticky left-0 z-10 bg-sunken',
-                    )}
-                  >
-                    {flexRender(header.column.columnDef.header, header.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.map((row) => (
-              <tr
-                key={row.id}
-                className={cn(
-                  row.original.strip.position === 1 &&
-                    row.index > 0 &&
-                    'border-t-2 border-line-strong',
-                )}
-              >
-                {row.getVisibleCells().map((cell, i) => (
-                  <td
-                    key={cell.id}
-                    className={cn(
-                      'border-b border-r border-line p-0',
-                      i === 0 && 'sticky left-0 z-10 bg-surface',
-                    )}
-                  >
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <ActiveCell.Provider value={activeCell}>
+        <div
+          className="overflow-x-auto rounded-card border border-line bg-surface shadow-card"
+          onKeyDown={keyDown}
+          onFocus={(event) => {
+            const cell = (event.target as HTMLElement).dataset?.cell;
+            if (cell && cell !== activeCell) setActiveCell(cell);
+          }}
+        >
+          <table className="border-collapse text-body" data-testid="strip-grid">
+            <thead className="bg-sunken">
+              {table.getHeaderGroups().map((group) => (
+                <tr key={group.id}>
+                  {group.headers.map((header, i) => (
+                    <th
+                      key={header.id}
+                      scope="col"
+                      className={cn(
+                        'border-b border-line px-2 py-2 text-left text-caption font-semibold text-ink-muted',
+                        i === 0 && 'sticky left-0 z-10 bg-sunken',
+                      )}
+                    >
+                      {flexRender(header.column.columnDef.header, header.getContext())}
+                    </th>
+                  ))}
+                </tr>
+              ))}
+            </thead>
+            <tbody>
+              {table.getRowModel().rows.map((row) => (
+                <tr
+                  key={row.id}
+                  className={cn(
+                    row.original.strip.position === 1 &&
+                      row.index > 0 &&
+                      'border-t-2 border-line-strong',
+                  )}
+                >
+                  {row.getVisibleCells().map((cell, i) => (
+                    <td
+                      key={cell.id}
+                      className={cn(
+                        'border-b border-r border-line p-0',
+                        i === 0 && 'sticky left-0 z-10 bg-surface',
+                      )}
+                    >
+                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                    </td>
+                  ))}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </ActiveCell.Provider>
     </div>
   );
 }

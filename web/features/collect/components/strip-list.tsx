@@ -19,6 +19,7 @@ const SHORT: Record<(typeof MEASUREMENT_GROUPS)[number], string> = {
 
 export function StripList({ data }: { data: SiteStrips }) {
   const outbox = useOutbox();
+  const metric = data.site.unitSystem === 'metric';
   const blocks = [...new Set(data.strips.map((s) => s.block))].sort((a, b) => a - b);
   const totals = Object.fromEntries(
     MEASUREMENT_GROUPS.map((g) => [
@@ -65,11 +66,13 @@ export function StripList({ data }: { data: SiteStrips }) {
                     <Link
                       to={`/sites/${data.site.siteId}/strips/${strip.stripId}`}
                       className="flex items-center gap-3 px-4 py-3 no-underline hover:bg-accent-soft"
-                      aria-label={`Block ${strip.block}, strip ${strip.position}, ${strip.label} rate`}
+                      aria-label={`Plot ${strip.plotNumber}, block ${strip.block}, ${strip.label} rate`}
                     >
                       <span className="figures flex size-11 shrink-0 flex-col items-center justify-center rounded-field bg-straw-100 text-straw-800">
-                        <span className="text-caption leading-none">strip</span>
-                        <span className="text-label font-bold leading-tight">{strip.position}</span>
+                        <span className="text-caption leading-none">plot</span>
+                        <span className="text-label font-bold leading-tight">
+                          {strip.plotNumber}
+                        </span>
                       </span>
                       <span className="min-w-0 flex-1">
                         <span className="block font-semibold text-ink">
@@ -98,11 +101,18 @@ export function StripList({ data }: { data: SiteStrips }) {
                       </span>
                       <span className="shrink-0 text-right">
                         <span className="figures block font-semibold text-ink">
-                          {derived.yieldBushelsPerAcre === null
-                            ? '—'
+                          {metric
+                            ? formatNumber(
+                                derived.yieldKilogramsPerHectare === null
+                                  ? null
+                                  : derived.yieldKilogramsPerHectare / 1000,
+                                2,
+                              )
                             : formatNumber(derived.yieldBushelsPerAcre)}
                         </span>
-                        <span className="block text-caption text-ink-muted">bu/acre</span>
+                        <span className="block text-caption text-ink-muted">
+                          {metric ? 't/ha' : 'bu/acre'}
+                        </span>
                         {entry ? (
                           <span className="block text-caption font-semibold text-caution">
                             waiting

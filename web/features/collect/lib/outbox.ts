@@ -1,10 +1,12 @@
 /**
- * The outbox: strip edits are written to localStorage the moment they are typed and sent to
- * the server in the background, so nothing is lost when the signal drops or the page reloads.
- * Sending resumes on the browser's `online` event and on a timer. A stale version (409) keeps
- * the edit and waits for the grower to reload or overwrite.
+ * The outbox: strip edits are kept on the device (IndexedDB, per signed-in user) the moment they
+ * are typed and sent to the server in the background, so nothing is lost when the signal drops,
+ * the page reloads or the browser closes. Sending resumes on the browser's `online` event and on
+ * a timer. A stale version (409) keeps the edit and waits for the grower to reload or overwrite.
+ * Another person signing in on the same phone gets their own, empty queue.
  */
 import { useEffect, useSyncExternalStore } from 'react';
+import type { SessionUser } from '../../../../shared/schemas/auth';
 import {
   StripSchema,
   type StripDto,
@@ -13,6 +15,7 @@ import {
 import { api, isApiError } from '../../../lib/api-client';
 import { queryClient } from '../../../lib/query-client';
 import { storeStrip } from '../api/site-strips';
+import { loadEntries, saveEntries } from './outbox-store';
 
 export type OutboxStatus = 'pending' | 'conflict' | 'locked' | 'rejected';
 
@@ -29,36 +32,72 @@ export interface OutboxEntry {
   updatedAt: number;
 }
 
-const STORAGE_KEY = 'sheaf.collect.outbox.v1';
 const RETRY_MS = 5000;
+const CHANNEL = 'sheaf-outbox';
 
-let entries: Record<string, OutboxEntry> = load();
-let snapshot: OutboxEntry[] = Object.values(entries);
+/** Whose queue is in memory; null when nobody is signed in. */
+let userId: string | null = null;
+/** False until the device's queue of the current user has been read. */
+let loaded = false;
+let entries: Record<string, OutboxEntry> = {};
+let snapshot: OutboxEntry[] = [];
 let flushing = false;
 let sending = false;
 let retryTimer: ReturnType<typeof setTimeout> | null = null;
 let soonTimer: ReturnType<typeof setTimeout> | null = null;
 let started = false;
+let writes: Promise<void> = Promise.resolve();
+let channel: BroadcastChannel | null = null;
 const listeners = new Set<() => void>();
 
-function load(): Record<string, OutboxEntry> {
-  try {
-    const raw = typeof localStorage === 'undefined' ? null : localStorage.getItem(STORAGE_KEY);
-    return raw ? (JSON.parse(raw) as Record<string, OutboxEntry>) : {};
-  } catch {
-    return {};
-  }
+function notify() {
+  for (const listener of listeners) listener();
+}
+
+function setEntries(next: Record<string, OutboxEntry>) {
+  entries = next;
+  snapshot = Object.values(entries).sort((a, b) => a.updatedAt - b.updatedAt);
+  notify();
 }
 
 function commit(next: Record<string, OutboxEntry>) {
-  entries = next;
-  snapshot = Object.values(entries).sort((a, b) => a.updatedAt - b.updatedAt);
+  const previous = entries;
+  setEntries(next);
+  if (!userId) return;
+  const owner = userId;
+  const changed = Object.values(next).filter((entry) => previous[entry.stripId] !== entry);
+  const removed = Object.keys(previous).filter((stripId) => !(stripId in next));
+  writes = writes
+    .then(() => saveEntries(owner, changed, removed))
+    .then(() => channel?.postMessage({ userId: owner }))
+    .catch(() => {
+      // Storage blocked (private mode, disk full): the edit still sits in memory and is sent
+      // while the page is open.
+    });
+}
+
+async function reload(owner: string) {
   try {
-    localStorage.setItem(STORAGE_KEY, JSON.stringify(entries));
+    const stored = await loadEntries(owner);
+    if (userId !== owner) return;
+    // Edits typed while the device queue was being read stay on top of it.
+    setEntries({ ...stored, ...entries });
   } catch {
-    // Storage full or blocked: the edit still sits in memory and is sent while the page is open.
+    // No IndexedDB: the queue lives in memory only.
   }
-  for (const listener of listeners) listener();
+  if (userId !== owner) return;
+  loaded = true;
+  notify();
+  void flush();
+}
+
+/** Switches the queue to the signed-in user (or to nobody); their edits are read from the device. */
+export function setOutboxUser(id: string | null): void {
+  if (id === userId) return;
+  userId = id;
+  loaded = id === null;
+  setEntries({});
+  if (id) void reload(id);
 }
 
 function subscribe(listener: () => void) {
@@ -108,11 +147,13 @@ function scheduleRetry() {
 
 async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'> {
   const sent = entry.values;
+  const owner: string | null = userId;
   try {
     const strip = StripSchema.parse(
       await api.patch(`/api/strips/${entry.stripId}`, { version: entry.baseVersion, values: sent }),
     );
     storeStrip(queryClient, strip);
+    if (userId !== owner) return 'sent';
     const latest = entries[entry.stripId];
     if (!latest) return 'sent';
     const remaining: Record<string, unknown> = {};
@@ -131,6 +172,7 @@ async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'>
     return 'sent';
   } catch (error) {
     if (isApiError(error, 0) || (isApiError(error) && error.status >= 500)) return 'offline';
+    if (userId !== owner) return 'held';
     const latest = entries[entry.stripId] ?? entry;
     if (isApiError(error, 409)) {
       const current = StripSchema.safeParse(error.current);
@@ -167,6 +209,7 @@ async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'>
 
 /** Sends every pending edit, one strip at a time; stops at the first network failure. */
 export async function flush(): Promise<void> {
+  if (!userId || !loaded) return;
   if (flushing) {
     sending = true;
     return;
@@ -175,7 +218,9 @@ export async function flush(): Promise<void> {
   try {
     do {
       sending = false;
+      const owner: string | null = userId;
       for (const entry of snapshot.filter((e) => e.status === 'pending')) {
+        if (userId !== owner) return;
         const result = await sendOne(entry);
         if (result === 'offline') {
           scheduleRetry();
@@ -215,18 +260,31 @@ export function overwriteWithMine(stripId: string): void {
   void flush();
 }
 
+function signedInUser(): string | null | undefined {
+  const me = queryClient.getQueryData<SessionUser | null>(['auth', 'me']);
+  return me === undefined ? undefined : (me?.id ?? null);
+}
+
 function start() {
   if (started || typeof window === 'undefined') return;
   started = true;
   window.addEventListener('online', () => void flush());
-  window.addEventListener('storage', (event) => {
-    if (event.key === STORAGE_KEY) {
-      entries = load();
-      snapshot = Object.values(entries);
-      for (const listener of listeners) listener();
-    }
+  // Follow sign-in and sign-out through the cached session user; an unknown user (the query
+  // cleared or still loading) keeps the current queue until the answer is known.
+  const follow = () => {
+    const id = signedInUser();
+    if (id !== undefined) setOutboxUser(id);
+  };
+  queryClient.getQueryCache().subscribe((event) => {
+    if (event.query.queryKey[0] === 'auth' && event.query.queryKey[1] === 'me') follow();
   });
-  void flush();
+  follow();
+  if (typeof BroadcastChannel !== 'undefined') {
+    channel = new BroadcastChannel(CHANNEL);
+    channel.onmessage = (event: MessageEvent<{ userId: string }>) => {
+      if (userId && event.data.userId === userId) void reload(userId);
+    };
+  }
 }
 
 /** Every edit not yet accepted by the server; starts the background sender. */
@@ -236,6 +294,16 @@ export function useOutbox(): OutboxEntry[] {
     subscribe,
     () => snapshot,
     () => snapshot,
+  );
+}
+
+/** Whether the device's queue has been read (before that, "all saved" cannot be said). */
+export function useOutboxLoaded(): boolean {
+  useEffect(start, []);
+  return useSyncExternalStore(
+    subscribe,
+    () => loaded,
+    () => loaded,
   );
 }
 

@@ -6,6 +6,7 @@ import {
 } from '../../../../shared/schemas/observation';
 import type { SiteContext, StripDto, StripValuesPatch } from '../../../../shared/schemas/strip';
 import type { ValueColumn } from '../../../../shared/import/columns';
+import { parseDecimal } from '../../../../shared/units/parse-decimal';
 import {
   cropFacts,
   deriveStripValues,
@@ -68,8 +69,6 @@ export function cellText(
   return item === null || item === undefined ? '' : String(item);
 }
 
-const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)$/;
-
 /**
  * The partial update for typing `text` into one cell, or the reason it cannot be saved.
  * An emptied cell clears the value (a subsample list closes up).
@@ -79,13 +78,15 @@ export function patchForCell(
   column: Pick<ValueColumn, 'field' | 'index' | 'kind'>,
   text: string,
 ): { patch: StripValuesPatch } | { error: string } {
-  const trimmed = column.kind === 'text' ? text : text.trim().replace(',', '.');
   let value: unknown;
-  if (column.kind === 'text') value = trimmed;
-  else if (trimmed === '') value = null;
-  else if (column.kind === 'date') value = trimmed;
-  else if (!NUMBER.test(trimmed)) return { error: 'Enter a number' };
-  else value = Number(trimmed);
+  if (column.kind === 'text') value = text;
+  else if (text.trim() === '') value = null;
+  else if (column.kind === 'date') value = text.trim();
+  else {
+    const read = parseDecimal(text);
+    if (!read.ok) return { error: read.message };
+    value = read.value;
+  }
   if (column.index !== undefined) {
     const list = [...((values[column.field] as number[] | undefined) ?? [])];
     const cells: (number | null)[] = Array.from(

@@ -8,8 +8,10 @@ import {
   type SignUpInput,
 } from '../../../../shared/schemas/network';
 import { api } from '../../../lib/api-client';
-import { meQueryKey } from '../../auth/api/get-me';
 import { setCurrentNetwork } from '../lib/current-network';
+
+/** The signed-in user's query key, as the auth feature names it. */
+const meQueryKey = ['auth', 'me'] as const;
 
 export function signUpStatusQueryOptions() {
   return queryOptions({
@@ -25,7 +27,7 @@ export function useSignUpStatus() {
 
 export function useSignUp() {
   return useMutation({
-    mutationFn: (input: SignUpInput) => api.post<{ message: string }>('/api/auth/sign-up', input),
+    mutationFn: (input: SignUpInput) => api.post('/api/auth/sign-up', input),
   });
 }
 
@@ -58,8 +60,7 @@ export function useCreateNetwork() {
 export function useDeleteNetwork(networkId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (confirmName: string) =>
-      api.delete(`/api/networks/${networkId}`, { body: { confirmName } }),
+    mutationFn: (confirmName: string) => api.delete(`/api/networks/${networkId}`, { confirmName }),
     onSuccess: async () => {
       setCurrentNetwork(null);
       await queryClient.invalidateQueries();

@@ -34,7 +34,7 @@ export function RecordingSheet({
         you cut: the yield is worked out from that area. Enter the numbers in Sheaf after each
         count. Plot 203 is block 2, strip 3.
       </p>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Field sheet">
         <table
           className="sheet figures w-full min-w-[50rem] border-collapse text-caption"
           data-testid="recording-sheet"

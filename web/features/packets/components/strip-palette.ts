@@ -1,18 +1,7 @@
-// Sheaf's strip-map palette: one sequential ramp from pale straw to deep field green whose
-// lightness falls steadily, so heavier rates read darker in colour, for colour-blind readers
-// and in black-and-white print alike. Each rate also gets its own hatch density.
-const RAMP = [
-  '#f7efd2',
-  '#e6d28e',
-  '#c9b35a',
-  '#9c9a45',
-  '#5f763a',
-  '#456638',
-  '#2a4a2b',
-  '#132b1b',
-] as const;
-/** Relative luminance above which dark text reads better than white. */
-const LIGHT = new Set<string>(['#f7efd2', '#e6d28e', '#c9b35a', '#9c9a45']);
+// Sheaf's strip-map palette: the shared rate ramp (shared/brand/colours.ts) from pale straw to
+// deep field green whose lightness falls steadily, so heavier rates read darker in colour, for
+// colour-blind readers and in black-and-white print alike. Each rate also gets its own hatch density.
+import { RATE_RAMP, RATE_RAMP_LIGHT, soil, white } from '../../../../shared/brand/colours';
 
 export interface RateStyle {
   fill: string;
@@ -28,14 +17,15 @@ export function rateStyles(multipliers: readonly number[]): Map<number, RateStyl
   const n = sorted.length;
   return new Map(
     sorted.map((m, i) => {
-      const index = n === 1 ? RAMP.length - 1 : Math.round((i * (RAMP.length - 1)) / (n - 1));
-      const fill = RAMP[index]!;
-      const light = LIGHT.has(fill);
+      const index =
+        n === 1 ? RATE_RAMP.length - 1 : Math.round((i * (RATE_RAMP.length - 1)) / (n - 1));
+      const fill = RATE_RAMP[index]!;
+      const light = RATE_RAMP_LIGHT.has(fill);
       return [
         m,
         {
           fill,
-          text: light ? '#26201b' : '#ffffff',
+          text: light ? soil[900] : white,
           hatchGap: i === 0 ? 0 : Math.max(4, 14 - i * 3),
           hatchColour: light ? 'rgba(38,32,27,0.28)' : 'rgba(255,255,255,0.22)',
         },

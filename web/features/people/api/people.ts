@@ -3,15 +3,17 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { InvitationCreate } from '../../../../shared/schemas/auth';
 import type { Role } from '../../../../shared/schemas/common';
 import { NetworkMemberSchema, NetworkPeopleSchema } from '../../../../shared/schemas/people';
-import { api } from '../../../lib/api-client';
+import { InvitationCreatedSchema } from '../../../../shared/schemas/people';
+import { NoContent, api } from '../../../lib/api-client';
+import { peopleKeys } from '../../../lib/query-keys';
 
-const peopleKey = (networkId: string) => ['people', networkId] as const;
+const peopleKey = peopleKeys.network;
 
 export function networkPeopleQueryOptions(networkId: string) {
   return queryOptions({
     queryKey: peopleKey(networkId),
-    queryFn: async ({ signal }) =>
-      NetworkPeopleSchema.parse(await api.get(`/api/networks/${networkId}/people`, { signal })),
+    queryFn: ({ signal }) =>
+      api.get(`/api/networks/${networkId}/people`, NetworkPeopleSchema, { signal }),
     staleTime: 30_000,
   });
 }
@@ -23,10 +25,10 @@ export function useNetworkPeople(networkId: string) {
 export function useChangeRole(networkId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: { userId: string; role: Role }) =>
-      NetworkMemberSchema.parse(
-        await api.patch(`/api/networks/${networkId}/members/${input.userId}`, { role: input.role }),
-      ),
+    mutationFn: (input: { userId: string; role: Role }) =>
+      api.patch(`/api/networks/${networkId}/members/${input.userId}`, NetworkMemberSchema, {
+        role: input.role,
+      }),
     onSettled: () => queryClient.invalidateQueries({ queryKey: peopleKey(networkId) }),
   });
 }
@@ -35,10 +37,7 @@ export function useInvite(networkId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: InvitationCreate) =>
-      api.post<{ id: string; email: string; role: Role; expiresAt: string }>(
-        `/api/networks/${networkId}/invitations`,
-        input,
-      ),
+      api.post(`/api/networks/${networkId}/invitations`, InvitationCreatedSchema, input),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: peopleKey(networkId) }),
   });
 }
@@ -47,7 +46,7 @@ export function useRevokeInvitation(networkId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (invitationId: string) =>
-      api.delete<void>(`/api/networks/${networkId}/invitations/${invitationId}`),
+      api.delete(`/api/networks/${networkId}/invitations/${invitationId}`, NoContent),
     onSettled: () => queryClient.invalidateQueries({ queryKey: peopleKey(networkId) }),
   });
 }

@@ -1,7 +1,8 @@
 // The pooled network report, with the reader's filters and prices; or the public copy by token.
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { PooledQuery, PooledReport } from '../../../../shared/schemas/report';
+import { PooledReportSchema, type PooledQuery } from '../../../../shared/schemas/report';
 import { api } from '../../../lib/api-client';
+import { reportKeys } from '../../../lib/query-keys';
 
 /** Query string for the filters and prices that are set (empty values are left out). */
 export function pooledSearch(query: PooledQuery): string {
@@ -15,9 +16,9 @@ export function pooledSearch(query: PooledQuery): string {
 
 export function pooledReportQueryOptions(trialId: string, query: PooledQuery = {}) {
   return queryOptions({
-    queryKey: ['reports', 'pooled', trialId, query] as const,
+    queryKey: reportKeys.pooled(trialId, query),
     queryFn: ({ signal }) =>
-      api.get<PooledReport>(`/api/trials/${trialId}/pooled-report${pooledSearch(query)}`, {
+      api.get(`/api/trials/${trialId}/pooled-report${pooledSearch(query)}`, PooledReportSchema, {
         signal,
       }),
     placeholderData: keepPreviousData,
@@ -30,10 +31,11 @@ export function usePooledReport(trialId: string, query: PooledQuery = {}) {
 
 export function publicReportQueryOptions(token: string, query: PooledQuery = {}) {
   return queryOptions({
-    queryKey: ['reports', 'public', token, query] as const,
+    queryKey: reportKeys.public(token, query),
     queryFn: ({ signal }) =>
-      api.get<PooledReport>(
+      api.get(
         `/api/public/reports/${encodeURIComponent(token)}${pooledSearch(query)}`,
+        PooledReportSchema,
         { signal },
       ),
     placeholderData: keepPreviousData,

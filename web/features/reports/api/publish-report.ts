@@ -1,18 +1,22 @@
 // Coordinator actions: publish and unpublish site and pooled reports, and the public link.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { PooledReport, PublicLink, SiteReport } from '../../../../shared/schemas/report';
+import {
+  PooledReportSchema,
+  PublicLinkSchema,
+  SiteReportSchema,
+} from '../../../../shared/schemas/report';
 import { api } from '../../../lib/api-client';
-import { siteReportQueryKey } from './get-site-report';
+import { reportKeys, siteKeys, trialKeys } from '../../../lib/query-keys';
 
 export function usePublishSite(siteId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (action: 'publish' | 'unpublish') =>
-      api.post<SiteReport>(`/api/sites/${siteId}/${action}`),
+      api.post(`/api/sites/${siteId}/${action}`, SiteReportSchema),
     onSuccess: (report) => {
-      queryClient.setQueryData(siteReportQueryKey(siteId), report);
-      void queryClient.invalidateQueries({ queryKey: ['reports'] });
-      void queryClient.invalidateQueries({ queryKey: ['sites'] });
+      queryClient.setQueryData(reportKeys.site(siteId), report);
+      void queryClient.invalidateQueries({ queryKey: reportKeys.all });
+      void queryClient.invalidateQueries({ queryKey: siteKeys.all });
     },
   });
 }
@@ -21,10 +25,10 @@ export function usePublishTrial(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (action: 'publish' | 'unpublish') =>
-      api.post<PooledReport>(`/api/trials/${trialId}/${action}`),
+      api.post(`/api/trials/${trialId}/${action}`, PooledReportSchema),
     onSuccess: () => {
-      void queryClient.invalidateQueries({ queryKey: ['reports', 'pooled', trialId] });
-      void queryClient.invalidateQueries({ queryKey: ['trials'] });
+      void queryClient.invalidateQueries({ queryKey: reportKeys.pooledAll(trialId) });
+      void queryClient.invalidateQueries({ queryKey: trialKeys.all });
     },
   });
 }
@@ -33,8 +37,8 @@ export function usePublicLink(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (enabled: boolean) =>
-      api.post<PublicLink>(`/api/trials/${trialId}/public-link`, { enabled }),
+      api.post(`/api/trials/${trialId}/public-link`, PublicLinkSchema, { enabled }),
     onSuccess: () =>
-      void queryClient.invalidateQueries({ queryKey: ['reports', 'pooled', trialId] }),
+      void queryClient.invalidateQueries({ queryKey: reportKeys.pooledAll(trialId) }),
   });
 }

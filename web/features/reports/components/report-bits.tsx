@@ -29,7 +29,11 @@ export function Section({
   children: ReactNode;
 }) {
   return (
-    <section aria-labelledby={`${id}-title`} className="space-y-4 break-inside-avoid-page">
+    <section
+      id={id}
+      aria-labelledby={`${id}-title`}
+      className="report-section space-y-4 break-inside-avoid-page"
+    >
       <div>
         <h2 id={`${id}-title`} className="text-heading text-ink">
           {title}
@@ -41,9 +45,15 @@ export function Section({
   );
 }
 
-export function ChartCard({ children }: { children: ReactNode }) {
+export function ChartCard({ children, label = 'Chart' }: { children: ReactNode; label?: string }) {
   return (
-    <div className="min-w-0 overflow-x-auto rounded-card border border-line bg-surface p-4 shadow-card">
+    // A scrolling box takes keyboard focus so a wide chart can be scrolled without a mouse.
+    <div
+      className="min-w-0 overflow-x-auto rounded-card border border-line bg-surface p-4 shadow-card"
+      tabIndex={0}
+      role="region"
+      aria-label={label}
+    >
       {children}
     </div>
   );

@@ -22,7 +22,13 @@ export function DataTable({
   className?: string;
 }) {
   return (
-    <div className={cn('overflow-x-auto rounded-card border border-line bg-surface', className)}>
+    // A scrolling box takes keyboard focus so a wide table can be scrolled without a mouse.
+    <div
+      className={cn('overflow-x-auto rounded-card border border-line bg-surface', className)}
+      tabIndex={0}
+      role="region"
+      aria-label={typeof caption === 'string' ? caption : 'Table'}
+    >
       <table className="figures w-full min-w-max border-collapse text-label">
         <caption className="px-4 pt-3 text-left text-label font-semibold text-ink">
           {caption}

@@ -10,7 +10,10 @@ interface ChartView {
 }
 
 export interface VegaChartProps {
-  spec: ChartSpec;
+  /** A spec that fills its container itself (width "container"). */
+  spec?: ChartSpec;
+  /** For specs that cannot say "container" (faceted charts): built for the measured width. */
+  specForWidth?: (width: number) => ChartSpec;
   /** Accessible name of the chart and the base of downloaded file names. */
   title: string;
   /** One sentence saying what the chart shows, for screen readers and under the chart. */
@@ -34,8 +37,23 @@ const slug = (text: string) =>
     .replace(/[^a-z0-9]+/g, '-')
     .replace(/^-|-$/g, '') || 'chart';
 
+/** The element's width, rounded to 40 px so a resize redraws only when it matters. */
+function useRoundedWidth(element: React.RefObject<HTMLElement | null>, active: boolean) {
+  const [width, setWidth] = useState(0);
+  useEffect(() => {
+    if (!active || !element.current) return;
+    const observer = new ResizeObserver(([entry]) => {
+      if (entry) setWidth(Math.max(200, Math.round(entry.contentRect.width / 40) * 40));
+    });
+    observer.observe(element.current);
+    return () => observer.disconnect();
+  }, [element, active]);
+  return width;
+}
+
 export function VegaChart({
   spec,
+  specForWidth,
   title,
   description,
   downloads = true,
@@ -44,11 +62,14 @@ export function VegaChart({
   const container = useRef<HTMLDivElement>(null);
   const view = useRef<ChartView | null>(null);
   const [state, setState] = useState<'loading' | 'ready' | 'failed'>('loading');
-  const specKey = JSON.stringify(spec);
+  const width = useRoundedWidth(container, Boolean(specForWidth));
+  const actual = specForWidth ? (width > 0 ? specForWidth(width) : null) : (spec ?? null);
+  const specKey = actual ? JSON.stringify(actual) : '';
 
   useEffect(() => {
     let cancelled = false;
     let finalize: (() => void) | undefined;
+    if (!specKey) return;
     setState('loading');
     (async () => {
       const [{ default: embed }, { expressionInterpreter }] = await Promise.all([

@@ -3,12 +3,12 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { NetworkPersonSchema, TrialDetailSchema } from '../../../../shared/schemas/trial';
 import { api } from '../../../lib/api-client';
+import { trialKeys } from '../../../lib/query-keys';
 
 export function trialQueryOptions(trialId: string) {
   return queryOptions({
-    queryKey: ['trials', 'detail', trialId],
-    queryFn: async ({ signal }) =>
-      TrialDetailSchema.parse(await api.get(`/api/trials/${trialId}`, { signal })),
+    queryKey: trialKeys.detail(trialId),
+    queryFn: ({ signal }) => api.get(`/api/trials/${trialId}`, TrialDetailSchema, { signal }),
   });
 }
 
@@ -18,11 +18,9 @@ export function useTrial(trialId: string) {
 
 export function trialPeopleQueryOptions(trialId: string) {
   return queryOptions({
-    queryKey: ['trials', 'people', trialId],
-    queryFn: async ({ signal }) =>
-      z
-        .array(NetworkPersonSchema)
-        .parse(await api.get(`/api/trials/${trialId}/people`, { signal })),
+    queryKey: trialKeys.people(trialId),
+    queryFn: ({ signal }) =>
+      api.get(`/api/trials/${trialId}/people`, z.array(NetworkPersonSchema), { signal }),
   });
 }
 

@@ -3,12 +3,12 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { TrialSummarySchema } from '../../../../shared/schemas/trial';
 import { api } from '../../../lib/api-client';
+import { trialKeys } from '../../../lib/query-keys';
 
 export function trialsQueryOptions() {
   return queryOptions({
-    queryKey: ['trials', 'list'],
-    queryFn: async ({ signal }) =>
-      z.array(TrialSummarySchema).parse(await api.get('/api/trials', { signal })),
+    queryKey: trialKeys.list(),
+    queryFn: ({ signal }) => api.get('/api/trials', z.array(TrialSummarySchema), { signal }),
   });
 }
 

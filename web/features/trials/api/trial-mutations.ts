@@ -1,22 +1,25 @@
 // Writes for trial design: create and update a trial, enrol a site, randomize, send packets.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateSiteInput, PacketSendResult } from '../../../../shared/schemas/site';
+import { z } from 'zod';
+import { LayoutSchema } from '../../../../shared/schemas/layout';
+import { PacketSendResultSchema, type CreateSiteInput } from '../../../../shared/schemas/site';
 import {
   TrialDetailSchema,
   type CreateTrialInput,
   type UpdateTrialInput,
 } from '../../../../shared/schemas/trial';
-import type { Layout } from '../../../../shared/schemas/layout';
 import { api } from '../../../lib/api-client';
+import { siteKeys, trialKeys } from '../../../lib/query-keys';
+
+const EnrolledSiteSchema = z.object({ id: z.uuid(), fieldName: z.string() });
 
 export function useCreateTrial() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: CreateTrialInput) =>
-      TrialDetailSchema.parse(await api.post('/api/trials', input)),
+    mutationFn: (input: CreateTrialInput) => api.post('/api/trials', TrialDetailSchema, input),
     onSuccess: (trial) => {
-      queryClient.setQueryData(['trials', 'detail', trial.id], trial);
-      void queryClient.invalidateQueries({ queryKey: ['trials', 'list'] });
+      queryClient.setQueryData(trialKeys.detail(trial.id), trial);
+      void queryClient.invalidateQueries({ queryKey: trialKeys.list() });
     },
   });
 }
@@ -24,11 +27,11 @@ export function useCreateTrial() {
 export function useUpdateTrial(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: UpdateTrialInput) =>
-      TrialDetailSchema.parse(await api.patch(`/api/trials/${trialId}`, input)),
+    mutationFn: (input: UpdateTrialInput) =>
+      api.patch(`/api/trials/${trialId}`, TrialDetailSchema, input),
     onSuccess: (trial) => {
-      queryClient.setQueryData(['trials', 'detail', trial.id], trial);
-      void queryClient.invalidateQueries({ queryKey: ['trials', 'list'] });
+      queryClient.setQueryData(trialKeys.detail(trial.id), trial);
+      void queryClient.invalidateQueries({ queryKey: trialKeys.list() });
     },
   });
 }
@@ -37,8 +40,8 @@ export function useEnrolSite(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: CreateSiteInput) =>
-      api.post<{ id: string; fieldName: string }>(`/api/trials/${trialId}/sites`, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['trials'] }),
+      api.post(`/api/trials/${trialId}/sites`, EnrolledSiteSchema, input),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: trialKeys.all }),
   });
 }
 
@@ -46,25 +49,28 @@ export function useRandomizeSite(trialId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: { siteId: string; seed?: string }) =>
-      api.post<Layout>(
+      api.post(
         `/api/sites/${input.siteId}/randomize`,
+        LayoutSchema,
         input.seed ? { seed: input.seed } : {},
       ),
     onSuccess: (_layout, input) => {
-      void queryClient.invalidateQueries({ queryKey: ['trials', 'detail', trialId] });
-      void queryClient.invalidateQueries({ queryKey: ['sites', input.siteId] });
+      void queryClient.invalidateQueries({ queryKey: trialKeys.detail(trialId) });
+      void queryClient.invalidateQueries({ queryKey: siteKeys.detail(input.siteId) });
+      void queryClient.invalidateQueries({ queryKey: siteKeys.layout(input.siteId) });
     },
   });
 }
 
 export function useSendPacket() {
   return useMutation({
-    mutationFn: (siteId: string) => api.post<PacketSendResult>(`/api/sites/${siteId}/packet/send`),
+    mutationFn: (siteId: string) =>
+      api.post(`/api/sites/${siteId}/packet/send`, PacketSendResultSchema),
   });
 }
 
 export function useSendAllPackets(trialId: string) {
   return useMutation({
-    mutationFn: () => api.post<PacketSendResult>(`/api/trials/${trialId}/packets/send`),
+    mutationFn: () => api.post(`/api/trials/${trialId}/packets/send`, PacketSendResultSchema),
   });
 }

@@ -1,16 +1,54 @@
 // Enrol a site: pick a network member as grower or type an e-mail address to invite.
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
+import { useWatch } from 'react-hook-form';
+import { z } from 'zod';
 import { CreateSiteInputSchema } from '../../../../shared/schemas/site';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { TextField } from '../../../components/ui/text-field';
-import { apiFieldErrors, errorSummary } from '../../../lib/form-errors';
+import {
+  FormSelectField,
+  FormTextAreaField,
+  FormTextField,
+} from '../../../components/ui/form-controls';
+import { errorSummary } from '../../../lib/form-errors';
+import { applyServerErrors, Form, useZodForm } from '../../../lib/forms/zod-form';
 import { useTrialPeople } from '../api/get-trial';
 import { useEnrolSite } from '../api/trial-mutations';
-import { SelectField, TextAreaField } from '../../../components/ui/form-fields';
-import { fieldBinder } from '../../../lib/bind-field';
 
-const EMPTY = {
+const site = CreateSiteInputSchema.shape;
+
+/** The boxes as typed; the grower is a chosen person or an e-mail, by the mode radio. */
+const EnrolSiteFormSchema = z
+  .object({
+    mode: z.enum(['member', 'invite']),
+    growerUserId: z.string(),
+    growerEmail: z.string(),
+    fieldName: site.fieldName,
+    soil: site.soil,
+    previousCrop: site.previousCrop,
+    fertility: site.fertility,
+    notes: site.notes,
+  })
+  .superRefine((v, ctx) => {
+    if (v.mode === 'member' && !v.growerUserId)
+      ctx.addIssue({ code: 'custom', message: 'Choose the grower', path: ['growerUserId'] });
+    if (v.mode === 'invite' && !v.growerEmail.trim())
+      ctx.addIssue({
+        code: 'custom',
+        message: 'Enter the grower’s e-mail address',
+        path: ['growerEmail'],
+      });
+  })
+  .transform(
+    ({ mode, growerUserId, growerEmail, ...site }): z.input<typeof CreateSiteInputSchema> => ({
+      ...site,
+      ...(mode === 'member' ? { growerUserId } : { growerEmail }),
+    }),
+  )
+  .pipe(CreateSiteInputSchema);
+
+const EMPTY: z.input<typeof EnrolSiteFormSchema> = {
+  mode: 'member',
   growerUserId: '',
   growerEmail: '',
   fieldName: '',
@@ -23,56 +61,32 @@ const EMPTY = {
 export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: () => void }) {
   const people = useTrialPeople(trialId);
   const enrol = useEnrolSite(trialId);
-  const [mode, setMode] = useState<'member' | 'invite'>('member');
-  const [form, setForm] = useState(EMPTY);
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const form = useZodForm(EnrolSiteFormSchema, { defaultValues: EMPTY });
+  const mode = useWatch({ control: form.control, name: 'mode' });
   const [done, setDone] = useState<string | null>(null);
 
-  async function submit(event: FormEvent) {
-    event.preventDefault();
-    setDone(null);
-    const candidate = {
-      fieldName: form.fieldName,
-      soil: form.soil,
-      previousCrop: form.previousCrop,
-      fertility: form.fertility,
-      notes: form.notes,
-      ...(mode === 'member'
-        ? { growerUserId: form.growerUserId || undefined }
-        : { growerEmail: form.growerEmail || undefined }),
-    };
-    const parsed = CreateSiteInputSchema.safeParse(candidate);
-    if (!parsed.success) {
-      const fields: Record<string, string> = {};
-      for (const issue of parsed.error.issues)
-        fields[String(issue.path[0] ?? 'form')] ??= issue.message;
-      if (mode === 'member' && fields.growerEmail) fields.growerUserId = 'Choose the grower';
-      setErrors(fields);
-      return;
-    }
-    setErrors({});
-    try {
-      await enrol.mutateAsync(parsed.data);
-      setDone(
-        mode === 'invite'
-          ? `${form.fieldName} is enrolled and an invitation went to ${form.growerEmail}.`
-          : `${form.fieldName} is enrolled.`,
-      );
-      setForm(EMPTY);
-      onDone?.();
-    } catch (error) {
-      setErrors(apiFieldErrors(error));
-    }
-  }
-
-  const set = (patch: Partial<typeof EMPTY>) => setForm((f) => ({ ...f, ...patch }));
-  const field = fieldBinder(form, set, errors);
-
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" aria-label="Enrol a site">
-      {enrol.isError && Object.keys(errors).length === 0 ? (
-        <Alert tone="danger">{errorSummary(enrol.error)}</Alert>
-      ) : null}
+    <Form
+      form={form}
+      onSubmit={(input) => {
+        setDone(null);
+        enrol.mutate(input, {
+          onSuccess: () => {
+            setDone(
+              input.growerEmail
+                ? `${input.fieldName} is enrolled and an invitation went to ${input.growerEmail}.`
+                : `${input.fieldName} is enrolled.`,
+            );
+            form.reset(EMPTY);
+            onDone?.();
+          },
+          onError: (error) => applyServerErrors(form, error),
+        });
+      }}
+      className="space-y-4"
+      aria-label="Enrol a site"
+    >
+      {enrol.isError ? <Alert tone="danger">{errorSummary(enrol.error)}</Alert> : null}
       {done ? <Alert tone="success">{done}</Alert> : null}
       <fieldset className="flex flex-wrap gap-4">
         <legend className="mb-2 text-label text-ink">Grower</legend>
@@ -85,9 +99,8 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
           <label key={value} className="flex min-h-11 items-center gap-2 text-label">
             <input
               type="radio"
-              name="grower-mode"
-              checked={mode === value}
-              onChange={() => setMode(value)}
+              value={value}
+              {...form.register('mode')}
               className="size-5 accent-[var(--sheaf-accent)]"
             />
             {label}
@@ -96,37 +109,37 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
       </fieldset>
       <div className="grid gap-4 sm:grid-cols-2">
         {mode === 'member' ? (
-          <SelectField label="Grower" {...field('growerUserId')}>
+          <FormSelectField name="growerUserId" label="Grower">
             <option value="">{people.isPending ? 'Loading people…' : 'Choose a person…'}</option>
             {(people.data ?? []).map((p) => (
               <option key={p.userId} value={p.userId}>
                 {p.name} ({p.email})
               </option>
             ))}
-          </SelectField>
+          </FormSelectField>
         ) : (
-          <TextField
+          <FormTextField
+            name="growerEmail"
             label="Grower’s e-mail"
             type="email"
             autoComplete="off"
             hint="They get an invitation; the site is theirs once they accept."
-            {...field('growerEmail')}
           />
         )}
-        <TextField label="Field name" required {...field('fieldName')} />
-        <TextField label="Soil" {...field('soil')} placeholder="e.g. silt loam" />
-        <TextField label="Previous crop" {...field('previousCrop')} />
-        <TextField
+        <FormTextField name="fieldName" label="Field name" required />
+        <FormTextField name="soil" label="Soil" placeholder="e.g. silt loam" />
+        <FormTextField name="previousCrop" label="Previous crop" />
+        <FormTextField
+          name="fertility"
           label="Fertility"
-          {...field('fertility')}
           placeholder="e.g. compost 3 t/acre"
           containerClassName="sm:col-span-2"
         />
-        <TextAreaField label="Notes" {...field('notes')} containerClassName="sm:col-span-2" />
+        <FormTextAreaField name="notes" label="Notes" containerClassName="sm:col-span-2" />
       </div>
       <Button type="submit" busy={enrol.isPending}>
         Enrol site
       </Button>
-    </form>
+    </Form>
   );
 }

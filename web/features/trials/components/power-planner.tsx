@@ -1,7 +1,23 @@
 // Replication planner: blocks per site and sites needed to detect a difference at a given CV.
-import { useState } from 'react';
+import { FormProvider, useWatch } from 'react-hook-form';
+import { z } from 'zod';
 import { blocksNeeded, sitesNeeded } from '../../../../shared/analysis';
-import { TextField } from '../../../components/ui/text-field';
+import { parseDecimal } from '../../../../shared/units/parse-decimal';
+import { FormNumberField } from '../../../components/ui/form-controls';
+import { numberText } from '../../../lib/forms/number-text';
+import { useZodForm } from '../../../lib/forms/zod-form';
+
+const percent = z.number().positive('Must be above 0').max(100, 'At most 100 %');
+const PlannerSchema = z.object({
+  cv: numberText(percent),
+  difference: numberText(percent),
+  siteByRate: numberText(z.number().min(0, 'At least 0').max(100, 'At most 100 %')),
+});
+
+const valueOf = (text: string) => {
+  const read = parseDecimal(text);
+  return read.ok && read.value !== null ? read.value : Number.NaN;
+};
 
 function tryNumber<T>(compute: () => T): T | string {
   try {
@@ -18,12 +34,17 @@ export function PowerPlanner({
   rates: number;
   blocksPerSite: number | null;
 }) {
-  const [cv, setCv] = useState('10');
-  const [difference, setDifference] = useState('10');
-  const [siteByRate, setSiteByRate] = useState('5');
-  const cvValue = Number(cv);
-  const differenceValue = Number(difference);
-  const interaction = Number(siteByRate);
+  const form = useZodForm(PlannerSchema, {
+    defaultValues: { cv: '10', difference: '10', siteByRate: '5' },
+    mode: 'onChange',
+  });
+  const [cv, difference, siteByRate] = useWatch({
+    control: form.control,
+    name: ['cv', 'difference', 'siteByRate'],
+  });
+  const cvValue = valueOf(cv);
+  const differenceValue = valueOf(difference);
+  const interaction = valueOf(siteByRate);
   const ready = cvValue > 0 && differenceValue > 0 && interaction >= 0 && rates >= 2;
   const blocks = ready
     ? tryNumber(() => blocksNeeded({ cvPercent: cvValue, difference: differenceValue, rates }))
@@ -54,30 +75,19 @@ export function PowerPlanner({
         finding, this estimates the replication for a two-sided test at 5 % with 80 % power. Strip
         CVs of 5–15 % are usual; a past season’s site reports give your own.
       </p>
-      <div className="mt-4 grid gap-4 sm:grid-cols-3">
-        <TextField
-          label="Expected CV"
-          suffix="%"
-          inputMode="decimal"
-          value={cv}
-          onChange={(e) => setCv(e.target.value)}
-        />
-        <TextField
-          label="Difference to detect"
-          suffix="% of mean"
-          inputMode="decimal"
-          value={difference}
-          onChange={(e) => setDifference(e.target.value)}
-        />
-        <TextField
-          label="Site × rate CV"
-          hint="How much rate effects vary between farms"
-          suffix="%"
-          inputMode="decimal"
-          value={siteByRate}
-          onChange={(e) => setSiteByRate(e.target.value)}
-        />
-      </div>
+      {/* Inside the wizard's own form: a nested <form> is not allowed, so only the context. */}
+      <FormProvider {...form}>
+        <div className="mt-4 grid gap-4 sm:grid-cols-3">
+          <FormNumberField name="cv" label="Expected CV" suffix="%" />
+          <FormNumberField name="difference" label="Difference to detect" suffix="% of mean" />
+          <FormNumberField
+            name="siteByRate"
+            label="Site × rate CV"
+            hint="How much rate effects vary between farms"
+            suffix="%"
+          />
+        </div>
+      </FormProvider>
       <dl className="mt-5 grid gap-3 sm:grid-cols-2" aria-live="polite">
         <div className="rounded-field bg-sunken p-4">
           <dt className="text-caption font-semibold uppercase tracking-wide text-ink-muted">

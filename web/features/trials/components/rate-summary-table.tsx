@@ -7,7 +7,13 @@ const whole = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
 export function RateSummaryTable({ rows, caption }: { rows: RateTableRow[]; caption?: string }) {
   if (rows.length === 0) return null;
   return (
-    <div className="overflow-x-auto rounded-field border border-line">
+    // A scrolling box takes keyboard focus so it can be scrolled without a mouse.
+    <div
+      className="overflow-x-auto rounded-field border border-line"
+      tabIndex={0}
+      role="region"
+      aria-label={caption ?? 'Seed per rate'}
+    >
       <table className="figures w-full min-w-[34rem] border-collapse text-label">
         {caption ? <caption className="sr-only">{caption}</caption> : null}
         <thead className="bg-sunken text-left text-caption uppercase tracking-wide text-ink-muted">

@@ -1,0 +1,247 @@
+// The web client's rough edges, looked at in Chromium at 390 and 1280 px, and the reports
+// printed from the browser on Letter and A4 (every column, no buttons, one section a page).
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildNetwork, demoIds, signIn } from '../helpers/app';
+import {
+  ARTIFACTS,
+  launchBrowser,
+  openPage,
+  screenshot,
+  signInThroughUi,
+  startTestServer,
+} from '../helpers/browser';
+
+const COORDINATOR = 'coordinator@millbrook.example';
+
+describe('the web client as a house to live in', () => {
+  let server: Awaited<ReturnType<typeof startTestServer>>;
+  let browser: Browser;
+  let ids: Awaited<ReturnType<typeof demoIds>>;
+
+  beforeAll(async () => {
+    server = await startTestServer();
+    browser = await launchBrowser();
+    ids = await demoIds(server.testApp.dataSource);
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+  });
+
+  const pageWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
+
+  async function waitForCharts(page: Page, atLeast: number) {
+    await page.waitForFunction(
+      (n) => document.querySelectorAll('[data-chart][data-state="ready"] svg').length >= n,
+      atLeast,
+      { timeout: 20_000 },
+    );
+  }
+
+  for (const width of [390, 1280]) {
+    it(`keeps the wizard's crop message plain, inside the page and gone once a crop is chosen at ${width} px`, async () => {
+      const { page, close, errors } = await openPage(browser, width);
+      await signInThroughUi(page, server.baseUrl, COORDINATOR);
+      await page.goto(`${server.baseUrl}/trials/new`);
+      await page.getByLabel(/Trial name/).fill('Invented rough-edge trial');
+      await page.getByRole('button', { name: 'Save and continue' }).click();
+      const cropError = page.locator('[id$="-error"]', { hasText: 'Choose a crop' });
+      await cropError.waitFor();
+      expect(await page.getByText(/Invalid option/).count()).toBe(0);
+      expect(await pageWidth(page)).toBeLessThanOrEqual(width);
+      // Focus moves to the first field in error, not the button.
+      expect(await page.evaluate(() => document.activeElement?.tagName)).toBe('SELECT');
+      await screenshot(page, `house-wizard-crop-${width}`);
+      await page.getByLabel('Crop').selectOption('oats');
+      await cropError.waitFor({ state: 'detached' });
+      expect(errors).toEqual([]);
+      await close();
+    });
+
+    it(`says "Enter a number" for letters and marks fixed fields as fixed at ${width} px`, async () => {
+      const { page, close } = await openPage(browser, width);
+      await signInThroughUi(page, server.baseUrl, COORDINATOR);
+      // The demo oat trial has randomized sites, so its rate levels are fixed.
+      await page.goto(`${server.baseUrl}/trials/${ids.oatTrialId}/edit?step=1`);
+      await page.getByRole('heading', { name: /Step 2 of 5/ }).waitFor();
+      const rate = page.getByLabel(/Reference \(full\) rate/);
+      await rate.fill('lots');
+      await page.getByRole('button', { name: 'Save and continue' }).click();
+      await page.getByText('Enter a number').waitFor();
+      expect(await page.getByText('Fill this in').count()).toBe(0);
+      const level = page.getByLabel(/Level 1: times the full rate/);
+      expect(await level.isDisabled()).toBe(true);
+      const look = (el: Element) => {
+        const style = getComputedStyle(el);
+        return `${style.backgroundColor} ${style.borderStyle}`;
+      };
+      expect(await level.evaluate(look)).not.toBe(await rate.evaluate(look));
+      expect(await page.getByText('(fixed)').count()).toBeGreaterThan(0);
+      expect(await page.getByText('×', { exact: true }).count()).toBe(0);
+      expect(await pageWidth(page)).toBeLessThanOrEqual(width);
+      await screenshot(page, `house-wizard-fixed-${width}`);
+      await close();
+    });
+
+    it(`shows no error on /calibrate before anything is typed at ${width} px`, async () => {
+      const { page, close } = await openPage(browser, width);
+      await page.goto(`${server.baseUrl}/calibrate`);
+      await page.getByLabel('Seeds counted').waitFor();
+      expect(await page.locator('[aria-invalid="true"]').count()).toBe(0);
+      await page.getByLabel('Seeds counted').fill('12x');
+      await page.getByText('Enter a number').waitFor();
+      await screenshot(page, `house-calibrate-${width}`);
+      await close();
+    });
+
+    it(`fits the invitation's join button text inside the button at ${width} px`, async () => {
+      const net = await buildNetwork(
+        server.testApp.dataSource,
+        'Invented Upper Millbrook Valley Heritage Grain Growers Circle',
+      );
+      const coordinator = await signIn(server.testApp.app, net.emails.coordinator);
+      const invitee = `join-${width}-${net.suffix}@test.example`;
+      const sent = await coordinator.post(`/api/networks/${net.networkId}/invitations`, {
+        email: invitee,
+        role: 'grower',
+      });
+      expect(sent.status).toBe(201);
+      const mail = await server.testApp.mailCatcher.waitFor((m) => m.to.includes(invitee));
+      const link = /https?:\/\/\S+\/invite\/[\w-]+/.exec(mail.text)?.[0];
+      expect(link).toBeTruthy();
+      const { page, close } = await openPage(browser, width);
+      await page.goto(`${server.baseUrl}${new URL(link!).pathname}`);
+      const join = page.getByRole('button', { name: /Join/ });
+      await join.waitFor();
+      const fits = await join.evaluate((b) => b.scrollWidth <= b.clientWidth + 1);
+      expect(fits).toBe(true);
+      expect(await pageWidth(page)).toBeLessThanOrEqual(width);
+      await screenshot(page, `house-invitation-${width}`);
+      await close();
+    });
+
+    it(`shows the same seed grams on the packet map and the weighing table, and a layout code at ${width} px`, async () => {
+      const { page, close } = await openPage(browser, width);
+      await signInThroughUi(page, server.baseUrl, COORDINATOR);
+      await page.goto(`${server.baseUrl}/sites/${ids.sites[0]!.id}/packet`);
+      await page.getByRole('heading', { name: '1. Strip map' }).waitFor();
+      const mapGrams = await page.$$eval('.strip-map svg g[data-rate] text', (nodes) =>
+        nodes.map((n) => n.textContent ?? '').filter((t) => t.endsWith(' g')),
+      );
+      const tableGrams = await page.$$eval('#seed tbody tr td:nth-child(5)', (cells) =>
+        cells.map((c) => c.textContent ?? ''),
+      );
+      expect(mapGrams.length).toBeGreaterThan(0);
+      expect(mapGrams).toEqual(tableGrams);
+      await page.getByText(/Layout code/).waitFor();
+      expect(await page.getByText(/Seed “/).count()).toBe(0);
+      await screenshot(page, `house-packet-${width}`);
+      await close();
+    });
+
+    it(`shows prices with cents and counts without "(s)" on the trial page at ${width} px`, async () => {
+      const { page, close } = await openPage(browser, width);
+      await signInThroughUi(page, server.baseUrl, COORDINATOR);
+      await page.goto(`${server.baseUrl}/trials/${ids.oatTrialId}`);
+      const prices = page.getByText(/^seed \$/);
+      await prices.waitFor();
+      expect(await prices.textContent()).toMatch(/^seed \$\d+\.\d\d\/lb, grain \$\d+\.\d\d\/bu$/);
+      expect(await page.getByText(/\(s\)/).count()).toBe(0);
+      expect(await pageWidth(page)).toBeLessThanOrEqual(width);
+      await close();
+    });
+
+    it(`draws the heat map the way round the packet map is and fits the charts to ${width} px`, async () => {
+      const { page, close } = await openPage(browser, width);
+      await signInThroughUi(page, server.baseUrl, COORDINATOR);
+      await page.goto(`${server.baseUrl}/sites/${ids.sites[0]!.id}/report`);
+      await waitForCharts(page, 3);
+      // Blocks run down the heat map, as on the packet map: its axis lists block 1's strips first.
+      const labels = await page.$$eval('[data-chart="strip-map"] svg text', (nodes) =>
+        nodes.map((n) => n.textContent ?? '').filter((t) => /^Block \d+ · strip \d+$/.test(t)),
+      );
+      expect(labels[0]).toBe('Block 1 · strip 1');
+      expect(labels.indexOf('Block 2 · strip 1')).toBeGreaterThan(
+        labels.indexOf('Block 1 · strip 1'),
+      );
+      const widths = await page.$$eval('[data-chart] svg', (svgs) =>
+        svgs.map((svg) => svg.getBoundingClientRect().right),
+      );
+      for (const right of widths) expect(right).toBeLessThanOrEqual(width);
+      expect(await pageWidth(page)).toBeLessThanOrEqual(width);
+      await screenshot(page, `house-site-report-${width}`);
+      await close();
+    });
+  }
+
+  it('grows the component chart with a wider window', async () => {
+    const { page, close } = await openPage(browser, 900);
+    await signInThroughUi(page, server.baseUrl, COORDINATOR);
+    await page.goto(`${server.baseUrl}/sites/${ids.sites[0]!.id}/report`);
+    await waitForCharts(page, 3);
+    const measure = () =>
+      page.$eval('[data-chart="yield-components"] svg', (svg) => svg.getBoundingClientRect().width);
+    const narrow = await measure();
+    await page.setViewportSize({ width: 1600, height: 900 });
+    await page.waitForFunction(
+      (before) =>
+        (document.querySelector('[data-chart="yield-components"] svg')?.getBoundingClientRect()
+          .width ?? 0) >
+        before + 100,
+      narrow,
+      { timeout: 10_000 },
+    );
+    expect(await measure()).toBeGreaterThan(narrow + 100);
+    await close();
+  });
+
+  /** Prints the page to PDF and returns its page count and text (poppler's pdfinfo/pdftotext). */
+  async function printToPdf(page: Page, name: string, format: 'Letter' | 'A4') {
+    fs.mkdirSync(ARTIFACTS, { recursive: true });
+    const file = path.join(ARTIFACTS, `${name}-${format}.pdf`);
+    await page.emulateMedia({ media: 'print' });
+    await page.pdf({ path: file, format, printBackground: true });
+    const info = execFileSync('pdfinfo', [file], { encoding: 'utf8' });
+    const pages = Number(/Pages:\s+(\d+)/.exec(info)?.[1]);
+    const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+    return { pages, text };
+  }
+
+  for (const format of ['Letter', 'A4'] as const) {
+    it(`prints the site report on ${format} with every column, no buttons and a page per section`, async () => {
+      const { page, close } = await openPage(browser, 1280);
+      await signInThroughUi(page, server.baseUrl, COORDINATOR);
+      await page.goto(`${server.baseUrl}/sites/${ids.sites[0]!.id}/report`);
+      await waitForCharts(page, 3);
+      const { pages, text } = await printToPdf(page, 'house-site-report', format);
+      // The widest table's last column ("Return over seed (…)") is on paper, not cut off.
+      expect(text).toContain('Return over seed');
+      expect(text).not.toMatch(/\bPrint\b|Unpublish|Publish the/);
+      // Header and facts, charts, numbers, checks or notes: each section starts a page.
+      const sections = await page.locator('.report-section').count();
+      expect(pages).toBeGreaterThanOrEqual(sections);
+      expect(pages).toBeLessThanOrEqual(sections + 4);
+      await close();
+    });
+
+    it(`prints the pooled report on ${format} with every column, no buttons and a page per section`, async () => {
+      const { page, close } = await openPage(browser, 1280);
+      await signInThroughUi(page, server.baseUrl, COORDINATOR);
+      await page.goto(`${server.baseUrl}/trials/${ids.oatTrialId}/report`);
+      await waitForCharts(page, 3);
+      const { pages, text } = await printToPdf(page, 'house-pooled-report', format);
+      // The economics table's last column names the reference rate.
+      expect(text).toMatch(/Versus \w+/);
+      expect(text).not.toMatch(/Recalculate|Turn the link|Meeting view/);
+      const sections = await page.locator('.report-section').count();
+      expect(pages).toBeGreaterThanOrEqual(sections);
+      expect(pages).toBeLessThanOrEqual(sections + 4);
+      await close();
+    });
+  }
+});
