@@ -9,10 +9,14 @@ import type { AppConfig } from './config/env';
 import { createAdminRouter, servesCaughtMail } from './admin/admin.router';
 import { createAuthRouter } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
+import { createSignUpRouter } from './auth/sign-up.router';
 import { createCalcRouter } from './calc/calc.router';
 import { createHealthRouter } from './health/health.router';
 import { createImportsRouter } from './imports/imports.router';
+import { createHistoryRouter } from './audit/history.router';
+import { createNetworksRouter } from './networks/networks.router';
 import { createPeopleRouter } from './people/people.router';
+import { createSiteChangesRouter } from './people/site-changes.router';
 import { createPhotosRouter } from './photos/photos.router';
 import { createProgressRouter } from './progress/progress.router';
 import { createSiteDataRouter } from './site-data/site-data.router';
@@ -57,8 +61,13 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createImportsRouter,
   createPhotosRouter,
   createProgressRouter,
+  // Before site data: it answers PATCH /sites/:siteId for hand-over, lost and naming and passes
+  // dates and notes on.
+  createSiteChangesRouter,
   createSiteDataRouter,
   createPeopleRouter,
+  createNetworksRouter,
+  createHistoryRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {
@@ -157,6 +166,7 @@ export function createApp(deps: AppDeps): Express {
       csrf,
     }),
   );
+  app.use('/api/auth', createSignUpRouter(ctx));
   app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_LOGIN * 5 }));
   app.use('/api', createHomeRouter(ctx));
   app.use(

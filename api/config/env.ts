@@ -22,6 +22,8 @@ const EnvSchema = z.object({
   /** A client must send all its headers within this time, and the whole request within the next. */
   HEADERS_TIMEOUT_MS: z.coerce.number().int().min(100).default(10_000),
   REQUEST_TIMEOUT_MS: z.coerce.number().int().min(100).default(30_000),
+  /** "open": anyone may sign up and start a network; "invite-only": people join by invitation. */
+  SIGNUP: z.enum(['open', 'invite-only']).default('open'),
 });
 
 export type AppConfig = z.infer<typeof EnvSchema>;

@@ -46,17 +46,28 @@ function toSiteSummary(
 
 export function createHomeService(dataSource: DataSource) {
   /** How many sites each trial has. */
-  async function siteCounts(trialIds: string[]): Promise<Map<string, number>> {
+  async function siteCounts(
+    trialIds: string[],
+  ): Promise<Map<string, { sites: number; harvested: number }>> {
     if (trialIds.length === 0) return new Map();
-    const rows: { trialId: string; sites: string }[] = await dataSource
+    const rows: { trialId: string; sites: string; harvested: string }[] = await dataSource
       .getRepository(Site)
       .createQueryBuilder('site')
       .select('site.trialId', 'trialId')
       .addSelect('COUNT(*)', 'sites')
+      // A site's harvest is in when a strip has a grain weight or the site is marked lost.
+      .addSelect(
+        `COUNT(*) FILTER (WHERE site.lost_reason IS NOT NULL OR EXISTS (
+           SELECT 1 FROM strips st JOIN observations o ON o.strip_id = st.id
+            WHERE st.site_id = site.id AND o.grain_weight IS NOT NULL))`,
+        'harvested',
+      )
       .where('site.trialId IN (:...trialIds)', { trialIds })
       .groupBy('site.trialId')
       .getRawMany();
-    return new Map(rows.map((r) => [r.trialId, Number(r.sites)]));
+    return new Map(
+      rows.map((r) => [r.trialId, { sites: Number(r.sites), harvested: Number(r.harvested) }]),
+    );
   }
 
   /** How many strips each site has, and how many of them have a grain weight. */
@@ -110,7 +121,14 @@ export function createHomeService(dataSource: DataSource) {
       .addOrderBy('trial.createdAt', 'DESC')
       .getMany();
     const counts = await siteCounts(trials.map((t) => t.id));
-    return trials.map((trial) => toTrialSummary(trial, counts.get(trial.id) ?? 0));
+    return trials.map((trial) => {
+      const count = counts.get(trial.id) ?? { sites: 0, harvested: 0 };
+      const summary = toTrialSummary(trial, count.sites);
+      // "harvest-in" follows from the data: every site has a yield or is marked lost.
+      if (trial.status === 'in-field' && count.sites > 0 && count.harvested === count.sites)
+        summary.status = 'harvest-in';
+      return summary;
+    });
   }
 
   async function listMySites(userId: string): Promise<SiteSummary[]> {

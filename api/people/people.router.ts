@@ -1,4 +1,5 @@
-// People routes: a coordinator's view of the network's members and open invitations.
+// People routes: a coordinator's view of the network's members and open invitations; change a
+// role, remove a person, revoke an invitation.
 import { Router } from 'express';
 import { IdSchema } from '../../shared/schemas/common';
 import { MemberRoleUpdateSchema } from '../../shared/schemas/people';
@@ -34,6 +35,17 @@ export function createPeopleRouter(ctx: RouterContext) {
       res.json(
         await people.changeRole({ networkId, userId, role, actorUserId: req.user!.id, actorRole }),
       );
+    },
+  );
+
+  routes.delete(
+    '/networks/:networkId/members/:userId',
+    ctx.policies.networkCoordinator(),
+    async (req, res) => {
+      const networkId = String(req.params.networkId);
+      const userId = idParam(req.params.userId, 'Person');
+      const actorRole = req.access!.roles.get(networkId)!;
+      res.json(await people.remove({ networkId, userId, actorUserId: req.user!.id, actorRole }));
     },
   );
 

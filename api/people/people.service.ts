@@ -1,13 +1,18 @@
-// People of a network: list members and open invitations, change a member's role, revoke an
-// invitation. Coordinators move people between grower and member; only an admin grants or
-// removes coordinator and admin, and the network always keeps at least one admin.
-import type { DataSource } from 'typeorm';
+// People of a network: list members and invitations not yet accepted, change a member's role,
+// remove a person, revoke an invitation. Coordinators move people between grower and member;
+// only an admin grants or removes coordinator and admin, and the network always keeps an admin.
+import { In, IsNull, MoreThan, type DataSource, type EntityManager } from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
 import {
   grantableRoles,
   type NetworkMember,
   type NetworkPeople,
 } from '../../shared/schemas/people';
+import { Invitation } from '../../db/entities/invitation.entity';
+import { Membership } from '../../db/entities/membership.entity';
+import { Site } from '../../db/entities/site.entity';
+import { Trial } from '../../db/entities/trial.entity';
+import { User } from '../../db/entities/user.entity';
 import { recordAudit } from '../audit/audit.service';
 import { Conflict, Forbidden, NotFound } from '../errors';
 
@@ -18,13 +23,6 @@ interface MemberRow {
   role: Role;
   site_count: number;
 }
-
-const MEMBER_SELECT = `
-  SELECT u.id AS user_id, u.name, u.email, m.role,
-         (SELECT count(*)::int FROM sites s JOIN trials t ON t.id = s.trial_id
-           WHERE t.network_id = m.network_id AND s.grower_user_id = u.id) AS site_count
-    FROM memberships m JOIN users u ON u.id = m.user_id
-   WHERE m.network_id = $1`;
 
 function presentMember(row: MemberRow): NetworkMember {
   return {
@@ -37,33 +35,57 @@ function presentMember(row: MemberRow): NetworkMember {
 }
 
 export function createPeopleService(dataSource: DataSource) {
+  function members(db: EntityManager, networkId: string) {
+    return db
+      .getRepository(Membership)
+      .createQueryBuilder('m')
+      .innerJoin(User, 'u', 'u.id = m.user_id')
+      .select('u.id', 'user_id')
+      .addSelect('u.name', 'name')
+      .addSelect('u.email', 'email')
+      .addSelect('m.role', 'role')
+      .addSelect(
+        (sub) =>
+          sub
+            .select('count(*)::int')
+            .from(Site, 's')
+            .innerJoin(Trial, 't', 't.id = s.trial_id')
+            .where('t.network_id = m.network_id AND s.grower_user_id = u.id'),
+        'site_count',
+      )
+      .where('m.network_id = :networkId', { networkId });
+  }
+
   async function list(networkId: string): Promise<NetworkPeople> {
-    const members: MemberRow[] = await dataSource.query(
-      `${MEMBER_SELECT} ORDER BY lower(u.name), u.email`,
-      [networkId],
-    );
-    const invitations: {
-      id: string;
-      email: string;
-      role: Role;
-      expires_at: Date;
-      created_at: Date;
-    }[] = await dataSource.query(
-      `SELECT id, email, role, expires_at, created_at FROM invitations
-        WHERE network_id = $1 AND accepted_at IS NULL AND expires_at > now()
-        ORDER BY created_at DESC`,
-      [networkId],
-    );
+    const db = dataSource.manager;
+    const [rows, invitations] = await Promise.all([
+      members(db, networkId).orderBy('lower(u.name)').addOrderBy('u.email').getRawMany<MemberRow>(),
+      db.getRepository(Invitation).find({
+        where: { networkId, acceptedAt: IsNull(), expiresAt: MoreThan(new Date()) },
+        order: { createdAt: 'DESC' },
+      }),
+    ]);
     return {
-      members: members.map(presentMember),
+      members: rows.map(presentMember),
       invitations: invitations.map((i) => ({
         id: i.id,
         email: i.email,
         role: i.role,
-        expiresAt: new Date(i.expires_at).toISOString(),
-        createdAt: new Date(i.created_at).toISOString(),
+        expiresAt: new Date(i.expiresAt).toISOString(),
+        createdAt: new Date(i.createdAt).toISOString(),
       })),
     };
+  }
+
+  /** The network's memberships, locked so two admins changing each other cannot both succeed. */
+  function lockMemberships(manager: EntityManager, networkId: string) {
+    return manager
+      .getRepository(Membership)
+      .createQueryBuilder('m')
+      .setLock('pessimistic_write')
+      .where('m.network_id = :networkId', { networkId })
+      .orderBy('m.id')
+      .getMany();
   }
 
   async function changeRole(input: {
@@ -74,12 +96,8 @@ export function createPeopleService(dataSource: DataSource) {
     actorRole: Role;
   }): Promise<NetworkMember> {
     return dataSource.transaction(async (manager) => {
-      // Lock the network's memberships so two admins demoting each other cannot both succeed.
-      const rows: { id: string; user_id: string; role: Role }[] = await manager.query(
-        'SELECT id, user_id, role FROM memberships WHERE network_id = $1 ORDER BY id FOR UPDATE',
-        [input.networkId],
-      );
-      const target = rows.find((r) => r.user_id === input.userId);
+      const rows = await lockMemberships(manager, input.networkId);
+      const target = rows.find((r) => r.userId === input.userId);
       if (!target) throw new NotFound('Person');
       const allowed = grantableRoles(input.actorRole);
       if (!allowed.includes(target.role) || !allowed.includes(input.role)) {
@@ -91,10 +109,7 @@ export function createPeopleService(dataSource: DataSource) {
             role: target.role,
           });
         }
-        await manager.query('UPDATE memberships SET role = $1 WHERE id = $2', [
-          input.role,
-          target.id,
-        ]);
+        await manager.getRepository(Membership).update({ id: target.id }, { role: input.role });
         await recordAudit(manager, {
           actorUserId: input.actorUserId,
           entityType: 'membership',
@@ -104,11 +119,74 @@ export function createPeopleService(dataSource: DataSource) {
           after: { userId: input.userId, networkId: input.networkId, role: input.role },
         });
       }
-      const updated: MemberRow[] = await manager.query(`${MEMBER_SELECT} AND m.user_id = $2`, [
-        input.networkId,
-        input.userId,
-      ]);
-      return presentMember(updated[0]!);
+      const updated = await members(manager, input.networkId)
+        .andWhere('m.user_id = :userId', { userId: input.userId })
+        .getRawOne<MemberRow>();
+      return presentMember(updated!);
+    });
+  }
+
+  /**
+   * Takes a person out of the network. Access is checked against memberships on every request,
+   * so their sessions lose this network at once; the sites they grew are left without a grower
+   * until a coordinator hands them on.
+   */
+  async function remove(input: {
+    networkId: string;
+    userId: string;
+    actorUserId: string;
+    actorRole: Role;
+  }): Promise<{ sitesLeftWithoutGrower: number }> {
+    return dataSource.transaction(async (manager) => {
+      const rows = await lockMemberships(manager, input.networkId);
+      const target = rows.find((r) => r.userId === input.userId);
+      if (!target) throw new NotFound('Person');
+      if (!grantableRoles(input.actorRole).includes(target.role)) {
+        throw new Forbidden('Only an admin can remove a coordinator or an admin');
+      }
+      if (target.role === 'admin' && rows.filter((r) => r.role === 'admin').length === 1) {
+        throw new Conflict('This is the network’s last admin; make someone else an admin first', {
+          role: target.role,
+        });
+      }
+      const trialIds = (
+        await manager.getRepository(Trial).find({
+          select: { id: true },
+          where: { networkId: input.networkId },
+        })
+      ).map((t) => t.id);
+      const sites = trialIds.length
+        ? await manager.getRepository(Site).find({
+            select: { id: true, fieldName: true, trialId: true },
+            where: { trialId: In(trialIds), growerUserId: input.userId },
+          })
+        : [];
+      if (sites.length > 0) {
+        await manager
+          .getRepository(Site)
+          .update({ id: In(sites.map((s) => s.id)) }, { growerUserId: null, growerEmail: null });
+      }
+      await manager.getRepository(Membership).delete({ id: target.id });
+      await recordAudit(manager, {
+        actorUserId: input.actorUserId,
+        entityType: 'membership',
+        entityId: target.id,
+        action: 'removed',
+        before: { userId: input.userId, networkId: input.networkId, role: target.role },
+        after: { sitesLeftWithoutGrower: sites.map((s) => s.id) },
+      });
+      for (const site of sites) {
+        await recordAudit(manager, {
+          actorUserId: input.actorUserId,
+          entityType: 'site',
+          entityId: site.id,
+          siteId: site.id,
+          action: 'grower_removed',
+          before: { growerUserId: input.userId },
+          after: { growerUserId: null },
+        });
+      }
+      return { sitesLeftWithoutGrower: sites.length };
     });
   }
 
@@ -118,17 +196,18 @@ export function createPeopleService(dataSource: DataSource) {
     actorUserId: string;
   }): Promise<void> {
     await dataSource.transaction(async (manager) => {
-      const rows: { id: string; email: string; role: Role }[] = await manager.query(
-        // WITH … SELECT: TypeORM answers a bare UPDATE … RETURNING with [rows, count].
-        `WITH revoked AS (
-           UPDATE invitations SET expires_at = now()
-            WHERE id = $1 AND network_id = $2 AND accepted_at IS NULL AND expires_at > now()
-            RETURNING id, email, role)
-         SELECT id, email, role FROM revoked`,
-        [input.invitationId, input.networkId],
-      );
-      const row = rows[0];
+      const repo = manager.getRepository(Invitation);
+      const row = await repo
+        .createQueryBuilder('i')
+        .setLock('pessimistic_write')
+        .where('i.id = :id AND i.network_id = :networkId', {
+          id: input.invitationId,
+          networkId: input.networkId,
+        })
+        .andWhere('i.accepted_at IS NULL AND i.expires_at > now()')
+        .getOne();
       if (!row) throw new NotFound('Invitation');
+      await repo.update({ id: row.id }, { expiresAt: () => 'now()' });
       await recordAudit(manager, {
         actorUserId: input.actorUserId,
         entityType: 'invitation',
@@ -139,5 +218,5 @@ export function createPeopleService(dataSource: DataSource) {
     });
   }
 
-  return { list, changeRole, revokeInvitation };
+  return { list, changeRole, remove, revokeInvitation };
 }

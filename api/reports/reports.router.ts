@@ -8,6 +8,7 @@ import { sendTagged } from '../lib/send-tagged';
 import type { RouterContext } from '../lib/router-context';
 import { pooledReportPdf, siteReportPdf } from './reports.pdf';
 import { createReportsService } from './reports.service';
+import { createReportPrivacy } from '../lib/report-privacy';
 
 const param = (req: Request, name: string) => String(req.params[name]);
 const fileName = (text: string) =>
@@ -25,13 +26,25 @@ export function createReportsRouter(ctx: RouterContext) {
     mailer: ctx.mailer,
     publicUrl: ctx.config.PUBLIC_URL,
   });
+  // Growers' privacy applies to every report body this router sends (see report-privacy.ts).
+  const privacy = createReportPrivacy(ctx.dataSource);
 
   routes.get('/sites/:siteId/report', policies.siteReader(), async (req, res) => {
-    sendTagged(req, res, await reports.siteReport(param(req, 'siteId'), req.access ?? null));
+    sendTagged(
+      req,
+      res,
+      await privacy.tagged(
+        await reports.siteReport(param(req, 'siteId'), req.access ?? null),
+        req.access,
+      ),
+    );
   });
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
-    const { report } = await reports.siteReport(param(req, 'siteId'), req.access ?? null);
+    const { report } = await privacy.tagged(
+      await reports.siteReport(param(req, 'siteId'), req.access ?? null),
+      req.access,
+    );
     const pdf = await siteReportPdf(report, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
     res.set(
@@ -56,13 +69,19 @@ export function createReportsRouter(ctx: RouterContext) {
     sendTagged(
       req,
       res,
-      await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
+      await privacy.tagged(
+        await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
+        req.access,
+      ),
     );
   });
 
   routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    const { report } = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
+    const { report } = await privacy.tagged(
+      await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
+      req.access,
+    );
     const pdf = await pooledReportPdf(report, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
     res.set(
@@ -96,7 +115,9 @@ export function createReportsRouter(ctx: RouterContext) {
     if (!token.success) throw new NotFound('Report');
     res.set('Cache-Control', 'no-store');
     res.set('X-Robots-Tag', 'noindex');
-    res.json((await reports.publicReport(token.data, query)).report);
+    res.json(
+      await privacy.pooledReport((await reports.publicReport(token.data, query)).report, null),
+    );
   });
 
   routes.get('/trials/:trialId/export.csv', policies.trialCoordinator(), async (req, res) => {

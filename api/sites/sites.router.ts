@@ -5,11 +5,13 @@ import { secureRouter } from '../lib/route-table';
 import type { RouterContext } from '../lib/router-context';
 import { createPacketsService } from '../packets/packets.service';
 import { createSitesService } from './sites.service';
+import { createReportPrivacy } from '../lib/report-privacy';
 
 export function createSitesRouter(ctx: RouterContext) {
   const router = Router();
   const routes = secureRouter(router, ctx.table, '/api');
   const sites = createSitesService({ dataSource: ctx.dataSource });
+  const privacy = createReportPrivacy(ctx.dataSource);
   const packets = createPacketsService({
     dataSource: ctx.dataSource,
     mailer: ctx.mailer,
@@ -17,7 +19,8 @@ export function createSitesRouter(ctx: RouterContext) {
   });
 
   routes.get('/sites/:siteId', ctx.policies.siteReader(), async (req, res) => {
-    res.json(await sites.get(String(req.params.siteId), req.user!.id));
+    const detail = await sites.get(String(req.params.siteId), req.user!.id);
+    res.json(await privacy.siteDetail(detail, req.access));
   });
 
   routes.post('/sites/:siteId/randomize', ctx.policies.siteCoordinator(), async (req, res) => {

@@ -17,6 +17,7 @@ import { plotNumber } from '../../shared/units/plot-number';
 import { CROPS, type CropKey } from '../../shared/units/crops';
 import { recordAudit } from '../audit/audit.service';
 import { Conflict, Locked, NotFound } from '../errors';
+import { farmLabel } from '../lib/site-names';
 import { findSiteWithDesign, loadSiteStrips, type StripRecord } from '../lib/strip-data';
 import { growsSite, isCoordinating } from '../middleware/access';
 
@@ -126,6 +127,10 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       viewerRole: role,
       isGrower: growsSite(role, site.growerUserId, userId),
       canCoordinate: isCoordinating(role),
+      namedInReports: site.namedInReports,
+      reportLabel: farmLabel(site.reportNumber),
+      lostReason: site.lostReason,
+      packetReissuedAt: iso(site.packetReissuedAt),
       createdAt: site.createdAt.toISOString(),
       updatedAt: site.updatedAt.toISOString(),
     };
@@ -157,9 +162,9 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       const trial = await manager
         .getRepository(Trial)
         .findOne({ where: { id: site.trialId }, relations: { rateLevels: true } });
-      if (!trial || trial.status !== 'active') {
+      if (!trial || trial.status !== 'in-field') {
         throw new Conflict(
-          'Finish the trial design first: strips are randomized once the trial is active',
+          'Finish the trial design first: strips are randomized once the trial is in the field',
         );
       }
       const levels = [...(trial.rateLevels ?? [])].sort((a, b) => a.position - b.position);

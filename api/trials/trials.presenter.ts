@@ -2,6 +2,7 @@
 import type { Trial as TrialDto, TrialSiteRow } from '../../shared/schemas/trial';
 import type { RateLevelRow } from '../../db/entities/rate-level.entity';
 import type { Trial } from '../../db/entities/trial.entity';
+import { farmLabel } from '../lib/site-names';
 
 function present<T>(value: T | null): T | undefined {
   return value === null ? undefined : value;
@@ -64,6 +65,11 @@ export interface SiteRowQuery {
   sowing_recorded: boolean;
   strip_count: string;
   published_at: Date | null;
+  named_in_reports: boolean;
+  report_number: number;
+  lost_reason: string | null;
+  packet_reissued_at: Date | null;
+  has_yield: boolean;
 }
 
 export function presentSiteRow(r: SiteRowQuery): TrialSiteRow {
@@ -74,6 +80,11 @@ export function presentSiteRow(r: SiteRowQuery): TrialSiteRow {
     growerName: r.grower_name,
     growerEmail: r.grower_email,
     invitationPending: r.pending,
+    namedInReports: r.named_in_reports,
+    reportLabel: farmLabel(r.report_number),
+    hasYield: r.has_yield,
+    lostReason: r.lost_reason,
+    packetReissuedAt: r.packet_reissued_at ? new Date(r.packet_reissued_at).toISOString() : null,
     randomized: r.randomized_at !== null,
     randomizedAt: r.randomized_at ? new Date(r.randomized_at).toISOString() : null,
     sowingDate: r.sowing_date,

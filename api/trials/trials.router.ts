@@ -1,4 +1,5 @@
-// Trial routes: create (POST /api/trials), read and change a trial, enrol a site, send packets.
+// Trial routes: create (POST /api/trials), read, change and delete a trial, its design
+// amendments, enrol a site, send packets.
 import { Router } from 'express';
 import { CreateSiteInputSchema } from '../../shared/schemas/site';
 import { CreateTrialInputSchema, UpdateTrialInputSchema } from '../../shared/schemas/trial';
@@ -7,12 +8,19 @@ import type { RouterContext } from '../lib/router-context';
 import { createPacketsService } from '../packets/packets.service';
 import { createSitesService } from '../sites/sites.service';
 import { createTrialsService } from './trials.service';
+import { createTrialArchiveService } from './trial-archive.service';
 
 export function createTrialsRouter(ctx: RouterContext) {
   const router = Router();
   const routes = secureRouter(router, ctx.table, '/api');
-  const trials = createTrialsService({ dataSource: ctx.dataSource, invitations: ctx.invitations });
+  const trials = createTrialsService({
+    dataSource: ctx.dataSource,
+    invitations: ctx.invitations,
+    mailer: ctx.mailer,
+    publicUrl: ctx.config.PUBLIC_URL,
+  });
   const sites = createSitesService({ dataSource: ctx.dataSource });
+  const archives = createTrialArchiveService(ctx.dataSource);
   const packets = createPacketsService({
     dataSource: ctx.dataSource,
     mailer: ctx.mailer,
@@ -32,6 +40,23 @@ export function createTrialsRouter(ctx: RouterContext) {
   routes.patch('/trials/:trialId', ctx.policies.trialCoordinator(), async (req, res) => {
     const input = UpdateTrialInputSchema.parse(req.body);
     res.json(await trials.update(String(req.params.trialId), req.user!.id, input));
+  });
+
+  routes.delete('/trials/:trialId', ctx.policies.trialCoordinator(), async (req, res) => {
+    await trials.remove(String(req.params.trialId), req.user!.id);
+    res.status(204).end();
+  });
+
+  routes.get('/trials/:trialId/amendments', ctx.policies.trialReader(), async (req, res) => {
+    res.json(await trials.amendments(String(req.params.trialId)));
+  });
+
+  routes.get('/trials/:trialId/archive.zip', ctx.policies.trialCoordinator(), async (req, res) => {
+    const { fileName, zip } = await archives.build(String(req.params.trialId));
+    res.set('Content-Type', 'application/zip');
+    res.set('Content-Disposition', `attachment; filename="${fileName}"`);
+    res.set('Cache-Control', 'no-store');
+    res.send(zip);
   });
 
   routes.get('/trials/:trialId/people', ctx.policies.trialCoordinator(), async (req, res) => {

@@ -6,6 +6,7 @@ import { Membership } from './membership.entity';
 import { Network } from './network.entity';
 import { Observation } from './observation.entity';
 import { PasswordResetToken } from './password-reset-token.entity';
+import { PendingSignUp } from './pending-sign-up.entity';
 import { RateLevelRow } from './rate-level.entity';
 import { RateLimitHit } from './rate-limit-hit.entity';
 import { ReportSnapshot } from './report-snapshot.entity';
@@ -31,6 +32,7 @@ export const ENTITIES = [
   Attachment,
   Invitation,
   PasswordResetToken,
+  PendingSignUp,
   AuditEvent,
   ReportSnapshot,
   SignInFailure,

@@ -92,6 +92,22 @@ export class Site {
   @Column({ name: 'published_at', type: 'timestamptz', nullable: true })
   publishedAt!: Date | null;
 
+  /** The grower lets network reports show the farm's field name; otherwise a neutral label. */
+  @Column({ name: 'named_in_reports', type: 'boolean', default: false })
+  namedInReports!: boolean;
+
+  /** Order of enrolment in the trial (set by a trigger): "Farm C" is number 3. */
+  @Column({ name: 'report_number', type: 'integer' })
+  reportNumber!: number;
+
+  /** Why the site produced no harvest (hail, flood…); set by a coordinator. */
+  @Column({ name: 'lost_reason', type: 'text', nullable: true })
+  lostReason!: string | null;
+
+  /** Set when a design amendment changed this site's seed weights after its packet went out. */
+  @Column({ name: 'packet_reissued_at', type: 'timestamptz', nullable: true })
+  packetReissuedAt!: Date | null;
+
   /** Bumped on every change to the site's strip data; report snapshots record it. */
   @Column({ name: 'data_version', type: 'integer', default: 0 })
   dataVersion!: number;

@@ -130,6 +130,9 @@ export class Trial {
   })
   grainPricePerBu!: number | null;
 
+  @Column({ name: 'closed_at', type: 'timestamptz', nullable: true })
+  closedAt!: Date | null;
+
   @Column({ name: 'public_link_token', type: 'text', nullable: true, unique: true })
   publicLinkToken!: string | null;
 

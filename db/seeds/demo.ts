@@ -129,7 +129,7 @@ async function seedOatTrial(
     name: 'Hulless oat seeding rate 2027',
     question:
       'Does half the usual hulless-oat seeding rate yield as well as the full rate on our farms?',
-    status: 'active',
+    status: 'in-field',
     crop: 'hullessOats',
     season: '2027',
     unitSystem: 'imperial',

@@ -17,7 +17,7 @@ async function main() {
     const [trial] = await m.query(
       `INSERT INTO trials (network_id, name, status, crop, season, reference_rate, reference_unit, blocks_per_site, rows_per_strip,
          row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g, germination_pct, emergence_pct, seed_price_per_lb, grain_price_per_bu)
-       VALUES ($1, 'Invented 200-site benchmark trial', 'active', 'wheat', '2028', 100, 'lb/acre', 6, 4, 8, 50, 1, 38, 92, 85, 0.5, 8)
+       VALUES ($1, 'Invented 200-site benchmark trial', 'in-field', 'wheat', '2028', 100, 'lb/acre', 6, 4, 8, 50, 1, 38, 92, 85, 0.5, 8)
        RETURNING id`,
       [network.id],
     );
@@ -59,7 +59,7 @@ async function main() {
     const [bigTrial] = await m.query(
       `INSERT INTO trials (network_id, name, status, crop, season, reference_rate, reference_unit, blocks_per_site, rows_per_strip,
          row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g, germination_pct, emergence_pct)
-       VALUES ($1, 'Invented import benchmark trial', 'active', 'oats', '2028', 90, 'lb/acre', 12, 4, 8, 50, 1, 32, 90, 85) RETURNING id`,
+       VALUES ($1, 'Invented import benchmark trial', 'in-field', 'oats', '2028', 90, 'lb/acre', 12, 4, 8, 50, 1, 32, 90, 85) RETURNING id`,
       [network.id],
     );
     await m.query(

@@ -14,6 +14,7 @@ export const ERROR_CODES = [
   'not_found',
   'conflict',
   'locked',
+  'design_locked',
   'invalid_rows',
   'payload_too_large',
   'unsupported_media_type',

@@ -94,7 +94,7 @@ export type CalibrationRecordDto = z.infer<typeof CalibrationRecordSchema>;
 export const SiteTrialContextSchema = z.object({
   id: z.uuid(),
   name: z.string(),
-  status: z.enum(['draft', 'active', 'closed']),
+  status: z.enum(['draft', 'in-field', 'harvest-in', 'closed']),
   crop: z.string().nullable(),
   cropName: z.string().nullable(),
   season: z.string().nullable(),
@@ -147,6 +147,13 @@ export const SiteDetailSchema = z.object({
   viewerRole: z.enum(['admin', 'coordinator', 'grower', 'member']),
   /** The reader is this site's grower. */
   isGrower: z.boolean(),
+  /** The grower lets network reports name the farm; otherwise it shows as `reportLabel`. */
+  namedInReports: z.boolean(),
+  reportLabel: z.string(),
+  /** Why the site gave no harvest, when a coordinator marked it lost. */
+  lostReason: z.string().nullable(),
+  /** When a design amendment changed this site's seed weights after its packet went out. */
+  packetReissuedAt: z.string().nullable(),
   canCoordinate: z.boolean(),
   createdAt: z.string(),
   updatedAt: z.string(),

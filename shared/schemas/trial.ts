@@ -21,7 +21,7 @@ export const UNIT_SYSTEMS = ['imperial', 'metric'] as const;
 export const UnitSystemSchema = z.enum(UNIT_SYSTEMS);
 export type UnitSystem = z.infer<typeof UnitSystemSchema>;
 
-export const TRIAL_STATUSES = ['draft', 'active', 'closed'] as const;
+export const TRIAL_STATUSES = ['draft', 'in-field', 'harvest-in', 'closed'] as const;
 export const TrialStatusSchema = z.enum(TRIAL_STATUSES);
 export type TrialStatus = z.infer<typeof TrialStatusSchema>;
 
@@ -115,10 +115,35 @@ export const CreateTrialInputSchema = TrialDesignSchema.partial()
   });
 export type CreateTrialInput = z.infer<typeof CreateTrialInputSchema>;
 
+/**
+ * Design fields that change the seed weighed out for each strip: once any site is sown they
+ * change only through an amendment with a reason (`amendReason`).
+ */
+export const SEED_WEIGHT_FIELDS = [
+  'referenceRate',
+  'referenceUnit',
+  'thousandKernelWeightG',
+  'germinationPct',
+  'emergencePct',
+  'rowsPerStrip',
+  'rowSpacingIn',
+  'stripLengthFt',
+] as const;
+export type SeedWeightField = (typeof SEED_WEIGHT_FIELDS)[number];
+
 export const UpdateTrialInputSchema = z
   .object(designFields)
   .partial()
-  .extend({ status: TrialStatusSchema.optional() });
+  .extend({
+    status: TrialStatusSchema.optional(),
+    /** Why a locked design field changes after sowing; shown on reports and e-mailed to growers. */
+    amendReason: z
+      .string()
+      .trim()
+      .min(5, 'Say in a few words why the design changes')
+      .max(500, 'At most 500 characters')
+      .optional(),
+  });
 export type UpdateTrialInput = z.infer<typeof UpdateTrialInputSchema>;
 
 export const TrialSchema = z
@@ -160,6 +185,16 @@ export const TrialSiteRowSchema = z.object({
   growerEmail: z.string().nullable(),
   /** True while the grower has not accepted the invitation yet. */
   invitationPending: z.boolean(),
+  /** The grower lets network reports name the farm; otherwise it shows as "Farm C". */
+  namedInReports: z.boolean(),
+  /** The neutral label used in network reports when the farm is not named. */
+  reportLabel: z.string(),
+  /** At least one strip has a threshed grain weight. */
+  hasYield: z.boolean(),
+  /** Why the site gave no harvest, when a coordinator marked it lost. */
+  lostReason: z.string().nullable(),
+  /** When a design amendment changed this site's seed weights after its packet went out. */
+  packetReissuedAt: z.string().nullable(),
   randomized: z.boolean(),
   randomizedAt: z.string().nullable(),
   sowingDate: z.string().nullable(),
@@ -177,6 +212,14 @@ export const TrialDetailSchema = TrialSchema.extend({
   canEdit: z.boolean(),
   /** Rate levels and blocks are fixed once any site is randomized. */
   designLocked: z.boolean(),
+  /** Some site is sown: the seed-weight fields change only through an amendment. */
+  sowingStarted: z.boolean(),
+  lockedFields: z.array(z.string()),
+  /** Sites with a yield, sites marked lost, and all sites: "harvest in" when every site is one or the other. */
+  harvest: z.object({ sites: z.number(), withYield: z.number(), lost: z.number() }),
+  closedAt: z.string().nullable(),
+  /** Only a draft can be deleted. */
+  canDelete: z.boolean(),
 });
 export type TrialDetail = z.infer<typeof TrialDetailSchema>;
 
@@ -188,3 +231,15 @@ export const NetworkPersonSchema = z.object({
   role: z.enum(['admin', 'coordinator', 'grower', 'member']),
 });
 export type NetworkPerson = z.infer<typeof NetworkPersonSchema>;
+
+/** One design amendment made after sowing: who, when, why and what changed. */
+export const DesignAmendmentSchema = z.object({
+  id: z.uuid(),
+  at: z.string(),
+  byName: z.string().nullable(),
+  reason: z.string(),
+  changes: z.array(z.object({ field: z.string(), from: z.unknown(), to: z.unknown() })),
+  /** Sites whose packets were marked re-issued. */
+  reissuedSites: z.number(),
+});
+export type DesignAmendment = z.infer<typeof DesignAmendmentSchema>;

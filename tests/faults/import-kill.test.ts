@@ -21,7 +21,7 @@ describe('SIGKILL during a CSV import', () => {
     const [trial] = await q(
       `INSERT INTO trials (network_id, name, status, crop, season, reference_rate, reference_unit, blocks_per_site, rows_per_strip,
          row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g, germination_pct, emergence_pct)
-       VALUES ($1, 'Kill test', 'active', 'oats', '2027', 90, 'lb/acre', 12, 4, 8, 50, 1, 32, 90, 85) RETURNING id`,
+       VALUES ($1, 'Kill test', 'in-field', 'oats', '2027', 90, 'lb/acre', 12, 4, 8, 50, 1, 32, 90, 85) RETURNING id`,
       [net.networkId],
     );
     await q(

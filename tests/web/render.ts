@@ -69,6 +69,11 @@ export function buildTrial(overrides: Partial<TrialDetail> = {}): TrialDetail {
     viewerRole: 'coordinator',
     canEdit: true,
     designLocked: false,
+    sowingStarted: false,
+    lockedFields: [],
+    harvest: { sites: 0, withYield: 0, lost: 0 },
+    closedAt: null,
+    canDelete: false,
     ...overrides,
   };
 }

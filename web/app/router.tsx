@@ -39,6 +39,8 @@ export const appRoutes: RouteObject[] = [
   { index: true, lazy: routeModule(() => import('./routes/app/home')) },
   { path: 'admin/mail', lazy: routeModule(() => import('./routes/admin/mail')) },
   { path: 'people', lazy: routeModule(() => import('./routes/people/people')) },
+  { path: 'networks/new', lazy: routeModule(() => import('./routes/networks/new-network')) },
+  { path: 'network', lazy: routeModule(() => import('./routes/networks/network-settings')) },
   { path: 'sites/:siteId', lazy: routeModule(() => import('./routes/sites/site')) },
   {
     path: 'sites/:siteId/strips/:stripId',
@@ -68,6 +70,11 @@ const authRoutes: RouteObject[] = [
   { path: 'reset', lazy: routeModule(() => import('./routes/auth/request-reset')) },
   { path: 'reset/:token', lazy: routeModule(() => import('./routes/auth/new-password')) },
   { path: 'invite/:token', lazy: routeModule(() => import('./routes/auth/accept-invitation')) },
+  { path: 'sign-up', lazy: routeModule(() => import('./routes/auth/sign-up')) },
+  {
+    path: 'sign-up/confirm/:token',
+    lazy: routeModule(() => import('./routes/auth/confirm-sign-up')),
+  },
 ];
 
 /** Pages anyone may read, signed in or not. */

@@ -10,7 +10,8 @@ export function cropName(crop: CropKey | string | null | undefined): string {
 
 const STATUS_NAMES: Record<TrialStatus, string> = {
   draft: 'Draft',
-  active: 'In the field',
+  'in-field': 'In the field',
+  'harvest-in': 'Harvest in',
   closed: 'Closed',
 };
 

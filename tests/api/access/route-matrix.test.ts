@@ -158,7 +158,7 @@ async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
   const [trial] = await q(
     `INSERT INTO trials (network_id, name, status, crop, season, reference_rate, reference_unit, blocks_per_site, rows_per_strip,
        row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g, germination_pct, emergence_pct, seed_price_per_lb, grain_price_per_bu)
-     VALUES ($1, 'Matrix trial', 'active', 'oats', '2027', 90, 'lb/acre', 2, 4, 8, 50, 1, 32, 90, 85, 0.5, 4) RETURNING id`,
+     VALUES ($1, 'Matrix trial', 'in-field', 'oats', '2027', 90, 'lb/acre', 2, 4, 8, 50, 1, 32, 90, 85, 0.5, 4) RETURNING id`,
     [net.networkId],
   );
   const levels: string[] = [];
@@ -197,13 +197,23 @@ async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
       net.userIds.coordinator,
     ],
   );
+  // A person of their own for :userId, so removing them (DELETE …/members/:userId) leaves the
+  // personas' memberships alone.
+  const [person] = await q(
+    `INSERT INTO users (email, name, password_hash) VALUES ($1, 'Matrix person', 'x') RETURNING id`,
+    [`matrix-person-${crypto.randomUUID()}@test.example`],
+  );
+  await q(`INSERT INTO memberships (user_id, network_id, role) VALUES ($1, $2, 'member')`, [
+    person.id,
+    net.networkId,
+  ]);
   return {
     networkId: net.networkId,
     trialId: trial.id,
     siteId: site.id,
     stripId,
     photoId: photo.id,
-    memberUserId: net.userIds.member,
+    memberUserId: person.id,
     invitationId: invitation.id,
   };
 }

@@ -54,7 +54,7 @@ describe('home: GET /api/trials and GET /api/sites/mine', () => {
         name: `Collect trial ${net.suffix}`,
         crop: 'oats',
         season: '2027',
-        status: 'active',
+        status: 'in-field',
         siteCount: 2,
       },
       {

@@ -31,7 +31,7 @@ describe('people of a network', () => {
     const [trial] = await t.dataSource.query(
       `INSERT INTO trials (network_id, name, status, crop, season, reference_rate, reference_unit, blocks_per_site, rows_per_strip,
          row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g, germination_pct, emergence_pct, seed_price_per_lb, grain_price_per_bu)
-       VALUES ($1, 'People trial', 'active', 'oats', '2027', 90, 'lb/acre', 2, 4, 8, 50, 1, 32, 90, 85, 0.5, 4) RETURNING id`,
+       VALUES ($1, 'People trial', 'in-field', 'oats', '2027', 90, 'lb/acre', 2, 4, 8, 50, 1, 32, 90, 85, 0.5, 4) RETURNING id`,
       [net.networkId],
     );
     for (const field of ['North', 'South']) {

@@ -98,7 +98,7 @@ export async function buildReportTrial(
     `INSERT INTO trials (network_id, name, question, status, crop, custom_crop, season, unit_system, reference_rate, reference_unit,
         blocks_per_site, rows_per_strip, row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g,
         germination_pct, emergence_pct, seed_price_per_lb, grain_price_per_bu, created_by)
-     VALUES ($1, $2, 'Can we sow less seed?', 'active', $3, $4, '2027', $5, $6, $7, 4, 4, $8, 50, 1, $9, 90, 85, $10, $11, $12)
+     VALUES ($1, $2, 'Can we sow less seed?', 'in-field', $3, $4, '2027', $5, $6, $7, 4, 4, $8, 50, 1, $9, 90, 85, $10, $11, $12)
      RETURNING id`,
     [
       network.networkId,

@@ -53,7 +53,7 @@ export async function buildCollectSite(
     `INSERT INTO trials (network_id, name, status, crop, season, unit_system, reference_rate, reference_unit, blocks_per_site,
        rows_per_strip, row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g, germination_pct, emergence_pct,
        seed_price_per_lb, grain_price_per_bu)
-     VALUES ($1, $2, 'active', $3, '2027', $4, 90, 'lb/acre', $5, 4, 8, 50, 1, 32, 90, 85, 0.5, 4) RETURNING id`,
+     VALUES ($1, $2, 'in-field', $3, '2027', $4, 90, 'lb/acre', $5, 4, 8, 50, 1, 32, 90, 85, 0.5, 4) RETURNING id`,
     [
       net.networkId,
       `Collect trial ${net.suffix}`,

@@ -1,4 +1,4 @@
-// Builders for trial-design API tests: a signed-in network, a complete design and an active
+// Builders for trial-design API tests: a signed-in network, a complete design and an in-field
 // trial with sites.
 import {
   buildNetwork,
@@ -71,7 +71,7 @@ export function completeDesign(overrides: Record<string, unknown> = {}) {
   };
 }
 
-/** Creates a trial with the full design and makes it active; returns its id. */
+/** Creates a trial with the full design and sends it to the field; returns its id. */
 export async function buildActiveTrial(
   coordinator: Client,
   networkId: string,
@@ -83,7 +83,9 @@ export async function buildActiveTrial(
   });
   if (created.status !== 201)
     throw new Error(`create trial: ${created.status} ${JSON.stringify(created.body)}`);
-  const activated = await coordinator.patch(`/api/trials/${created.body.id}`, { status: 'active' });
+  const activated = await coordinator.patch(`/api/trials/${created.body.id}`, {
+    status: 'in-field',
+  });
   if (activated.status !== 200)
     throw new Error(`activate trial: ${activated.status} ${JSON.stringify(activated.body)}`);
   return created.body.id as string;

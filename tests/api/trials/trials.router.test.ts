@@ -131,7 +131,7 @@ describe('trial design API', () => {
         name: 'Half done',
         crop: 'wheat',
       });
-      const res = await coordinator.patch(`/api/trials/${created.body.id}`, { status: 'active' });
+      const res = await coordinator.patch(`/api/trials/${created.body.id}`, { status: 'in-field' });
       expect(res.status).toBe(400);
       expect(res.body.error.code).toBe('validation_failed');
       expect(Object.keys(res.body.error.fields)).toEqual(
@@ -152,9 +152,9 @@ describe('trial design API', () => {
         networkId: net.networkId,
         ...completeDesign(),
       });
-      const res = await coordinator.patch(`/api/trials/${created.body.id}`, { status: 'active' });
+      const res = await coordinator.patch(`/api/trials/${created.body.id}`, { status: 'in-field' });
       expect(res.status).toBe(200);
-      expect(res.body.status).toBe('active');
+      expect(res.body.status).toBe('in-field');
     });
 
     it('answers 400 naming the field for a row spacing of 0', async () => {

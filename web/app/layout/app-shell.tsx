@@ -6,6 +6,8 @@ import { Wordmark } from '../../components/layout/wordmark';
 import { buttonClasses } from '../../components/ui/button';
 import { cn } from '../../lib/cn';
 import { isDemoUser } from '../../lib/session';
+import { NetworkSwitcher } from '../../features/networks/components/network-switcher';
+import { scopeToNetwork, useCurrentNetworkId } from '../../features/networks/lib/current-network';
 import { navItemsFor } from './nav-items';
 import { AccountDetails, UserMenu, useSignOut } from './user-menu';
 
@@ -28,14 +30,16 @@ function NavigationProgress() {
 
 function PhoneMenu({ user, onNavigate }: { user: SessionUser; onNavigate: () => void }) {
   const { signOut, busy } = useSignOut();
+  const scoped = scopeToNetwork(user, useCurrentNetworkId(user));
   return (
     <div
       id="phone-menu"
       className="border-t border-field-700 bg-surface px-4 pb-5 pt-3 shadow-raised md:hidden"
     >
+      <NetworkSwitcher user={user} className="mb-4 block" />
       <nav aria-label="Main" className="mb-4">
         <ul className="space-y-1">
-          {navItemsFor(user).map((item) => (
+          {navItemsFor(scoped).map((item) => (
             <li key={item.to}>
               <NavLink
                 to={item.to}
@@ -63,6 +67,8 @@ function PhoneMenu({ user, onNavigate }: { user: SessionUser; onNavigate: () => 
 
 function Header({ user }: { user: SessionUser | null }) {
   const [menuOpen, setMenuOpen] = useState(false);
+  const networkId = useCurrentNetworkId(user);
+  const scoped = user ? scopeToNetwork(user, networkId) : null;
   const location = useLocation();
   useEffect(() => setMenuOpen(false), [location.pathname]);
 
@@ -76,7 +82,7 @@ function Header({ user }: { user: SessionUser | null }) {
           <>
             <nav aria-label="Main" className="hidden flex-1 md:block">
               <ul className="flex items-center gap-1">
-                {navItemsFor(user).map((item) => (
+                {navItemsFor(scoped!).map((item) => (
                   <li key={item.to}>
                     <NavLink
                       to={item.to}
@@ -96,7 +102,8 @@ function Header({ user }: { user: SessionUser | null }) {
                 ))}
               </ul>
             </nav>
-            <div className="ml-auto hidden md:block">
+            <NetworkSwitcher user={user} className="ml-auto hidden md:block" />
+            <div className="hidden md:block">
               <UserMenu user={user} />
             </div>
             <button

@@ -26,6 +26,7 @@ export function navItemsFor(user: SessionUser): NavItem[] {
   } else {
     items.push({ to: '/', label: 'Reports', end: true });
   }
+  if (isAdmin(user)) items.push({ to: '/network', label: 'Network' });
   if (isAdmin(user)) items.push({ to: '/admin/mail', label: 'Caught e-mail' });
   return items;
 }

@@ -8,6 +8,8 @@ import { Button, ButtonLink } from '../../../components/ui/button';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
 import { meQueryOptions, useMe } from '../../../features/auth/api/get-me';
+import { GrowerReports } from './grower-reports';
+import { useScopedUser } from '../../../features/networks/lib/current-network';
 import { ReportList } from '../../../features/home/components/report-list';
 import { SiteCardList } from '../../../features/home/components/site-card-list';
 import { TrialCardList } from '../../../features/home/components/trial-card-list';
@@ -74,6 +76,12 @@ function QueryState<T>({
   return <LoadingBlock label={loadingLabel} />;
 }
 
+/** Only the trials of the network chosen in the header. */
+function inNetwork<T extends { networkId: string }>(user: SessionUser, items: readonly T[]): T[] {
+  const ids = new Set(user.memberships.map((m) => m.networkId));
+  return items.filter((item) => ids.has(item.networkId));
+}
+
 function CoordinatorHome({ user }: { user: SessionUser }) {
   const trials = useTrials();
   return (
@@ -85,7 +93,7 @@ function CoordinatorHome({ user }: { user: SessionUser }) {
         actions={<ButtonLink to="/trials/new">New trial</ButtonLink>}
       />
       <QueryState query={trials} loadingLabel="Loading trials…">
-        {(data) => <TrialCardList trials={data} />}
+        {(data) => <TrialCardList trials={inNetwork(user, data)} />}
       </QueryState>
     </>
   );
@@ -103,6 +111,7 @@ function GrowerHome({ user }: { user: SessionUser }) {
       <QueryState query={sites} loadingLabel="Loading your sites…">
         {(data) => <SiteCardList sites={data} />}
       </QueryState>
+      <GrowerReports networkIds={user.memberships.map((m) => m.networkId)} />
     </>
   );
 }
@@ -110,7 +119,7 @@ function GrowerHome({ user }: { user: SessionUser }) {
 function MemberHome({ user }: { user: SessionUser }) {
   const trials = useTrials();
   const details = useQueries({
-    queries: (trials.data ?? []).map((t) => trialQueryOptions(t.id)),
+    queries: inNetwork(user, trials.data ?? []).map((t) => trialQueryOptions(t.id)),
     combine: (results) => ({
       data: results.every((r) => r.data) ? results.map((r) => r.data!) : undefined,
       isError: results.some((r) => r.isError),
@@ -140,7 +149,8 @@ function MemberHome({ user }: { user: SessionUser }) {
 }
 
 export default function HomePage() {
-  const { data: user } = useMe();
+  const { data: me } = useMe();
+  const user = useScopedUser(me);
   if (!user) return <LoadingBlock />;
   const kind = homeKind(user);
   if (kind === 'coordinator') return <CoordinatorHome user={user} />;

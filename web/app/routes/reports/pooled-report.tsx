@@ -17,6 +17,7 @@ import {
 } from '../../../features/reports/api/get-pooled-report';
 import { PooledReportView } from '../../../features/reports/components/pooled-report-view';
 import { isApiError } from '../../../lib/api-client';
+import { AmendmentsNotice } from '../../../features/reports/components/amendments-notice';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
 import { NotPublishedPanel } from './not-published';
 
@@ -52,18 +53,21 @@ export default function PooledReportPage() {
       ? { to: `/trials/${trialId}`, label: data.trial.name }
       : { to: '/', label: 'Reports' };
   return (
-    <PooledReportView
-      back={back}
-      report={data}
-      query={query}
-      updating={isPlaceholderData}
-      onQuery={(next) =>
-        setSearch(new URLSearchParams(pooledSearch(next).slice(1)), {
-          replace: true,
-          preventScrollReset: true,
-        })
-      }
-    />
+    <>
+      <AmendmentsNotice trialId={trialId} />
+      <PooledReportView
+        back={back}
+        report={data}
+        query={query}
+        updating={isPlaceholderData}
+        onQuery={(next) =>
+          setSearch(new URLSearchParams(pooledSearch(next).slice(1)), {
+            replace: true,
+            preventScrollReset: true,
+          })
+        }
+      />
+    </>
   );
 }
 

@@ -11,6 +11,7 @@ import {
 } from '../../../features/reports/api/get-site-report';
 import { SiteReportView } from '../../../features/reports/components/site-report-view';
 import { isApiError } from '../../../lib/api-client';
+import { AmendmentsNotice } from '../../../features/reports/components/amendments-notice';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
 import { NotPublishedPanel } from './not-published';
 
@@ -33,7 +34,12 @@ export default function SiteReportPage() {
     data.canPublish || (user && homeKind(user) !== 'member')
       ? { to: `/trials/${data.site.trialId}`, label: data.site.trialName }
       : { to: '/', label: 'Reports' };
-  return <SiteReportView report={data} back={back} />;
+  return (
+    <>
+      <AmendmentsNotice trialId={data.site.trialId} />
+      <SiteReportView report={data} back={back} />
+    </>
+  );
 }
 
 export function ErrorBoundary() {

@@ -1,9 +1,9 @@
-// `/sites/:siteId/history`: who changed what on this site (coordinators).
+// `/sites/:siteId/history`: who changed what on this site, in plain words (grower, coordinators).
 import { useParams } from 'react-router-dom';
 import { Alert } from '../../../components/ui/alert';
 import { LoadingBlock } from '../../../components/ui/spinner';
-import { useSiteAudit } from '../../../features/collect/api/site-audit';
-import { HistoryList } from '../../../features/collect/components/history-list';
+import { useSiteHistory } from '../../../features/sites/api/history';
+import { PlainHistory } from '../../../features/sites/components/plain-history';
 import { SiteHeading } from '../../../features/collect/components/site-heading';
 import { isApiError } from '../../../lib/api-client';
 import { errorSummary } from '../../../lib/form-errors';
@@ -14,13 +14,13 @@ export const ErrorBoundary = CollectErrorBoundary;
 
 function History() {
   const { siteId = '' } = useParams();
-  const audit = useSiteAudit(siteId);
-  if (audit.data) return <HistoryList events={audit.data} />;
+  const audit = useSiteHistory(siteId);
+  if (audit.data) return <PlainHistory entries={audit.data} />;
   if (audit.isError) {
     if (isApiError(audit.error, 403))
       return (
-        <Alert tone="info" title="History is for coordinators">
-          The trial’s coordinators see who changed which number here.
+        <Alert tone="info" title="History is for the site’s grower and coordinators">
+          The site’s grower and the trial’s coordinators see who changed which number here.
         </Alert>
       );
     return (

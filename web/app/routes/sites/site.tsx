@@ -4,6 +4,7 @@ import { Card } from '../../../components/ui/card';
 import { SiteDatesForm } from '../../../features/collect/components/site-dates-form';
 import { SiteHeading } from '../../../features/collect/components/site-heading';
 import { StripList } from '../../../features/collect/components/strip-list';
+import { NamingChoice } from '../../../features/sites/components/naming-choice';
 import { CollectErrorBoundary, siteStripsLoader, WithSiteStrips } from './collect-route';
 
 export const clientLoader = siteStripsLoader;
@@ -28,6 +29,7 @@ export default function SitePage() {
               <Card>
                 <SiteDatesForm key={data.site.dataVersion} site={data.site} />
               </Card>
+              <NamingChoice siteId={data.site.siteId} />
               <Card>
                 <h2 className="text-heading text-ink">This site</h2>
                 <ul className="mt-2 flex flex-col">
@@ -35,6 +37,7 @@ export default function SitePage() {
                     { to: `/sites/${data.site.siteId}/map`, label: 'Strip map' },
                     { to: `/sites/${data.site.siteId}/packet`, label: 'Field packet' },
                     { to: `/sites/${data.site.siteId}/report`, label: 'Site report' },
+                    { to: `/sites/${data.site.siteId}/history`, label: 'What changed, and who' },
                     { to: '/calibrate?site=' + data.site.siteId, label: 'Calibrate the seeder' },
                     ...(data.site.isCoordinator
                       ? [

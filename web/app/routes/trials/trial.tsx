@@ -11,7 +11,13 @@ import { Card } from '../../../components/ui/card';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
 import { useMe } from '../../../features/auth/api/get-me';
-import { trialQueryOptions, useTrial } from '../../../features/trials/api/get-trial';
+import {
+  trialQueryOptions,
+  useTrial,
+  useTrialPeople,
+} from '../../../features/trials/api/get-trial';
+import { SiteLifeActions } from '../../../features/trials/components/site-life-actions';
+import { TrialLifePanel } from '../../../features/trials/components/trial-life-panel';
 import { useSendAllPackets } from '../../../features/trials/api/trial-mutations';
 import { EnrolSiteForm } from '../../../features/trials/components/enrol-site-form';
 import { RateSummaryTable } from '../../../features/trials/components/rate-summary-table';
@@ -76,6 +82,7 @@ function TrialLinksCard({ trial }: { trial: TrialDetail }) {
 export default function TrialPage() {
   const { trialId } = useParams();
   const { data: trial } = useTrial(trialId!);
+  const people = useTrialPeople(trialId!, trial?.canEdit ?? false);
   const { data: me } = useMe();
   const [enrolOpen, setEnrolOpen] = useState(false);
   const sendAll = useSendAllPackets(trialId!);
@@ -84,7 +91,7 @@ export default function TrialPage() {
     [trial],
   );
   if (!trial) return <LoadingBlock />;
-  const active = trial.status === 'active';
+  const active = trial.status === 'in-field' || trial.status === 'harvest-in';
   const crop =
     trial.crop === 'custom'
       ? (trial.customCrop?.name ?? cropLabel('custom'))
@@ -176,6 +183,13 @@ export default function TrialPage() {
               canEdit={trial.canEdit}
               viewerId={me?.id}
               active={active}
+              extra={
+                trial.canEdit && trial.status !== 'draft'
+                  ? (site) => (
+                      <SiteLifeActions trialId={trial.id} site={site} people={people.data ?? []} />
+                    )
+                  : undefined
+              }
             />
           </section>
           <section aria-labelledby="rates-title" className="space-y-3">
@@ -192,6 +206,7 @@ export default function TrialPage() {
           </section>
         </div>
         <aside className="space-y-6">
+          <TrialLifePanel trial={trial} />
           <Card>
             <h2 className="text-heading text-ink">Design</h2>
             <TrialDesignSummary

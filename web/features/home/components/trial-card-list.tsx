@@ -8,12 +8,36 @@ import { cropName, plural, trialStatusName } from '../../../lib/format';
 
 const STATUS_TONE: Record<TrialStatus, BadgeTone> = {
   draft: 'straw',
-  active: 'field',
+  'in-field': 'field',
+  'harvest-in': 'field',
   closed: 'neutral',
 };
-const STATUS_ORDER: Record<TrialStatus, number> = { active: 0, draft: 1, closed: 2 };
+/** What needs attention first: a harvest to close, then trials in the field, then drafts. */
+const STATUS_ORDER: Record<TrialStatus, number> = {
+  'harvest-in': 0,
+  'in-field': 1,
+  draft: 2,
+  closed: 3,
+};
 
+/** Current trials first (what needs attention on top), closed ones apart below. */
 export function TrialCardList({ trials }: { trials: readonly TrialSummary[] }) {
+  const closed = trials.filter((t) => t.status === 'closed');
+  if (trials.length === 0 || closed.length === 0) return <TrialCards trials={trials} />;
+  return (
+    <div className="space-y-8">
+      <TrialCards trials={trials.filter((t) => t.status !== 'closed')} />
+      <section aria-labelledby="closed-trials" className="space-y-3" data-testid="closed-trials">
+        <h2 id="closed-trials" className="text-heading text-ink-muted">
+          Closed trials (read-only)
+        </h2>
+        <TrialCards trials={closed} />
+      </section>
+    </div>
+  );
+}
+
+function TrialCards({ trials }: { trials: readonly TrialSummary[] }) {
   if (trials.length === 0) {
     return (
       <EmptyState

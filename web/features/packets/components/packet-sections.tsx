@@ -7,6 +7,7 @@ import type { Layout } from '../../../../shared/schemas/layout';
 import type { SiteDetail } from '../../../../shared/schemas/site';
 import { METRES_PER_FOOT } from '../../../../shared/units/constants';
 import { StripMap } from './strip-map';
+import { RecordingSheet } from './recording-sheet';
 
 const one = new Intl.NumberFormat('en', { maximumFractionDigits: 1 });
 const whole = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
@@ -300,61 +301,10 @@ export function PacketCountingSection({ site }: PacketSectionProps) {
   );
 }
 
-export function PacketSheetSection({ layout }: PacketSectionProps) {
-  const strips = packetStrips(layout);
+export function PacketSheetSection({ site, layout }: PacketSectionProps) {
   return (
     <Section id="sheet" title="5. Recording sheet" newPage>
-      <p className="text-caption text-ink-muted">
-        Stand and head counts are per 3 ft of row unless you write another length. Enter the numbers
-        in Sheaf after each count.
-      </p>
-      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Field sheet">
-        <table className="sheet figures w-full min-w-[44rem] border-collapse text-caption">
-          <thead>
-            <tr className="text-left">
-              <th className="border border-ink px-1 py-1" rowSpan={2}>
-                Plot
-              </th>
-              <th className="border border-ink px-1 py-1" rowSpan={2}>
-                Rate
-              </th>
-              <th className="border border-ink px-1 py-1 text-center" colSpan={6}>
-                Stand count (plants / 3 ft)
-              </th>
-              <th className="border border-ink px-1 py-1" rowSpan={2}>
-                Tillers / 10 plants
-              </th>
-              <th className="border border-ink px-1 py-1 text-center" colSpan={4}>
-                Heads / 3 ft
-              </th>
-              <th className="border border-ink px-1 py-1" rowSpan={2}>
-                Grain weight
-              </th>
-              <th className="border border-ink px-1 py-1" rowSpan={2}>
-                Moisture %
-              </th>
-            </tr>
-            <tr>
-              {[1, 2, 3, 4, 5, 6, 1, 2, 3, 4].map((n, i) => (
-                <th key={i} className="w-8 border border-ink px-1 py-0.5 text-center font-normal">
-                  {n}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {strips.map((s) => (
-              <tr key={s.stripId}>
-                <td className="h-9 border border-ink px-1 font-semibold">{s.plotNumber}</td>
-                <td className="border border-ink px-1">{s.label}</td>
-                {Array.from({ length: 14 }, (_, i) => (
-                  <td key={i} className="border border-ink" />
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <RecordingSheet strips={packetStrips(layout)} unitSystem={site.trial.unitSystem} />
     </Section>
   );
 }

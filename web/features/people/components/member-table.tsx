@@ -7,6 +7,7 @@ import { SelectField } from '../../../components/ui/form-fields';
 import { errorSummary } from '../../../lib/form-errors';
 import { plural, roleName } from '../../../lib/format';
 import { useChangeRole } from '../api/people';
+import { RemoveMemberButton } from './remove-member-button';
 
 export function MemberTable({
   networkId,
@@ -93,6 +94,7 @@ export function MemberTable({
                     <span className="md:hidden">{plural(m.siteCount, 'site')}</span>
                     <span className="hidden md:inline">{m.siteCount}</span>
                   </span>
+                  {editable ? <RemoveMemberButton networkId={networkId} member={m} /> : null}
                 </td>
               </tr>
             );

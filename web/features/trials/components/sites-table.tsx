@@ -1,4 +1,5 @@
 // The trial's sites with grower, randomization state and links to map, packet and data pages.
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { TrialSiteRow } from '../../../../shared/schemas/trial';
 import { Badge } from '../../../components/ui/badge';
@@ -14,6 +15,7 @@ export function SitesTable({
   canEdit,
   viewerId,
   active,
+  extra,
 }: {
   trialId: string;
   sites: TrialSiteRow[];
@@ -21,6 +23,8 @@ export function SitesTable({
   /** The signed-in user: a grower enters data only on their own sites. */
   viewerId?: string;
   active: boolean;
+  /** More per-site controls (hand-over, lost) shown under each site's actions. */
+  extra?: (site: TrialSiteRow) => ReactNode;
 }) {
   const randomize = useRandomizeSite(trialId);
   const sendPacket = useSendPacket();
@@ -141,6 +145,7 @@ export function SitesTable({
                 Site report
               </Link>
             </div>
+            {extra?.(site)}
           </li>
         ))}
       </ul>

@@ -7,9 +7,11 @@ import { useNavigate } from 'react-router-dom';
 import type { SessionUser } from '../../../../shared/schemas/auth';
 import type { TrialDetail, UpdateTrialInput } from '../../../../shared/schemas/trial';
 import { Alert } from '../../../components/ui/alert';
+import { isApiError } from '../../../lib/api-client';
 import { errorSummary } from '../../../lib/form-errors';
 import { applyServerErrors } from '../../../lib/forms/zod-form';
 import { useCreateTrial, useUpdateTrial } from '../api/trial-mutations';
+import { AmendDesignDialog } from './amend-design-dialog';
 import { CropStep } from './wizard-crop-step';
 import { RatesStep } from './wizard-rates-step';
 import { SeedLotStep } from './wizard-seed-lot-step';
@@ -85,6 +87,9 @@ export function TrialWizard({
     void form.trigger(undefined, { shouldFocus: true });
   }, [checkAfterJump, form]);
 
+  const [amend, setAmend] = useState<{ extra: UpdateTrialInput; fields: string[] } | null>(null);
+  const [amendError, setAmendError] = useState<string | undefined>();
+
   async function save(extra: UpdateTrialInput = {}): Promise<TrialDetail | null> {
     setSaved(null);
     const values = form.getValues();
@@ -101,8 +106,26 @@ export function TrialWizard({
       setSaved(result.status === 'draft' ? 'Draft saved' : 'Changes saved');
       return result;
     } catch (error) {
+      if (isApiError(error) && error.code === 'design_locked' && !extra.amendReason) {
+        // Sown already: ask for a reason and resend the same change as an amendment.
+        setAmend({ extra, fields: Object.keys(error.fields) });
+        return null;
+      }
+      if (isApiError(error) && error.fields.amendReason) {
+        setAmendError(error.fields.amendReason);
+        return null;
+      }
       applyServerErrors(form, error, SERVER_FIELDS);
       return null;
+    }
+  }
+
+  async function amendWith(reason: string) {
+    if (!amend) return;
+    const result = await save({ ...amend.extra, amendReason: reason });
+    if (result) {
+      setAmend(null);
+      navigate(`/trials/${result.id}`);
     }
   }
 
@@ -117,13 +140,22 @@ export function TrialWizard({
       setCheckAfterJump(true);
       return;
     }
-    const result = await save(trial?.status === 'draft' || !trial ? { status: 'active' } : {});
+    const result = await save(trial?.status === 'draft' || !trial ? { status: 'in-field' } : {});
     if (result) navigate(`/trials/${result.id}`);
   }
 
   const mutationError = create.error ?? update.error;
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[14rem_minmax(0,1fr)]">
+      {amend ? (
+        <AmendDesignDialog
+          fields={amend.fields}
+          busy={update.isPending}
+          error={amendError}
+          onAmend={(reason) => void amendWith(reason)}
+          onCancel={() => setAmend(null)}
+        />
+      ) : null}
       <WizardNav step={step} canJump={(index) => Boolean(trial) || index <= step} onGo={setStep} />
       <FormProvider {...form}>
         <form onSubmit={next} noValidate className="min-w-0 space-y-6">
