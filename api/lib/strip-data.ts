@@ -16,6 +16,8 @@ export interface SiteRecord extends SiteDates {
   trialId: string;
   networkId: string;
   trialName: string;
+  /** The trial's stage: a closed trial is read-only. */
+  trialStatus: string;
   fieldName: string;
   notes: string;
   growerUserId: string | null;
@@ -99,6 +101,7 @@ export function toSiteRecord(site: Site): SiteRecord {
     trialId: site.trialId,
     networkId: trial.networkId,
     trialName: trial.name,
+    trialStatus: trial.status,
     fieldName: site.fieldName,
     notes: site.notes,
     growerUserId: site.growerUserId,
@@ -147,13 +150,25 @@ export const publishedSiteLocked = () =>
     'The report for this site is published, so its data is read-only. Ask the coordinator to unpublish it to make changes.',
   );
 
-/** Locks the site row for a data change and refuses when its report is published. */
+/** The answer to a data change on a site whose trial is closed. */
+export const closedTrialLocked = () =>
+  new Locked(
+    'This trial is closed, so its data is read-only. Ask the coordinator to reopen it to make changes.',
+  );
+
+/** Refuses a data change on a published site or a closed trial. */
+export function assertSiteOpen(site: SiteRecord): void {
+  if (site.trialStatus === 'closed') throw closedTrialLocked();
+  if (site.publishedAt) throw publishedSiteLocked();
+}
+
+/** Locks the site row for a data change and refuses when its report is published or its trial closed. */
 export async function lockSiteForChange(
   manager: EntityManager,
   siteId: string,
 ): Promise<SiteRecord> {
   const site = await loadSite(manager, siteId, { lock: true });
-  if (site.publishedAt) throw publishedSiteLocked();
+  assertSiteOpen(site);
   return site;
 }
 

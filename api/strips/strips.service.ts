@@ -11,7 +11,7 @@ import {
   loadSiteStrips,
   loadStrip,
   patchAlreadyApplied,
-  publishedSiteLocked,
+  assertSiteOpen,
   writeStripChange,
   type SiteKey,
 } from '../lib/strip-data';
@@ -48,7 +48,9 @@ export function createStripsService(deps: { dataSource: DataSource }) {
       const coordinating = isCoordinating(role);
       return {
         site: presentSite(site, {
-          canEdit: coordinating || growsSite(role, site.growerUserId, caller.userId),
+          canEdit:
+            site.trialStatus !== 'closed' &&
+            (coordinating || growsSite(role, site.growerUserId, caller.userId)),
           isCoordinator: coordinating,
         }),
         strips: presentStrips(site, strips),
@@ -72,7 +74,7 @@ export function createStripsService(deps: { dataSource: DataSource }) {
     ): Promise<StripDto> {
       const outcome = await dataSource.transaction(async (manager) => {
         const site = await loadSite(manager, { stripId }, { lock: true });
-        if (site.publishedAt) throw publishedSiteLocked();
+        assertSiteOpen(site);
         const current = await loadStrip(manager, stripId);
         if (current.version !== input.version) {
           if (patchAlreadyApplied(current.values, input.values)) return 'unchanged';
