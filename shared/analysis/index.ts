@@ -12,6 +12,7 @@ export { compactLetterDisplay } from './compact-letter-display';
 export { missingPlotEstimate } from './missing-plot-estimate';
 export { chooseReferenceRate } from './choose-reference-rate';
 export { sortRateLevels } from './sort-rate-levels';
+export { normalizeRate } from './normalize-rate';
 export { blocksNeeded } from './blocks-needed';
 export type { BlocksNeededInput } from './blocks-needed';
 export { sitesNeeded } from './sites-needed';

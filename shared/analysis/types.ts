@@ -59,9 +59,21 @@ export type StripResidual = {
   residual: number;
   /** Externally studentized residual (R's `rstudent`); null when it is undefined. */
   studentized: number | null;
+  /** Bonferroni-adjusted p of the outlier test (R's `car::outlierTest`); absent when undefined. */
+  pBonferroni?: number;
 };
 
-export type OutlierFlag = { block: string; rate: string; value: number; studentized: number };
+/** A strip flagged by the Bonferroni outlier test (adjusted p below alpha). */
+export type OutlierFlag = {
+  block: string;
+  rate: string;
+  value: number;
+  studentized: number;
+  /** Unadjusted two-sided p of the studentized residual on error df − 1. */
+  p: number;
+  /** p × number of strips tested, capped at 1 (Bonferroni), as `car::outlierTest`. */
+  pBonferroni: number;
+};
 
 export type SiteAnalysis = {
   site?: string;
@@ -77,7 +89,8 @@ export type SiteAnalysis = {
   /** Standard error of a difference (average over pairs when strips are missing). */
   sed: number;
   lsd: number;
-  hsd: number;
+  /** Tukey's HSD; null when the site has fewer than 2 error df (no Tukey test). */
+  hsd: number | null;
   alpha: number;
   reference: string;
   means: RateMean[];

@@ -65,6 +65,11 @@ describe('analyze CLI', () => {
     ['bad-missing-column.csv', /row 1 \(header\), column "block": missing/],
     ['bad-non-numeric.csv', /row 3, column "yield": "abc" is not a number/],
     ['bad-one-block.csv', /row 6, column "block": site "B" has only one block/],
+    [
+      'bad-no-yield-column.csv',
+      /no "yield" column; name the response with --response \(numeric columns: plot, yld\)/,
+    ],
+    ['bad-negative-yield.csv', /negative value \(-3\)/],
   ])('exits 2 with a one-line message for %s', (file, message) => {
     const result = run(`fixtures/analysis/${file}`);
     expect(result.status).toBe(2);
