@@ -1,4 +1,5 @@
 // Analysis of one site: RCBD ANOVA, rate means, comparisons, missing strips and outliers.
+import { adjustManyToOne } from './adjust-many-to-one';
 import { chooseReferenceRate } from './choose-reference-rate';
 import { compactLetterDisplay } from './compact-letter-display';
 import { fUpperTailP } from './f-upper-tail-p';
@@ -35,7 +36,9 @@ const EXACT_FIT =
  * - Grand mean (of the observed strips), CV % = 100·√MSE / grand mean.
  * - Rate means (least-squares means when strips are missing) with SE, (1 − α) CI on the
  *   error df; SED; Fisher's LSD; Tukey's HSD (Tukey–Kramer for unequal SEDs) with compact
- *   letters; difference of every rate from the reference with SE, CI and t-test p.
+ *   letters; difference of every rate from the reference with SE, CI and t-test p
+ *   (unadjusted) beside Dunnett's many-to-one adjusted p and simultaneous CI (as R's
+ *   `multcomp::glht(lm, mcp(rate = "Dunnett"))`).
  * - Missing-strip estimates (least-squares fitted values; the classic formula too when one is
  *   missing), residuals and outliers: the Bonferroni outlier test of R's `car::outlierTest`
  *   (two-sided t p-value of each externally studentized residual on error df − 1, times the
@@ -206,6 +209,33 @@ export function analyzeSite(
       ciHigh: diff + tCritical * se,
       p: studentTTwoSidedP(diff / se, errorDf),
     });
+  });
+  // Dunnett: Cov(d_i, d_j) = ½[Var(d_i) + Var(d_j) − Var(m_i − m_j)], one error df for all.
+  const others = rateLevels.flatMap((_, i) => (i === referenceIndex ? [] : [i]));
+  const covariance = others.map((i) =>
+    others.map(
+      (j) =>
+        (errorMeanSquare *
+          (fit.differenceVariance(i, referenceIndex) +
+            fit.differenceVariance(j, referenceIndex) -
+            fit.differenceVariance(i, j))) /
+        2,
+    ),
+  );
+  const adjustments =
+    options.manyToOne === false
+      ? []
+      : adjustManyToOne(
+          differences.map((d) => d.diff),
+          covariance,
+          differences.map(() => errorDf),
+          alpha,
+        );
+  adjustments.forEach((adjusted, index) => {
+    const difference = differences[index]!;
+    difference.pAdjusted = adjusted.pAdjusted;
+    difference.ciLowAdjusted = adjusted.ciLowAdjusted;
+    difference.ciHighAdjusted = adjusted.ciHighAdjusted;
   });
 
   const missingEstimates: MissingEstimate[] = [];

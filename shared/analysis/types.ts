@@ -37,9 +37,15 @@ export type RateDifference = {
   rate: string;
   diff: number;
   se: number;
+  /** Unadjusted (1 − α) interval and t-test p: each comparison on its own. */
   ciLow: number;
   ciHigh: number;
   p: number;
+  /** Dunnett (many-to-one) adjusted p: allows for comparing every rate with the reference. */
+  pAdjusted?: number;
+  /** Dunnett simultaneous (1 − α) interval: all of them hold together with probability 1 − α. */
+  ciLowAdjusted?: number;
+  ciHighAdjusted?: number;
 };
 
 export type MissingEstimate = {
@@ -170,10 +176,17 @@ export type PooledAnalysis = {
   bartlett?: { chiSquare: number; df: number; p: number };
   siteDifferences: SiteDifference[];
   curve?: ResponseCurve;
+  /** The mixed model (REML, Kenward–Roger) on every observed strip; absent when it cannot be fitted (see notes). */
+  mixed?: MixedModelAnalysis;
   notes: string[];
 };
 
-export type AnalysisOptions = { reference?: string; alpha?: number };
+export type AnalysisOptions = {
+  reference?: string;
+  alpha?: number;
+  /** Dunnett-adjusted differences from the reference (default true; false skips that work). */
+  manyToOne?: boolean;
+};
 
 export type PooledOptions = AnalysisOptions & {
   ratesNumeric?: Record<string, number>;
@@ -187,4 +200,38 @@ export type TrialAnalysis = {
   reference: string;
   sites: (SiteAnalysis & { site: string })[];
   pooled?: PooledAnalysis;
+};
+
+/** The network mixed model (REML, Kenward–Roger) as the CLI prints it under `pooled.mixed`. */
+export type MixedModelAnalysis = {
+  method: 'REML';
+  observations: number;
+  sites: number;
+  varianceComponents: {
+    site: number;
+    blockWithinSite: number;
+    siteByRate: number;
+    residual: number;
+  };
+  rateTest: { f: number; df1: number; df2: number; p: number; ddf: 'kenward-roger' };
+  /** Expected yield at a farm like these: rate mean with KR-adjusted SE, KR df and (1 − α) CI. */
+  means: { rate: string; mean: number; se: number; df: number; ciLow: number; ciHigh: number }[];
+  /** Difference from the reference rate: unadjusted and Dunnett-adjusted (multivariate t, KR df). */
+  differences: {
+    rate: string;
+    reference: string;
+    estimate: number;
+    se: number;
+    df: number;
+    ciLow: number;
+    ciHigh: number;
+    p: number;
+    pAdjusted: number;
+    ciLowAdjusted: number;
+    ciHighAdjusted: number;
+  }[];
+  alpha: number;
+  /** Plain-word captions of what each interval is. */
+  captions: { means: string; differences: string };
+  notes: string[];
 };

@@ -4,9 +4,20 @@ import { expectFigures, readFixture, type GomezSeedRate } from '../helpers';
 
 const gomez = readFixture<GomezSeedRate>('gomez-rcbd-seeding-rate.json');
 type OutlierRow = { block: string; rate: string; rstudent: number; p: number; pBonferroni: number };
-const siteChecks = readFixture<{ outlierSpiked: OutlierRow[]; outlierClean: OutlierRow[] }>(
-  'r-site-checks.json',
-);
+type DunnettRow = {
+  contrast: string;
+  estimate: number;
+  se: number;
+  pAdjusted: number;
+  ciLowAdjusted: number;
+  criticalValue: number;
+};
+const siteChecks = readFixture<{
+  outlierSpiked: OutlierRow[];
+  outlierClean: OutlierRow[];
+  dunnettBalanced: DunnettRow[];
+  dunnettMissing: DunnettRow[];
+}>('r-site-checks.json');
 const row = (analysis: SiteAnalysis, source: string) =>
   analysis.anova.find((entry) => entry.source === source) as AnovaRow & {
     ms: number;
@@ -176,6 +187,29 @@ describe('analyzeSite with a missing strip', () => {
       const residual = result.residuals.find((x) => x.block === r.block && x.rate === r.rate)!;
       // Source: R 4.2.2, car 3.1.1 outlierTest(..., cutoff = Inf, n.max = Inf); car leaves bonf.p above 1, Sheaf caps it
       expectFigures(residual.pBonferroni!, Math.min(1, r.pBonferroni), 9);
+    }
+  });
+});
+
+describe('analyzeSite Dunnett differences from the reference rate', () => {
+  it.each([
+    ['every strip', gomez.data, siteChecks.dunnettBalanced],
+    [
+      'one strip missing',
+      gomez.data.filter((d) => !(d.block === 'R2' && d.rate === '75')),
+      siteChecks.dunnettMissing,
+    ],
+  ])('matches multcomp glht Dunnett p within 1e-3 (%s)', (_, rows, expected) => {
+    const analysis = analyzeSite(rows, { reference: '100' });
+    for (const difference of analysis.differences) {
+      const r = expected.find((x) => x.contrast === `${difference.rate} - 100`)!;
+      // Source: R 4.2.2, multcomp 1.4.22 glht(lm(value ~ block + rate), mcp(rate = "Dunnett"))
+      // (fixtures/reference/site-checks.R); glht's own integration error is about 1e-3
+      expect(Math.abs(difference.pAdjusted! - r.pAdjusted)).toBeLessThan(1e-3);
+      expectFigures(difference.se, r.se, 10);
+      // Source: as above; glht's quantile is randomised too (±0.01 on the critical value)
+      expect(Math.abs(difference.ciLowAdjusted! - r.ciLowAdjusted)).toBeLessThan(0.01 * r.se);
+      expect(difference.pAdjusted!).toBeGreaterThanOrEqual(difference.p);
     }
   });
 });
