@@ -37,7 +37,16 @@ if (runs('analysis')) {
     encoding: 'utf8',
   });
   process.stdout.write(analysis.stdout);
+  if (analysis.stderr) process.stderr.write(analysis.stderr);
   results.analysis = analysis.stdout.trim();
+}
+
+// The analysis bench needs no web build and no database: stop here when it is all that runs.
+if (!['site', 'pooled', 'patch', 'import', 'bundle'].some(runs)) {
+  fs.mkdirSync(DATA_DIR, { recursive: true });
+  fs.writeFileSync(path.join(DATA_DIR, 'bench-results.json'), JSON.stringify(results, null, 2));
+  console.log(`\nresults written to .data/bench-results.json`);
+  process.exit(0);
 }
 
 const webDist = buildWeb(path.join(DATA_DIR, 'bench-web'));

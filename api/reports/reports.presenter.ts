@@ -254,7 +254,10 @@ function analyseSite(
     value: s.yield,
   }));
   try {
-    return { analysis: { site: name, ...analyzeSite(rows, { reference }) }, error: null };
+    return {
+      analysis: { site: name, ...analyzeSite(rows, { reference, manyToOne: true }) },
+      error: null,
+    };
   } catch (error) {
     return {
       analysis: null,

@@ -29,7 +29,9 @@ export function analyzePooled(
     throw new Error(`analyzePooled needs at least 2 sites (got ${sites.length})`);
   const analyses = sites.map(({ site, rows: siteRows }) => ({
     site,
-    analysis: withSite(site, () => analyzeSite(siteRows, { reference, alpha: options.alpha })),
+    analysis: withSite(site, () =>
+      analyzeSite(siteRows, { reference, alpha: options.alpha, manyToOne: options.manyToOne }),
+    ),
   }));
   const pooled = combineSites(analyses, rateLevels, { ...options, reference });
   addMixedModel(pooled, rows, rateLevels, reference, options.alpha);

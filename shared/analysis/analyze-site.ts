@@ -37,8 +37,8 @@ const EXACT_FIT =
  * - Rate means (least-squares means when strips are missing) with SE, (1 − α) CI on the
  *   error df; SED; Fisher's LSD; Tukey's HSD (Tukey–Kramer for unequal SEDs) with compact
  *   letters; difference of every rate from the reference with SE, CI and t-test p
- *   (unadjusted) beside Dunnett's many-to-one adjusted p and simultaneous CI (as R's
- *   `multcomp::glht(lm, mcp(rate = "Dunnett"))`).
+ *   (unadjusted) and, with `manyToOne: true`, Dunnett's many-to-one adjusted p and
+ *   simultaneous CI beside them (as R's `multcomp::glht(lm, mcp(rate = "Dunnett"))`).
  * - Missing-strip estimates (least-squares fitted values; the classic formula too when one is
  *   missing), residuals and outliers: the Bonferroni outlier test of R's `car::outlierTest`
  *   (two-sided t p-value of each externally studentized residual on error df − 1, times the
@@ -223,7 +223,7 @@ export function analyzeSite(
     ),
   );
   const adjustments =
-    options.manyToOne === false
+    options.manyToOne !== true
       ? []
       : adjustManyToOne(
           differences.map((d) => d.diff),

@@ -26,7 +26,14 @@ export function analyzeTrial(
   const { sites, rateLevels, reference } = groupBySite(rows, options.reference);
   const analyses = sites.map(({ site, rows: siteRows }) => {
     try {
-      return { site, analysis: analyzeSite(siteRows, { reference, alpha: options.alpha }) };
+      return {
+        site,
+        analysis: analyzeSite(siteRows, {
+          reference,
+          alpha: options.alpha,
+          manyToOne: options.manyToOne ?? true,
+        }),
+      };
     } catch (error) {
       throw new Error(`site ${site}: ${(error as Error).message}`);
     }

@@ -40,6 +40,7 @@ type Pattern = {
   n: number;
   rateOf: Int32Array;
   blockOf: Int32Array;
+  blocks: number;
   count: number;
 };
 type SiteData = { pattern: Pattern; y: Float64Array };
@@ -128,6 +129,7 @@ export function fitNetworkMixedModel(
         n: ordered.length,
         rateOf: Int32Array.from(ordered, (s) => s.rate),
         blockOf: Int32Array.from(ordered, (s) => blockOf.get(s.block)!),
+        blocks: blockNames.length,
         count: 0,
       };
       patterns.set(key, pattern);
@@ -440,12 +442,23 @@ function assemble(
     for (let i = 0; i < n; i++) {
       for (let r = 0; r < t; r++) py[i]! -= term.vx[i * t + r]! * beta[r]!;
     }
-    const w: Float64Array[] = [];
+    // G_k·Py by group sums: site (all strips), block, rate, and Py itself for the residual.
+    let siteSum = 0;
+    const blockSum = new Float64Array(pattern.blocks);
+    const rateSum = new Float64Array(t);
+    for (let i = 0; i < n; i++) {
+      siteSum += py[i]!;
+      blockSum[pattern.blockOf[i]!]! += py[i]!;
+      rateSum[pattern.rateOf[i]!]! += py[i]!;
+    }
+    const w: Float64Array[] = [
+      new Float64Array(n).fill(siteSum),
+      Float64Array.from(pattern.blockOf, (b) => blockSum[b]!),
+      Float64Array.from(pattern.rateOf, (r) => rateSum[r]!),
+      py,
+    ];
     for (let k = 0; k < K; k++) {
-      const wk = new Float64Array(n);
-      for (let i = 0; i < n; i++)
-        for (let j = 0; j < n; j++) if (shares(pattern, k, i, j)) wk[i]! += py[j]!;
-      w.push(wk);
+      const wk = w[k]!;
       let sum = 0;
       for (let i = 0; i < n; i++) sum += py[i]! * wk[i]!;
       wpy[k]! += sum;

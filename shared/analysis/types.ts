@@ -184,7 +184,7 @@ export type PooledAnalysis = {
 export type AnalysisOptions = {
   reference?: string;
   alpha?: number;
-  /** Dunnett-adjusted differences from the reference (default true; false skips that work). */
+  /** Add Dunnett-adjusted differences from the reference (a few ms per site; default false, the CLI's analyzeTrial default true). */
   manyToOne?: boolean;
 };
 

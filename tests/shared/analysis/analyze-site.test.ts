@@ -200,7 +200,7 @@ describe('analyzeSite Dunnett differences from the reference rate', () => {
       siteChecks.dunnettMissing,
     ],
   ])('matches multcomp glht Dunnett p within 1e-3 (%s)', (_, rows, expected) => {
-    const analysis = analyzeSite(rows, { reference: '100' });
+    const analysis = analyzeSite(rows, { reference: '100', manyToOne: true });
     for (const difference of analysis.differences) {
       const r = expected.find((x) => x.contrast === `${difference.rate} - 100`)!;
       // Source: R 4.2.2, multcomp 1.4.22 glht(lm(value ~ block + rate), mcp(rate = "Dunnett"))

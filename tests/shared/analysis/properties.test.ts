@@ -110,7 +110,7 @@ describe('Bonferroni outlier test on clean simulated sites', () => {
       const rows = blocks.flatMap((block, b) =>
         rates.map((rate, r) => ({ block, rate, value: 100 + 3 * b + 2 * r + 5 * normal() })),
       );
-      if (analyzeSite(rows, { manyToOne: false }).outliers.length > 0) flagged += 1;
+      if (analyzeSite(rows).outliers.length > 0) flagged += 1;
     }
     // Common practice, no published source: a Bonferroni test at 5 % flags a clean site at most
     // 5 % of the time (union bound; 5.0 % in 20 000 simulated sites); 3.5–6.5 % is ±3 binomial SE
