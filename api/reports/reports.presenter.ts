@@ -1,6 +1,7 @@
 // Builds the site and pooled report bodies from loaded rows: derives each strip's yield,
 // runs the analysis engine and writes the findings. No database access here.
 import {
+  addMixedModel,
   analyzeSite,
   chooseReferenceRate,
   combineSites,
@@ -451,7 +452,8 @@ export function buildPooledReport(
   const prices = enginePrices(trial, units, seedPrice, grainPrice);
   const seedRates = new Map(rates.map((r) => [r.key, r.seedRate]));
 
-  const included: { site: PooledSite; name: string; analysis: SiteAnalysis }[] = [];
+  const included: { site: PooledSite; name: string; analysis: SiteAnalysis; rows: SiteStrip[] }[] =
+    [];
   const excluded: { site: PooledSite; reason: string }[] = [];
   const names = new Map<string, number>();
   for (const { yields, ...site } of input.sites) {
@@ -469,7 +471,7 @@ export function buildPooledReport(
       const count = (names.get(site.fieldName) ?? 0) + 1;
       names.set(site.fieldName, count);
       const name = count === 1 ? site.fieldName : `${site.fieldName} (${count})`;
-      included.push({ site, name, analysis: analyzeSite(rows, { reference }) });
+      included.push({ site, name, analysis: analyzeSite(rows, { reference }), rows });
     } catch (error) {
       excluded.push({
         site,
@@ -491,6 +493,13 @@ export function buildPooledReport(
         included.map(({ name, analysis: a }) => ({ site: name, analysis: a })),
         rateKeys,
         { reference, ratesNumeric: numeric, prices },
+      );
+      // The mixed model uses every strip of the included sites (see shared/analysis).
+      addMixedModel(
+        analysis,
+        included.flatMap(({ name, rows }) => rows.map((row) => ({ site: name, ...row }))),
+        rateKeys,
+        reference,
       );
     } catch (error) {
       analysisError = `The pooled analysis could not be run: ${(error as Error).message}`;

@@ -18,6 +18,7 @@ export type { ManyToOneAdjustment } from './adjust-many-to-one';
 export { multivariateTBoxProbability } from './multivariate-t-box-probability';
 export { fitNetworkMixedModel } from './fit-network-mixed-model';
 export { analyzeNetworkMixedModel } from './analyze-network-mixed-model';
+export { addMixedModel } from './add-mixed-model';
 export type { MixedModelFit } from './fit-network-mixed-model';
 export { blocksNeeded } from './blocks-needed';
 export type { BlocksNeededInput } from './blocks-needed';

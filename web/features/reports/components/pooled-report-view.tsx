@@ -24,6 +24,7 @@ import { cn } from '../../../lib/cn';
 import { pooledSearch } from '../api/get-pooled-report';
 import { usePublicLink, usePublishTrial } from '../api/publish-report';
 import { FindingsList } from './findings-list';
+import { MixedModelSection } from './mixed-model-section';
 import { PublishPanel } from './publish-panel';
 import { ChartCard, DataTableNote, DownloadLink, Section } from './report-bits';
 import {
@@ -393,6 +394,13 @@ export function PooledReportView({
               </p>
             ) : null}
           </Section>
+          <MixedModelSection
+            mixed={analysis.mixed}
+            label={label}
+            referenceLabel={referenceLabel}
+            unit={unit}
+            digits={digits}
+          />
           <Section
             id="combined"
             title="Combined analysis"
