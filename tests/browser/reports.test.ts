@@ -103,6 +103,10 @@ describe('reports in the browser', () => {
       );
       expect(overflow).toBeLessThanOrEqual(1);
       await screenshot(page, `reports-pooled-${width}`);
+      const mixed = page.getByRole('heading', { name: 'Expected yield at a farm like these' });
+      await mixed.scrollIntoViewIfNeeded();
+      await page.getByText('all comparisons (Dunnett)').first().waitFor();
+      await screenshot(page, `reports-pooled-mixed-${width}`);
       expect(errors).toEqual([]);
       expect(chartWarnings).toEqual([]);
       await close();
