@@ -31,37 +31,39 @@ export function MixedModelSection({
       title="Expected yield at a farm like these"
       intro={mixed.captions.means}
     >
-      <div className="grid gap-4 lg:grid-cols-2">
-        <DataTable
-          caption={`Expected yield at a farm like these, with ${level} % intervals`}
-          head={['Rate', `Mean (${unit})`, `${level} % interval`]}
-          rows={mixed.means.map((m) => [
-            label(m.rate),
-            formatNumber(m.mean, digits),
-            interval(m.ciLow, m.ciHigh, digits),
-          ])}
-        />
-        <DataTable
-          caption={`Difference from the ${referenceLabel} rate`}
-          head={[
-            'Rate',
-            `Difference (${unit})`,
-            `${level} % interval, one comparison`,
-            'p, one comparison',
-            `${level} % interval, all comparisons (Dunnett)`,
-            'p, all comparisons (Dunnett)',
-          ]}
-          rows={mixed.differences.map((d) => [
-            label(d.rate),
-            signed(d.estimate, digits),
-            interval(d.ciLow, d.ciHigh, digits),
-            formatP(d.p),
-            interval(d.ciLowAdjusted, d.ciHighAdjusted, digits),
-            formatP(d.pAdjusted),
-          ])}
-        />
-      </div>
-      <p className="max-w-prose text-label text-ink-muted">{mixed.captions.differences}</p>
+      <DataTable
+        caption={`Expected yield at a farm like these, with ${level} % intervals`}
+        head={['Rate', `Mean (${unit})`, `${level} % interval`]}
+        rows={mixed.means.map((m) => [
+          label(m.rate),
+          formatNumber(m.mean, digits),
+          interval(m.ciLow, m.ciHigh, digits),
+        ])}
+      />
+      <DataTable
+        caption={`Difference from the ${referenceLabel} rate`}
+        head={[
+          'Rate',
+          `Difference (${unit})`,
+          `${level} % interval, one comparison`,
+          'p, one comparison',
+          `${level} % interval, all comparisons (Dunnett)`,
+          'p, all comparisons (Dunnett)',
+        ]}
+        rows={mixed.differences.map((d) => [
+          label(d.rate),
+          signed(d.estimate, digits),
+          interval(d.ciLow, d.ciHigh, digits),
+          formatP(d.p),
+          interval(d.ciLowAdjusted, d.ciHighAdjusted, digits),
+          formatP(d.pAdjusted),
+        ])}
+      />
+      <p className="max-w-prose text-label text-ink-muted">
+        Difference from the {referenceLabel} rate: intervals and p for “one comparison” treat each
+        rate on its own; those for “all comparisons (Dunnett)” hold for every comparison with the{' '}
+        {referenceLabel} rate together, so they are wider.
+      </p>
       <DataTableNote title="For the statistician">
         Mixed model fitted by REML to {mixed.observations} strips at {mixed.sites} sites: rate
         fixed; site, block within site and site × rate random. Variance components: site{' '}
