@@ -10,5 +10,6 @@ export default defineConfig({
     pool: 'forks',
     maxWorkers: 2,
     setupFiles: ['tests/setup/env.ts'],
+    globalSetup: ['tests/setup/global-server.ts'],
   },
 });

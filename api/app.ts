@@ -6,7 +6,7 @@ import helmet from 'helmet';
 import type pg from 'pg';
 import type { DataSource } from 'typeorm';
 import type { AppConfig } from './config/env';
-import { createAdminRouter } from './admin/admin.router';
+import { createAdminRouter, servesCaughtMail } from './admin/admin.router';
 import { createAuthRouter } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
 import { createCalcRouter } from './calc/calc.router';
@@ -22,7 +22,6 @@ import { createInvitationsRouter } from './invitations/invitations.router';
 import { createInvitationsService } from './invitations/invitations.service';
 import type { RouteEntry } from './lib/route-table';
 import type { RouterContext } from './lib/router-context';
-import type { MailCatcher } from './mail/mail-catcher';
 import type { Mailer } from './mail/mailer';
 import { createPolicies } from './middleware/access';
 import { requireCsrf } from './middleware/csrf';
@@ -38,7 +37,6 @@ export interface AppDeps {
   /** pg pool for the session store. */
   sessionPool: pg.Pool;
   mailer: Mailer;
-  mailCatcher: MailCatcher | null;
 }
 
 /**
@@ -67,6 +65,13 @@ export function createApp(deps: AppDeps): Express {
   // No ETag hashing of large JSON bodies on every request; static files keep their own ETags.
   app.set('etag', false);
   if (config.TRUST_PROXY === 'on') app.set('trust proxy', 1);
+  if (config.NODE_ENV === 'test') {
+    // Lets tests see that requests reach different worker processes; never sent outside tests.
+    app.use((_req, res, next) => {
+      res.set('X-Sheaf-Worker', String(process.pid));
+      next();
+    });
+  }
 
   app.use(
     helmet({
@@ -103,7 +108,6 @@ export function createApp(deps: AppDeps): Express {
     policies,
     table,
     mailer: deps.mailer,
-    mailCatcher: deps.mailCatcher,
     auth,
     invitations,
   };
@@ -128,8 +132,8 @@ export function createApp(deps: AppDeps): Express {
   app.use(
     '/api/admin',
     createAdminRouter({
-      mailCatcher: deps.mailCatcher,
-      production: config.NODE_ENV === 'production',
+      catcherUrl: servesCaughtMail(config) ? config.MAIL_CATCHER_URL! : null,
+      dataSource,
       policies,
       table,
     }),

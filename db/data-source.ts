@@ -1,9 +1,9 @@
 // TypeORM DataSource for PostgreSQL; schema changes only through migrations.
 import 'reflect-metadata';
 import { DataSource } from 'typeorm';
-import { DataChangeSubscriber } from './data-changes';
 import { ENTITIES } from './entities/index';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
+import { RateLimitHits1765000000000 } from './migrations/1765000000000-rate-limit-hits';
 
 export function createDataSource(
   databaseUrl: string,
@@ -13,9 +13,7 @@ export function createDataSource(
     type: 'postgres',
     url: databaseUrl,
     entities: ENTITIES,
-    // Counts writes so read caches know when to recompute (see data-changes.ts).
-    subscribers: [DataChangeSubscriber],
-    migrations: [InitialSchema1764633600000],
+    migrations: [InitialSchema1764633600000, RateLimitHits1765000000000],
     synchronize: false,
     migrationsRun: false,
     uuidExtension: 'pgcrypto',

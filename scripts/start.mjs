@@ -1,6 +1,7 @@
 // npm start: install what is missing, start PostgreSQL on 127.0.0.1 in .data/postgres,
-// migrate, load the invented demo once, build the web app and serve everything from one
-// Express process. Ctrl-C or SIGTERM stops all of it, PostgreSQL included.
+// migrate, load the invented demo once, build the web app, start the local mail catcher process
+// and serve the app (WEB_CONCURRENCY worker processes, default 1). Ctrl-C or SIGTERM stops all
+// of it, PostgreSQL included.
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { ensureNodeModules } from './lib/deps.mjs';
@@ -9,16 +10,21 @@ import { startCluster } from './lib/postgres.mjs';
 
 const PORT = Number(process.env.PORT ?? 3000);
 const PGPORT = Number(process.env.PGPORT ?? 54329);
+const SMTP_PORT = Number(process.env.SMTP_PORT ?? 2525);
+const CATCHER_HTTP_PORT = Number(process.env.MAIL_CATCHER_HTTP_PORT ?? SMTP_PORT + 1);
+const CATCHER_ON = (process.env.MAIL_CATCHER ?? 'on') !== 'off';
 
 ensureNodeModules();
 const cluster = await startCluster({ dataDir: path.join(DATA_DIR, 'postgres'), port: PGPORT });
 let server = null;
+let catcher = null;
 let stopping = false;
 
 function stopAll(code) {
   if (stopping) return;
   stopping = true;
   const finish = () => {
+    if (catcher && catcher.exitCode === null) catcher.kill('SIGTERM');
     if (!cluster.alreadyRunning) {
       console.log('[sheaf] stopping PostgreSQL');
       cluster.stop();
@@ -44,6 +50,25 @@ try {
   stopAll(1);
 }
 
+if (!stopping && CATCHER_ON) {
+  // The mail catcher is its own process, so every API worker sends to and reads from one place.
+  catcher = spawn(process.execPath, ['--import', 'tsx', 'api/mail/catcher-process.ts'], {
+    stdio: ['ignore', 'inherit', 'inherit'],
+    env: {
+      ...process.env,
+      NODE_ENV: process.env.NODE_ENV ?? 'development',
+      SMTP_PORT: String(SMTP_PORT),
+      MAIL_CATCHER_HTTP_PORT: String(CATCHER_HTTP_PORT),
+    },
+  });
+  catcher.on('exit', (code) => {
+    if (!stopping) {
+      console.error(`[sheaf] the mail catcher stopped (${code}); stopping`);
+      stopAll(1);
+    }
+  });
+}
+
 if (!stopping) {
   const publicUrl = process.env.PUBLIC_URL ?? `http://127.0.0.1:${PORT}`;
   server = spawn(process.execPath, ['--import', 'tsx', 'api/server.ts'], {
@@ -56,6 +81,8 @@ if (!stopping) {
       DATABASE_URL: cluster.databaseUrl,
       SESSION_SECRET: sessionSecret(),
       PUBLIC_URL: publicUrl,
+      SMTP_PORT: String(SMTP_PORT),
+      ...(CATCHER_ON ? { MAIL_CATCHER_URL: `http://127.0.0.1:${CATCHER_HTTP_PORT}` } : {}),
       UPLOAD_DIR: process.env.UPLOAD_DIR ?? path.join(DATA_DIR, 'uploads'),
     },
   });

@@ -11,7 +11,10 @@ const EnvSchema = z.object({
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   MAIL_FROM: z.string().default('Sheaf <no-reply@sheaf.example>'),
-  MAIL_CATCHER: z.enum(['on', 'off']).default('on'),
+  /** The development mail catcher's HTTP address (loopback only); unset in production. */
+  MAIL_CATCHER_URL: z.string().url().optional(),
+  /** How many API worker processes server.ts runs on PORT (Node's cluster module). */
+  WEB_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
   UPLOAD_DIR: z.string().default('.data/uploads'),
   WEB_DIST: z.string().default('dist/web'),
   TRUST_PROXY: z.enum(['on', 'off']).default('off'),

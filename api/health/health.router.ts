@@ -9,6 +9,7 @@ async function databaseAnswers(dataSource: DataSource, timeoutMs: number): Promi
   const timeout = new Promise<boolean>((resolve) => {
     timer = setTimeout(() => resolve(false), timeoutMs);
   });
+  // Raw on purpose: a liveness probe asks PostgreSQL to answer, not about any table or entity.
   const query = dataSource.query('SELECT 1').then(
     () => true,
     () => false,

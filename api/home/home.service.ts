@@ -1,84 +1,132 @@
 // What a signed-in person sees first: the trials they can read and the sites they grow.
 import type { DataSource } from 'typeorm';
+import { Membership } from '../../db/entities/membership.entity';
+import { ReportSnapshot } from '../../db/entities/report-snapshot.entity';
+import { Site } from '../../db/entities/site.entity';
+import { Strip } from '../../db/entities/strip.entity';
+import { Trial } from '../../db/entities/trial.entity';
 import type { SiteSummary } from '../../shared/schemas/site';
 import type { TrialSummary } from '../../shared/schemas/trial';
 
+const COORDINATING_ROLES = ['admin', 'coordinator'];
+
+function toTrialSummary(trial: Trial, siteCount: number): TrialSummary {
+  return {
+    id: trial.id,
+    networkId: trial.networkId,
+    networkName: trial.network!.name,
+    name: trial.name,
+    crop: trial.crop,
+    season: trial.season,
+    status: trial.status,
+    siteCount,
+  };
+}
+
+function toSiteSummary(
+  site: Site,
+  counts: { strips: number; withYield: number } | undefined,
+): SiteSummary {
+  const trial = site.trial!;
+  return {
+    id: site.id,
+    trialId: site.trialId,
+    trialName: trial.name,
+    crop: trial.crop,
+    season: trial.season,
+    fieldName: site.fieldName,
+    growerName: site.grower?.name ?? null,
+    growerEmail: site.grower?.email ?? site.growerEmail,
+    randomized: site.randomizedAt !== null,
+    stripCount: counts?.strips ?? 0,
+    stripsWithYield: counts?.withYield ?? 0,
+    publishedAt: site.publishedAt?.toISOString() ?? null,
+  };
+}
+
 export function createHomeService(dataSource: DataSource) {
+  /** How many sites each trial has. */
+  async function siteCounts(trialIds: string[]): Promise<Map<string, number>> {
+    if (trialIds.length === 0) return new Map();
+    const rows: { trialId: string; sites: string }[] = await dataSource
+      .getRepository(Site)
+      .createQueryBuilder('site')
+      .select('site.trialId', 'trialId')
+      .addSelect('COUNT(*)', 'sites')
+      .where('site.trialId IN (:...trialIds)', { trialIds })
+      .groupBy('site.trialId')
+      .getRawMany();
+    return new Map(rows.map((r) => [r.trialId, Number(r.sites)]));
+  }
+
+  /** How many strips each site has, and how many of them have a grain weight. */
+  async function stripCounts(
+    siteIds: string[],
+  ): Promise<Map<string, { strips: number; withYield: number }>> {
+    if (siteIds.length === 0) return new Map();
+    const rows: { siteId: string; strips: string; withYield: string }[] = await dataSource
+      .getRepository(Strip)
+      .createQueryBuilder('strip')
+      .leftJoin('strip.observation', 'observation')
+      .select('strip.siteId', 'siteId')
+      .addSelect('COUNT(*)', 'strips')
+      .addSelect('COUNT(observation.grainWeight)', 'withYield')
+      .where('strip.siteId IN (:...siteIds)', { siteIds })
+      .groupBy('strip.siteId')
+      .getRawMany();
+    return new Map(
+      rows.map((r) => [r.siteId, { strips: Number(r.strips), withYield: Number(r.withYield) }]),
+    );
+  }
+
   /** Coordinators and admins see all their networks' trials; growers their own; members published ones. */
   async function listTrials(userId: string): Promise<TrialSummary[]> {
-    const rows: {
-      id: string;
-      network_id: string;
-      network_name: string;
-      name: string;
-      crop: TrialSummary['crop'];
-      season: string | null;
-      status: TrialSummary['status'];
-      site_count: string;
-    }[] = await dataSource.query(
-      `SELECT t.id, t.network_id, n.name AS network_name, t.name, t.crop, t.season, t.status,
-                (SELECT count(*) FROM sites s WHERE s.trial_id = t.id) AS site_count
-           FROM trials t
-           JOIN networks n ON n.id = t.network_id
-           JOIN memberships m ON m.network_id = t.network_id AND m.user_id = $1
-          WHERE m.role IN ('admin', 'coordinator')
-             OR EXISTS (SELECT 1 FROM sites s WHERE s.trial_id = t.id AND s.grower_user_id = $1)
-             OR EXISTS (SELECT 1 FROM report_snapshots r WHERE r.trial_id = t.id AND r.withdrawn_at IS NULL)
-          ORDER BY t.season DESC NULLS LAST, t.created_at DESC`,
-      [userId],
-    );
-    return rows.map((r) => ({
-      id: r.id,
-      networkId: r.network_id,
-      networkName: r.network_name,
-      name: r.name,
-      crop: r.crop,
-      season: r.season,
-      status: r.status,
-      siteCount: Number(r.site_count),
-    }));
+    const growsASite = dataSource
+      .getRepository(Site)
+      .createQueryBuilder('grown')
+      .select('1')
+      .where('grown.trialId = trial.id')
+      .andWhere('grown.growerUserId = :userId', { userId });
+    const hasPublished = dataSource
+      .getRepository(ReportSnapshot)
+      .createQueryBuilder('snapshot')
+      .select('1')
+      .where('snapshot.trialId = trial.id')
+      .andWhere('snapshot.withdrawnAt IS NULL');
+    const trials = await dataSource
+      .getRepository(Trial)
+      .createQueryBuilder('trial')
+      .innerJoinAndSelect('trial.network', 'network')
+      .innerJoin(
+        Membership,
+        'membership',
+        'membership.networkId = trial.networkId AND membership.userId = :userId',
+        { userId },
+      )
+      .where('membership.role IN (:...roles)', { roles: COORDINATING_ROLES })
+      .orWhereExists(growsASite)
+      .orWhereExists(hasPublished)
+      .orderBy('trial.season', 'DESC', 'NULLS LAST')
+      .addOrderBy('trial.createdAt', 'DESC')
+      .getMany();
+    const counts = await siteCounts(trials.map((t) => t.id));
+    return trials.map((trial) => toTrialSummary(trial, counts.get(trial.id) ?? 0));
   }
 
   async function listMySites(userId: string): Promise<SiteSummary[]> {
-    const rows: {
-      id: string;
-      trial_id: string;
-      trial_name: string;
-      crop: string | null;
-      season: string | null;
-      field_name: string;
-      grower_name: string | null;
-      grower_email: string | null;
-      randomized: boolean;
-      strip_count: string;
-      with_yield: string;
-      published_at: Date | null;
-    }[] = await dataSource.query(
-      `SELECT s.id, s.trial_id, t.name AS trial_name, t.crop, t.season, s.field_name, u.name AS grower_name,
-                COALESCE(u.email, s.grower_email) AS grower_email, s.randomized_at IS NOT NULL AS randomized,
-                (SELECT count(*) FROM strips st WHERE st.site_id = s.id) AS strip_count,
-                (SELECT count(*) FROM strips st JOIN observations o ON o.strip_id = st.id
-                  WHERE st.site_id = s.id AND o.grain_weight IS NOT NULL) AS with_yield,
-                s.published_at
-           FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id
-          WHERE s.grower_user_id = $1
-          ORDER BY t.season DESC NULLS LAST, t.name, s.field_name`,
-      [userId],
-    );
-    return rows.map((r) => ({
-      id: r.id,
-      trialId: r.trial_id,
-      trialName: r.trial_name,
-      crop: r.crop,
-      season: r.season,
-      fieldName: r.field_name,
-      growerName: r.grower_name,
-      growerEmail: r.grower_email,
-      randomized: r.randomized,
-      stripCount: Number(r.strip_count),
-      stripsWithYield: Number(r.with_yield),
-      publishedAt: r.published_at ? new Date(r.published_at).toISOString() : null,
-    }));
+    const sites = await dataSource
+      .getRepository(Site)
+      .createQueryBuilder('site')
+      .innerJoinAndSelect('site.trial', 'trial')
+      .leftJoin('site.grower', 'grower')
+      .addSelect(['grower.id', 'grower.name', 'grower.email'])
+      .where('site.growerUserId = :userId', { userId })
+      .orderBy('trial.season', 'DESC', 'NULLS LAST')
+      .addOrderBy('trial.name', 'ASC')
+      .addOrderBy('site.fieldName', 'ASC')
+      .getMany();
+    const counts = await stripCounts(sites.map((s) => s.id));
+    return sites.map((site) => toSiteSummary(site, counts.get(site.id)));
   }
 
   return { listTrials, listMySites };

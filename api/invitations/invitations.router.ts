@@ -8,6 +8,8 @@ import type { AuthService } from '../auth/auth.service';
 import { logIn } from '../auth/auth.router';
 import type { Policies } from '../middleware/access';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
+import { PostgresRateLimitStore } from '../middleware/rate-limit-store';
+import type { DataSource } from 'typeorm';
 import type { InvitationsService } from './invitations.service';
 
 export function createInvitationsRouter(deps: {
@@ -16,12 +18,19 @@ export function createInvitationsRouter(deps: {
   policies: Policies;
   table: RouteEntry[];
   inviteLimit: number;
+  dataSource: DataSource;
 }) {
   const router = Router();
   const routes = secureRouter(router, deps.table, '/api');
   const { invitations, auth, policies } = deps;
-  const limit = (max: number, message: string, key?: (req: import('express').Request) => string) =>
+  const limit = (
+    name: string,
+    max: number,
+    message: string,
+    key?: (req: import('express').Request) => string,
+  ) =>
     rateLimit({
+      store: new PostgresRateLimitStore(deps.dataSource, `${name}:`),
       windowMs: 60 * 60 * 1000,
       limit: max,
       standardHeaders: 'draft-8',
@@ -30,11 +39,16 @@ export function createInvitationsRouter(deps: {
       handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', message)),
     });
   const invitePerUser = limit(
+    'invite',
     deps.inviteLimit,
     'Too many invitations sent in the last hour; try again later',
     (req) => `user:${req.user?.id ?? 'anonymous'}`,
   );
-  const acceptPerIp = limit(deps.inviteLimit, 'Too many attempts; wait a while and try again');
+  const acceptPerIp = limit(
+    'invite-accept',
+    deps.inviteLimit,
+    'Too many attempts; wait a while and try again',
+  );
 
   routes.post(
     '/networks/:networkId/invitations',

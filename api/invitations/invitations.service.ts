@@ -1,6 +1,12 @@
 // Invitations: a coordinator invites an e-mail address to a network with a role; the link
 // lets the person set their name and password and signs them in.
-import type { DataSource, EntityManager } from 'typeorm';
+import { In, IsNull, MoreThan, type DataSource, type EntityManager } from 'typeorm';
+import { Invitation } from '../../db/entities/invitation.entity';
+import { Membership } from '../../db/entities/membership.entity';
+import { Network } from '../../db/entities/network.entity';
+import { Site } from '../../db/entities/site.entity';
+import { Trial } from '../../db/entities/trial.entity';
+import { User } from '../../db/entities/user.entity';
 import type { InvitationAccept, InvitationPreview } from '../../shared/schemas/auth';
 import type { Role } from '../../shared/schemas/common';
 import { hashPassword } from '../auth/auth.service';
@@ -35,33 +41,26 @@ export function createInvitationsService(deps: {
       throw new Forbidden('Only an admin can invite coordinators and admins');
     }
     const db = input.manager ?? dataSource.manager;
-    const networkRows: { name: string }[] = await db.query(
-      'SELECT name FROM networks WHERE id = $1',
-      [input.networkId],
-    );
-    const network = networkRows[0];
+    const network = await db
+      .getRepository(Network)
+      .findOne({ select: { id: true, name: true }, where: { id: input.networkId } });
     if (!network) throw new NotFound('Network');
-    const existing = await db.query(
-      `SELECT 1 FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email = $1 AND m.network_id = $2`,
-      [input.email, input.networkId],
-    );
-    if (existing.length > 0 && !input.siteId)
+    const alreadyMember = await db
+      .getRepository(Membership)
+      .exists({ where: { networkId: input.networkId, user: { email: input.email } } });
+    if (alreadyMember && !input.siteId)
       throw new Conflict('That person is already in this network');
     const { token, hash } = newToken();
     const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_MS);
-    const rows: { id: string }[] = await db.query(
-      `INSERT INTO invitations (network_id, email, role, token_hash, invited_by, site_id, expires_at)
-       VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
-      [
-        input.networkId,
-        input.email,
-        input.role,
-        hash,
-        input.invitedBy,
-        input.siteId ?? null,
-        expiresAt,
-      ],
-    );
+    const created = await db.getRepository(Invitation).insert({
+      networkId: input.networkId,
+      email: input.email,
+      role: input.role,
+      tokenHash: hash,
+      invitedBy: input.invitedBy,
+      siteId: input.siteId ?? null,
+      expiresAt,
+    });
     const trialLine = input.trialName
       ? `You have been enrolled as the grower of a site in the seeding-rate trial "${input.trialName}".`
       : `You have been invited to join ${network.name} on Sheaf as a ${input.role}.`;
@@ -80,7 +79,7 @@ export function createInvitationsService(deps: {
       }),
     );
     return {
-      id: rows[0]!.id,
+      id: created.identifiers[0]!.id as string,
       email: input.email,
       role: input.role,
       expiresAt: expiresAt.toISOString(),
@@ -88,21 +87,12 @@ export function createInvitationsService(deps: {
     };
   }
 
-  async function findOpen(token: string, db: EntityManager = dataSource.manager) {
-    const rows: {
-      id: string;
-      network_id: string;
-      email: string;
-      role: Role;
-      expires_at: Date;
-      name: string;
-    }[] = await db.query(
-      `SELECT i.id, i.network_id, i.email, i.role, i.expires_at, n.name
-         FROM invitations i JOIN networks n ON n.id = i.network_id
-        WHERE i.token_hash = $1 AND i.accepted_at IS NULL AND i.expires_at > now()`,
-      [hashToken(token)],
-    );
-    return rows[0] ?? null;
+  /** The invitation with its network, while it is neither accepted nor expired. */
+  function findOpen(token: string, db: EntityManager = dataSource.manager) {
+    return db.getRepository(Invitation).findOne({
+      relations: { network: true },
+      where: { tokenHash: hashToken(token), acceptedAt: IsNull(), expiresAt: MoreThan(new Date()) },
+    });
   }
 
   async function preview(token: string): Promise<InvitationPreview> {
@@ -111,8 +101,8 @@ export function createInvitationsService(deps: {
     return {
       email: row.email,
       role: row.role,
-      networkName: row.name,
-      expiresAt: new Date(row.expires_at).toISOString(),
+      networkName: row.network!.name,
+      expiresAt: row.expiresAt.toISOString(),
     };
   }
 
@@ -131,36 +121,41 @@ export function createInvitationsService(deps: {
           },
         );
       }
-      const users: { id: string }[] = await manager.query('SELECT id FROM users WHERE email = $1', [
-        row.email,
-      ]);
-      let userId = users[0]?.id;
-      if (userId) {
+      if (await manager.getRepository(User).exists({ where: { email: row.email } })) {
         throw new Conflict(
           'This e-mail already has an account: sign in instead and ask the coordinator to add you',
         );
       }
-      const created: { id: string }[] = await manager.query(
-        'INSERT INTO users (email, name, password_hash) VALUES ($1, $2, $3) RETURNING id',
-        [row.email, input.name, passwordHash],
-      );
-      userId = created[0]!.id;
-      await manager.query(
-        `INSERT INTO memberships (user_id, network_id, role) VALUES ($1, $2, $3)
-         ON CONFLICT (user_id, network_id) DO NOTHING`,
-        [userId, row.network_id, row.role],
-      );
+      const created = await manager
+        .getRepository(User)
+        .insert({ email: row.email, name: input.name, passwordHash });
+      const userId = created.identifiers[0]!.id as string;
+      await manager
+        .createQueryBuilder()
+        .insert()
+        .into(Membership)
+        .values({ userId, networkId: row.networkId, role: row.role })
+        .orIgnore()
+        .execute();
       // Sites enrolled for this address now belong to the new account.
-      await manager.query(
-        `UPDATE sites SET grower_user_id = $1, grower_email = NULL
-          WHERE grower_email = $2 AND grower_user_id IS NULL
-            AND trial_id IN (SELECT id FROM trials WHERE network_id = $3)`,
-        [userId, row.email, row.network_id],
-      );
-      await manager.query(
-        'UPDATE invitations SET accepted_at = now() WHERE email = $1 AND network_id = $2 AND accepted_at IS NULL',
-        [row.email, row.network_id],
-      );
+      const trials = await manager
+        .getRepository(Trial)
+        .find({ select: { id: true }, where: { networkId: row.networkId } });
+      if (trials.length > 0)
+        await manager.getRepository(Site).update(
+          {
+            growerEmail: row.email,
+            growerUserId: IsNull(),
+            trialId: In(trials.map((t) => t.id)),
+          },
+          { growerUserId: userId, growerEmail: null },
+        );
+      await manager
+        .getRepository(Invitation)
+        .update(
+          { email: row.email, networkId: row.networkId, acceptedAt: IsNull() },
+          { acceptedAt: new Date() },
+        );
       return userId;
     });
   }

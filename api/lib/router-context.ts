@@ -3,7 +3,6 @@ import type { DataSource } from 'typeorm';
 import type { AppConfig } from '../config/env';
 import type { AuthService } from '../auth/auth.service';
 import type { InvitationsService } from '../invitations/invitations.service';
-import type { MailCatcher } from '../mail/mail-catcher';
 import type { Mailer } from '../mail/mailer';
 import type { Policies } from '../middleware/access';
 import type { RouteEntry } from './route-table';
@@ -14,7 +13,6 @@ export interface RouterContext {
   policies: Policies;
   table: RouteEntry[];
   mailer: Mailer;
-  mailCatcher: MailCatcher | null;
   auth: AuthService;
   invitations: InvitationsService;
 }

@@ -1,11 +1,14 @@
-// Reading and writing strip observations inside a transaction, shared by the strip form, the
-// CSV import and site data: site context, row mapping, the publish lock and data_version bumps.
+// Site and strip data for collection and reports, through TypeORM: the site with its trial's
+// design, its strips with their observations, the publish lock and the data_version bump. The one
+// mapping between the observations table and ObservationValues lives here.
 import type { EntityManager } from 'typeorm';
+import { Observation } from '../../db/entities/observation.entity';
+import { Site } from '../../db/entities/site.entity';
+import { Strip } from '../../db/entities/strip.entity';
 import { EMPTY_OBSERVATION, type ObservationValues } from '../../shared/schemas/observation';
 import type { SiteDates } from '../../shared/schemas/strip';
 import type { CropKey, CustomCrop, RateUnit, UnitSystem } from '../../shared/schemas/trial';
-import { preparedQuery } from '../../db/prepared';
-import { AUDIT_INSERT } from '../audit/audit.service';
+import { recordAudit } from '../audit/audit.service';
 import { Locked, NotFound } from '../errors';
 
 export interface SiteRecord extends SiteDates {
@@ -50,81 +53,92 @@ export interface StripRecord {
   updatedAt: string | null;
 }
 
-const num = (value: unknown): number | null =>
-  value === null || value === undefined ? null : Number(value);
-const iso = (value: unknown): string | null =>
-  value instanceof Date
-    ? value.toISOString()
-    : value === null || value === undefined
-      ? null
-      : String(value);
-
-/** Which site: by its id, or by the id of one of its strips (saves a lookup on strip routes). */
+/** Which site: by its id, or by the id of one of its strips. */
 export type SiteKey = string | { stripId: string };
-const siteIdSql = (key: SiteKey) =>
-  typeof key === 'string' ? '$1' : '(SELECT site_id FROM strips WHERE id = $1)';
-const siteKeyParam = (key: SiteKey) => (typeof key === 'string' ? key : key.stripId);
 
-const SITE_SELECT = `
-  SELECT s.id, s.trial_id, t.network_id, t.name AS trial_name, s.field_name, s.notes, s.grower_user_id,
-         u.name AS grower_name, COALESCE(u.email, s.grower_email) AS grower_email,
-         t.unit_system, t.crop, t.custom_crop, t.blocks_per_site, t.rows_per_strip, t.row_spacing_in,
-         t.strip_length_ft, t.thousand_kernel_weight_g, t.reference_rate, t.reference_unit,
-         t.seed_price_per_lb, t.grain_price_per_bu, s.published_at, s.data_version,
-         s.sowing_date::text AS sowing_date, s.emergence_date::text AS emergence_date,
-         s.heading_date::text AS heading_date, s.harvest_date::text AS harvest_date,
-         (SELECT coalesce(json_agg(json_build_object('id', r.id, 'multiplier', r.multiplier, 'label', r.label) ORDER BY r.multiplier), '[]')
-            FROM rate_levels r WHERE r.trial_id = t.id) AS levels
-    FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id`;
+async function siteIdOf(manager: EntityManager, key: SiteKey): Promise<string> {
+  if (typeof key === 'string') return key;
+  const strip = await manager
+    .getRepository(Strip)
+    .findOne({ select: { id: true, siteId: true }, where: { id: key.stripId } });
+  if (!strip) throw new NotFound('Strip');
+  return strip.siteId;
+}
 
-/** The site with its trial's layout and rate levels, in one query; `lock` takes the row lock writers need. */
+/** The site entity with its trial, the trial's rate levels (lowest first) and the grower. */
+export async function findSiteWithDesign(manager: EntityManager, siteId: string): Promise<Site> {
+  const site = await manager
+    .getRepository(Site)
+    .createQueryBuilder('site')
+    .innerJoinAndSelect('site.trial', 'trial')
+    .leftJoinAndSelect('trial.rateLevels', 'level')
+    .leftJoinAndSelect('site.grower', 'grower')
+    .where('site.id = :siteId', { siteId })
+    .orderBy('level.multiplier', 'ASC')
+    .getOne();
+  if (!site) throw new NotFound('Site');
+  return site;
+}
+
+/** Takes the row lock every change to a site's data waits on; answers whether it is published. */
+async function lockSiteRow(manager: EntityManager, siteId: string): Promise<Site> {
+  const site = await manager
+    .getRepository(Site)
+    .createQueryBuilder('site')
+    .setLock('pessimistic_write')
+    .where('site.id = :siteId', { siteId })
+    .getOne();
+  if (!site) throw new NotFound('Site');
+  return site;
+}
+
+export function toSiteRecord(site: Site): SiteRecord {
+  const trial = site.trial!;
+  return {
+    siteId: site.id,
+    trialId: site.trialId,
+    networkId: trial.networkId,
+    trialName: trial.name,
+    fieldName: site.fieldName,
+    notes: site.notes,
+    growerUserId: site.growerUserId,
+    growerName: site.grower?.name ?? null,
+    growerEmail: site.grower?.email ?? site.growerEmail,
+    unitSystem: trial.unitSystem,
+    crop: trial.crop,
+    customCrop: trial.customCrop,
+    blocksPerSite: trial.blocksPerSite,
+    rowsPerStrip: trial.rowsPerStrip,
+    rowSpacingIn: trial.rowSpacingIn,
+    stripLengthFt: trial.stripLengthFt,
+    thousandKernelWeightG: trial.thousandKernelWeightG,
+    referenceRate: trial.referenceRate,
+    referenceUnit: trial.referenceUnit,
+    seedPricePerLb: trial.seedPricePerLb,
+    grainPricePerBu: trial.grainPricePerBu,
+    publishedAt: site.publishedAt?.toISOString() ?? null,
+    dataVersion: site.dataVersion,
+    sowingDate: site.sowingDate,
+    emergenceDate: site.emergenceDate,
+    headingDate: site.headingDate,
+    harvestDate: site.harvestDate,
+    rateLevels: (trial.rateLevels ?? []).map((l) => ({
+      id: l.id,
+      multiplier: l.multiplier,
+      label: l.label,
+    })),
+  };
+}
+
+/** The site with its trial's layout and rate levels; `lock` takes the row lock writers need first. */
 export async function loadSite(
   manager: EntityManager,
   key: SiteKey,
   options: { lock?: boolean } = {},
 ): Promise<SiteRecord> {
-  const rows = await preparedQuery(
-    manager,
-    `${SITE_SELECT} WHERE s.id = ${siteIdSql(key)}${options.lock ? ' FOR UPDATE OF s' : ''}`,
-    [siteKeyParam(key)],
-  );
-  if (!rows[0]) throw new NotFound(typeof key === 'string' ? 'Site' : 'Strip');
-  return toSiteRecord(rows[0]);
-}
-
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-function toSiteRecord(row: any): SiteRecord {
-  const levels: { id: string; multiplier: string | number; label: string }[] = row.levels;
-  return {
-    siteId: row.id,
-    trialId: row.trial_id,
-    networkId: row.network_id,
-    trialName: row.trial_name,
-    fieldName: row.field_name,
-    notes: row.notes,
-    growerUserId: row.grower_user_id,
-    growerName: row.grower_name,
-    growerEmail: row.grower_email,
-    unitSystem: row.unit_system,
-    crop: row.crop,
-    customCrop: row.custom_crop,
-    blocksPerSite: num(row.blocks_per_site),
-    rowsPerStrip: num(row.rows_per_strip),
-    rowSpacingIn: num(row.row_spacing_in),
-    stripLengthFt: num(row.strip_length_ft),
-    thousandKernelWeightG: num(row.thousand_kernel_weight_g),
-    referenceRate: num(row.reference_rate),
-    referenceUnit: row.reference_unit,
-    seedPricePerLb: num(row.seed_price_per_lb),
-    grainPricePerBu: num(row.grain_price_per_bu),
-    publishedAt: iso(row.published_at),
-    dataVersion: Number(row.data_version),
-    sowingDate: row.sowing_date,
-    emergenceDate: row.emergence_date,
-    headingDate: row.heading_date,
-    harvestDate: row.harvest_date,
-    rateLevels: levels.map((l) => ({ id: l.id, multiplier: Number(l.multiplier), label: l.label })),
-  };
+  const siteId = await siteIdOf(manager, key);
+  if (options.lock) await lockSiteRow(manager, siteId);
+  return toSiteRecord(await findSiteWithDesign(manager, siteId));
 }
 
 /** The answer to a data change on a site whose report is published. */
@@ -145,60 +159,83 @@ export async function lockSiteForChange(
 
 /** Reports compare data_version with their snapshot: bump it on every change to site data. */
 export async function bumpDataVersion(manager: EntityManager, siteId: string): Promise<number> {
-  // Wrapped in a CTE so the driver answers with rows (a bare UPDATE answers [rows, count]).
-  const [row] = await manager.query(
-    'WITH bumped AS (UPDATE sites SET data_version = data_version + 1, updated_at = now() WHERE id = $1 RETURNING data_version) SELECT data_version FROM bumped',
-    [siteId],
-  );
-  return Number(row.data_version);
+  await manager
+    .getRepository(Site)
+    .update(siteId, { dataVersion: () => 'data_version + 1', updatedAt: () => 'now()' });
+  const site = await manager
+    .getRepository(Site)
+    .findOne({ select: { id: true, dataVersion: true }, where: { id: siteId } });
+  return site!.dataVersion;
 }
 
-const STRIP_SELECT = `
-  SELECT st.id, st.site_id, st.block, st.position, st.rate_level_id, st.version, rl.multiplier, rl.label,
-         o.strip_id AS obs_id, o.seeds_sown, o.stand_counts, o.stand_row_length, o.tiller_plants, o.tiller_count,
-         o.head_counts, o.head_row_length, o.grain_weight, o.harvest_rows, o.harvest_length, o.harvest_area,
-         o.moisture_pct, o.test_weight, o.sowing_date::text AS sowing_date, o.emergence_date::text AS emergence_date,
-         o.heading_date::text AS heading_date, o.harvest_date::text AS harvest_date, o.notes, o.updated_at
-    FROM strips st JOIN rate_levels rl ON rl.id = st.rate_level_id
-    LEFT JOIN observations o ON o.strip_id = st.id`;
-
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-function toStripRecord(row: any): StripRecord {
-  const values: ObservationValues = row.obs_id
-    ? {
-        seedsSown: num(row.seeds_sown),
-        standCounts: (row.stand_counts ?? []).map(Number),
-        standRowLength: num(row.stand_row_length),
-        tillerPlants: num(row.tiller_plants),
-        tillerCount: num(row.tiller_count),
-        headCounts: (row.head_counts ?? []).map(Number),
-        headRowLength: num(row.head_row_length),
-        grainWeight: num(row.grain_weight),
-        harvestRows: num(row.harvest_rows),
-        harvestLength: num(row.harvest_length),
-        harvestArea: num(row.harvest_area),
-        moisturePct: num(row.moisture_pct),
-        testWeight: num(row.test_weight),
-        sowingDate: row.sowing_date,
-        emergenceDate: row.emergence_date,
-        headingDate: row.heading_date,
-        harvestDate: row.harvest_date,
-        notes: row.notes ?? '',
-      }
-    : { ...EMPTY_OBSERVATION, standCounts: [], headCounts: [] };
+/** An observation row as the values the forms, imports and reports share. */
+export function observationValues(observation: Observation | null | undefined): ObservationValues {
+  if (!observation) return { ...EMPTY_OBSERVATION, standCounts: [], headCounts: [] };
   return {
-    stripId: row.id,
-    siteId: row.site_id,
-    block: Number(row.block),
-    position: Number(row.position),
-    rateLevelId: row.rate_level_id,
-    rate: Number(row.multiplier),
-    label: row.label,
-    version: Number(row.version),
-    values,
-    hasObservation: Boolean(row.obs_id),
-    updatedAt: iso(row.updated_at),
+    seedsSown: observation.seedsSown,
+    standCounts: (observation.standCounts ?? []).map(Number),
+    standRowLength: observation.standRowLength,
+    tillerPlants: observation.tillerPlants,
+    tillerCount: observation.tillerCount,
+    headCounts: (observation.headCounts ?? []).map(Number),
+    headRowLength: observation.headRowLength,
+    grainWeight: observation.grainWeight,
+    harvestRows: observation.harvestRows,
+    harvestLength: observation.harvestLength,
+    harvestArea: observation.harvestArea,
+    moisturePct: observation.moisturePct,
+    testWeight: observation.testWeight,
+    sowingDate: observation.sowingDate,
+    emergenceDate: observation.emergenceDate,
+    headingDate: observation.headingDate,
+    harvestDate: observation.harvestDate,
+    notes: observation.notes ?? '',
   };
+}
+
+/** The observations row for a strip's values (the reverse of observationValues). */
+function observationRow(
+  stripId: string,
+  values: ObservationValues,
+  actorUserId: string | null,
+): Partial<Observation> {
+  return {
+    stripId,
+    ...values,
+    standCounts: values.standCounts ?? [],
+    headCounts: values.headCounts ?? [],
+    notes: values.notes ?? '',
+    updatedBy: actorUserId,
+    updatedAt: new Date(),
+  };
+}
+
+export function toStripRecord(strip: Strip): StripRecord {
+  return {
+    stripId: strip.id,
+    siteId: strip.siteId,
+    block: strip.block,
+    position: strip.position,
+    rateLevelId: strip.rateLevelId,
+    rate: strip.rateLevel?.multiplier ?? Number.NaN,
+    label: strip.rateLevel?.label ?? '',
+    version: strip.version,
+    values: observationValues(strip.observation),
+    hasObservation: Boolean(strip.observation),
+    updatedAt: strip.observation?.updatedAt?.toISOString() ?? null,
+  };
+}
+
+/** Strips with their rate level and observation, in field order (site, block, position). */
+export function stripsWithObservations(manager: EntityManager) {
+  return manager
+    .getRepository(Strip)
+    .createQueryBuilder('strip')
+    .innerJoinAndSelect('strip.rateLevel', 'level')
+    .leftJoinAndSelect('strip.observation', 'observation')
+    .orderBy('strip.siteId', 'ASC')
+    .addOrderBy('strip.block', 'ASC')
+    .addOrderBy('strip.position', 'ASC');
 }
 
 export async function loadSiteStrips(
@@ -206,26 +243,18 @@ export async function loadSiteStrips(
   key: SiteKey,
   options: { lock?: boolean } = {},
 ): Promise<StripRecord[]> {
-  const rows = await preparedQuery(
-    manager,
-    `${STRIP_SELECT} WHERE st.site_id = ${siteIdSql(key)} ORDER BY st.block, st.position${options.lock ? ' FOR UPDATE OF st' : ''}`,
-    [siteKeyParam(key)],
-  );
-  return rows.map(toStripRecord);
+  const siteId = await siteIdOf(manager, key);
+  const query = stripsWithObservations(manager).where('strip.siteId = :siteId', { siteId });
+  if (options.lock) query.setLock('pessimistic_write', undefined, ['strip']);
+  return (await query.getMany()).map(toStripRecord);
 }
 
-export async function loadStrip(
-  manager: EntityManager,
-  stripId: string,
-  options: { lock?: boolean } = {},
-): Promise<StripRecord> {
-  const rows = await preparedQuery(
-    manager,
-    `${STRIP_SELECT} WHERE st.id = $1${options.lock ? ' FOR UPDATE OF st' : ''}`,
-    [stripId],
-  );
-  if (!rows[0]) throw new NotFound('Strip');
-  return toStripRecord(rows[0]);
+export async function loadStrip(manager: EntityManager, stripId: string): Promise<StripRecord> {
+  const strip = await stripsWithObservations(manager)
+    .where('strip.id = :stripId', { stripId })
+    .getOne();
+  if (!strip) throw new NotFound('Strip');
+  return toStripRecord(strip);
 }
 
 const sameValue = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
@@ -256,54 +285,8 @@ export function patchAlreadyApplied(
   );
 }
 
-const OBSERVATION_RECORD = `strip_id uuid, seeds_sown integer, stand_counts jsonb, stand_row_length numeric, tiller_plants integer,
-  tiller_count integer, head_counts jsonb, head_row_length numeric, grain_weight numeric, harvest_rows integer,
-  harvest_length numeric, harvest_area numeric, moisture_pct numeric, test_weight numeric, sowing_date date,
-  emergence_date date, heading_date date, harvest_date date, notes text`;
-
-const OBSERVATION_INSERT = `INSERT INTO observations (strip_id, seeds_sown, stand_counts, stand_row_length, tiller_plants, tiller_count,
-    head_counts, head_row_length, grain_weight, harvest_rows, harvest_length, harvest_area, moisture_pct,
-    test_weight, sowing_date, emergence_date, heading_date, harvest_date, notes, updated_by, updated_at)
-  SELECT x.strip_id, x.seeds_sown, coalesce(x.stand_counts, '[]'), x.stand_row_length, x.tiller_plants, x.tiller_count,
-         coalesce(x.head_counts, '[]'), x.head_row_length, x.grain_weight, x.harvest_rows, x.harvest_length, x.harvest_area,
-         x.moisture_pct, x.test_weight, x.sowing_date, x.emergence_date, x.heading_date, x.harvest_date, coalesce(x.notes, '')`;
-
-const OBSERVATION_ON_CONFLICT = `ON CONFLICT (strip_id) DO UPDATE SET
-    seeds_sown = EXCLUDED.seeds_sown, stand_counts = EXCLUDED.stand_counts, stand_row_length = EXCLUDED.stand_row_length,
-    tiller_plants = EXCLUDED.tiller_plants, tiller_count = EXCLUDED.tiller_count, head_counts = EXCLUDED.head_counts,
-    head_row_length = EXCLUDED.head_row_length, grain_weight = EXCLUDED.grain_weight, harvest_rows = EXCLUDED.harvest_rows,
-    harvest_length = EXCLUDED.harvest_length, harvest_area = EXCLUDED.harvest_area, moisture_pct = EXCLUDED.moisture_pct,
-    test_weight = EXCLUDED.test_weight, sowing_date = EXCLUDED.sowing_date, emergence_date = EXCLUDED.emergence_date,
-    heading_date = EXCLUDED.heading_date, harvest_date = EXCLUDED.harvest_date, notes = EXCLUDED.notes,
-    updated_by = EXCLUDED.updated_by, updated_at = now()`;
-
-/** Observation values as the rows jsonb_to_recordset(OBSERVATION_RECORD) reads. */
-function observationRecords(rows: readonly { stripId: string; values: ObservationValues }[]) {
-  return rows.map(({ stripId, values }) => ({
-    strip_id: stripId,
-    seeds_sown: values.seedsSown,
-    stand_counts: values.standCounts,
-    stand_row_length: values.standRowLength,
-    tiller_plants: values.tillerPlants,
-    tiller_count: values.tillerCount,
-    head_counts: values.headCounts,
-    head_row_length: values.headRowLength,
-    grain_weight: values.grainWeight,
-    harvest_rows: values.harvestRows,
-    harvest_length: values.harvestLength,
-    harvest_area: values.harvestArea,
-    moisture_pct: values.moisturePct,
-    test_weight: values.testWeight,
-    sowing_date: values.sowingDate,
-    emergence_date: values.emergenceDate,
-    heading_date: values.headingDate,
-    harvest_date: values.harvestDate,
-    notes: values.notes,
-  }));
-}
-
 /**
- * Inserts or replaces the observations of many strips in one statement per thousand (a CSV
+ * Inserts or replaces the observations of many strips, a thousand rows per statement (a CSV
  * import of 5,000 rows would otherwise make 5,000 round trips). Versions are the caller's.
  */
 export async function writeObservationsInBulk(
@@ -311,76 +294,57 @@ export async function writeObservationsInBulk(
   rows: readonly { stripId: string; values: ObservationValues }[],
   actorUserId: string | null,
 ): Promise<void> {
+  const repository = manager.getRepository(Observation);
   for (let start = 0; start < rows.length; start += 1000) {
-    await manager.query(
-      `${OBSERVATION_INSERT}, $2, now()
-         FROM jsonb_to_recordset($1::jsonb) AS x(${OBSERVATION_RECORD})
-       ${OBSERVATION_ON_CONFLICT}`,
-      [JSON.stringify(observationRecords(rows.slice(start, start + 1000))), actorUserId],
-    );
+    const chunk = rows
+      .slice(start, start + 1000)
+      .map(({ stripId, values }) => observationRow(stripId, values, actorUserId));
+    await repository.upsert(chunk, { conflictPaths: ['stripId'] });
   }
 }
 
+/** Moves a strip's version from `version` to the next; false when someone else moved it first. */
+export async function advanceStripVersion(
+  manager: EntityManager,
+  stripId: string,
+  version: number,
+): Promise<boolean> {
+  const result = await manager
+    .getRepository(Strip)
+    .update({ id: stripId, version }, { version: version + 1 });
+  return result.affected === 1;
+}
+
 /**
- * One strip's change as a single statement (so a single round trip, atomic on its own): lock the
- * site and refuse when its report is published, move the strip's version only when it is still
- * the one the change was made on, then write the observation, the audit event and the site's
- * data_version. PostgreSQL runs every WITH part once; each write waits for `bumped`.
+ * Writes one strip's new values in the caller's transaction, after its site is locked and its
+ * version advanced: the observation, the audit event and the site's data_version.
  */
-const STRIP_CHANGE = `
-  WITH open_site AS (
-    SELECT id FROM sites WHERE id = $1 AND published_at IS NULL FOR UPDATE
-  ), bumped AS (
-    UPDATE strips SET version = version + 1
-     WHERE id = $2 AND site_id = $1 AND version = $3 AND EXISTS (SELECT 1 FROM open_site)
-    RETURNING version
-  ), written AS (
-    ${OBSERVATION_INSERT}, $5::uuid, now()
-      FROM jsonb_to_recordset($4::jsonb) AS x(${OBSERVATION_RECORD})
-     WHERE EXISTS (SELECT 1 FROM bumped)
-    ${OBSERVATION_ON_CONFLICT}
-    RETURNING updated_at
-  ), audited AS (
-    ${AUDIT_INSERT}
-    SELECT $5::uuid, 'strip', $2::uuid, $1::uuid, 'update', $6::jsonb, $7::jsonb WHERE EXISTS (SELECT 1 FROM bumped)
-  ), versioned AS (
-    UPDATE sites SET data_version = data_version + 1, updated_at = now()
-     WHERE id = $1 AND EXISTS (SELECT 1 FROM bumped)
-    RETURNING data_version
-  )
-  SELECT EXISTS (SELECT 1 FROM open_site) AS open, (SELECT version FROM bumped) AS version,
-         (SELECT updated_at FROM written) AS updated_at, (SELECT data_version FROM versioned) AS data_version`;
-
-export type StripChangeOutcome =
-  { kind: 'saved'; version: number; updatedAt: string } | { kind: 'stale' } | { kind: 'published' };
-
-/** Saves one strip's observation made on `version`, with its audit trail (see STRIP_CHANGE). */
-export async function changeStrip(
+export async function writeStripChange(
   manager: EntityManager,
   change: {
     siteId: string;
     stripId: string;
-    version: number;
     values: ObservationValues;
     actorUserId: string;
     before: Record<string, unknown>;
     after: Record<string, unknown>;
   },
-): Promise<StripChangeOutcome> {
-  const [row] = await preparedQuery<{
-    open: boolean;
-    version: string | null;
-    updated_at: Date | null;
-  }>(manager, STRIP_CHANGE, [
-    change.siteId,
-    change.stripId,
-    change.version,
-    JSON.stringify(observationRecords([{ stripId: change.stripId, values: change.values }])),
-    change.actorUserId,
-    JSON.stringify(change.before),
-    JSON.stringify(change.after),
-  ]);
-  if (!row?.open) return { kind: 'published' };
-  if (row.version === null) return { kind: 'stale' };
-  return { kind: 'saved', version: Number(row.version), updatedAt: iso(row.updated_at)! };
+): Promise<void> {
+  await manager
+    .getRepository(Observation)
+    .upsert(observationRow(change.stripId, change.values, change.actorUserId), {
+      conflictPaths: ['stripId'],
+    });
+  await recordAudit(manager, {
+    actorUserId: change.actorUserId,
+    entityType: 'strip',
+    entityId: change.stripId,
+    siteId: change.siteId,
+    action: 'update',
+    before: change.before,
+    after: change.after,
+  });
+  await manager
+    .getRepository(Site)
+    .update(change.siteId, { dataVersion: () => 'data_version + 1', updatedAt: () => 'now()' });
 }

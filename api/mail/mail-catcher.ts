@@ -1,5 +1,6 @@
-// A local SMTP catcher on loopback (smtp-server + mailparser): keeps sent mail in memory so
-// the demo and the tests can read it; nothing leaves the machine.
+// A local SMTP catcher on loopback (smtp-server + mailparser) for development and tests: keeps
+// sent mail in memory so the demo and the tests can read it; nothing leaves the machine. It runs
+// as its own process (catcher-process.ts) so every API worker sends to, and reads from, one place.
 import { SMTPServer } from 'smtp-server';
 import { simpleParser, type AddressObject } from 'mailparser';
 import type { CaughtMail } from '../../shared/schemas/auth';
@@ -82,4 +83,11 @@ export async function startMailCatcher(
     },
     close: () => new Promise<void>((resolve) => server.close(() => resolve())),
   };
+}
+
+/** Reads the caught mail of a catcher process over its loopback HTTP port. */
+export async function fetchCaughtMail(catcherUrl: string): Promise<CaughtMail[]> {
+  const res = await fetch(new URL('/messages', catcherUrl), { signal: AbortSignal.timeout(3000) });
+  if (!res.ok) throw new Error(`The mail catcher answered ${res.status}`);
+  return (await res.json()) as CaughtMail[];
 }

@@ -3,8 +3,13 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { DataSource } from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
 import { Forbidden, NotFound, Unauthenticated } from '../errors';
-import { preparedQuery } from '../../db/prepared';
-import { createFreshCache, SHORT_LIVED } from '../lib/fresh-cache';
+import { IsNull } from 'typeorm';
+import { Attachment } from '../../db/entities/attachment.entity';
+import { Membership } from '../../db/entities/membership.entity';
+import { ReportSnapshot } from '../../db/entities/report-snapshot.entity';
+import { Site } from '../../db/entities/site.entity';
+import { Strip } from '../../db/entities/strip.entity';
+import { Trial } from '../../db/entities/trial.entity';
 
 export type PolicyKind =
   | 'public'
@@ -44,22 +49,32 @@ export function isCoordinating(role: Role | undefined): boolean {
   return role !== undefined && COORDINATING.includes(role);
 }
 
-/** Builds the policies against one DataSource. */
+/**
+ * Whether the caller grows this site now: they are its grower and still hold the grower role in
+ * its network (a grower changed to member keeps their name on the site but loses write access).
+ */
+export function growsSite(
+  role: Role | undefined,
+  growerUserId: string | null,
+  userId: string,
+): boolean {
+  return role === 'grower' && growerUserId !== null && growerUserId === userId;
+}
+
+/**
+ * Builds the policies against one DataSource. Every check reads PostgreSQL afresh, so a role
+ * change, a removal or a publish applies to the very next request on every server process.
+ */
 export function createPolicies(dataSource: DataSource) {
-  const memberships = createFreshCache<Map<string, Role>>(SHORT_LIVED);
   async function context(req: Request): Promise<AccessContext> {
     const userId = req.user?.id;
     if (!userId) throw new Unauthenticated();
     if (req.access) return req.access;
-    const roles = await memberships.get(userId, async () => {
-      const rows = await preparedQuery<{ network_id: string; role: Role }>(
-        dataSource,
-        'SELECT network_id, role FROM memberships WHERE user_id = $1',
-        [userId],
-      );
-      return new Map(rows.map((r) => [r.network_id, r.role]));
+    const memberships = await dataSource.getRepository(Membership).find({
+      select: { networkId: true, role: true },
+      where: { userId },
     });
-    req.access = { userId, roles };
+    req.access = { userId, roles: new Map(memberships.map((m) => [m.networkId, m.role])) };
     return req.access;
   }
 
@@ -75,99 +90,57 @@ export function createPolicies(dataSource: DataSource) {
     return value;
   }
 
-  // Which network a trial belongs to, which trial and network a site belongs to, and which site
-  // a strip or photo belongs to never change once written: kept across writes. What can change
-  // (grower, published, what is published) is kept only until this process writes anything.
-  const forever = { keepAcrossWrites: true, maxAgeMs: 10 * 60_000, maxEntries: 20_000 };
-  const trialNetworks = createFreshCache<string>(forever);
-  const siteHomes = createFreshCache<SiteHome>(forever);
-  const parentSites = createFreshCache<string>(forever);
-  const siteStates = createFreshCache<SiteState>();
-  const publishedTrials = createFreshCache<boolean>();
-  const growersInTrial = createFreshCache<boolean>();
-
-  function trialNetwork(trialId: string): Promise<string> {
-    return trialNetworks.get(trialId, async () => {
-      const rows = await preparedQuery<{ network_id: string }>(
-        dataSource,
-        'SELECT network_id FROM trials WHERE id = $1',
-        [trialId],
-      );
-      if (!rows[0]) throw new NotFound('Trial');
-      return rows[0].network_id;
-    });
+  async function trialNetwork(trialId: string): Promise<string> {
+    const trial = await dataSource
+      .getRepository(Trial)
+      .findOne({ select: { id: true, networkId: true }, where: { id: trialId } });
+    if (!trial) throw new NotFound('Trial');
+    return trial.networkId;
   }
 
-  interface SiteHome {
+  interface SiteFacts {
     networkId: string;
-    trialId: string;
-  }
-  function siteHome(siteId: string): Promise<SiteHome> {
-    return siteHomes.get(siteId, async () => {
-      const rows = await preparedQuery<{ network_id: string; trial_id: string }>(
-        dataSource,
-        'SELECT t.network_id, s.trial_id FROM sites s JOIN trials t ON t.id = s.trial_id WHERE s.id = $1',
-        [siteId],
-      );
-      if (!rows[0]) throw new NotFound('Site');
-      return { networkId: rows[0].network_id, trialId: rows[0].trial_id };
-    });
-  }
-
-  interface SiteState {
     growerUserId: string | null;
     published: boolean;
   }
-  function siteState(siteId: string): Promise<SiteState> {
-    return siteStates.get(siteId, async () => {
-      const rows = await preparedQuery<{ grower_user_id: string | null; published: boolean }>(
-        dataSource,
-        'SELECT grower_user_id, published_at IS NOT NULL AS published FROM sites WHERE id = $1',
-        [siteId],
-      );
-      if (!rows[0]) throw new NotFound('Site');
-      return { growerUserId: rows[0].grower_user_id, published: rows[0].published };
-    });
+  async function siteFacts(siteId: string): Promise<SiteFacts> {
+    const site = await dataSource
+      .getRepository(Site)
+      .createQueryBuilder('site')
+      .innerJoin('site.trial', 'trial')
+      .select(['site.id', 'site.growerUserId', 'site.publishedAt', 'trial.id', 'trial.networkId'])
+      .where('site.id = :siteId', { siteId })
+      .getOne();
+    if (!site?.trial) throw new NotFound('Site');
+    return {
+      networkId: site.trial.networkId,
+      growerUserId: site.growerUserId,
+      published: site.publishedAt !== null,
+    };
   }
 
-  const PARENT_SITE_SQL = {
-    strips: 'SELECT site_id FROM strips WHERE id = $1',
-    attachments: 'SELECT site_id FROM attachments WHERE id = $1',
-  };
   /** The site a strip or a photo belongs to. */
-  function parentSite(
-    table: keyof typeof PARENT_SITE_SQL,
+  async function parentSite(
+    entity: typeof Strip | typeof Attachment,
     id: string,
     what: string,
   ): Promise<string> {
-    return parentSites.get(`${table}:${id}`, async () => {
-      const rows = await preparedQuery<{ site_id: string }>(dataSource, PARENT_SITE_SQL[table], [
-        id,
-      ]);
-      if (!rows[0]) throw new NotFound(what);
-      return rows[0].site_id;
-    });
+    const row = await dataSource
+      .getRepository<{ id: string; siteId: string }>(entity)
+      .findOne({ select: { id: true, siteId: true }, where: { id } });
+    if (!row) throw new NotFound(what);
+    return row.siteId;
   }
 
   /** Whether the trial has a live published report: any scope, or only the pooled one. */
   function trialHasPublished(trialId: string, scope?: 'pooled'): Promise<boolean> {
-    return publishedTrials.get(`${trialId}:${scope ?? 'any'}`, async () => {
-      const rows = await dataSource.query(
-        `SELECT 1 FROM report_snapshots WHERE trial_id = $1 AND ($2::text IS NULL OR scope = $2) AND withdrawn_at IS NULL LIMIT 1`,
-        [trialId, scope ?? null],
-      );
-      return rows.length > 0;
-    });
+    return dataSource
+      .getRepository(ReportSnapshot)
+      .exists({ where: { trialId, withdrawnAt: IsNull(), ...(scope ? { scope } : {}) } });
   }
 
   function growsInTrial(trialId: string, userId: string): Promise<boolean> {
-    return growersInTrial.get(`${trialId}:${userId}`, async () => {
-      const rows = await dataSource.query(
-        'SELECT 1 FROM sites WHERE trial_id = $1 AND grower_user_id = $2 LIMIT 1',
-        [trialId, userId],
-      );
-      return rows.length > 0;
-    });
+    return dataSource.getRepository(Site).exists({ where: { trialId, growerUserId: userId } });
   }
 
   function policy(
@@ -187,12 +160,11 @@ export function createPolicies(dataSource: DataSource) {
     allowGrower: boolean,
     allowMemberWhenPublished: boolean,
   ) {
-    const ctx = await context(req);
-    const role = ctx.roles.get((await siteHome(siteId)).networkId);
+    const [ctx, site] = await Promise.all([context(req), siteFacts(siteId)]);
+    const role = ctx.roles.get(site.networkId);
     if (isCoordinating(role)) return;
     if (!role) throw new NotFound('Site');
-    const site = await siteState(siteId);
-    if (allowGrower && site.growerUserId === ctx.userId) return;
+    if (allowGrower && growsSite(role, site.growerUserId, ctx.userId)) return;
     if (allowMemberWhenPublished && site.published) return;
     throw new Forbidden();
   }
@@ -287,7 +259,7 @@ export function createPolicies(dataSource: DataSource) {
       policy(
         'strip-grower',
         async (req) => {
-          const siteId = await parentSite('strips', uuidParam(req, param, 'Strip'), 'Strip');
+          const siteId = await parentSite(Strip, uuidParam(req, param, 'Strip'), 'Strip');
           await checkSite(req, siteId, true, false);
         },
         param,
@@ -296,7 +268,7 @@ export function createPolicies(dataSource: DataSource) {
       policy(
         'attachment-reader',
         async (req) => {
-          const siteId = await parentSite('attachments', uuidParam(req, param, 'Photo'), 'Photo');
+          const siteId = await parentSite(Attachment, uuidParam(req, param, 'Photo'), 'Photo');
           await checkSite(req, siteId, true, true);
         },
         param,

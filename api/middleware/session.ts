@@ -6,7 +6,6 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type pg from 'pg';
 import type { AppConfig } from '../config/env';
 import type { AuthService } from '../auth/auth.service';
-import { createFreshCache, SHORT_LIVED } from '../lib/fresh-cache';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -19,48 +18,11 @@ declare global {
   }
 }
 
-type SessionCallback = (err: unknown, session?: session.SessionData | null) => void;
-
 export function createSessionMiddleware(config: AppConfig, pool: pg.Pool) {
   const PgStore = connectPgSimple(session);
-  const recent = createFreshCache<string | null>(SHORT_LIVED);
-  /** PostgreSQL session store that answers repeated reads of one session from memory for 2 s. */
-  class CachedPgStore extends PgStore {
-    override get(sid: string, callback: SessionCallback) {
-      const stored = recent.get(
-        sid,
-        () =>
-          new Promise<string | null>((resolve, reject) => {
-            super.get(sid, (err: unknown, data?: session.SessionData | null) =>
-              err ? reject(err) : resolve(data ? JSON.stringify(data) : null),
-            );
-          }),
-      );
-      // Each request gets its own copy: express-session changes the object it is given.
-      stored.then(
-        (text) => callback(null, text === null ? null : JSON.parse(text)),
-        (err: unknown) => callback(err),
-      );
-    }
-    // Forget the session before and after the write: a read in between would cache the old row.
-    override set(sid: string, data: session.SessionData, callback?: (err?: unknown) => void) {
-      recent.delete(sid);
-      super.set(sid, data, (err?: unknown) => {
-        recent.delete(sid);
-        callback?.(err);
-      });
-    }
-    override destroy(sid: string, callback?: (err?: unknown) => void) {
-      recent.delete(sid);
-      super.destroy(sid, (err?: unknown) => {
-        recent.delete(sid);
-        callback?.(err);
-      });
-    }
-  }
   return session({
     // No touch on every request: a read-only request then costs at most one session SELECT.
-    store: new CachedPgStore({
+    store: new PgStore({
       pool,
       tableName: 'user_sessions',
       createTableIfMissing: false,
@@ -93,11 +55,9 @@ export function createPassport(auth: AuthService) {
     ),
   );
   instance.serializeUser((user, done) => done(null, user.id));
-  const users = createFreshCache<Express.User | null>(SHORT_LIVED);
+  // Read on every request, so a removed or renamed account applies on every server process at once.
   instance.deserializeUser((id: string, done) => {
-    users
-      .get(id, async () => (await auth.findSessionUser(id)) ?? null)
-      .then((user) => done(null, user ?? false), done);
+    auth.findSessionUser(id).then((user) => done(null, user ?? false), done);
   });
   return instance;
 }

@@ -1,24 +1,34 @@
 // Field-packet e-mail: tells each grower their packet (map, seed weights, protocol) is ready.
-import type { DataSource } from 'typeorm';
+import type { DataSource, FindOptionsWhere } from 'typeorm';
+import { Site } from '../../db/entities/site.entity';
 import type { PacketSendResult } from '../../shared/schemas/site';
 import { Conflict, NotFound } from '../errors';
 import { composeMail, type Mailer } from '../mail/mailer';
 
 interface PacketSite {
   id: string;
-  field_name: string;
-  trial_name: string;
+  fieldName: string;
+  trialName: string;
   season: string | null;
-  grower_name: string | null;
+  growerName: string | null;
   email: string | null;
+  /** The grower has not accepted their invitation yet. */
   pending: boolean;
   randomized: boolean;
 }
 
-const SITE_SQL = `SELECT s.id, s.field_name, t.name AS trial_name, t.season, u.name AS grower_name,
-       COALESCE(u.email, s.grower_email) AS email, (s.grower_user_id IS NULL) AS pending,
-       s.randomized_at IS NOT NULL AS randomized
-  FROM sites s JOIN trials t ON t.id = s.trial_id LEFT JOIN users u ON u.id = s.grower_user_id`;
+function toPacketSite(site: Site): PacketSite {
+  return {
+    id: site.id,
+    fieldName: site.fieldName,
+    trialName: site.trial!.name,
+    season: site.trial!.season,
+    growerName: site.grower?.name ?? null,
+    email: site.grower?.email ?? site.growerEmail,
+    pending: site.growerUserId === null,
+    randomized: site.randomizedAt !== null,
+  };
+}
 
 export function createPacketsService(deps: {
   dataSource: DataSource;
@@ -26,6 +36,25 @@ export function createPacketsService(deps: {
   publicUrl: string;
 }) {
   const { dataSource, mailer, publicUrl } = deps;
+
+  /** Sites with what the packet e-mail names: trial, season and grower. */
+  async function findPacketSites(where: FindOptionsWhere<Site>): Promise<PacketSite[]> {
+    const sites = await dataSource.getRepository(Site).find({
+      select: {
+        id: true,
+        fieldName: true,
+        growerUserId: true,
+        growerEmail: true,
+        randomizedAt: true,
+        trial: { id: true, name: true, season: true },
+        grower: { id: true, name: true, email: true },
+      },
+      relations: { trial: true, grower: true },
+      where,
+      order: { createdAt: 'ASC' },
+    });
+    return sites.map(toPacketSite);
+  }
 
   function skipReason(site: PacketSite): string | null {
     if (!site.randomized) return 'Not randomized yet: there is no strip map to send';
@@ -35,14 +64,14 @@ export function createPacketsService(deps: {
 
   async function send(site: PacketSite) {
     const url = `${publicUrl.replace(/\/$/, '')}/sites/${site.id}/packet`;
-    const greeting = site.grower_name ? `Hello ${site.grower_name},` : 'Hello,';
+    const greeting = site.growerName ? `Hello ${site.growerName},` : 'Hello,';
     await mailer.send(
       composeMail({
         to: site.email!,
-        subject: `Your field packet is ready: ${site.field_name} (${site.trial_name})`,
+        subject: `Your field packet is ready: ${site.fieldName} (${site.trialName})`,
         paragraphs: [
           greeting,
-          `Your field packet for ${site.field_name} in the seeding-rate trial "${site.trial_name}"${site.season ? ` (${site.season})` : ''} is ready.`,
+          `Your field packet for ${site.fieldName} in the seeding-rate trial "${site.trialName}"${site.season ? ` (${site.season})` : ''} is ready.`,
           'It holds the strip map, the seed to weigh out for every strip, how to calibrate your seeder, what to count and when, a blank recording sheet and the safety cautions. Print it or save it as a PDF before you go to the field.',
           ...(site.pending
             ? [
@@ -56,7 +85,7 @@ export function createPacketsService(deps: {
   }
 
   async function sendForSite(siteId: string): Promise<PacketSendResult> {
-    const [site]: PacketSite[] = await dataSource.query(`${SITE_SQL} WHERE s.id = $1`, [siteId]);
+    const [site] = await findPacketSites({ id: siteId });
     if (!site) throw new NotFound('Site');
     const reason = skipReason(site);
     if (reason) throw new Conflict(reason);
@@ -65,10 +94,7 @@ export function createPacketsService(deps: {
   }
 
   async function sendForTrial(trialId: string, _userId: string): Promise<PacketSendResult> {
-    const sites: PacketSite[] = await dataSource.query(
-      `${SITE_SQL} WHERE s.trial_id = $1 ORDER BY s.created_at`,
-      [trialId],
-    );
+    const sites = await findPacketSites({ trialId });
     const result: PacketSendResult = { sent: [], skipped: [] };
     for (const site of sites) {
       const reason = skipReason(site);

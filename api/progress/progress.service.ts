@@ -1,6 +1,9 @@
 // Trial progress for the coordinator (which measurements are in, per site) and reminder e-mails
 // to growers with counts still missing.
 import type { DataSource } from 'typeorm';
+import { AuditEvent } from '../../db/entities/audit-event.entity';
+import { Site } from '../../db/entities/site.entity';
+import { Trial } from '../../db/entities/trial.entity';
 import {
   MEASUREMENT_GROUPS,
   MEASUREMENT_GROUP_NAMES,
@@ -21,14 +24,31 @@ export function createProgressService(deps: {
 }) {
   const { dataSource } = deps;
 
+  /** When each site's data last changed (its newest audit event). */
+  async function lastChanges(siteIds: string[]): Promise<Map<string, Date>> {
+    if (siteIds.length === 0) return new Map();
+    const rows: { siteId: string; lastChange: Date }[] = await dataSource
+      .getRepository(AuditEvent)
+      .createQueryBuilder('event')
+      .select('event.siteId', 'siteId')
+      .addSelect('MAX(event.createdAt)', 'lastChange')
+      .where('event.siteId IN (:...siteIds)', { siteIds })
+      .groupBy('event.siteId')
+      .getRawMany();
+    return new Map(rows.map((r) => [r.siteId, r.lastChange]));
+  }
+
   async function progress(trialId: string): Promise<TrialProgress> {
-    const [trial] = await dataSource.query('SELECT id, name FROM trials WHERE id = $1', [trialId]);
+    const trial = await dataSource
+      .getRepository(Trial)
+      .findOne({ select: { id: true, name: true }, where: { id: trialId } });
     if (!trial) throw new NotFound('Trial');
-    const siteRows: { id: string; last_change: Date | null }[] = await dataSource.query(
-      `SELECT s.id, (SELECT max(created_at) FROM audit_events a WHERE a.site_id = s.id) AS last_change
-         FROM sites s WHERE s.trial_id = $1 ORDER BY s.field_name, s.id`,
-      [trialId],
-    );
+    const siteRows = await dataSource.getRepository(Site).find({
+      select: { id: true },
+      where: { trialId },
+      order: { fieldName: 'ASC', id: 'ASC' },
+    });
+    const changedAt = await lastChanges(siteRows.map((s) => s.id));
     const sites = [];
     for (const row of siteRows) {
       const site = await loadSite(dataSource.manager, row.id);
@@ -52,7 +72,7 @@ export function createProgressService(deps: {
           harvestDate: site.harvestDate,
         },
         publishedAt: site.publishedAt,
-        lastChangeAt: row.last_change ? row.last_change.toISOString() : null,
+        lastChangeAt: changedAt.get(row.id)?.toISOString() ?? null,
       });
     }
     return { trialId: trial.id, trialName: trial.name, sites };

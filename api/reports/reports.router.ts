@@ -1,10 +1,10 @@
 // Report routes: site and pooled reports, publishing, the public link and the exports.
-import { sendJson } from '../lib/send-json';
 import { Router, type Request } from 'express';
 import { z } from 'zod';
 import { PooledQuerySchema, PublicLinkInputSchema } from '../../shared/schemas/report';
 import { NotFound } from '../errors';
 import { secureRouter } from '../lib/route-table';
+import { sendTagged } from '../lib/send-tagged';
 import type { RouterContext } from '../lib/router-context';
 import { htmlToPdf, pooledReportHtml, siteReportHtml } from './reports.pdf';
 import { createReportsService } from './reports.service';
@@ -27,12 +27,11 @@ export function createReportsRouter(ctx: RouterContext) {
   });
 
   routes.get('/sites/:siteId/report', policies.siteReader(), async (req, res) => {
-    res.set('Cache-Control', 'private, no-cache');
-    sendJson(res, await reports.siteReport(param(req, 'siteId'), req.access ?? null));
+    sendTagged(req, res, await reports.siteReport(param(req, 'siteId'), req.access ?? null));
   });
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
-    const report = await reports.siteReport(param(req, 'siteId'), req.access ?? null);
+    const { report } = await reports.siteReport(param(req, 'siteId'), req.access ?? null);
     const pdf = await htmlToPdf(await siteReportHtml(report));
     res.set('Content-Type', 'application/pdf');
     res.set(
@@ -54,13 +53,16 @@ export function createReportsRouter(ctx: RouterContext) {
 
   routes.get('/trials/:trialId/pooled-report', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    res.set('Cache-Control', 'private, no-cache');
-    sendJson(res, await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query));
+    sendTagged(
+      req,
+      res,
+      await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
+    );
   });
 
   routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    const report = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
+    const { report } = await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query);
     const pdf = await htmlToPdf(await pooledReportHtml(report));
     res.set('Content-Type', 'application/pdf');
     res.set(
@@ -94,7 +96,7 @@ export function createReportsRouter(ctx: RouterContext) {
     if (!token.success) throw new NotFound('Report');
     res.set('Cache-Control', 'no-store');
     res.set('X-Robots-Tag', 'noindex');
-    res.json(await reports.publicReport(token.data, query));
+    res.json((await reports.publicReport(token.data, query)).report);
   });
 
   routes.get('/trials/:trialId/export.csv', policies.trialCoordinator(), async (req, res) => {

@@ -1,6 +1,9 @@
 // Site-level collection data: dates that apply to every strip, the site's notes, and the history
 // of changes a coordinator reads.
-import type { DataSource } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
+import { AuditEvent } from '../../db/entities/audit-event.entity';
+import { Site } from '../../db/entities/site.entity';
+import { Strip } from '../../db/entities/strip.entity';
 import type { Role } from '../../shared/schemas/common';
 import type { AuditEventDto, SiteContext, UpdateSiteDataInput } from '../../shared/schemas/strip';
 import { recordAudit } from '../audit/audit.service';
@@ -8,13 +11,25 @@ import { bumpDataVersion, loadSite, lockSiteForChange } from '../lib/strip-data'
 import { isCoordinating } from '../middleware/access';
 import { presentSite } from '../lib/strip-presenter';
 
-const COLUMNS = {
-  sowingDate: 'sowing_date',
-  emergenceDate: 'emergence_date',
-  headingDate: 'heading_date',
-  harvestDate: 'harvest_date',
-  notes: 'notes',
-} as const;
+/** The site fields a grower or coordinator edits here. */
+const FIELDS = ['sowingDate', 'emergenceDate', 'headingDate', 'harvestDate', 'notes'] as const;
+
+type StripPlace = NonNullable<AuditEventDto['strip']>;
+
+function toAuditEventDto(event: AuditEvent, strip: StripPlace | undefined): AuditEventDto {
+  return {
+    id: event.id,
+    createdAt: event.createdAt.toISOString(),
+    actorName: event.actor?.name ?? null,
+    actorEmail: event.actor?.email ?? null,
+    entityType: event.entityType,
+    entityId: event.entityId,
+    action: event.action,
+    strip: strip ?? null,
+    before: event.before ?? null,
+    after: event.after ?? null,
+  };
+}
 
 export function createSiteDataService(deps: { dataSource: DataSource }) {
   const { dataSource } = deps;
@@ -28,18 +43,16 @@ export function createSiteDataService(deps: { dataSource: DataSource }) {
         const site = await lockSiteForChange(manager, siteId);
         const before: Record<string, unknown> = {};
         const after: Record<string, unknown> = {};
-        const sets: string[] = [];
-        const params: unknown[] = [siteId];
-        for (const [key, column] of Object.entries(COLUMNS) as [keyof typeof COLUMNS, string][]) {
+        const changes: Partial<Pick<Site, (typeof FIELDS)[number]>> = {};
+        for (const key of FIELDS) {
           const value = input[key];
           if (value === undefined || value === site[key]) continue;
           before[key] = site[key];
           after[key] = value;
-          params.push(value);
-          sets.push(`${column} = $${params.length}`);
+          Object.assign(changes, { [key]: value });
         }
-        if (sets.length === 0) return;
-        await manager.query(`UPDATE sites SET ${sets.join(', ')} WHERE id = $1`, params);
+        if (Object.keys(changes).length === 0) return;
+        await manager.getRepository(Site).update(siteId, changes);
         await recordAudit(manager, {
           actorUserId: caller.userId,
           entityType: 'site',
@@ -60,37 +73,42 @@ export function createSiteDataService(deps: { dataSource: DataSource }) {
     },
 
     async listAudit(siteId: string): Promise<AuditEventDto[]> {
-      const rows = await dataSource.query(
-        `SELECT a.id, a.created_at, a.entity_type, a.entity_id, a.action, a.before, a.after,
-                u.name AS actor_name, u.email AS actor_email, st.block, st.position, rl.label
-           FROM audit_events a
-           LEFT JOIN users u ON u.id = a.actor_user_id
-           LEFT JOIN strips st ON a.entity_type = 'strip' AND st.id = a.entity_id
-           LEFT JOIN rate_levels rl ON rl.id = st.rate_level_id
-          WHERE a.site_id = $1
-          ORDER BY a.created_at DESC, a.id
-          LIMIT 500`,
-        [siteId],
-      );
-      return rows.map((row: Record<string, unknown>) => ({
-        id: row.id as string,
-        createdAt: (row.created_at as Date).toISOString(),
-        actorName: (row.actor_name as string | null) ?? null,
-        actorEmail: (row.actor_email as string | null) ?? null,
-        entityType: row.entity_type as string,
-        entityId: row.entity_id as string,
-        action: row.action as string,
-        strip:
-          row.block === null || row.block === undefined
-            ? null
-            : {
-                block: Number(row.block),
-                position: Number(row.position),
-                label: String(row.label),
+      const events = await dataSource
+        .getRepository(AuditEvent)
+        .createQueryBuilder('event')
+        .leftJoin('event.actor', 'actor')
+        .addSelect(['actor.id', 'actor.name', 'actor.email'])
+        .where('event.siteId = :siteId', { siteId })
+        .orderBy('event.createdAt', 'DESC')
+        .addOrderBy('event.id', 'ASC')
+        .limit(500)
+        .getMany();
+      const stripIds = events.filter((e) => e.entityType === 'strip').map((e) => e.entityId);
+      const strips =
+        stripIds.length === 0
+          ? []
+          : await dataSource.getRepository(Strip).find({
+              select: {
+                id: true,
+                block: true,
+                position: true,
+                rateLevel: { id: true, label: true },
               },
-        before: (row.before as Record<string, unknown> | null) ?? null,
-        after: (row.after as Record<string, unknown> | null) ?? null,
-      }));
+              relations: { rateLevel: true },
+              where: { id: In([...new Set(stripIds)]) },
+            });
+      const places = new Map(
+        strips.map((s) => [
+          s.id,
+          { block: s.block, position: s.position, label: String(s.rateLevel?.label) },
+        ]),
+      );
+      return events.map((event) =>
+        toAuditEventDto(
+          event,
+          event.entityType === 'strip' ? places.get(event.entityId) : undefined,
+        ),
+      );
     },
   };
 }

@@ -1,10 +1,14 @@
 // Site rules: the site detail with its trial's design, RCBD randomization, the strip layout with
 // seed weights, and the seeder calibrations a grower records.
-import type { DataSource } from 'typeorm';
-import type { Role } from '../../shared/schemas/common';
+import type { DataSource, EntityManager } from 'typeorm';
+import { Membership } from '../../db/entities/membership.entity';
+import { Network } from '../../db/entities/network.entity';
+import { Site } from '../../db/entities/site.entity';
+import { Strip } from '../../db/entities/strip.entity';
+import { Trial } from '../../db/entities/trial.entity';
+import type { ObservationValues } from '../../shared/schemas/observation';
 import type { Layout } from '../../shared/schemas/layout';
 import type { CalibrationInput, CalibrationRecordDto, SiteDetail } from '../../shared/schemas/site';
-import type { CustomCrop } from '../../shared/schemas/trial';
 import { newRandomizationSeed } from '../../shared/design/randomize-rcbd';
 import { randomizeSite } from '../../shared/design/randomize-site';
 import { rateTable } from '../../shared/design/rate-table';
@@ -12,205 +16,153 @@ import { calibrateSeeder } from '../../shared/units/calibration';
 import { CROPS, type CropKey } from '../../shared/units/crops';
 import { recordAudit } from '../audit/audit.service';
 import { Conflict, Locked, NotFound } from '../errors';
-import { isCoordinating } from '../middleware/access';
-import { SOWING_RECORDED_SQL } from '../trials/trials.presenter';
+import { findSiteWithDesign, loadSiteStrips, type StripRecord } from '../lib/strip-data';
+import { growsSite, isCoordinating } from '../middleware/access';
 
-interface SiteRow {
-  id: string;
-  trial_id: string;
-  network_id: string;
-  network_name: string;
-  field_name: string;
-  soil: string;
-  previous_crop: string;
-  fertility: string;
-  notes: string;
-  grower_user_id: string | null;
-  grower_name: string | null;
-  grower_email: string | null;
-  pending: boolean;
-  sowing_date: string | null;
-  emergence_date: string | null;
-  heading_date: string | null;
-  harvest_date: string | null;
-  randomization_seed: string | null;
-  randomized_at: Date | null;
-  sowing_recorded: boolean;
-  strip_count: string;
-  calibrations: CalibrationRecordDto[];
-  published_at: Date | null;
-  data_version: number;
-  created_at: Date;
-  updated_at: Date;
+/** Whether a strip holds anything measured in the field (so the site has been sown). */
+function hasFieldData(values: ObservationValues): boolean {
+  return (
+    values.seedsSown !== null ||
+    values.standCounts.length > 0 ||
+    values.headCounts.length > 0 ||
+    values.tillerCount !== null ||
+    values.grainWeight !== null ||
+    values.moisturePct !== null ||
+    values.testWeight !== null ||
+    values.sowingDate !== null ||
+    values.emergenceDate !== null ||
+    values.headingDate !== null ||
+    values.harvestDate !== null
+  );
 }
 
-interface TrialRow {
-  id: string;
-  name: string;
-  status: 'draft' | 'active' | 'closed';
-  crop: string | null;
-  custom_crop: CustomCrop | null;
-  season: string | null;
-  unit_system: 'imperial' | 'metric';
-  reference_rate: string | null;
-  reference_unit: string | null;
-  blocks_per_site: number | null;
-  rows_per_strip: number | null;
-  row_spacing_in: string | null;
-  strip_length_ft: string | null;
-  border_rows: number | null;
-  thousand_kernel_weight_g: string | null;
-  germination_pct: string | null;
-  emergence_pct: string | null;
+/**
+ * Sowing is recorded once the site has a sowing date or any strip holds measured data: the
+ * grower has started the season, so the map must stay as sown.
+ */
+function sowingRecorded(site: Site, strips: readonly StripRecord[]): boolean {
+  return site.sowingDate !== null || strips.some((strip) => hasFieldData(strip.values));
 }
 
-const num = (v: string | number | null) => (v === null ? null : Number(v));
+const iso = (value: Date | null) => (value ? value.toISOString() : null);
+
+function trialContext(trial: Trial): SiteDetail['trial'] {
+  const cropName =
+    trial.crop === 'custom'
+      ? (trial.customCrop?.name ?? 'Custom crop')
+      : trial.crop
+        ? (CROPS[trial.crop as CropKey]?.name ?? trial.crop)
+        : null;
+  return {
+    id: trial.id,
+    name: trial.name,
+    status: trial.status as SiteDetail['trial']['status'],
+    crop: trial.crop,
+    cropName,
+    season: trial.season,
+    unitSystem: trial.unitSystem,
+    referenceRate: trial.referenceRate,
+    referenceUnit: trial.referenceUnit,
+    blocksPerSite: trial.blocksPerSite,
+    rowsPerStrip: trial.rowsPerStrip,
+    rowSpacingIn: trial.rowSpacingIn,
+    stripLengthFt: trial.stripLengthFt,
+    borderRows: trial.borderRows,
+    thousandKernelWeightG: trial.thousandKernelWeightG,
+    germinationPct: trial.germinationPct,
+    emergencePct: trial.emergencePct,
+    rateLevels: (trial.rateLevels ?? []).map((l) => ({
+      id: l.id,
+      multiplier: l.multiplier,
+      label: l.label,
+    })),
+  };
+}
 
 export function createSitesService(deps: { dataSource: DataSource }) {
   const { dataSource } = deps;
 
-  async function siteRow(siteId: string): Promise<SiteRow> {
-    const [row]: SiteRow[] = await dataSource.query(
-      `SELECT s.id, s.trial_id, t.network_id, n.name AS network_name, s.field_name, s.soil, s.previous_crop, s.fertility, s.notes,
-              s.grower_user_id, u.name AS grower_name, COALESCE(u.email, s.grower_email) AS grower_email,
-              (s.grower_user_id IS NULL AND s.grower_email IS NOT NULL) AS pending,
-              to_char(s.sowing_date, 'YYYY-MM-DD') AS sowing_date, to_char(s.emergence_date, 'YYYY-MM-DD') AS emergence_date,
-              to_char(s.heading_date, 'YYYY-MM-DD') AS heading_date, to_char(s.harvest_date, 'YYYY-MM-DD') AS harvest_date,
-              s.randomization_seed, s.randomized_at, ${SOWING_RECORDED_SQL} AS sowing_recorded,
-              (SELECT count(*) FROM strips st WHERE st.site_id = s.id) AS strip_count,
-              s.calibrations, s.published_at, s.data_version, s.created_at, s.updated_at
-         FROM sites s JOIN trials t ON t.id = s.trial_id JOIN networks n ON n.id = t.network_id
-         LEFT JOIN users u ON u.id = s.grower_user_id
-        WHERE s.id = $1`,
-      [siteId],
-    );
-    if (!row) throw new NotFound('Site');
-    return row;
-  }
-
-  async function trialContext(trialId: string): Promise<SiteDetail['trial']> {
-    const [t]: TrialRow[] = await dataSource.query('SELECT * FROM trials WHERE id = $1', [trialId]);
-    if (!t) throw new NotFound('Trial');
-    const levels: { id: string; multiplier: string; label: string }[] = await dataSource.query(
-      'SELECT id, multiplier, label FROM rate_levels WHERE trial_id = $1 ORDER BY multiplier',
-      [trialId],
-    );
-    const cropName =
-      t.crop === 'custom'
-        ? (t.custom_crop?.name ?? 'Custom crop')
-        : t.crop
-          ? (CROPS[t.crop as CropKey]?.name ?? t.crop)
-          : null;
-    return {
-      id: t.id,
-      name: t.name,
-      status: t.status,
-      crop: t.crop,
-      cropName,
-      season: t.season,
-      unitSystem: t.unit_system,
-      referenceRate: num(t.reference_rate),
-      referenceUnit: t.reference_unit,
-      blocksPerSite: t.blocks_per_site,
-      rowsPerStrip: t.rows_per_strip,
-      rowSpacingIn: num(t.row_spacing_in),
-      stripLengthFt: num(t.strip_length_ft),
-      borderRows: t.border_rows,
-      thousandKernelWeightG: num(t.thousand_kernel_weight_g),
-      germinationPct: num(t.germination_pct),
-      emergencePct: num(t.emergence_pct),
-      rateLevels: levels.map((l) => ({
-        id: l.id,
-        multiplier: Number(l.multiplier),
-        label: l.label,
-      })),
-    };
-  }
-
-  async function viewerRole(networkId: string, userId: string): Promise<Role> {
-    const [row]: { role: Role }[] = await dataSource.query(
-      'SELECT role FROM memberships WHERE user_id = $1 AND network_id = $2',
-      [userId, networkId],
-    );
-    if (!row) throw new NotFound('Site');
-    return row.role;
-  }
-
   async function get(siteId: string, userId: string): Promise<SiteDetail> {
-    const row = await siteRow(siteId);
-    const role = await viewerRole(row.network_id, userId);
-    const isGrower = row.grower_user_id === userId;
+    const manager = dataSource.manager;
+    const site = await findSiteWithDesign(manager, siteId);
+    const trial = site.trial!;
+    const [network, membership, strips] = await Promise.all([
+      manager.getRepository(Network).findOneByOrFail({ id: trial.networkId }),
+      manager.getRepository(Membership).findOneBy({ userId, networkId: trial.networkId }),
+      loadSiteStrips(manager, siteId),
+    ]);
+    if (!membership) throw new NotFound('Site');
+    const role = membership.role;
     return {
-      id: row.id,
-      trialId: row.trial_id,
-      networkId: row.network_id,
-      networkName: row.network_name,
-      trial: await trialContext(row.trial_id),
-      fieldName: row.field_name,
-      soil: row.soil,
-      previousCrop: row.previous_crop,
-      fertility: row.fertility,
-      notes: row.notes,
+      id: site.id,
+      trialId: site.trialId,
+      networkId: trial.networkId,
+      networkName: network.name,
+      trial: trialContext(trial),
+      fieldName: site.fieldName,
+      soil: site.soil,
+      previousCrop: site.previousCrop,
+      fertility: site.fertility,
+      notes: site.notes,
       grower: {
-        userId: row.grower_user_id,
-        name: row.grower_name,
-        email: row.grower_email,
-        invitationPending: row.pending,
+        userId: site.growerUserId,
+        name: site.grower?.name ?? null,
+        email: site.grower?.email ?? site.growerEmail,
+        invitationPending: site.growerUserId === null && site.growerEmail !== null,
       },
-      sowingDate: row.sowing_date,
-      emergenceDate: row.emergence_date,
-      headingDate: row.heading_date,
-      harvestDate: row.harvest_date,
-      randomized: row.randomized_at !== null,
-      randomizationSeed: row.randomization_seed,
-      randomizedAt: row.randomized_at ? new Date(row.randomized_at).toISOString() : null,
-      sowingRecorded: row.sowing_recorded,
-      stripCount: Number(row.strip_count),
-      calibrations: row.calibrations ?? [],
-      publishedAt: row.published_at ? new Date(row.published_at).toISOString() : null,
-      dataVersion: row.data_version,
+      sowingDate: site.sowingDate,
+      emergenceDate: site.emergenceDate,
+      headingDate: site.headingDate,
+      harvestDate: site.harvestDate,
+      randomized: site.randomizedAt !== null,
+      randomizationSeed: site.randomizationSeed,
+      randomizedAt: iso(site.randomizedAt),
+      sowingRecorded: sowingRecorded(site, strips),
+      stripCount: strips.length,
+      calibrations: (site.calibrations ?? []) as CalibrationRecordDto[],
+      publishedAt: iso(site.publishedAt),
+      dataVersion: site.dataVersion,
       viewerRole: role,
-      isGrower,
+      isGrower: growsSite(role, site.growerUserId, userId),
       canCoordinate: isCoordinating(role),
-      createdAt: new Date(row.created_at).toISOString(),
-      updatedAt: new Date(row.updated_at).toISOString(),
+      createdAt: site.createdAt.toISOString(),
+      updatedAt: site.updatedAt.toISOString(),
     };
+  }
+
+  /** Locks the site row in the caller's transaction and returns it. */
+  async function lockSite(manager: EntityManager, siteId: string): Promise<Site> {
+    const site = await manager
+      .getRepository(Site)
+      .createQueryBuilder('site')
+      .setLock('pessimistic_write')
+      .where('site.id = :siteId', { siteId })
+      .getOne();
+    if (!site) throw new NotFound('Site');
+    return site;
   }
 
   /** Draws the site's RCBD map from `seed` (or a new one) and replaces its strips. */
   async function randomize(siteId: string, userId: string, seed?: string): Promise<Layout> {
     await dataSource.transaction(async (manager) => {
-      const [site]: {
-        id: string;
-        trial_id: string;
-        published_at: Date | null;
-        sowing_recorded: boolean;
-      }[] = await manager.query(
-        `SELECT s.id, s.trial_id, s.published_at, ${SOWING_RECORDED_SQL} AS sowing_recorded FROM sites s WHERE s.id = $1 FOR UPDATE`,
-        [siteId],
-      );
-      if (!site) throw new NotFound('Site');
-      if (site.published_at)
+      const site = await lockSite(manager, siteId);
+      if (site.publishedAt)
         throw new Locked('This site’s report is published: its strip map is final');
-      if (site.sowing_recorded) {
+      if (sowingRecorded(site, await loadSiteStrips(manager, siteId))) {
         throw new Conflict(
           'Sowing is already recorded for this site (a sowing date or strip data), so its strip map can no longer be re-randomized',
         );
       }
-      const [trial]: { status: string; blocks_per_site: number | null }[] = await manager.query(
-        'SELECT status, blocks_per_site FROM trials WHERE id = $1',
-        [site.trial_id],
-      );
+      const trial = await manager
+        .getRepository(Trial)
+        .findOne({ where: { id: site.trialId }, relations: { rateLevels: true } });
       if (!trial || trial.status !== 'active') {
         throw new Conflict(
           'Finish the trial design first: strips are randomized once the trial is active',
         );
       }
-      const levels: { id: string }[] = await manager.query(
-        'SELECT id FROM rate_levels WHERE trial_id = $1 ORDER BY position',
-        [site.trial_id],
-      );
-      const blocks = trial.blocks_per_site ?? 0;
+      const levels = [...(trial.rateLevels ?? [])].sort((a, b) => a.position - b.position);
+      const blocks = trial.blocksPerSite ?? 0;
       if (levels.length < 2 || blocks < 1)
         throw new Conflict('The trial needs at least 2 rate levels and 1 block before randomizing');
       const useSeed = seed ?? newRandomizationSeed();
@@ -219,19 +171,19 @@ export function createSitesService(deps: { dataSource: DataSource }) {
         blocks,
         useSeed,
       );
-      await manager.query('DELETE FROM strips WHERE site_id = $1', [siteId]);
-      for (const [b, order] of map.entries()) {
-        for (const [p, levelId] of order.entries()) {
-          await manager.query(
-            'INSERT INTO strips (site_id, block, position, rate_level_id) VALUES ($1, $2, $3, $4)',
-            [siteId, b + 1, p + 1, levelId],
-          );
-        }
-      }
-      await manager.query(
-        'UPDATE sites SET randomization_seed = $2, randomized_at = now(), data_version = data_version + 1, updated_at = now() WHERE id = $1',
-        [siteId, useSeed],
+      const strips = manager.getRepository(Strip);
+      await strips.delete({ siteId });
+      await strips.insert(
+        map.flatMap((order, b) =>
+          order.map((rateLevelId, p) => ({ siteId, block: b + 1, position: p + 1, rateLevelId })),
+        ),
       );
+      await manager.getRepository(Site).update(siteId, {
+        randomizationSeed: useSeed,
+        randomizedAt: () => 'now()',
+        dataVersion: () => 'data_version + 1',
+        updatedAt: () => 'now()',
+      });
       await recordAudit(manager, {
         actorUserId: userId,
         entityType: 'site',
@@ -245,35 +197,20 @@ export function createSitesService(deps: { dataSource: DataSource }) {
   }
 
   async function layout(siteId: string): Promise<Layout> {
-    const [site]: {
-      trial_id: string;
-      randomization_seed: string | null;
-      randomized_at: Date | null;
-    }[] = await dataSource.query(
-      'SELECT trial_id, randomization_seed, randomized_at FROM sites WHERE id = $1',
-      [siteId],
-    );
-    if (!site) throw new NotFound('Site');
-    const trial = await trialContext(site.trial_id);
+    const manager = dataSource.manager;
+    const site = await findSiteWithDesign(manager, siteId);
+    const trial = trialContext(site.trial!);
     const amounts = new Map(
       rateTable({ ...trial, rateLevels: trial.rateLevels }).map((r) => [r.rateLevelId, r] as const),
     );
-    const strips: {
-      id: string;
-      block: number;
-      position: number;
-      rate_level_id: string;
-      multiplier: string;
-      label: string;
-    }[] = await dataSource.query(
-      `SELECT st.id, st.block, st.position, st.rate_level_id, rl.multiplier, rl.label
-           FROM strips st JOIN rate_levels rl ON rl.id = st.rate_level_id
-          WHERE st.site_id = $1 ORDER BY st.block, st.position`,
-      [siteId],
-    );
+    const strips = await manager.getRepository(Strip).find({
+      where: { siteId },
+      relations: { rateLevel: true },
+      order: { block: 'ASC', position: 'ASC' },
+    });
     const blocks = new Map<number, Layout['blocks'][number]>();
     for (const s of strips) {
-      const amount = amounts.get(s.rate_level_id);
+      const amount = amounts.get(s.rateLevelId);
       let block = blocks.get(s.block);
       if (!block) {
         block = { block: s.block, strips: [] };
@@ -282,17 +219,17 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       block.strips.push({
         stripId: s.id,
         position: s.position,
-        rateLevelId: s.rate_level_id,
-        rate: Number(s.multiplier),
-        label: s.label,
+        rateLevelId: s.rateLevelId,
+        rate: s.rateLevel!.multiplier,
+        label: s.rateLevel!.label,
         seedGrams: amount ? Math.round(amount.gramsPerStrip * 10) / 10 : 0,
         seedsPerFootOfRow: amount ? Math.round(amount.seedsPerFootOfRow * 100) / 100 : null,
       });
     }
     return {
       siteId,
-      seed: site.randomization_seed ?? '',
-      randomizedAt: site.randomized_at ? new Date(site.randomized_at).toISOString() : null,
+      seed: site.randomizationSeed ?? '',
+      randomizedAt: iso(site.randomizedAt),
       blocks: [...blocks.values()],
     };
   }
@@ -322,19 +259,12 @@ export function createSitesService(deps: { dataSource: DataSource }) {
       note: input.note,
     };
     return dataSource.transaction(async (manager) => {
-      const [row]: { calibrations: CalibrationRecordDto[]; published_at: Date | null }[] =
-        await manager.query(
-          'SELECT calibrations, published_at FROM sites WHERE id = $1 FOR UPDATE',
-          [siteId],
-        );
-      if (!row) throw new NotFound('Site');
-      if (row.published_at)
+      const site = await lockSite(manager, siteId);
+      if (site.publishedAt)
         throw new Locked('This site’s report is published: its records are read-only');
-      const next = [...(row.calibrations ?? []), record];
-      await manager.query(
-        'UPDATE sites SET calibrations = $2::jsonb, updated_at = now() WHERE id = $1',
-        [siteId, JSON.stringify(next)],
-      );
+      const next = [...((site.calibrations ?? []) as CalibrationRecordDto[]), record];
+      site.calibrations = next;
+      await manager.getRepository(Site).save(site);
       await recordAudit(manager, {
         actorUserId: userId,
         entityType: 'site',

@@ -5,15 +5,17 @@ import { ObservationValuesSchema } from '../../shared/schemas/observation';
 import type { SiteStrips, StripDto, UpdateStripInput } from '../../shared/schemas/strip';
 import { Conflict, NotFound } from '../errors';
 import {
+  advanceStripVersion,
   changedFields,
-  changeStrip,
   loadSite,
   loadSiteStrips,
+  loadStrip,
+  patchAlreadyApplied,
   publishedSiteLocked,
+  writeStripChange,
   type SiteKey,
-  type StripRecord,
 } from '../lib/strip-data';
-import { isCoordinating } from '../middleware/access';
+import { growsSite, isCoordinating } from '../middleware/access';
 import { presentSite, presentStrips } from '../lib/strip-presenter';
 
 export interface Caller {
@@ -42,10 +44,11 @@ export function createStripsService(deps: { dataSource: DataSource }) {
   return {
     async listSiteStrips(siteId: string, caller: Caller): Promise<SiteStrips> {
       const { site, strips } = await loadWholeSite(siteId);
-      const coordinating = isCoordinating(caller.roles.get(site.networkId));
+      const role = caller.roles.get(site.networkId);
+      const coordinating = isCoordinating(role);
       return {
         site: presentSite(site, {
-          canEdit: coordinating || site.growerUserId === caller.userId,
+          canEdit: coordinating || growsSite(role, site.growerUserId, caller.userId),
           isCoordinator: coordinating,
         }),
         strips: presentStrips(site, strips),
@@ -57,52 +60,46 @@ export function createStripsService(deps: { dataSource: DataSource }) {
     },
 
     /**
-     * Applies a partial update made on `input.version`. A stale version gets 409 with the
-     * current strip, unless the values sent are already stored (a retried send); equal values
-     * change nothing and keep the version. Two reads side by side, then one statement that
-     * writes only if the strip is still at the version read (see changeStrip).
+     * Applies a partial update made on `input.version`, in one transaction: lock the site row,
+     * refuse a published site (423), check the strip's version (409 with the current strip,
+     * unless the values sent are already stored: a retried send), then write the observation,
+     * its audit event and the site's data_version. Equal values change nothing.
      */
     async updateStrip(
       stripId: string,
       input: UpdateStripInput,
       actorUserId: string,
     ): Promise<StripDto> {
-      const whole = await loadWholeSite({ stripId });
-      const current = whole.strips.find((s) => s.stripId === stripId);
-      if (!current) throw new NotFound('Strip');
-      // Checked again, under the row lock, by the statement that writes.
-      if (whole.site.publishedAt) throw publishedSiteLocked();
-      const merged = ObservationValuesSchema.parse({ ...current.values, ...input.values });
-      const diff = changedFields(current.values, merged);
-      if (!diff) return presentOne(whole, stripId);
-      const outcome = await changeStrip(dataSource.manager, {
-        siteId: whole.site.siteId,
-        stripId,
-        version: input.version,
-        values: merged,
-        actorUserId,
-        before: diff.before,
-        after: diff.after,
+      const outcome = await dataSource.transaction(async (manager) => {
+        const site = await loadSite(manager, { stripId }, { lock: true });
+        if (site.publishedAt) throw publishedSiteLocked();
+        const current = await loadStrip(manager, stripId);
+        if (current.version !== input.version) {
+          if (patchAlreadyApplied(current.values, input.values)) return 'unchanged';
+          return 'stale';
+        }
+        const merged = ObservationValuesSchema.parse({ ...current.values, ...input.values });
+        const diff = changedFields(current.values, merged);
+        if (!diff) return 'unchanged';
+        if (!(await advanceStripVersion(manager, stripId, current.version))) return 'stale';
+        await writeStripChange(manager, {
+          siteId: site.siteId,
+          stripId,
+          values: merged,
+          actorUserId,
+          before: diff.before,
+          after: diff.after,
+        });
+        return 'saved';
       });
-      if (outcome.kind === 'published') throw publishedSiteLocked();
-      if (outcome.kind === 'stale') {
-        const fresh = presentOne(await loadWholeSite({ stripId }), stripId);
+      const fresh = presentOne(await loadWholeSite({ stripId }), stripId);
+      if (outcome === 'stale') {
         throw new Conflict(
           `Someone saved this strip after you opened it (now version ${fresh.version}). Reload their values, or save yours over them.`,
           fresh,
         );
       }
-      const saved: StripRecord = {
-        ...current,
-        values: merged,
-        version: outcome.version,
-        hasObservation: true,
-        updatedAt: outcome.updatedAt,
-      };
-      return presentOne(
-        { ...whole, strips: whole.strips.map((s) => (s.stripId === stripId ? saved : s)) },
-        stripId,
-      );
+      return fresh;
     },
   };
 }

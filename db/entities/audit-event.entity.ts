@@ -1,5 +1,15 @@
 // Who changed what and when: old and new values of a changed record.
-import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  type Relation,
+} from 'typeorm';
+import { User } from './user.entity';
 
 @Entity({ name: 'audit_events' })
 @Index(['entityType', 'entityId'])
@@ -10,6 +20,10 @@ export class AuditEvent {
 
   @Column({ name: 'actor_user_id', type: 'uuid', nullable: true })
   actorUserId!: string | null;
+
+  @ManyToOne(() => User, { onDelete: 'SET NULL' })
+  @JoinColumn({ name: 'actor_user_id' })
+  actor?: Relation<User> | null;
 
   @Column({ name: 'entity_type', type: 'text' })
   entityType!: string;

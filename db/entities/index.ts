@@ -7,11 +7,13 @@ import { Network } from './network.entity';
 import { Observation } from './observation.entity';
 import { PasswordResetToken } from './password-reset-token.entity';
 import { RateLevelRow } from './rate-level.entity';
+import { RateLimitHit } from './rate-limit-hit.entity';
 import { ReportSnapshot } from './report-snapshot.entity';
 import { Site } from './site.entity';
 import { Strip } from './strip.entity';
 import { Trial } from './trial.entity';
 import { User } from './user.entity';
+import { UserSession } from './user-session.entity';
 
 export const ENTITIES = [
   User,
@@ -27,4 +29,6 @@ export const ENTITIES = [
   PasswordResetToken,
   AuditEvent,
   ReportSnapshot,
+  UserSession,
+  RateLimitHit,
 ];

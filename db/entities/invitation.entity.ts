@@ -1,6 +1,16 @@
 // An invitation to join a network with a role; only a hash of the token is stored.
-import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  type Relation,
+} from 'typeorm';
 import type { Role } from '../../shared/schemas/common';
+import { Network } from './network.entity';
 
 @Entity({ name: 'invitations' })
 export class Invitation {
@@ -9,6 +19,10 @@ export class Invitation {
 
   @Column({ name: 'network_id', type: 'uuid' })
   networkId!: string;
+
+  @ManyToOne(() => Network, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'network_id' })
+  network?: Relation<Network>;
 
   @Column({ type: 'text' })
   email!: string;

@@ -16,7 +16,7 @@ export class Observation {
   @PrimaryColumn({ name: 'strip_id', type: 'uuid' })
   stripId!: string;
 
-  @OneToOne(() => Strip, { onDelete: 'CASCADE' })
+  @OneToOne(() => Strip, (strip) => strip.observation, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'strip_id' })
   strip?: Relation<Strip>;
 

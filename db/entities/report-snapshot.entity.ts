@@ -1,5 +1,15 @@
 // A published report: the analysis and data version frozen at publishing time.
-import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  type Relation,
+} from 'typeorm';
+import { User } from './user.entity';
 
 @Entity({ name: 'report_snapshots' })
 @Index(['trialId', 'scope'])
@@ -26,6 +36,10 @@ export class ReportSnapshot {
 
   @Column({ name: 'published_by', type: 'uuid', nullable: true })
   publishedBy!: string | null;
+
+  @ManyToOne(() => User, { onDelete: 'SET NULL' })
+  @JoinColumn({ name: 'published_by' })
+  publisher?: Relation<User> | null;
 
   @CreateDateColumn({ name: 'published_at', type: 'timestamptz' })
   publishedAt!: Date;

@@ -5,9 +5,11 @@ import {
   Index,
   JoinColumn,
   ManyToOne,
+  OneToOne,
   PrimaryGeneratedColumn,
   type Relation,
 } from 'typeorm';
+import { Observation } from './observation.entity';
 import { RateLevelRow } from './rate-level.entity';
 import { Site } from './site.entity';
 
@@ -42,4 +44,8 @@ export class Strip {
   /** Optimistic-lock version of the strip's observations. */
   @Column({ type: 'integer', default: 1 })
   version!: number;
+
+  /** What was measured on the strip; absent until the first entry. */
+  @OneToOne(() => Observation, (observation) => observation.strip)
+  observation?: Relation<Observation> | null;
 }

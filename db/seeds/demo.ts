@@ -4,6 +4,14 @@ import seedrandom from 'seedrandom';
 import type { DataSource, EntityManager } from 'typeorm';
 import { randomizeRcbd } from '../../shared/design/randomize-rcbd';
 import { hashPassword } from '../../api/auth/auth.service';
+import { Membership } from '../entities/membership.entity';
+import { Network } from '../entities/network.entity';
+import { Observation } from '../entities/observation.entity';
+import { RateLevelRow } from '../entities/rate-level.entity';
+import { Site } from '../entities/site.entity';
+import { Strip } from '../entities/strip.entity';
+import { Trial } from '../entities/trial.entity';
+import { User } from '../entities/user.entity';
 
 export const DEMO_PASSWORD = 'sheaf-demo';
 export const DEMO_NETWORK_SLUG = 'millbrook-valley-grain-circle';
@@ -13,7 +21,7 @@ export const DEMO_ACCOUNTS = [
   ...Array.from({ length: 8 }, (_, i) => ({
     email: `grower${i + 1}@millbrook.example`,
     name: `${['Ines Bell', 'Tomas Reyes', 'Wren Okafor', 'Pia Lund', 'Sol Marsh', 'June Ashby', 'Rafe Dunmore', 'Lark Penhallow'][i]} (invented)`,
-    role: 'grower',
+    role: 'grower' as const,
   })),
   { email: 'member@millbrook.example', name: 'Mo Member (invented)', role: 'member' },
 ] as const;
@@ -80,27 +88,27 @@ function round(value: number, digits: number): number {
 
 /** Loads the demo once; returns false when it is already there (restart-safe). */
 export async function seedDemo(dataSource: DataSource): Promise<boolean> {
-  const existing = await dataSource.query('SELECT 1 FROM networks WHERE slug = $1', [
-    DEMO_NETWORK_SLUG,
-  ]);
-  if (existing.length > 0) return false;
+  if (await dataSource.getRepository(Network).existsBy({ slug: DEMO_NETWORK_SLUG })) return false;
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await dataSource.transaction(async (manager) => {
-    const [network] = await manager.query(
-      `INSERT INTO networks (name, slug, is_demo) VALUES ($1, $2, true) RETURNING id`,
-      ['Millbrook Valley Grain Circle (invented demo)', DEMO_NETWORK_SLUG],
-    );
+    const network = await manager.getRepository(Network).save({
+      name: 'Millbrook Valley Grain Circle (invented demo)',
+      slug: DEMO_NETWORK_SLUG,
+      isDemo: true,
+    });
     const userIds: Record<string, string> = {};
     for (const account of DEMO_ACCOUNTS) {
-      const [user] = await manager.query(
-        `INSERT INTO users (email, name, password_hash) VALUES ($1, $2, $3)
-         ON CONFLICT (email) DO UPDATE SET name = EXCLUDED.name RETURNING id`,
-        [account.email, account.name, passwordHash],
-      );
+      const users = manager.getRepository(User);
+      const user =
+        (await users.findOneBy({ email: account.email })) ??
+        (await users.save({ email: account.email, name: account.name, passwordHash }));
       userIds[account.email] = user.id;
-      await manager.query(
-        'INSERT INTO memberships (user_id, network_id, role) VALUES ($1, $2, $3) ON CONFLICT DO NOTHING',
-        [user.id, network.id, account.role],
+      await manager.getRepository(Membership).upsert(
+        { userId: user.id, networkId: network.id, role: account.role },
+        {
+          conflictPaths: ['userId', 'networkId'],
+          skipUpdateIfNoValuesChanged: true,
+        },
       );
     }
     await seedOatTrial(manager, network.id, userIds);
@@ -115,26 +123,29 @@ async function seedOatTrial(
   userIds: Record<string, string>,
 ) {
   const layout = OAT_LAYOUT;
-  const [trial] = await manager.query(
-    `INSERT INTO trials (network_id, name, question, status, crop, season, unit_system, reference_rate, reference_unit,
-        blocks_per_site, rows_per_strip, row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g,
-        germination_pct, emergence_pct, seed_price_per_lb, grain_price_per_bu, created_by)
-     VALUES ($1, $2, $3, 'active', 'hullessOats', '2027', 'imperial', $4, 'lb/acre', 4, $5, $6, $7, 1, $8, $9, $10, 0.9, 9.5, $11)
-     RETURNING id`,
-    [
-      networkId,
-      'Hulless oat seeding rate 2027',
+  const trial = await manager.getRepository(Trial).save({
+    networkId,
+    name: 'Hulless oat seeding rate 2027',
+    question:
       'Does half the usual hulless-oat seeding rate yield as well as the full rate on our farms?',
-      layout.referenceLbPerAcre,
-      layout.rowsPerStrip,
-      layout.rowSpacingIn,
-      layout.stripLengthFt,
-      layout.tkwG,
-      layout.germination,
-      layout.emergence,
-      userIds['coordinator@millbrook.example'],
-    ],
-  );
+    status: 'active',
+    crop: 'hullessOats',
+    season: '2027',
+    unitSystem: 'imperial',
+    referenceRate: layout.referenceLbPerAcre,
+    referenceUnit: 'lb/acre',
+    blocksPerSite: 4,
+    rowsPerStrip: layout.rowsPerStrip,
+    rowSpacingIn: layout.rowSpacingIn,
+    stripLengthFt: layout.stripLengthFt,
+    borderRows: 1,
+    thousandKernelWeightG: layout.tkwG,
+    germinationPct: layout.germination,
+    emergencePct: layout.emergence,
+    seedPricePerLb: 0.9,
+    grainPricePerBu: 9.5,
+    createdBy: userIds['coordinator@millbrook.example'] ?? null,
+  });
   const levels = [
     { multiplier: 0.25, label: 'quarter' },
     { multiplier: 0.5, label: 'half' },
@@ -143,10 +154,12 @@ async function seedOatTrial(
   ];
   const levelIds: string[] = [];
   for (const [i, level] of levels.entries()) {
-    const [row] = await manager.query(
-      'INSERT INTO rate_levels (trial_id, position, multiplier, label) VALUES ($1, $2, $3, $4) RETURNING id',
-      [trial.id, i + 1, level.multiplier, level.label],
-    );
+    const row = await manager.getRepository(RateLevelRow).save({
+      trialId: trial.id,
+      position: i + 1,
+      multiplier: level.multiplier,
+      label: level.label,
+    });
     levelIds.push(row.id);
   }
   const multiplierOf = new Map(levelIds.map((id, i) => [id, levels[i]!.multiplier]));
@@ -161,25 +174,22 @@ async function seedOatTrial(
     const siteEffect = normal(random, 0, 9);
     const siteSlope = normal(random, 1, 0.35);
     const seed = `demo-site-${s + 1}`;
-    const [site] = await manager.query(
-      `INSERT INTO sites (trial_id, grower_user_id, field_name, soil, previous_crop, fertility, notes,
-          randomization_seed, randomized_at, sowing_date, emergence_date, heading_date, harvest_date, data_version)
-       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, now(), $9, $10, $11, $12, 1) RETURNING id`,
-      [
-        trial.id,
-        userIds[growerEmail],
-        field.field,
-        field.soil,
-        field.previous,
-        field.fertility,
-        'Invented demo site.',
-        seed,
-        `2027-04-${String(10 + s).padStart(2, '0')}`,
-        `2027-04-${String(22 + s).padStart(2, '0')}`,
-        `2027-06-${String(18 + s).padStart(2, '0')}`,
-        `2027-08-${String(2 + s).padStart(2, '0')}`,
-      ],
-    );
+    const site = await manager.getRepository(Site).save({
+      trialId: trial.id,
+      growerUserId: userIds[growerEmail] ?? null,
+      fieldName: field.field,
+      soil: field.soil,
+      previousCrop: field.previous,
+      fertility: field.fertility,
+      notes: 'Invented demo site.',
+      randomizationSeed: seed,
+      randomizedAt: new Date(),
+      sowingDate: `2027-04-${String(10 + s).padStart(2, '0')}`,
+      emergenceDate: `2027-04-${String(22 + s).padStart(2, '0')}`,
+      headingDate: `2027-06-${String(18 + s).padStart(2, '0')}`,
+      harvestDate: `2027-08-${String(2 + s).padStart(2, '0')}`,
+      dataVersion: 1,
+    });
     const map = randomizeRcbd(levelIds, 4, seed);
     for (const [b, order] of map.entries()) {
       const blockEffect = normal(random, 0, 2.5);
@@ -219,57 +229,69 @@ async function seedOatTrial(
         const moisture = round(normal(random, 13.2, 1.1), 1);
         const dryLb = (yieldBu * BUSHEL_LB * harvestAreaFt2) / 43560;
         const grainWeight = round((dryLb * (100 - STANDARD_MOISTURE)) / (100 - moisture), 2);
-        const [strip] = await manager.query(
-          'INSERT INTO strips (site_id, block, position, rate_level_id, version) VALUES ($1, $2, $3, $4, 1) RETURNING id',
-          [site.id, b + 1, p + 1, levelId],
-        );
-        await manager.query(
-          `INSERT INTO observations (strip_id, seeds_sown, stand_counts, stand_row_length, tiller_plants, tiller_count,
-             head_counts, head_row_length, grain_weight, harvest_rows, harvest_length, moisture_pct, test_weight, notes, updated_by)
-           VALUES ($1, $2, $3, 3, $4, $5, $6, 3, $7, $8, $9, $10, $11, '', $12)`,
-          [
-            strip.id,
-            Math.round(seedsPerFt2 * harvestAreaFt2),
-            JSON.stringify(standCounts),
-            tillerPlants,
-            Math.round(tillersPerPlant * tillerPlants),
-            JSON.stringify(headCounts),
-            grainWeight,
-            layout.rowsPerStrip,
-            layout.stripLengthFt,
-            moisture,
-            round(normal(random, 44, 2), 1),
-            userIds[growerEmail],
-          ],
-        );
+        const strip = await manager.getRepository(Strip).save({
+          siteId: site.id,
+          block: b + 1,
+          position: p + 1,
+          rateLevelId: levelId,
+          version: 1,
+        });
+        await manager.getRepository(Observation).insert({
+          stripId: strip.id,
+          seedsSown: Math.round(seedsPerFt2 * harvestAreaFt2),
+          standCounts,
+          standRowLength: 3,
+          tillerPlants,
+          tillerCount: Math.round(tillersPerPlant * tillerPlants),
+          headCounts,
+          headRowLength: 3,
+          grainWeight,
+          harvestRows: layout.rowsPerStrip,
+          harvestLength: layout.stripLengthFt,
+          moisturePct: moisture,
+          testWeight: round(normal(random, 44, 2), 1),
+          notes: '',
+          updatedBy: userIds[growerEmail] ?? null,
+        });
       }
     }
   }
 }
 
 async function seedWheatDraft(manager: EntityManager, networkId: string, coordinatorId: string) {
-  const [trial] = await manager.query(
-    `INSERT INTO trials (network_id, name, question, status, crop, season, unit_system, reference_rate, reference_unit,
-        blocks_per_site, rows_per_strip, row_spacing_in, strip_length_ft, border_rows, thousand_kernel_weight_g,
-        germination_pct, emergence_pct, seed_price_per_lb, grain_price_per_bu, created_by)
-     VALUES ($1, $2, $3, 'draft', 'wheat', '2027', 'imperial', 100, 'lb/acre', 4, 4, 8, 60, 1, 38, 92, 85, 0.55, 8.0, $4)
-     RETURNING id`,
-    [
-      networkId,
-      'Winter wheat seeding rate 2027–28',
-      'Can we sow winter wheat thinner without losing yield?',
-      coordinatorId,
-    ],
-  );
+  const trial = await manager.getRepository(Trial).save({
+    networkId,
+    name: 'Winter wheat seeding rate 2027–28',
+    question: 'Can we sow winter wheat thinner without losing yield?',
+    status: 'draft',
+    crop: 'wheat',
+    season: '2027',
+    unitSystem: 'imperial',
+    referenceRate: 100,
+    referenceUnit: 'lb/acre',
+    blocksPerSite: 4,
+    rowsPerStrip: 4,
+    rowSpacingIn: 8,
+    stripLengthFt: 60,
+    borderRows: 1,
+    thousandKernelWeightG: 38,
+    germinationPct: 92,
+    emergencePct: 85,
+    seedPricePerLb: 0.55,
+    grainPricePerBu: 8.0,
+    createdBy: coordinatorId,
+  });
   for (const [i, level] of [
     { multiplier: 0.25, label: 'quarter' },
     { multiplier: 0.5, label: 'half' },
     { multiplier: 1, label: 'full' },
     { multiplier: 2, label: 'double' },
   ].entries()) {
-    await manager.query(
-      'INSERT INTO rate_levels (trial_id, position, multiplier, label) VALUES ($1, $2, $3, $4)',
-      [trial.id, i + 1, level.multiplier, level.label],
-    );
+    await manager.getRepository(RateLevelRow).insert({
+      trialId: trial.id,
+      position: i + 1,
+      multiplier: level.multiplier,
+      label: level.label,
+    });
   }
 }

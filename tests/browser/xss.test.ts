@@ -99,8 +99,8 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     return r;
   }
 
-  function tokenFor(email: string): string {
-    const mail = server.testApp.mailCatcher.messages.find((m) => m.to.includes(email));
+  async function tokenFor(email: string): Promise<string> {
+    const mail = (await server.testApp.mailCatcher.list()).find((m) => m.to.includes(email));
     const token = mail && /\/invite\/([A-Za-z0-9_-]+)/.exec(mail.text)?.[1];
     if (!token) throw new Error(`no invitation mail for ${email}`);
     return token;
@@ -200,7 +200,7 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     await ok(
       'accept',
       invited.post('/api/invitations/accept', {
-        token: tokenFor(invitedEmail),
+        token: await tokenFor(invitedEmail),
         name: S.growerName,
         password: PASSWORD,
       }),
@@ -214,7 +214,7 @@ describe('no user-supplied string reaches HTML unescaped', () => {
       }),
       201,
     );
-    openInviteToken = tokenFor(memberEmail);
+    openInviteToken = await tokenFor(memberEmail);
 
     await importData(grower, site1, 0, S.csvNotes);
     await importData(invited, site2, 0.4, null);
@@ -521,7 +521,7 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     expect(text).toContain(S.reminder);
     await session.context.close();
     // The HTML part of every message escapes what it quotes.
-    const sent = server.testApp.mailCatcher.messages.filter((m) =>
+    const sent = (await server.testApp.mailCatcher.list()).filter((m) =>
       m.to.some((to) => to.endsWith(`${net.suffix}@test.example`)),
     );
     expect(sent.length).toBeGreaterThanOrEqual(3);

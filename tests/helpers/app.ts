@@ -1,25 +1,41 @@
-// Builds the real app against the test PostgreSQL that `npm test` started, with a mail
-// catcher of its own; plus signed-in supertest clients that carry the CSRF header.
+// The real Sheaf API for tests: by default the two-worker server the global setup started (every
+// request may reach either worker), or a server of a test's own when it needs other settings; a
+// DataSource of the test's own for arranging data; the mail catcher; signed-in supertest clients
+// that carry the CSRF header.
 import 'reflect-metadata';
 import crypto from 'node:crypto';
 import pg from 'pg';
 import request from 'supertest';
-import type { Express } from 'express';
 import type { DataSource } from 'typeorm';
+import { inject } from 'vitest';
 import { createApp } from '../../api/app';
 import { readConfig, type AppConfig } from '../../api/config/env';
-import { startMailCatcher, type MailCatcher } from '../../api/mail/mail-catcher';
-import { createSmtpMailer } from '../../api/mail/mailer';
+import type { RouteEntry } from '../../api/lib/route-table';
+import { fetchCaughtMail } from '../../api/mail/mail-catcher';
 import { hashPassword } from '../../api/auth/auth.service';
 import { createDataSource } from '../../db/data-source';
+import type { CaughtMail } from '../../shared/schemas/auth';
+import { freePort, startApiServer } from './spawn-server';
 
 export const DEMO_PASSWORD = 'sheaf-demo';
 
+/** The caught mail of the catcher process, read over its loopback HTTP port. */
+export interface MailReader {
+  list(): Promise<CaughtMail[]>;
+  /** Resolves with the first message (already caught or arriving) that matches. */
+  waitFor(match: (mail: CaughtMail) => boolean, timeoutMs?: number): Promise<CaughtMail>;
+}
+
 export interface TestApp {
-  app: Express;
+  /** The server's base URL (supertest and fetch take it). */
+  app: string;
   config: AppConfig;
   dataSource: DataSource;
-  mailCatcher: MailCatcher;
+  mailCatcher: MailReader;
+  /** Every route and its access policy, as the app registers them. */
+  routes: RouteEntry[];
+  /** The environment the server was started with (to start another one like it). */
+  serverEnv: Record<string, string>;
   close(): Promise<void>;
 }
 
@@ -29,39 +45,73 @@ export function testDatabaseUrl(): string {
   return url;
 }
 
-export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
-  const mailCatcher = await startMailCatcher({ port: 0 });
-  const config = readConfig({
-    NODE_ENV: 'test',
-    DATABASE_URL: testDatabaseUrl(),
-    SESSION_SECRET: 'test-session-secret-of-enough-length',
-    PUBLIC_URL: 'http://sheaf.test',
-    SMTP_PORT: String(mailCatcher.port),
-    RATE_LIMIT_LOGIN: '1000',
-    UPLOAD_DIR: `.data/test-uploads-${process.pid}`,
-    ...env,
-  });
-  const dataSource = createDataSource(config.DATABASE_URL, { poolSize: 5 });
-  await dataSource.initialize();
-  const sessionPool = new pg.Pool({
-    connectionString: config.DATABASE_URL,
-    max: 3,
-    connectionTimeoutMillis: 2000,
-  });
-  sessionPool.on('error', () => {});
-  const mailer = createSmtpMailer({
-    host: '127.0.0.1',
-    port: mailCatcher.port,
-    from: config.MAIL_FROM,
-  });
-  const app = createApp({ config, dataSource, sessionPool, mailer, mailCatcher });
+function sharedServer() {
+  const shared = inject('sheafServer');
+  if (!shared) throw new Error('No test server: run the tests through `npm test`');
+  return shared;
+}
+
+function mailReader(catcherUrl: string): MailReader {
   return {
-    app,
+    list: () => fetchCaughtMail(catcherUrl),
+    async waitFor(match, timeoutMs = 10_000) {
+      const deadline = Date.now() + timeoutMs;
+      for (;;) {
+        const found = (await fetchCaughtMail(catcherUrl)).find(match);
+        if (found) return found;
+        if (Date.now() > deadline) throw new Error('No matching e-mail arrived in time');
+        await new Promise((resolve) => setTimeout(resolve, 100));
+      }
+    },
+  };
+}
+
+/** The route table of the app, read from an app built in this process (it is never served). */
+function routeTable(config: AppConfig, dataSource: DataSource): RouteEntry[] {
+  // The pool is never used: no request reaches this app, so it opens no connection.
+  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 1 });
+  const app = createApp({
     config,
     dataSource,
-    mailCatcher,
+    sessionPool,
+    mailer: { send: async () => {} } as never,
+  });
+  void sessionPool.end();
+  return app.locals.routeTable as RouteEntry[];
+}
+
+/**
+ * The shared two-worker server, or (with `env` settings or `ownServer`) a two-worker server of
+ * this test's own with those settings, stopped by close().
+ */
+export async function createTestApp(
+  env: Record<string, string> = {},
+  options: { ownServer?: boolean } = {},
+): Promise<TestApp> {
+  const shared = sharedServer();
+  const own = options.ownServer || Object.keys(env).some((key) => shared.env[key] !== env[key]);
+  let url = shared.url;
+  let serverEnv = shared.env;
+  let stop = async () => {};
+  if (own) {
+    const port = await freePort();
+    serverEnv = { ...shared.env, PORT: String(port), ...env };
+    const server = await startApiServer(serverEnv);
+    url = `http://127.0.0.1:${port}`;
+    stop = server.stop;
+  }
+  const config = readConfig(serverEnv);
+  const dataSource = createDataSource(config.DATABASE_URL, { poolSize: 5 });
+  await dataSource.initialize();
+  return {
+    app: url,
+    config,
+    dataSource,
+    mailCatcher: mailReader(shared.catcherUrl),
+    routes: routeTable(config, dataSource),
+    serverEnv,
     async close() {
-      await Promise.allSettled([dataSource.destroy(), sessionPool.end(), mailCatcher.close()]);
+      await Promise.allSettled([dataSource.destroy(), stop()]);
     },
   };
 }
@@ -69,7 +119,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
 export type Client = ReturnType<typeof clientFor>;
 
 /** A supertest agent that keeps cookies and sends the CSRF token on writes. */
-export function clientFor(app: Express) {
+export function clientFor(app: string) {
   const agent = request.agent(app);
   let token: string | null = null;
   async function csrf(): Promise<string> {
@@ -116,7 +166,7 @@ export function clientFor(app: Express) {
 }
 
 export async function signIn(
-  app: Express,
+  app: string,
   email: string,
   password = DEMO_PASSWORD,
 ): Promise<Client> {

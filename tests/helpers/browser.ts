@@ -1,33 +1,21 @@
 // Browser-test helpers: the real app on a loopback port serving the built web app, and
 // Debian's Chromium driven by playwright-core.
 import fs from 'node:fs';
-import http from 'node:http';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
 import { createTestApp, type TestApp } from './app';
 
 export const ARTIFACTS = path.resolve('.test-artifacts');
 
+/** The shared two-worker server serving the built web app, or one of this test's own with `env`. */
 export async function startTestServer(
   env: Record<string, string> = {},
 ): Promise<{ baseUrl: string; testApp: TestApp; close(): Promise<void> }> {
   const webDist = process.env.WEB_DIST ?? 'dist/web';
   if (!fs.existsSync(`${webDist}/index.html`))
     throw new Error(`${webDist} is missing: npm test builds it first`);
-  const testApp = await createTestApp({ WEB_DIST: webDist, ...env });
-  const server = http.createServer(testApp.app);
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  const address = server.address();
-  const port = typeof address === 'object' && address ? address.port : 0;
-  return {
-    baseUrl: `http://127.0.0.1:${port}`,
-    testApp,
-    async close() {
-      server.closeAllConnections();
-      await new Promise<void>((resolve) => server.close(() => resolve()));
-      await testApp.close();
-    },
-  };
+  const testApp = await createTestApp(env);
+  return { baseUrl: testApp.app, testApp, close: () => testApp.close() };
 }
 
 export async function launchBrowser(): Promise<Browser> {

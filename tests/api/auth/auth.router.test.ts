@@ -104,11 +104,11 @@ describe('sign-in, sessions and CSRF', () => {
   });
 
   it('keeps a signed-in session across a restart of the API server', async () => {
-    const first = await createTestApp();
+    const first = await createTestApp({}, { ownServer: true });
     const client = await signIn(first.app, net.emails.grower);
     const cookie = (await client.get('/api/auth/me')).request.cookies;
     await first.close();
-    const second = await createTestApp();
+    const second = await createTestApp({}, { ownServer: true });
     try {
       const res = await request(second.app).get('/api/auth/me').set('Cookie', cookie);
       expect(res.status).toBe(200);

@@ -7,6 +7,7 @@ import {
   type BuiltNetwork,
   type TestApp,
 } from '../../helpers/app';
+import { buildActiveTrial } from '../trials/builders';
 
 describe('invitations', () => {
   let t: TestApp;
@@ -35,7 +36,16 @@ describe('invitations', () => {
     const invitee = clientFor(t.app);
     const preview = await invitee.get(`/api/invitations/${token}`);
     expect(preview.status).toBe(200);
-    expect(preview.body).toMatchObject({ email, role: 'grower' });
+    const [{ name: networkName }] = await t.dataSource.query(
+      'SELECT name FROM networks WHERE id = $1',
+      [net.networkId],
+    );
+    expect(preview.body).toEqual({
+      email,
+      role: 'grower',
+      networkName,
+      expiresAt: expect.stringMatching(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/),
+    });
 
     const accepted = await invitee.post('/api/invitations/accept', {
       token,
@@ -96,6 +106,34 @@ describe('invitations', () => {
   it('answers 404 for an unknown invitation token', async () => {
     const res = await clientFor(t.app).get('/api/invitations/not-a-real-token-at-all');
     expect(res.status).toBe(404);
+  });
+  it('gives the new account the site it was enrolled for when the grower accepts', async () => {
+    const coordinator = await signIn(t.app, net.emails.coordinator);
+    const trialId = await buildActiveTrial(coordinator, net.networkId, { name: 'Enrol trial' });
+    const email = `enrolled-${net.suffix}@test.example`;
+    const enrolled = await coordinator.post(`/api/trials/${trialId}/sites`, {
+      growerEmail: email,
+      fieldName: 'River flat',
+    });
+    expect(enrolled.status).toBe(201);
+    const mail = await t.mailCatcher.waitFor((m) => m.to.includes(email));
+    const token = /invite\/([A-Za-z0-9_-]+)/.exec(mail.text)![1]!;
+    const invitee = clientFor(t.app);
+    const accepted = await invitee.post('/api/invitations/accept', {
+      token,
+      name: 'Ada Headland',
+      password: 'long-enough-password',
+    });
+    expect(accepted.status).toBe(200);
+    const mine = await invitee.get('/api/sites/mine');
+    expect(mine.body).toEqual([
+      expect.objectContaining({
+        id: enrolled.body.id,
+        fieldName: 'River flat',
+        growerName: 'Ada Headland',
+        growerEmail: email,
+      }),
+    ]);
   });
 });
 

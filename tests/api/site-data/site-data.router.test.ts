@@ -55,8 +55,10 @@ describe('site data: PATCH /api/sites/:siteId and GET /api/sites/:siteId/audit',
     const stripEvent = res.body.find((e: { entityType: string }) => e.entityType === 'strip');
     expect(stripEvent).toMatchObject({
       action: 'update',
+      actorName: `grower ${net.suffix}`,
       actorEmail: net.emails.grower,
-      strip: { block: 1, position: 1 },
+      entityId: site.strips[0]!.id,
+      strip: { block: 1, position: 1, label: site.strips[0]!.label },
       before: { moisturePct: null },
       after: { moisturePct: 14.5 },
     });

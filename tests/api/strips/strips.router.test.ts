@@ -1,6 +1,4 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { EMPTY_OBSERVATION } from '../../../shared/schemas/observation';
-import { changeStrip } from '../../../api/lib/strip-data';
 import {
   buildNetwork,
   signIn,
@@ -214,23 +212,26 @@ describe('strip data: GET /api/sites/:siteId/strips and PATCH /api/strips/:strip
     ).toBe(200);
   });
 
-  it('refuses inside the writing statement when publishing lands between the read and the write', async () => {
+  it('waits for a publish in progress and then refuses the change, writing nothing', async () => {
     const net3 = await buildNetwork(t.dataSource, 'Strips race');
     const racing = await buildCollectSite(t.dataSource, net3);
     const strip = racing.strips[0]!;
-    // The service has read the site as open; the coordinator publishes before the write arrives.
-    await publishSite(t.dataSource, racing.siteId);
+    const owner = await signIn(t.app, net3.emails.grower);
     const versionBefore = await dataVersion(t.dataSource, racing.siteId);
-    const outcome = await changeStrip(t.dataSource.manager, {
-      siteId: racing.siteId,
-      stripId: strip.id,
+    // A coordinator's publish holds the site row; the grower's change arrives meanwhile.
+    const publishing = t.dataSource.createQueryRunner();
+    await publishing.connect();
+    await publishing.startTransaction();
+    await publishing.query('SELECT id FROM sites WHERE id = $1 FOR UPDATE', [racing.siteId]);
+    const change = owner.patch(`/api/strips/${strip.id}`, {
       version: 1,
-      values: { ...EMPTY_OBSERVATION, standCounts: [], headCounts: [], notes: 'too late' },
-      actorUserId: net3.userIds.grower,
-      before: { notes: '' },
-      after: { notes: 'too late' },
+      values: { notes: 'too late' },
     });
-    expect(outcome).toEqual({ kind: 'published' });
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    await publishing.query('UPDATE sites SET published_at = now() WHERE id = $1', [racing.siteId]);
+    await publishing.commitTransaction();
+    await publishing.release();
+    expect((await change).status).toBe(423);
     expect(await stripVersion(t.dataSource, strip.id)).toBe(1);
     expect(await dataVersion(t.dataSource, racing.siteId)).toBe(versionBefore);
     const audits = await t.dataSource.query(`SELECT 1 FROM audit_events WHERE entity_id = $1`, [
