@@ -7,6 +7,8 @@ export { groupBySite } from './group-by-site';
 export { fitRcbd } from './fit-rcbd';
 export type { RcbdFit } from './fit-rcbd';
 export { fitQuadraticResponse } from './fit-quadratic-response';
+export { fitResponseModels } from './fit-response-models';
+export type { ResponseModel, ResponseModels, OptimumInterval } from './fit-response-models';
 export { bartlettTest } from './bartlett-test';
 export { compactLetterDisplay } from './compact-letter-display';
 export { missingPlotEstimate } from './missing-plot-estimate';

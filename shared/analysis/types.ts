@@ -1,4 +1,5 @@
 // Input and result shapes of the trial analysis (plain TypeScript types, no zod).
+import type { ResponseModels } from './fit-response-models';
 
 /** One strip of a trial: the measured response (null when the strip is missing). */
 export type StripObservation = {
@@ -176,6 +177,11 @@ export type PooledAnalysis = {
   bartlett?: { chiSquare: number; df: number; p: number };
   siteDifferences: SiteDifference[];
   curve?: ResponseCurve;
+  /**
+   * Quadratic, linear-plateau and quadratic-plateau curves with site effects removed, chosen
+   * by AIC, with delta-method intervals for the optimum rates (absent when rates are not numeric).
+   */
+  curves?: ResponseModels;
   /** The mixed model (REML, Kenward–Roger) on every observed strip; absent when it cannot be fitted (see notes). */
   mixed?: MixedModelAnalysis;
   notes: string[];
