@@ -10,7 +10,11 @@ import {
   type SiteAnalysis,
   type SiteStrip,
 } from '../../shared/analysis/index';
-import { pooledFindings, siteFindings } from '../../shared/reports/findings';
+import {
+  pooledFindings,
+  pooledStatisticianNotes,
+  siteFindings,
+} from '../../shared/reports/findings';
 import type {
   ComponentRow,
   EconomicsRow,
@@ -551,8 +555,8 @@ export function buildPooledReport(
       })()
     : [];
 
-  const findings = analysis
-    ? pooledFindings({
+  const findingsInput = analysis
+    ? {
         analysis,
         rateLabels: labels,
         yieldUnit: units.yield,
@@ -562,8 +566,12 @@ export function buildPooledReport(
         economics,
         prices: { seedPricePerLb: seedPrice, grainPricePerBu: grainPrice },
         moneyUnit: units.money,
-      })
+      }
+    : null;
+  const findings = findingsInput
+    ? pooledFindings(findingsInput)
     : [analysisError ?? 'The pooled analysis is not available yet.'];
+  const forStatistician = findingsInput ? pooledStatisticianNotes(findingsInput) : [];
 
   const distinct = (values: string[]) => [...new Set(values.filter((v) => v.trim() !== ''))].sort();
   return {
@@ -592,6 +600,7 @@ export function buildPooledReport(
       previousCrop: distinct(input.sites.map((s) => s.previousCrop)),
     },
     findings,
+    forStatistician,
   };
 }
 

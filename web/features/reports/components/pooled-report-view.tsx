@@ -25,6 +25,8 @@ import { pooledSearch } from '../api/get-pooled-report';
 import { usePublicLink, usePublishTrial } from '../api/publish-report';
 import { FindingsList } from './findings-list';
 import { MixedModelSection } from './mixed-model-section';
+import { ResponseModelsSection } from './response-models-section';
+import { StatisticianNotes } from './statistician-notes';
 import { PublishPanel } from './publish-panel';
 import { ChartCard, DataTableNote, DownloadLink, Section } from './report-bits';
 import {
@@ -280,6 +282,7 @@ export function PooledReportView({
         isPublic={isPublic}
       />
       <FindingsList title="What the network found" findings={report.findings} />
+      <StatisticianNotes notes={report.forStatistician} />
 
       <Section
         id="sites"
@@ -394,6 +397,7 @@ export function PooledReportView({
               </p>
             ) : null}
           </Section>
+          <ResponseModelsSection curves={analysis.curves} seedUnit={trial.units.seed} />
           <MixedModelSection
             mixed={analysis.mixed}
             label={label}
