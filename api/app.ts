@@ -115,7 +115,7 @@ export function createApp(deps: AppDeps): Express {
   // Health answers before sessions so it works with the database down.
   app.use('/api', createHealthRouter(ctx));
 
-  const passport = createPassport(auth);
+  const passport = createPassport(auth, dataSource);
   app.use('/api', express.json({ limit: '1mb' }));
   app.use('/api', createSessionMiddleware(config, deps.sessionPool));
   // passport.session() sets up req.login/logout itself; initialize() only adds a compatibility

@@ -83,7 +83,9 @@ function supervise(config: AppConfig) {
       if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
       return;
     }
-    console.error(`[sheaf] worker ${worker.process.pid} stopped (${signal ?? code}); starting another`);
+    console.error(
+      `[sheaf] worker ${worker.process.pid} stopped (${signal ?? code}); starting another`,
+    );
     setTimeout(fork, 500);
   });
   const stop = (signal: NodeJS.Signals) => {

@@ -1,6 +1,9 @@
-// npm test: install what is missing (npm deps, PostgreSQL, Chromium), build the web app,
-// start a throw-away PostgreSQL cluster on 127.0.0.1, migrate and load the demo, run every
-// test with vitest, then stop and delete the cluster. Exits non-zero on any failure.
+// npm test: install what is missing (npm deps, PostgreSQL, Chromium); on a full run, check
+// formatting, lint, types and the lint rules' probe test first; build the web app, start a
+// throw-away PostgreSQL cluster on 127.0.0.1, migrate and load the demo, run every test with
+// vitest, then stop and delete the cluster. Exits non-zero on any failure. `npm test --
+// tests/some/path` runs chosen files only and skips the static checks (they cover the whole
+// tree, which is not what a chosen run is for).
 import fs from 'node:fs';
 import path from 'node:path';
 import { ensureDebianPackage, ensureNodeModules } from './lib/deps.mjs';
@@ -13,9 +16,11 @@ import {
   stopWhenOrphaned,
 } from './lib/env.mjs';
 import { freePort, startCluster } from './lib/postgres.mjs';
+import { ARCHITECTURE_TESTS, runStaticChecks } from './lib/static-checks.mjs';
 
 const extraArgs = process.argv.slice(2);
 ensureNodeModules();
+if (extraArgs.length === 0 && !runStaticChecks()) process.exit(1);
 if (!ensureDebianPackage('/usr/bin/chromium', 'chromium')) process.exit(1);
 ensureDebianPackage('/usr/bin/pdfinfo', 'poppler-utils');
 const webDist = buildWeb();
@@ -74,7 +79,12 @@ try {
     code = await runChild(process.execPath, [vitest, 'run', ...serial, ...extraArgs], env);
   } else {
     // Fault tests stop and start PostgreSQL, so they run after everything else, one file at a time.
-    code = await runChild(process.execPath, [vitest, 'run', '--exclude', 'tests/faults/**'], env);
+    // The architecture probes already ran with the static checks.
+    code = await runChild(
+      process.execPath,
+      [vitest, 'run', '--exclude', 'tests/faults/**', '--exclude', `${ARCHITECTURE_TESTS}/**`],
+      env,
+    );
     const faults = fs.existsSync('tests/faults')
       ? await runChild(
           process.execPath,

@@ -23,7 +23,10 @@ export function servesCaughtMail(config: {
 }
 
 /** Every address that belongs to the given networks: members, pending invitations and growers. */
-async function networkAddresses(dataSource: DataSource, networkIds: string[]): Promise<Set<string>> {
+async function networkAddresses(
+  dataSource: DataSource,
+  networkIds: string[],
+): Promise<Set<string>> {
   const [members, invitations, sites] = await Promise.all([
     dataSource.getRepository(Membership).find({
       select: { id: true, user: { id: true, email: true } },

@@ -10,28 +10,13 @@ import { AppError, Unauthenticated } from '../errors';
 import type { Policies } from '../middleware/access';
 import { csrfTokenFor } from '../middleware/csrf';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
+import { logIn } from '../lib/session-login';
 import type { AuthService } from './auth.service';
 
 function tooMany(message: string) {
   return (_req: Request, _res: Response, next: NextFunction) =>
     next(new AppError(429, 'rate_limited', message));
 }
-
-/** Logs the user in and rotates the session id, keeping the CSRF token. */
-function logIn(req: Request, user: Express.User): Promise<void> {
-  const csrfToken = req.session.csrfToken;
-  return new Promise((resolve, reject) => {
-    req.session.regenerate((err) => {
-      if (err) return reject(err);
-      req.session.csrfToken = csrfToken;
-      req.login(user, { keepSessionInfo: true } as Parameters<typeof req.login>[1], (loginErr) =>
-        loginErr ? reject(loginErr) : resolve(),
-      );
-    });
-  });
-}
-
-export { logIn };
 
 export function createAuthRouter(deps: {
   auth: AuthService;

@@ -5,16 +5,12 @@ import type { SessionUser } from '../../shared/schemas/auth';
 import type { Role } from '../../shared/schemas/common';
 import { AppError } from '../errors';
 import { composeMail, type Mailer } from '../mail/mailer';
+import { BCRYPT_COST, hashPassword } from '../lib/passwords';
 import { hashToken, newToken } from '../lib/tokens';
 
-export const BCRYPT_COST = 11;
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
 // Compared against when the e-mail is unknown, so both failures take about as long.
 const DUMMY_HASH = bcrypt.hashSync('sheaf-timing-equaliser', BCRYPT_COST);
-
-export function hashPassword(password: string): Promise<string> {
-  return bcrypt.hash(password, BCRYPT_COST);
-}
 
 export function createAuthService(deps: {
   dataSource: DataSource;

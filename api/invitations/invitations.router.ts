@@ -5,7 +5,7 @@ import { AppError, NotFound } from '../errors';
 import { z } from 'zod';
 import { InvitationAcceptSchema, InvitationCreateSchema } from '../../shared/schemas/auth';
 import type { AuthService } from '../auth/auth.service';
-import { logIn } from '../auth/auth.router';
+import { logIn } from '../lib/session-login';
 import type { Policies } from '../middleware/access';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 import { PostgresRateLimitStore } from '../middleware/rate-limit-store';

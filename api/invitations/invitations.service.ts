@@ -9,9 +9,9 @@ import { Trial } from '../../db/entities/trial.entity';
 import { User } from '../../db/entities/user.entity';
 import type { InvitationAccept, InvitationPreview } from '../../shared/schemas/auth';
 import type { Role } from '../../shared/schemas/common';
-import { hashPassword } from '../auth/auth.service';
 import { AppError, Conflict, Forbidden, NotFound } from '../errors';
 import { composeMail, type Mailer } from '../mail/mailer';
+import { hashPassword } from '../lib/passwords';
 import { hashToken, newToken } from '../lib/tokens';
 
 const INVITATION_LIFETIME_MS = 14 * 24 * 60 * 60 * 1000;

@@ -5,6 +5,10 @@ import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type pg from 'pg';
 import type { AppConfig } from '../config/env';
+import type { Request } from 'express';
+import type { DataSource } from 'typeorm';
+import { Membership } from '../../db/entities/membership.entity';
+import { User } from '../../db/entities/user.entity';
 import type { AuthService } from '../auth/auth.service';
 
 declare global {
@@ -43,8 +47,27 @@ export function createSessionMiddleware(config: AppConfig, pool: pg.Pool) {
   });
 }
 
+/**
+ * The signed-in user and their role in each network, read in one query on every request (so a
+ * removed account, a sign-out elsewhere or a role change applies at once on every process). The
+ * roles are kept on the request for the access policies.
+ */
+async function loadSessionUser(dataSource: DataSource, req: Request, userId: string) {
+  const user = await dataSource
+    .getRepository(User)
+    .createQueryBuilder('user')
+    .leftJoinAndMapMany('user.memberships', Membership, 'membership', 'membership.userId = user.id')
+    .select(['user.id', 'user.email', 'user.name', 'membership.networkId', 'membership.role'])
+    .where('user.id = :userId', { userId })
+    .getOne();
+  if (!user) return null;
+  const memberships = (user as User & { memberships: Membership[] }).memberships;
+  req.access = { userId: user.id, roles: new Map(memberships.map((m) => [m.networkId, m.role])) };
+  return { id: user.id, email: user.email, name: user.name };
+}
+
 /** A passport instance of our own, so several apps (tests) can live in one process. */
-export function createPassport(auth: AuthService) {
+export function createPassport(auth: AuthService, dataSource: DataSource) {
   const instance = new passport.Passport();
   instance.use(
     new LocalStrategy(
@@ -55,9 +78,11 @@ export function createPassport(auth: AuthService) {
     ),
   );
   instance.serializeUser((user, done) => done(null, user.id));
-  // Read on every request, so a removed or renamed account applies on every server process at once.
-  instance.deserializeUser((id: string, done) => {
-    auth.findSessionUser(id).then((user) => done(null, user ?? false), done);
-  });
+  // passport hands the request to a three-argument deserializer.
+  instance.deserializeUser(
+    (req: Request, id: string, done: (err: unknown, user?: Express.User | false) => void) => {
+      loadSessionUser(dataSource, req, id).then((user) => done(null, user ?? false), done);
+    },
+  );
   return instance;
 }

@@ -121,17 +121,25 @@ function latestSnapshot(
   manager: EntityManager,
   where: { siteId: string; scope: 'site' } | { trialId: string; scope: 'pooled' },
 ): Promise<ReportSnapshot | null> {
-  return manager.getRepository(ReportSnapshot).findOne({
-    select: {
-      id: true,
-      dataVersion: true,
-      publishedAt: true,
-      publisher: { id: true, name: true },
-    },
-    relations: { publisher: true },
-    where: { ...where, withdrawnAt: IsNull() },
-    order: { publishedAt: 'DESC' },
-  });
+  // The query builder with limit(1), not findOne: findOne with a relation costs two queries.
+  const query = manager
+    .getRepository(ReportSnapshot)
+    .createQueryBuilder('snapshot')
+    .leftJoin('snapshot.publisher', 'publisher')
+    .select([
+      'snapshot.id',
+      'snapshot.dataVersion',
+      'snapshot.publishedAt',
+      'publisher.id',
+      'publisher.name',
+    ])
+    .where('snapshot.scope = :scope', { scope: where.scope })
+    .andWhere('snapshot.withdrawnAt IS NULL')
+    .orderBy('snapshot.publishedAt', 'DESC')
+    .limit(1);
+  if ('siteId' in where) query.andWhere('snapshot.siteId = :siteId', { siteId: where.siteId });
+  else query.andWhere('snapshot.trialId = :trialId', { trialId: where.trialId });
+  return query.getOne();
 }
 
 /** A published snapshot's stored body. */
@@ -291,7 +299,10 @@ export function createReportsService(deps: ReportsServiceDeps) {
   async function loadTrialBundle(manager: EntityManager, trialId: string) {
     const trial = await manager
       .getRepository(Trial)
-      .findOne({ where: { id: trialId }, relations: { rateLevels: true } });
+      .createQueryBuilder('trial')
+      .leftJoinAndSelect('trial.rateLevels', 'level')
+      .where('trial.id = :trialId', { trialId })
+      .getOne();
     if (!trial) throw new NotFound('Trial');
     const sites = await manager.getRepository(Site).find({
       where: { trialId },

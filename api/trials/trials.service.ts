@@ -17,12 +17,8 @@ import { recordAudit } from '../audit/audit.service';
 import { Conflict, Forbidden, NotFound, ValidationError } from '../errors';
 import type { InvitationsService } from '../invitations/invitations.service';
 import { isCoordinating } from '../middleware/access';
-import {
-  presentSiteRow,
-  presentTrial,
-  SOWING_RECORDED_SQL,
-  type SiteRowQuery,
-} from './trials.presenter';
+import { SOWING_RECORDED_SQL } from '../lib/sowing-recorded';
+import { presentSiteRow, presentTrial, type SiteRowQuery } from './trials.presenter';
 
 const ALLOWED_STATUS_CHANGES: Record<TrialStatus, TrialStatus[]> = {
   draft: ['active'],

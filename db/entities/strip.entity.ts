@@ -9,7 +9,7 @@ import {
   PrimaryGeneratedColumn,
   type Relation,
 } from 'typeorm';
-import { Observation } from './observation.entity';
+import type { Observation } from './observation.entity';
 import { RateLevelRow } from './rate-level.entity';
 import { Site } from './site.entity';
 
@@ -46,6 +46,7 @@ export class Strip {
   version!: number;
 
   /** What was measured on the strip; absent until the first entry. */
-  @OneToOne(() => Observation, (observation) => observation.strip)
+  // Named by string so this file needs only the type (observation.entity imports Strip).
+  @OneToOne('Observation', (observation: Observation) => observation.strip)
   observation?: Relation<Observation> | null;
 }

@@ -19,7 +19,7 @@ import type {
 } from '../../shared/schemas/trial';
 import { numericTransformer } from '../transformers';
 import { Network } from './network.entity';
-import { RateLevelRow } from './rate-level.entity';
+import type { RateLevelRow } from './rate-level.entity';
 
 @Entity({ name: 'trials' })
 export class Trial {
@@ -136,7 +136,9 @@ export class Trial {
   @Column({ name: 'created_by', type: 'uuid', nullable: true })
   createdBy!: string | null;
 
-  @OneToMany(() => RateLevelRow, (level) => level.trial)
+  // Named by string so this file needs only the type: the rate level imports Trial, and a
+  // value import both ways would be an import cycle.
+  @OneToMany('RateLevelRow', (level: RateLevelRow) => level.trial)
   rateLevels?: Relation<RateLevelRow[]>;
 
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })

@@ -3,7 +3,7 @@
 import seedrandom from 'seedrandom';
 import type { DataSource, EntityManager } from 'typeorm';
 import { randomizeRcbd } from '../../shared/design/randomize-rcbd';
-import { hashPassword } from '../../api/auth/auth.service';
+import bcrypt from 'bcryptjs';
 import { Membership } from '../entities/membership.entity';
 import { Network } from '../entities/network.entity';
 import { Observation } from '../entities/observation.entity';
@@ -89,7 +89,8 @@ function round(value: number, digits: number): number {
 /** Loads the demo once; returns false when it is already there (restart-safe). */
 export async function seedDemo(dataSource: DataSource): Promise<boolean> {
   if (await dataSource.getRepository(Network).existsBy({ slug: DEMO_NETWORK_SLUG })) return false;
-  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  // bcrypt directly (db/ does not import api/); sign-in reads the cost from the hash itself.
+  const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 11);
   await dataSource.transaction(async (manager) => {
     const network = await manager.getRepository(Network).save({
       name: 'Millbrook Valley Grain Circle (invented demo)',

@@ -12,7 +12,7 @@ import { createApp } from '../../api/app';
 import { readConfig, type AppConfig } from '../../api/config/env';
 import type { RouteEntry } from '../../api/lib/route-table';
 import { fetchCaughtMail } from '../../api/mail/mail-catcher';
-import { hashPassword } from '../../api/auth/auth.service';
+import { hashPassword } from '../../api/lib/passwords';
 import { createDataSource } from '../../db/data-source';
 import type { CaughtMail } from '../../shared/schemas/auth';
 import { freePort, startApiServer } from './spawn-server';

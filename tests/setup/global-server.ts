@@ -41,7 +41,11 @@ export default async function setup(project: TestProject) {
   return async () => {
     await server.stop();
     await catcher.stop();
-    const warning = server.output().split('\n').find((line) => OVERLAPPING_QUERY_WARNING.test(line));
-    if (warning) throw new Error(`The API server ran overlapping queries on one connection: ${warning}`);
+    const warning = server
+      .output()
+      .split('\n')
+      .find((line) => OVERLAPPING_QUERY_WARNING.test(line));
+    if (warning)
+      throw new Error(`The API server ran overlapping queries on one connection: ${warning}`);
   };
 }

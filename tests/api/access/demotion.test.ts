@@ -1,7 +1,7 @@
 // Site rights follow the person's current role: a grower changed to member keeps their name on the
 // site but can no longer change its strips, list them for editing or download its template.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signIn, type Client } from '../../helpers/app';
+import type { Client } from '../../helpers/app';
 import { openCollectSite, type CollectSite } from '../strips/collect-builders';
 import type { BuiltNetwork, TestApp } from '../../helpers/app';
 

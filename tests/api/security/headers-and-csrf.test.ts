@@ -1,7 +1,6 @@
 // Security basics: the Content-Security-Policy, and CSRF on every state-changing route.
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { RouteEntry } from '../../../api/lib/route-table';
 import { createTestApp, signIn, type TestApp } from '../../helpers/app';
 
 describe('security headers', () => {
