@@ -95,20 +95,45 @@ export function fitResponseModels(
   });
   const withinSs = y.reduce((sum, v, i) => sum + (v - siteMean[siteOf[i]!]!) ** 2, 0);
 
-  /** Least squares of y on site indicators plus the given columns. */
+  /** Centres a column within each site (absorbs the site levels, Frisch–Waugh–Lovell). */
+  const centre = (column: readonly number[]) => {
+    const sums = new Float64Array(s);
+    const counts = new Float64Array(s);
+    column.forEach((v, i) => {
+      sums[siteOf[i]!]! += v;
+      counts[siteOf[i]!]! += 1;
+    });
+    return column.map((v, i) => v - sums[siteOf[i]!]! / counts[siteOf[i]!]!);
+  };
+  const yCentred = centre(y);
+  const siteRows = siteNames.map((_, site) => y.flatMap((_, i) => (siteOf[i] === site ? [i] : [])));
+  /** Least squares of y on site levels plus the given columns, by centring within sites. */
   const leastSquares = (columns: number[][]) => {
-    const p = s + columns.length;
-    const design = new Matrix(
-      y.map((_, i) => [
-        ...siteNames.map((__, k) => (siteOf[i] === k ? 1 : 0)),
-        ...columns.map((c) => c[i]!),
-      ]),
+    const centred = columns.map(centre);
+    const k = columns.length;
+    const cross = new Matrix(
+      centred.map((a) => centred.map((b) => a.reduce((sum, v, i) => sum + v * b[i]!, 0))),
     );
-    const covariance = inverse(design.transpose().mmul(design));
-    const beta = covariance.mmul(design.transpose()).mmul(Matrix.columnVector(y)).to1DArray();
-    const fitted = design.mmul(Matrix.columnVector(beta)).to1DArray();
-    const rss = y.reduce((sum, v, i) => sum + (v - fitted[i]!) ** 2, 0);
-    return { beta, covariance, rss, p };
+    const covariance = inverse(cross);
+    const xty = centred.map((a) => a.reduce((sum, v, i) => sum + v * yCentred[i]!, 0));
+    const slopes = Array.from({ length: k }, (_, r) =>
+      xty.reduce((sum, v, c) => sum + covariance.get(r, c) * v, 0),
+    );
+    let rss = 0;
+    for (let i = 0; i < n; i++) {
+      let fitted = 0;
+      for (let r = 0; r < k; r++) fitted += slopes[r]! * centred[r]![i]!;
+      rss += (yCentred[i]! - fitted) ** 2;
+    }
+    // Site level = site mean of y − Σ slope · site mean of the column.
+    const levels = siteRows.map((rows) => {
+      const average = (values: readonly number[]) =>
+        rows.reduce((sum, i) => sum + values[i]!, 0) / rows.length;
+      return average(y) - columns.reduce((sum, column, r) => sum + slopes[r]! * average(column), 0);
+    });
+    if (!(rss >= 0) || !slopes.every(Number.isFinite))
+      throw new Error('fitResponseModels: the curve columns are collinear');
+    return { slopes, covariance, rss, p: s + k, meanIntercept: mean(levels) };
   };
   const aic = (rss: number, parameters: number) =>
     n * Math.log((2 * Math.PI * rss) / n) + n + 2 * (parameters + 1);
@@ -127,11 +152,11 @@ export function fitResponseModels(
   const quadratic = leastSquares([x, x.map((v) => v * v)]);
   const qDf = n - quadratic.p;
   const qSigma2 = quadratic.rss / qDf;
-  const b1 = quadratic.beta[s]!;
-  const b2 = quadratic.beta[s + 1]!;
-  const v11 = quadratic.covariance.get(s, s) * qSigma2;
-  const v12 = quadratic.covariance.get(s, s + 1) * qSigma2;
-  const v22 = quadratic.covariance.get(s + 1, s + 1) * qSigma2;
+  const b1 = quadratic.slopes[0]!;
+  const b2 = quadratic.slopes[1]!;
+  const v11 = quadratic.covariance.get(0, 0) * qSigma2;
+  const v12 = quadratic.covariance.get(0, 1) * qSigma2;
+  const v22 = quadratic.covariance.get(1, 1) * qSigma2;
   const quadraticOptimum = (slope: number): OptimumInterval | null => {
     if (!(b2 < 0)) return null;
     const value = (slope - b1) / (2 * b2);
@@ -143,7 +168,7 @@ export function fitResponseModels(
     model: 'quadratic',
     parameters: { linear: b1, quadratic: b2 },
     standardErrors: { linear: Math.sqrt(v11), quadratic: Math.sqrt(v22) },
-    meanIntercept: mean(quadratic.beta.slice(0, s)),
+    meanIntercept: quadratic.meanIntercept,
     residualSs: quadratic.rss,
     residualDf: qDf,
     aic: aic(quadratic.rss, quadratic.p),
@@ -173,21 +198,15 @@ export function fitResponseModels(
       if (value < bestRss) [bestJoin, bestRss] = [join, value];
     }
     const fit = leastSquares([regressor(bestJoin)]);
-    const slope = fit.beta[s]!;
+    const slope = fit.slopes[0]!;
     const df = n - (fit.p + 1);
     const sigma2 = fit.rss / df;
-    // Gauss–Newton covariance over (levels, slope, join).
-    const jacobian = new Matrix(
-      x.map((v, i) => {
-        const below = v < bestJoin;
-        const dJoin = below ? (power === 1 ? -slope : -2 * slope * (v - bestJoin)) : 0;
-        return [
-          ...siteNames.map((_, k) => (siteOf[i] === k ? 1 : 0)),
-          (Math.min(v, bestJoin) - bestJoin) ** power,
-          dJoin,
-        ];
-      }),
+    // Gauss–Newton covariance of (slope, join) with the site levels absorbed (centred columns).
+    const slopeColumn = centre(x.map((v) => (Math.min(v, bestJoin) - bestJoin) ** power));
+    const joinColumn = centre(
+      x.map((v) => (v < bestJoin ? (power === 1 ? -slope : -2 * slope * (v - bestJoin)) : 0)),
     );
+    const jacobian = [slopeColumn, joinColumn];
     // A join at the second lowest rate or at the highest one is not identified (no plateau,
     // or one rate below it): no standard errors and no optimum interval then.
     const spread = high - low;
@@ -196,10 +215,14 @@ export function fitResponseModels(
     let vJoin = Number.NaN;
     let vBoth = Number.NaN;
     if (identified) {
-      const covariance = inverse(jacobian.transpose().mmul(jacobian)).mul(sigma2);
-      vSlope = covariance.get(s, s);
-      vJoin = covariance.get(s + 1, s + 1);
-      vBoth = covariance.get(s, s + 1);
+      const covariance = inverse(
+        new Matrix(
+          jacobian.map((a) => jacobian.map((b) => a.reduce((sum, v, i) => sum + v * b[i]!, 0))),
+        ),
+      ).mul(sigma2);
+      vSlope = covariance.get(0, 0);
+      vJoin = covariance.get(1, 1);
+      vBoth = covariance.get(0, 1);
     }
     const name = power === 1 ? 'slope' : 'curvature';
     const concave = (power === 1 ? slope > 0 : slope < 0) && identified;
@@ -215,7 +238,7 @@ export function fitResponseModels(
       model: kind,
       parameters: { [name]: slope, join: bestJoin },
       standardErrors: { [name]: Math.sqrt(vSlope), join: Math.sqrt(vJoin) },
-      meanIntercept: mean(fit.beta.slice(0, s)),
+      meanIntercept: fit.meanIntercept,
       residualSs: fit.rss,
       residualDf: df,
       aic: aic(fit.rss, fit.p + 1),
