@@ -1,5 +1,14 @@
-// Benchmarks the analysis engine: a 200-site pooled network and one 4 × 4 site.
-import { analyzePooled, analyzeSite, type StripObservation } from '../shared/analysis/index';
+// Benchmarks the analysis engine: a 200-site pooled network, its mixed model (beside R's lmer when R is installed) and one 4 × 4 site.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import {
+  analyzePooled,
+  analyzeSite,
+  fitNetworkMixedModel,
+  type StripObservation,
+} from '../shared/analysis/index';
 
 /** Small seeded generator (mulberry32) so every run analyses the same invented network. */
 function generator(seed: number): () => number {
@@ -65,9 +74,63 @@ const site = inventNetwork(1, 4, rates, 7).map(({ block, rate, value }) => ({
 }));
 const pooled = time(() => analyzePooled(network), 40);
 const single = time(() => analyzeSite(site), 2000);
+const singleDunnett = time(() => analyzeSite(site, { manyToOne: true }), 200);
 console.log(
   `pooled, 200 sites × 4 rates × 6 blocks (${network.length} strips): median ${pooled.median.toFixed(2)} ms (first run ${pooled.first.toFixed(1)} ms; target ≤ 20 ms)`,
 );
 console.log(
   `one site, 4 rates × 4 blocks: median ${single.median.toFixed(4)} ms (first run ${single.first.toFixed(2)} ms, includes the Tukey quantile before it is memoised; target ≤ 0.2 ms)`,
 );
+console.log(
+  `one site with Dunnett-adjusted differences: median ${singleDunnett.median.toFixed(2)} ms (first run ${singleDunnett.first.toFixed(1)} ms, includes the Dunnett critical value before it is memoised)`,
+);
+
+// The mixed model alone (REML + Kenward–Roger rate test). Wall time on a shared machine
+// swings with other load, so the process CPU time per fit is printed too.
+const mixedCpu: number[] = [];
+const mixed = time(() => {
+  const before = process.cpuUsage();
+  const fit = fitNetworkMixedModel(network);
+  fit.kenwardRoger([
+    [1, 0, -1, 0],
+    [0, 1, -1, 0],
+    [0, 0, -1, 1],
+  ]);
+  const used = process.cpuUsage(before);
+  mixedCpu.push((used.user + used.system) / 1000);
+}, 20);
+console.log(
+  `mixed model (REML + Kenward–Roger rate test), 200 sites × 4 rates × 6 blocks: median ${mixed.median.toFixed(1)} ms wall, ${median(mixedCpu.slice(1)).toFixed(1)} ms CPU (first run ${mixed.first.toFixed(1)} ms; target ≤ 100 ms)`,
+);
+
+// The same data in R's lmer + pbkrtest, side by side, when R is installed.
+const hasR = spawnSync('Rscript', ['--version'], { encoding: 'utf8' }).status === 0;
+if (!hasR) {
+  console.log('R lmer: skipped (Rscript not installed)');
+} else {
+  const folder = mkdtempSync(path.join(tmpdir(), 'sheaf-bench-r-'));
+  const csv = path.join(folder, 'network.csv');
+  writeFileSync(
+    csv,
+    `site,block,rate,value\n${network.map((r) => `${r.site},${r.block},${r.rate},${r.value}`).join('\n')}\n`,
+  );
+  const script = `
+suppressMessages({ library(lme4); library(pbkrtest) })
+d <- read.csv("${csv}")
+d$rate <- factor(d$rate); d$block <- factor(paste(d$site, d$block))
+times <- sapply(1:5, function(i) system.time({
+  fit <<- lmer(value ~ 0 + rate + (1 | site) + (1 | block) + (1 | site:rate), data = d, REML = TRUE)
+})[["elapsed"]])
+L <- cbind(diag(3), -1)
+kr <- system.time(KRmodcomp(fit, L))[["elapsed"]]
+cat(sprintf("R lmer (lme4 %s), same data: median %.1f ms per fit; pbkrtest KR test %.1f ms\\n",
+  as.character(packageVersion("lme4")), 1000 * median(times), 1000 * kr))
+`;
+  const result = spawnSync('Rscript', ['-e', script], { encoding: 'utf8' });
+  process.stdout.write(
+    result.status === 0
+      ? result.stdout
+      : `R lmer: failed (${result.stderr.trim().split('\n').pop()})\n`,
+  );
+  rmSync(folder, { recursive: true, force: true });
+}

@@ -66,14 +66,18 @@ function readRows(text: string, wanted?: string): { response: string; rows: Stri
     response = wanted;
   } else if (candidates.includes('yield')) response = 'yield';
   else {
-    const numeric = candidates.find((column) =>
+    // Never guess: a numeric column may be plot numbers. Name the ones that could be meant.
+    const numeric = candidates.filter((column) =>
       parsed.data.some((row) => {
         const read = parseDecimal(row[column] ?? '');
         return read.ok && read.value !== null;
       }),
     );
-    if (numeric === undefined) throw new InputError('row 1 (header): no numeric response column');
-    response = numeric;
+    throw new InputError(
+      numeric.length === 0
+        ? 'row 1 (header): no "yield" column and no other numeric column to analyse'
+        : `row 1 (header): no "yield" column; name the response with --response (numeric columns: ${numeric.join(', ')})`,
+    );
   }
   const blocksBySite = new Map<string, { blocks: Set<string>; firstRow: number }>();
   const rows = parsed.data.map((record, index) => {

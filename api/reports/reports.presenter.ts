@@ -1,6 +1,7 @@
 // Builds the site and pooled report bodies from loaded rows: derives each strip's yield,
 // runs the analysis engine and writes the findings. No database access here.
 import {
+  addMixedModel,
   analyzeSite,
   chooseReferenceRate,
   combineSites,
@@ -9,7 +10,11 @@ import {
   type SiteAnalysis,
   type SiteStrip,
 } from '../../shared/analysis/index';
-import { pooledFindings, siteFindings } from '../../shared/reports/findings';
+import {
+  pooledFindings,
+  pooledStatisticianNotes,
+  siteFindings,
+} from '../../shared/reports/findings';
 import type {
   ComponentRow,
   EconomicsRow,
@@ -255,7 +260,10 @@ function analyseSite(
     value: s.yield,
   }));
   try {
-    return { analysis: { site: name, ...analyzeSite(rows, { reference }) }, error: null };
+    return {
+      analysis: { site: name, ...analyzeSite(rows, { reference, manyToOne: true }) },
+      error: null,
+    };
   } catch (error) {
     return {
       analysis: null,
@@ -450,7 +458,8 @@ export function buildPooledReport(
   const prices = enginePrices(trial, units, seedPrice, grainPrice);
   const seedRates = new Map(rates.map((r) => [r.key, r.seedRate]));
 
-  const included: { site: PooledSite; name: string; analysis: SiteAnalysis }[] = [];
+  const included: { site: PooledSite; name: string; analysis: SiteAnalysis; rows: SiteStrip[] }[] =
+    [];
   const excluded: { site: PooledSite; reason: string }[] = [];
   const names = new Map<string, number>();
   for (const { yields, ...site } of input.sites) {
@@ -468,7 +477,7 @@ export function buildPooledReport(
       const count = (names.get(site.fieldName) ?? 0) + 1;
       names.set(site.fieldName, count);
       const name = count === 1 ? site.fieldName : `${site.fieldName} (${count})`;
-      included.push({ site, name, analysis: analyzeSite(rows, { reference }) });
+      included.push({ site, name, analysis: analyzeSite(rows, { reference }), rows });
     } catch (error) {
       excluded.push({
         site,
@@ -490,6 +499,13 @@ export function buildPooledReport(
         included.map(({ name, analysis: a }) => ({ site: name, analysis: a })),
         rateKeys,
         { reference, ratesNumeric: numeric, prices },
+      );
+      // The mixed model uses every strip of the included sites (see shared/analysis).
+      addMixedModel(
+        analysis,
+        included.flatMap(({ name, rows }) => rows.map((row) => ({ site: name, ...row }))),
+        rateKeys,
+        reference,
       );
     } catch (error) {
       analysisError = `The pooled analysis could not be run: ${(error as Error).message}`;
@@ -541,8 +557,8 @@ export function buildPooledReport(
       })()
     : [];
 
-  const findings = analysis
-    ? pooledFindings({
+  const findingsInput = analysis
+    ? {
         analysis,
         rateLabels: labels,
         yieldUnit: units.yield,
@@ -552,8 +568,12 @@ export function buildPooledReport(
         economics,
         prices: { seedPricePerLb: seedPrice, grainPricePerBu: grainPrice },
         moneyUnit: units.money,
-      })
+      }
+    : null;
+  const findings = findingsInput
+    ? pooledFindings(findingsInput)
     : [analysisError ?? 'The pooled analysis is not available yet.'];
+  const forStatistician = findingsInput ? pooledStatisticianNotes(findingsInput) : [];
 
   const distinct = (values: string[]) => [...new Set(values.filter((v) => v.trim() !== ''))].sort();
   return {
@@ -582,6 +602,7 @@ export function buildPooledReport(
       previousCrop: distinct(input.sites.map((s) => s.previousCrop)),
     },
     findings,
+    forStatistician,
   };
 }
 

@@ -1,5 +1,6 @@
 // Pooled (over sites) analysis of a seeding-rate trial network.
 import { analyzeSite } from './analyze-site';
+import { addMixedModel } from './add-mixed-model';
 import { combineSites } from './combine-sites';
 import { groupBySite } from './group-by-site';
 import type { PooledAnalysis, PooledOptions, StripObservation } from './types';
@@ -28,9 +29,13 @@ export function analyzePooled(
     throw new Error(`analyzePooled needs at least 2 sites (got ${sites.length})`);
   const analyses = sites.map(({ site, rows: siteRows }) => ({
     site,
-    analysis: withSite(site, () => analyzeSite(siteRows, { reference, alpha: options.alpha })),
+    analysis: withSite(site, () =>
+      analyzeSite(siteRows, { reference, alpha: options.alpha, manyToOne: options.manyToOne }),
+    ),
   }));
-  return combineSites(analyses, rateLevels, { ...options, reference });
+  const pooled = combineSites(analyses, rateLevels, { ...options, reference });
+  addMixedModel(pooled, rows, rateLevels, reference, options.alpha);
+  return pooled;
 }
 
 function withSite<T>(site: string, run: () => T): T {

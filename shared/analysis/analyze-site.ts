@@ -1,9 +1,11 @@
 // Analysis of one site: RCBD ANOVA, rate means, comparisons, missing strips and outliers.
+import { adjustManyToOne } from './adjust-many-to-one';
 import { chooseReferenceRate } from './choose-reference-rate';
 import { compactLetterDisplay } from './compact-letter-display';
 import { fUpperTailP } from './f-upper-tail-p';
 import { fitRcbd } from './fit-rcbd';
 import { missingPlotEstimate } from './missing-plot-estimate';
+import { normalizeRate } from './normalize-rate';
 import { sortRateLevels } from './sort-rate-levels';
 import { studentTQuantile } from './student-t-quantile';
 import { studentTTwoSidedP } from './student-t-two-sided-p';
@@ -19,8 +21,12 @@ import type {
   StripResidual,
 } from './types';
 
-/** Strips whose externally studentized residual exceeds this in absolute value are flagged. */
-const OUTLIER_LIMIT = 3;
+/** An error mean square below this share of the total mean square is rounding noise. */
+const EXACT_FIT_SHARE = 1e-10;
+
+/** Message for data whose strips the block + rate model reproduces exactly. */
+const EXACT_FIT =
+  'the strips fit the rates and blocks exactly; Sheaf cannot estimate the strip-to-strip variation';
 
 /**
  * Analyses one site laid out as a randomized complete block design (RCBD), one response.
@@ -30,22 +36,31 @@ const OUTLIER_LIMIT = 3;
  * - Grand mean (of the observed strips), CV % = 100·√MSE / grand mean.
  * - Rate means (least-squares means when strips are missing) with SE, (1 − α) CI on the
  *   error df; SED; Fisher's LSD; Tukey's HSD (Tukey–Kramer for unequal SEDs) with compact
- *   letters; difference of every rate from the reference with SE, CI and t-test p.
+ *   letters; difference of every rate from the reference with SE, CI and t-test p
+ *   (unadjusted) and, with `manyToOne: true`, Dunnett's many-to-one adjusted p and
+ *   simultaneous CI beside them (as R's `multcomp::glht(lm, mcp(rate = "Dunnett"))`).
  * - Missing-strip estimates (least-squares fitted values; the classic formula too when one is
- *   missing), residuals and outliers (|externally studentized residual| > 3).
+ *   missing), residuals and outliers: the Bonferroni outlier test of R's `car::outlierTest`
+ *   (two-sided t p-value of each externally studentized residual on error df − 1, times the
+ *   number of strips; flagged when that adjusted p is below alpha).
+ * - Rates are equal when their numbers are equal ("1" and "1.0"). Tukey's HSD needs at least
+ *   2 error df (as R's `ptukey`); with 1 the site is analysed without it and says so.
  *
  * The reference is `options.reference`, else "1" (the full rate), else the rate with the
  * most observed strips (ties: the middle level). Blocks with no data are dropped (noted).
  *
  * Source: Gomez & Gomez (1984), Statistical Procedures for Agricultural Research, 2nd ed.,
  * ch. 2.2 (RCBD), ch. 5 (LSD, DMRT), 7.1.2 (missing data); Tukey (1953); Kramer (1956);
- * Belsley, Kuh & Welsch (1980) for studentized residuals.
+ * Belsley, Kuh & Welsch (1980) for studentized residuals; Weisberg (2014), Applied Linear
+ * Regression, 4th ed., 9.4.3 (Bonferroni outlier test), as in Fox & Weisberg's `car`.
  *
  * @param rows - strips of one site: block, rate and value (null = missing)
  * @param options - reference rate and alpha (default 0.05)
  * @returns the site analysis
  * @throws Error when a rate has no data, fewer than two blocks have data, no error df is
- *   left, a strip appears twice, a value is not finite, or the residual variance is zero
+ *   left, a strip appears twice, a value is not finite or is negative, the grand mean is 0,
+ *   the strips fit blocks and rates exactly (error MS below 1e-10 of the total MS), or the
+ *   values are so large that their squares overflow
  * @example analyzeSite(gomezSeedRateRows).anova[1].f // 2.1678 (Gomez & Gomez 1984, Table 2.6)
  */
 export function analyzeSite(
@@ -59,12 +74,18 @@ export function analyzeSite(
   const cells = new Map<string, number | null>();
   rows.forEach((row, index) => {
     const block = String(row.block).trim();
-    const rate = String(row.rate).trim();
     if (block === '') throw new Error(`analyzeSite: strip ${index + 1} has no block`);
-    if (rate === '') throw new Error(`analyzeSite: strip ${index + 1} has no rate`);
+    if (String(row.rate).trim() === '')
+      throw new Error(`analyzeSite: strip ${index + 1} has no rate`);
+    const rate = normalizeRate(row.rate);
     if (row.value !== null && !Number.isFinite(row.value)) {
       throw new Error(
         `analyzeSite: strip ${index + 1} (block ${block}, rate ${rate}) has a value that is not a finite number`,
+      );
+    }
+    if (row.value !== null && row.value < 0) {
+      throw new Error(
+        `analyzeSite: strip ${index + 1} (block ${block}, rate ${rate}) has a negative value (${row.value}); yields, counts and weights cannot be below zero`,
       );
     }
     if (!blockIndex.has(block)) blockIndex.set(block, blockIndex.size);
@@ -112,17 +133,32 @@ export function analyzeSite(
     );
   }
   const fit = fitRcbd(table);
-  const errorDf = fit.dfError;
-  const errorMeanSquare = fit.ssError / errorDf;
-  if (!(errorMeanSquare > 0)) {
+  if (![fit.ssTotal, fit.ssError, fit.ssRate, fit.ssBlock].every(Number.isFinite)) {
     throw new Error(
-      'analyzeSite: the error mean square is zero (blocks and rates fit the data exactly)',
+      'analyzeSite: the values are too large to analyse: their squares overflow double precision (above about 1e154); rescale them (e.g. t/ha instead of kg/ha)',
     );
   }
-  const reference = chooseReferenceRate(rateLevels, fit.counts, options.reference);
+  if (fit.grandMean === 0) {
+    throw new Error(
+      'analyzeSite: the grand mean is 0 (every strip is zero); there is nothing to compare',
+    );
+  }
+  const errorDf = fit.dfError;
+  const errorMeanSquare = fit.ssError / errorDf;
+  const totalMeanSquare = fit.ssTotal / (fit.observed - 1);
+  if (!(errorMeanSquare > EXACT_FIT_SHARE * totalMeanSquare)) {
+    throw new Error(`analyzeSite: ${EXACT_FIT}`);
+  }
+  const reference = chooseReferenceRate(
+    rateLevels,
+    fit.counts,
+    options.reference === undefined ? undefined : normalizeRate(options.reference),
+  );
   const referenceIndex = rateLevels.indexOf(reference);
   const tCritical = studentTQuantile(1 - alpha / 2, errorDf);
-  const qCritical = studentizedRangeQuantile(1 - alpha, rates, errorDf);
+  // R's ptukey is undefined below 2 df; with 1 error df the site goes without Tukey.
+  const tukey = errorDf >= 2;
+  const qCritical = tukey ? studentizedRangeQuantile(1 - alpha, rates, errorDf) : Number.NaN;
   const msBlock = fit.ssBlock / fit.dfBlock;
   const msRate = fit.ssRate / fit.dfRate;
   const fBlock = msBlock / errorMeanSquare;
@@ -137,13 +173,15 @@ export function analyzeSite(
     }
   }
   const sed = sedSum / pairs;
-  const letters = compactLetterDisplay(fit.means, (i, k) => {
-    const sedPair = Math.sqrt(errorMeanSquare * fit.differenceVariance(i, k));
-    return (
-      Math.abs((fit.means[i] as number) - (fit.means[k] as number)) >
-      (qCritical * sedPair) / Math.SQRT2
-    );
-  });
+  const letters = tukey
+    ? compactLetterDisplay(fit.means, (i, k) => {
+        const sedPair = Math.sqrt(errorMeanSquare * fit.differenceVariance(i, k));
+        return (
+          Math.abs((fit.means[i] as number) - (fit.means[k] as number)) >
+          (qCritical * sedPair) / Math.SQRT2
+        );
+      })
+    : rateLevels.map(() => '');
   const means: RateMean[] = rateLevels.map((rate, i) => {
     const mean = fit.means[i] as number;
     const se = Math.sqrt(errorMeanSquare * fit.meanVariance(i));
@@ -171,6 +209,33 @@ export function analyzeSite(
       ciHigh: diff + tCritical * se,
       p: studentTTwoSidedP(diff / se, errorDf),
     });
+  });
+  // Dunnett: Cov(d_i, d_j) = ½[Var(d_i) + Var(d_j) − Var(m_i − m_j)], one error df for all.
+  const others = rateLevels.flatMap((_, i) => (i === referenceIndex ? [] : [i]));
+  const covariance = others.map((i) =>
+    others.map(
+      (j) =>
+        (errorMeanSquare *
+          (fit.differenceVariance(i, referenceIndex) +
+            fit.differenceVariance(j, referenceIndex) -
+            fit.differenceVariance(i, j))) /
+        2,
+    ),
+  );
+  const adjustments =
+    options.manyToOne !== true
+      ? []
+      : adjustManyToOne(
+          differences.map((d) => d.diff),
+          covariance,
+          differences.map(() => errorDf),
+          alpha,
+        );
+  adjustments.forEach((adjusted, index) => {
+    const difference = differences[index]!;
+    difference.pAdjusted = adjusted.pAdjusted;
+    difference.ciLowAdjusted = adjusted.ciLowAdjusted;
+    difference.ciHighAdjusted = adjusted.ciHighAdjusted;
   });
 
   const missingEstimates: MissingEstimate[] = [];
@@ -213,9 +278,23 @@ export function analyzeSite(
         if (denominator > 1e-12) studentized = internal * Math.sqrt((errorDf - 1) / denominator);
       }
       residuals.push({ block, rate, value: y, fitted, residual, studentized });
-      if (studentized !== null && Math.abs(studentized) > OUTLIER_LIMIT) {
-        outliers.push({ block, rate, value: y, studentized });
-      }
+    }
+  }
+  // Bonferroni outlier test (car::outlierTest): p of each rstudent on errorDf − 1, × n.
+  const tested = residuals.filter((r) => r.studentized !== null).length;
+  for (const entry of residuals) {
+    if (entry.studentized === null) continue;
+    const p = studentTTwoSidedP(entry.studentized, errorDf - 1);
+    entry.pBonferroni = Math.min(1, tested * p);
+    if (entry.pBonferroni < alpha) {
+      outliers.push({
+        block: entry.block,
+        rate: entry.rate,
+        value: entry.value,
+        studentized: entry.studentized,
+        p,
+        pBonferroni: entry.pBonferroni,
+      });
     }
   }
   if (missing > 0) {
@@ -225,7 +304,12 @@ export function analyzeSite(
   }
   if (outliers.length > 0) {
     notes.push(
-      `${outliers.length} strip${outliers.length === 1 ? '' : 's'} with |studentized residual| > ${OUTLIER_LIMIT}: check the field notes.`,
+      `${outliers.length} strip${outliers.length === 1 ? '' : 's'} far from what block and rate predict (Bonferroni outlier test, adjusted p < ${alpha}): check the field notes.`,
+    );
+  }
+  if (!tukey) {
+    notes.push(
+      `Only ${errorDf} error degree of freedom: Tukey's test needs at least 2, so rates are not grouped by letters and no HSD is given.`,
     );
   }
   return {
@@ -256,7 +340,7 @@ export function analyzeSite(
     cvPercent: (100 * Math.sqrt(errorMeanSquare)) / fit.grandMean,
     sed,
     lsd: tCritical * sed,
-    hsd: (qCritical * sed) / Math.SQRT2,
+    hsd: tukey ? (qCritical * sed) / Math.SQRT2 : null,
     means,
     differences,
     missingEstimates,

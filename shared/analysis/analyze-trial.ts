@@ -1,5 +1,6 @@
 // Whole-trial analysis: every site, and the pooled analysis when there are two or more.
 import { analyzeSite } from './analyze-site';
+import { addMixedModel } from './add-mixed-model';
 import { combineSites } from './combine-sites';
 import { groupBySite } from './group-by-site';
 import type { StripObservation, TrialAnalysis, TrialOptions } from './types';
@@ -25,7 +26,14 @@ export function analyzeTrial(
   const { sites, rateLevels, reference } = groupBySite(rows, options.reference);
   const analyses = sites.map(({ site, rows: siteRows }) => {
     try {
-      return { site, analysis: analyzeSite(siteRows, { reference, alpha: options.alpha }) };
+      return {
+        site,
+        analysis: analyzeSite(siteRows, {
+          reference,
+          alpha: options.alpha,
+          manyToOne: options.manyToOne ?? true,
+        }),
+      };
     } catch (error) {
       throw new Error(`site ${site}: ${(error as Error).message}`);
     }
@@ -35,7 +43,9 @@ export function analyzeTrial(
     reference,
     sites: analyses.map(({ site, analysis }) => ({ site, ...analysis })),
   };
-  if (analyses.length >= 2)
+  if (analyses.length >= 2) {
     result.pooled = combineSites(analyses, rateLevels, { ...options, reference });
+    addMixedModel(result.pooled, rows, rateLevels, reference, options.alpha);
+  }
   return result;
 }

@@ -2,6 +2,7 @@
 import { bartlettTest } from './bartlett-test';
 import { fUpperTailP } from './f-upper-tail-p';
 import { fitQuadraticResponse } from './fit-quadratic-response';
+import { fitResponseModels } from './fit-response-models';
 import { studentTQuantile } from './student-t-quantile';
 import { studentTTwoSidedP } from './student-t-two-sided-p';
 import type {
@@ -242,6 +243,20 @@ export function combineSites(
       notes.push('Response curve fitted to the site × rate means.');
     } catch (error) {
       notes.push(`Response curve not fitted: ${(error as Error).message}`);
+    }
+    try {
+      const ratio = options.prices
+        ? options.prices.seedPricePerRateUnit / options.prices.grainPricePerYieldUnit
+        : undefined;
+      pooled.curves = fitResponseModels(
+        sites.flatMap(({ site }, s) =>
+          numeric.map((rate, i) => ({ site, rate, value: table[s]![i]! })),
+        ),
+        ratio,
+        alpha,
+      );
+    } catch (error) {
+      notes.push(`Curves with site effects removed not fitted: ${(error as Error).message}`);
     }
   } else {
     notes.push('Response curve not fitted: rates are not numeric (pass ratesNumeric).');

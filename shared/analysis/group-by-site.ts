@@ -1,11 +1,12 @@
 // Splits strips into sites and works out the shared rate levels and reference.
 import { chooseReferenceRate } from './choose-reference-rate';
+import { normalizeRate } from './normalize-rate';
 import { sortRateLevels } from './sort-rate-levels';
 import type { SiteStrip, StripObservation } from './types';
 
 /**
  * Groups strip observations by site (in order of first appearance), lists the rate levels
- * (sorted numerically when all are numbers) and picks one reference rate for the whole
+ * (equal numbers are one rate, see normalizeRate; sorted numerically when all are numbers) and picks one reference rate for the whole
  * trial (see chooseReferenceRate).
  *
  * @param rows - strips of every site
@@ -24,7 +25,9 @@ export function groupBySite(
   rows.forEach((row, index) => {
     const site = String(row.site).trim();
     if (site === '') throw new Error(`groupBySite: strip ${index + 1} has no site`);
-    const rate = String(row.rate).trim();
+    if (String(row.rate).trim() === '')
+      throw new Error(`groupBySite: strip ${index + 1} has no rate`);
+    const rate = normalizeRate(row.rate);
     let list = bySite.get(site);
     if (!list) bySite.set(site, (list = []));
     list.push({ block: row.block, rate, value: row.value });
@@ -34,7 +37,7 @@ export function groupBySite(
   const reference = chooseReferenceRate(
     rateLevels,
     rateLevels.map((rate) => counts.get(rate) ?? 0),
-    requestedReference,
+    requestedReference === undefined ? undefined : normalizeRate(requestedReference),
   );
   return {
     sites: [...bySite].map(([site, list]) => ({ site, rows: list })),

@@ -1,4 +1,5 @@
 // Input and result shapes of the trial analysis (plain TypeScript types, no zod).
+import type { ResponseModels } from './fit-response-models';
 
 /** One strip of a trial: the measured response (null when the strip is missing). */
 export type StripObservation = {
@@ -37,9 +38,15 @@ export type RateDifference = {
   rate: string;
   diff: number;
   se: number;
+  /** Unadjusted (1 − α) interval and t-test p: each comparison on its own. */
   ciLow: number;
   ciHigh: number;
   p: number;
+  /** Dunnett (many-to-one) adjusted p: allows for comparing every rate with the reference. */
+  pAdjusted?: number;
+  /** Dunnett simultaneous (1 − α) interval: all of them hold together with probability 1 − α. */
+  ciLowAdjusted?: number;
+  ciHighAdjusted?: number;
 };
 
 export type MissingEstimate = {
@@ -59,9 +66,21 @@ export type StripResidual = {
   residual: number;
   /** Externally studentized residual (R's `rstudent`); null when it is undefined. */
   studentized: number | null;
+  /** Bonferroni-adjusted p of the outlier test (R's `car::outlierTest`); absent when undefined. */
+  pBonferroni?: number;
 };
 
-export type OutlierFlag = { block: string; rate: string; value: number; studentized: number };
+/** A strip flagged by the Bonferroni outlier test (adjusted p below alpha). */
+export type OutlierFlag = {
+  block: string;
+  rate: string;
+  value: number;
+  studentized: number;
+  /** Unadjusted two-sided p of the studentized residual on error df − 1. */
+  p: number;
+  /** p × number of strips tested, capped at 1 (Bonferroni), as `car::outlierTest`. */
+  pBonferroni: number;
+};
 
 export type SiteAnalysis = {
   site?: string;
@@ -77,7 +96,8 @@ export type SiteAnalysis = {
   /** Standard error of a difference (average over pairs when strips are missing). */
   sed: number;
   lsd: number;
-  hsd: number;
+  /** Tukey's HSD; null when the site has fewer than 2 error df (no Tukey test). */
+  hsd: number | null;
   alpha: number;
   reference: string;
   means: RateMean[];
@@ -157,10 +177,22 @@ export type PooledAnalysis = {
   bartlett?: { chiSquare: number; df: number; p: number };
   siteDifferences: SiteDifference[];
   curve?: ResponseCurve;
+  /**
+   * Quadratic, linear-plateau and quadratic-plateau curves with site effects removed, chosen
+   * by AIC, with delta-method intervals for the optimum rates (absent when rates are not numeric).
+   */
+  curves?: ResponseModels;
+  /** The mixed model (REML, Kenward–Roger) on every observed strip; absent when it cannot be fitted (see notes). */
+  mixed?: MixedModelAnalysis;
   notes: string[];
 };
 
-export type AnalysisOptions = { reference?: string; alpha?: number };
+export type AnalysisOptions = {
+  reference?: string;
+  alpha?: number;
+  /** Add Dunnett-adjusted differences from the reference (a few ms per site; default false, the CLI's analyzeTrial default true). */
+  manyToOne?: boolean;
+};
 
 export type PooledOptions = AnalysisOptions & {
   ratesNumeric?: Record<string, number>;
@@ -174,4 +206,38 @@ export type TrialAnalysis = {
   reference: string;
   sites: (SiteAnalysis & { site: string })[];
   pooled?: PooledAnalysis;
+};
+
+/** The network mixed model (REML, Kenward–Roger) as the CLI prints it under `pooled.mixed`. */
+export type MixedModelAnalysis = {
+  method: 'REML';
+  observations: number;
+  sites: number;
+  varianceComponents: {
+    site: number;
+    blockWithinSite: number;
+    siteByRate: number;
+    residual: number;
+  };
+  rateTest: { f: number; df1: number; df2: number; p: number; ddf: 'kenward-roger' };
+  /** Expected yield at a farm like these: rate mean with KR-adjusted SE, KR df and (1 − α) CI. */
+  means: { rate: string; mean: number; se: number; df: number; ciLow: number; ciHigh: number }[];
+  /** Difference from the reference rate: unadjusted and Dunnett-adjusted (multivariate t, KR df). */
+  differences: {
+    rate: string;
+    reference: string;
+    estimate: number;
+    se: number;
+    df: number;
+    ciLow: number;
+    ciHigh: number;
+    p: number;
+    pAdjusted: number;
+    ciLowAdjusted: number;
+    ciHighAdjusted: number;
+  }[];
+  alpha: number;
+  /** Plain-word captions of what each interval is. */
+  captions: { means: string; differences: string };
+  notes: string[];
 };

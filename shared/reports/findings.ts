@@ -217,11 +217,11 @@ export interface PooledFindingsInput {
 }
 
 /**
- * Findings for the network: how many sites, the pooled rate test (against site × rate),
- * each rate against the reference with how consistent the sites were ("at 6 of 8 sites
- * half rate was within the LSD of full rate"), the economic bottom line per acre, the
- * response curve's optima, the homogeneity of site variances, and what the network could
- * not tell.
+ * Findings for the network in plain words: how many sites, whether rate mattered more than
+ * the farms disagreed, each rate against the reference with how consistent the farms were
+ * ("in 6 of 8 farms the half rate did as well as the full rate"), the economic bottom line
+ * per acre, the response curve's optima, and what the network could not tell. F, df,
+ * Bartlett and R² are in pooledStatisticianNotes.
  *
  * @param input - the pooled analysis, labels, units, per-site differences, left-out sites and economics
  * @returns sentences in reading order
@@ -245,10 +245,13 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
   const test = analysis.rateTest;
   const firstDifference = analysis.differences[0];
   const pooledLsd = firstDifference ? firstDifference.ciHigh - firstDifference.diff : Number.NaN;
+  // Plain words here; the F, df and error term go to pooledStatisticianNotes.
+  const mixedTest = analysis.mixed?.rateTest;
+  const rateP = mixedTest?.p ?? test.p;
   findings.push(
-    test.p < analysis.alpha
-      ? `Over the network, rate changed yield by more than the sites disagreed with each other (F = ${formatNumber(test.f, 2)} on ${test.df1} and ${test.df2} df, tested against the site × rate interaction, ${formatP(test.p)}).`
-      : `Over the network, the rates did not differ by more than the sites disagreed with each other (F = ${formatNumber(test.f, 2)} on ${test.df1} and ${test.df2} df, tested against the site × rate interaction, ${formatP(test.p)}).`,
+    rateP < analysis.alpha
+      ? 'Over the network, the seeding rate changed yield by more than the farms disagreed with each other about it: a difference the network can stand behind.'
+      : 'Over the network, the rates did not change yield by more than the farms disagreed with each other about it: no firm difference between rates.',
   );
 
   for (const difference of analysis.differences) {
@@ -268,7 +271,7 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
     const higher = perSite.filter((d) => d.p < analysis.alpha && d.diff > 0).length;
     const consistency =
       perSite.length > 0
-        ? ` At ${within} of ${perSite.length} sites ${rate} was within the LSD of the ${referenceName}; it was detectably lower at ${siteCount(lower)} and detectably higher at ${siteCount(higher)}.`
+        ? ` In ${within} of ${perSite.length} farms the ${rate} did as well as the ${referenceName} (no difference that farm's strips could detect); it did detectably worse at ${siteCount(lower)} and detectably better at ${siteCount(higher)}.`
         : '';
     findings.push(lead + consistency);
   }
@@ -310,16 +313,8 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
     let sentence = `A curve through the site means puts the highest yield at ${optimumText(curve.agronomicOptimum, curve.agronomicOptimumFlag)}`;
     if (curve.economics)
       sentence += ` and the best return over seed cost at ${optimumText(curve.economicOptimum, curve.economicOptimumFlag)}`;
-    sentence += `. Curves like this are sensitive to a few sites, so read the optimum as a range around that rate, not a single number (R² ${formatNumber(curve.rSquared, 2)}).`;
+    sentence += `. Curves like this are sensitive to a few sites, so read the optimum as a range around that rate, not a single number.`;
     findings.push(sentence);
-  }
-
-  if (analysis.bartlett) {
-    findings.push(
-      analysis.bartlett.p < analysis.alpha
-        ? `Some sites were much noisier than others (Bartlett's test ${formatP(analysis.bartlett.p)}); the pooled test uses the site × rate interaction, which copes with this, but weigh the noisiest sites less when you read their own reports.`
-        : `The sites were about equally precise (Bartlett's test of site variances ${formatP(analysis.bartlett.p)}), so pooling them is reasonable.`,
-    );
   }
 
   const couldNot: string[] = [];
@@ -336,6 +331,52 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
   couldNot.push('which farms would gain from a change, beyond what their own site reports show');
   findings.push(`What the network could not tell: ${couldNot.join('; ')}.`);
   return findings;
+}
+
+/**
+ * The details a statistician checks, kept below the plain-word findings: the classical
+ * combined F against site × rate, the mixed model's Kenward–Roger F and variance components,
+ * Bartlett's test of the site variances, and the curves' R² and AIC choice.
+ *
+ * @param input - as pooledFindings
+ * @returns sentences in reading order
+ */
+export function pooledStatisticianNotes(input: PooledFindingsInput): string[] {
+  const { analysis } = input;
+  const notes: string[] = [];
+  const test = analysis.rateTest;
+  notes.push(
+    `Combined analysis of variance: rate F = ${formatNumber(test.f, 2)} on ${test.df1} and ${test.df2} df, tested against the site × rate interaction, ${formatP(test.p)}${analysis.method === 'site-means' ? ' (on site × rate least-squares means: sites are unbalanced)' : ''}.`,
+  );
+  const mixed = analysis.mixed;
+  if (mixed) {
+    const v = mixed.varianceComponents;
+    notes.push(
+      `Mixed model (REML on ${mixed.observations} strips; site, block within site and site × rate random): rate F = ${formatNumber(mixed.rateTest.f, 2)} on ${mixed.rateTest.df1} and ${formatNumber(mixed.rateTest.df2, 1)} df (Kenward–Roger), ${formatP(mixed.rateTest.p)}. Variance components: site ${formatNumber(v.site, 3)}, block within site ${formatNumber(v.blockWithinSite, 3)}, site × rate ${formatNumber(v.siteByRate, 3)}, residual ${formatNumber(v.residual, 3)}.`,
+    );
+  }
+  if (analysis.bartlett) {
+    notes.push(
+      `Bartlett's test of the site error variances: χ² = ${formatNumber(analysis.bartlett.chiSquare, 2)} on ${analysis.bartlett.df} df, ${formatP(analysis.bartlett.p)}${analysis.bartlett.p < analysis.alpha ? '; the noisiest sites deserve less weight when read on their own' : ''}.`,
+    );
+  }
+  if (analysis.curve) {
+    notes.push(
+      `Quadratic through the site × rate means: R² = ${formatNumber(analysis.curve.rSquared, 2)} on ${analysis.curve.points} points (this R² includes the site-to-site variation).`,
+    );
+  }
+  if (analysis.curves) {
+    const models = analysis.curves.models
+      .map(
+        (m) =>
+          `${m.model} AIC ${formatNumber(m.aic, 1)}, R² within sites ${formatNumber(m.rSquaredWithinSites, 2)}`,
+      )
+      .join('; ');
+    notes.push(
+      `Curves with site effects removed: ${models}; chosen by AIC: ${analysis.curves.chosen}. Optimum-rate intervals by the delta method.`,
+    );
+  }
+  return notes;
 }
 
 function formatSigned(value: number, digits: number): string {

@@ -225,6 +225,8 @@ export const PooledReportSchema = z.object({
   /** Filter choices present in the trial. */
   filterOptions: z.object({ soil: z.array(z.string()), previousCrop: z.array(z.string()) }),
   findings: z.array(z.string()),
+  /** F, df, variance components, Bartlett, R²: the details below the plain-word findings. */
+  forStatistician: z.array(z.string()).optional(),
   published: PublishedInfoSchema.nullable(),
   dataChangedSincePublished: z.boolean(),
   fromSnapshot: z.boolean(),

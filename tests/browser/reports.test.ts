@@ -103,6 +103,16 @@ describe('reports in the browser', () => {
       );
       expect(overflow).toBeLessThanOrEqual(1);
       await screenshot(page, `reports-pooled-${width}`);
+      const mixed = page.getByRole('heading', { name: 'Expected yield at a farm like these' });
+      await mixed.scrollIntoViewIfNeeded();
+      await page.getByText('all comparisons (Dunnett)').first().waitFor();
+      await page.getByRole('heading', { name: 'Does yield level off?' }).waitFor();
+      await page.getByText('For the statistician', { exact: true }).first().click();
+      await page
+        .getByText(/Kenward–Roger\), p/)
+        .first()
+        .waitFor();
+      await screenshot(page, `reports-pooled-mixed-${width}`);
       expect(errors).toEqual([]);
       expect(chartWarnings).toEqual([]);
       await close();

@@ -51,6 +51,43 @@ describe('analyze CLI', () => {
     ]);
   });
 
+  it('prints the mixed model as pooled.mixed with Kenward–Roger df and Dunnett columns', () => {
+    const result = run('fixtures/analysis/gomez-two-seasons.csv', '--reference=0');
+    expect(result.status).toBe(0);
+    const { pooled, sites } = JSON.parse(result.stdout);
+    const mixed = pooled.mixed;
+    expect(Object.keys(mixed.varianceComponents).sort()).toEqual([
+      'blockWithinSite',
+      'residual',
+      'site',
+      'siteByRate',
+    ]);
+    expect(mixed.rateTest.ddf).toBe('kenward-roger');
+    // Source: Gomez & Gomez (1984) ch. 8.1, Table 8.4 data; R 4.2.2 pbkrtest KRmodcomp: F = 1.941573, ddf 4
+    expect(mixed.rateTest.f).toBeCloseTo(1.941573, 5);
+    expect(mixed.rateTest.df2).toBeCloseTo(4, 6);
+    // Source: R 4.2.2 emmeans(lmer fit, ~rate, lmer.df = "kenward-roger"): SE 0.6868996
+    expect(mixed.means[0].se).toBeCloseTo(0.6868996, 6);
+    for (const key of ['rate', 'mean', 'se', 'df', 'ciLow', 'ciHigh'])
+      expect(mixed.means[0]).toHaveProperty(key);
+    for (const key of [
+      'rate',
+      'reference',
+      'estimate',
+      'se',
+      'df',
+      'ciLow',
+      'ciHigh',
+      'p',
+      'pAdjusted',
+      'ciLowAdjusted',
+      'ciHighAdjusted',
+    ])
+      expect(mixed.differences[0]).toHaveProperty(key);
+    // Site differences carry Dunnett-adjusted p beside the unadjusted one.
+    expect(sites[0].differences[0].pAdjusted).toBeGreaterThanOrEqual(sites[0].differences[0].p);
+  });
+
   it('analyses another response column and pools unbalanced sites by site means', () => {
     const result = run('fixtures/analysis/demo-network.csv', '--response', 'stand');
     expect(result.status).toBe(0);
@@ -58,6 +95,8 @@ describe('analyze CLI', () => {
     expect(document.response).toBe('stand');
     expect(document.reference).toBe('1');
     expect(document.pooled.method).toBe('site-means');
+    // The mixed model still uses every strip of the unbalanced sites.
+    expect(document.pooled.mixed.observations).toBeGreaterThan(document.pooled.sites * 4);
     const yieldRun = JSON.parse(run('fixtures/analysis/demo-network.csv').stdout);
     expect(yieldRun.response).toBe('yield');
     expect(yieldRun.sites[2].missing).toBe(1);
@@ -92,6 +131,11 @@ describe('analyze CLI', () => {
     ['bad-missing-column.csv', /row 1 \(header\), column "block": missing/],
     ['bad-non-numeric.csv', /row 3, column "yield": "abc": Enter a number/],
     ['bad-one-block.csv', /row 6, column "block": site "B" has only one block/],
+    [
+      'bad-no-yield-column.csv',
+      /no "yield" column; name the response with --response \(numeric columns: plot, yld\)/,
+    ],
+    ['bad-negative-yield.csv', /negative value \(-3\)/],
   ])('exits 2 with a one-line message for %s', (file, message) => {
     const result = run(`fixtures/analysis/${file}`);
     expect(result.status).toBe(2);

@@ -3,6 +3,21 @@ import { analyzeSite, type AnovaRow, type SiteAnalysis } from '../../../shared/a
 import { expectFigures, readFixture, type GomezSeedRate } from '../helpers';
 
 const gomez = readFixture<GomezSeedRate>('gomez-rcbd-seeding-rate.json');
+type OutlierRow = { block: string; rate: string; rstudent: number; p: number; pBonferroni: number };
+type DunnettRow = {
+  contrast: string;
+  estimate: number;
+  se: number;
+  pAdjusted: number;
+  ciLowAdjusted: number;
+  criticalValue: number;
+};
+const siteChecks = readFixture<{
+  outlierSpiked: OutlierRow[];
+  outlierClean: OutlierRow[];
+  dunnettBalanced: DunnettRow[];
+  dunnettMissing: DunnettRow[];
+}>('r-site-checks.json');
 const row = (analysis: SiteAnalysis, source: string) =>
   analysis.anova.find((entry) => entry.source === source) as AnovaRow & {
     ms: number;
@@ -47,7 +62,7 @@ describe('analyzeSite on the Gomez & Gomez seeding-rate RCBD', () => {
     expectFigures(analysis.sed, gomez.r.sed, 8);
     expectFigures(analysis.lsd, gomez.r.lsd, 7);
     // qtukey is accurate to ~4 decimals: HSD to 5 significant figures
-    expectFigures(analysis.hsd, gomez.r.hsd, 5);
+    expectFigures(analysis.hsd as number, gomez.r.hsd, 5);
   });
 
   it('matches R’s rate means, SE and 95 % CI', () => {
@@ -151,13 +166,102 @@ describe('analyzeSite with a missing strip', () => {
     expect(row(analysis, 'total').df).toBe(22);
   });
 
-  it('flags a strip whose studentized residual exceeds 3', () => {
+  it('flags outliers by the Bonferroni test as car::outlierTest does', () => {
     const spiked = gomez.data.map((d) =>
       d.block === 'R3' && d.rate === '50' ? { ...d, value: 9000 } : d,
     );
     const result = analyzeSite(spiked);
     expect(result.outliers.map((o) => `${o.block}/${o.rate}`)).toEqual(['R3/50']);
-    expect(Math.abs(result.outliers[0]!.studentized)).toBeGreaterThan(3);
+    const flag = result.outliers[0]!;
+    const r = siteChecks.outlierSpiked[0]!;
+    // Source: R 4.2.2, car 3.1.1 outlierTest(lm(value ~ block + rate)) (fixtures/reference/site-checks.R)
+    expectFigures(flag.studentized, r.rstudent, 10);
+    expectFigures(flag.p, r.p, 9);
+    expectFigures(flag.pBonferroni, r.pBonferroni, 9);
+  });
+
+  it('gives every strip the Bonferroni p of car::outlierTest and flags none in clean data', () => {
+    const result = analyzeSite(gomez.data);
+    expect(result.outliers).toEqual([]);
+    for (const r of siteChecks.outlierClean) {
+      const residual = result.residuals.find((x) => x.block === r.block && x.rate === r.rate)!;
+      // Source: R 4.2.2, car 3.1.1 outlierTest(..., cutoff = Inf, n.max = Inf); car leaves bonf.p above 1, Sheaf caps it
+      expectFigures(residual.pBonferroni!, Math.min(1, r.pBonferroni), 9);
+    }
+  });
+});
+
+describe('analyzeSite Dunnett differences from the reference rate', () => {
+  it.each([
+    ['every strip', gomez.data, siteChecks.dunnettBalanced],
+    [
+      'one strip missing',
+      gomez.data.filter((d) => !(d.block === 'R2' && d.rate === '75')),
+      siteChecks.dunnettMissing,
+    ],
+  ])('matches multcomp glht Dunnett p within 1e-3 (%s)', (_, rows, expected) => {
+    const analysis = analyzeSite(rows, { reference: '100', manyToOne: true });
+    for (const difference of analysis.differences) {
+      const r = expected.find((x) => x.contrast === `${difference.rate} - 100`)!;
+      // Source: R 4.2.2, multcomp 1.4.22 glht(lm(value ~ block + rate), mcp(rate = "Dunnett"))
+      // (fixtures/reference/site-checks.R); glht's own integration error is about 1e-3
+      expect(Math.abs(difference.pAdjusted! - r.pAdjusted)).toBeLessThan(1e-3);
+      expectFigures(difference.se, r.se, 10);
+      // Source: as above; glht's quantile is randomised too (±0.01 on the critical value)
+      expect(Math.abs(difference.ciLowAdjusted! - r.ciLowAdjusted)).toBeLessThan(0.01 * r.se);
+      expect(difference.pAdjusted!).toBeGreaterThanOrEqual(difference.p);
+    }
+  });
+});
+
+describe('analyzeSite on degenerate data', () => {
+  const grid = (value: (block: number, rate: number) => number) =>
+    [1, 2, 3, 4].flatMap((block) =>
+      [1, 2, 3].map((rate) => ({ block: `B${block}`, rate, value: value(block, rate) })),
+    );
+
+  it('refuses strips that blocks and rates fit exactly, whatever the rounding noise', () => {
+    // Common practice, no published source: y = block + rate is reproduced exactly by the model.
+    const exact = grid((block, rate) => 0.1 * block + 0.7 * rate + 1000);
+    expect(() => analyzeSite(exact)).toThrow(
+      'the strips fit the rates and blocks exactly; Sheaf cannot estimate the strip-to-strip variation',
+    );
+  });
+
+  it('treats "1" and "1.0" as one rate', () => {
+    const rows = grid((block, rate) => 10 + block + rate + ((block * rate) % 3)).map((row) => ({
+      ...row,
+      rate: row.rate === 1 && row.block === 'B2' ? '1.0' : String(row.rate),
+    }));
+    const result = analyzeSite(rows);
+    expect(result.rates).toBe(3);
+    expect(result.means.map((m) => m.rate)).toEqual(['1', '2', '3']);
+  });
+
+  it('refuses negative yields and a grand mean of zero, saying why', () => {
+    const negative = grid((block, rate) => 10 + block + rate + ((block * rate) % 3));
+    negative[4] = { ...negative[4]!, value: -2 };
+    expect(() => analyzeSite(negative)).toThrow(/negative value \(-2\)/);
+    expect(() => analyzeSite(grid(() => 0))).toThrow(/grand mean is 0/);
+  });
+
+  it('names overflow as overflow', () => {
+    const huge = grid((block, rate) => 1e160 * (1 + block + rate + ((block * rate) % 3)));
+    expect(() => analyzeSite(huge)).toThrow(/overflow/);
+  });
+
+  it('analyses a site with 1 error df without Tukey and says so', () => {
+    const rows = [
+      { block: '1', rate: 1, value: 10 },
+      { block: '1', rate: 2, value: 13 },
+      { block: '2', rate: 1, value: 11 },
+      { block: '2', rate: 2, value: 12 },
+    ];
+    const result = analyzeSite(rows);
+    expect(result.errorDf).toBe(1);
+    expect(result.hsd).toBeNull();
+    expect(result.means.every((m) => m.group === '')).toBe(true);
+    expect(result.notes.join(' ')).toMatch(/Tukey's test needs at least 2/);
   });
 });
 

@@ -10,6 +10,7 @@ import {
 import {
   classifyDifference,
   pooledFindings,
+  pooledStatisticianNotes,
   rateName,
   siteFindings,
 } from '../../../shared/reports/findings';
@@ -142,11 +143,26 @@ describe('pooledFindings', () => {
     expect(text[0]).toBe(
       '4 sites were analysed together; 1 site was left out (Late field: no yields entered yet).',
     );
-    expect(text[1]).toMatch(/tested against the site × rate interaction/);
+    expect(text[1]).toMatch(
+      /^Over the network, the (seeding rate changed|rates did not change) yield/,
+    );
     const within = analysis.siteDifferences.filter((d) => d.rate === '0.5' && d.p >= 0.05).length;
     expect(text.join('\n')).toContain(
-      `At ${within} of 4 sites half rate was within the LSD of the full rate`,
+      `In ${within} of 4 farms the half rate did as well as the full rate`,
     );
+    // Plain words first: no test statistics in what a grower reads.
+    expect(text.join(' ')).not.toMatch(/\bF = |\bdf\b|Bartlett|studentized|R²/);
+    const details = pooledStatisticianNotes({
+      analysis,
+      rateLabels: fixture.labels,
+      yieldUnit: 'bu/acre',
+      seedUnit: 'lb/acre',
+      siteDifferences: [],
+      sitesExcluded: [],
+    });
+    expect(details[0]).toMatch(/rate F = .* tested against the site × rate interaction/);
+    expect(details.join(' ')).toMatch(/Kenward–Roger/);
+    expect(details.join(' ')).toMatch(/Bartlett's test/);
     expect(text.at(-1)).toMatch(
       /^What the network could not tell: differences smaller than about .* bu\/acre between rates; whether the answer holds .* one season/,
     );

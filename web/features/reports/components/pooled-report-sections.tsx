@@ -24,6 +24,8 @@ import {
   EconomicsTable,
   MeansTable,
 } from './report-tables';
+import { MixedModelSection } from './mixed-model-section';
+import { ResponseModelsSection } from './response-models-section';
 import { VegaChart } from './vega-chart';
 
 export interface PooledSectionProps {
@@ -285,5 +287,22 @@ export function PooledEconomicsSection({ report, analysis }: PooledAnalysisSecti
         digits={digits}
       />
     </Section>
+  );
+}
+
+/** The three response curves and the network mixed model, under the response curve. */
+export function PooledModelSections({ report, analysis }: PooledAnalysisSectionProps) {
+  const { label, referenceLabel } = usePooledLabels(report);
+  return (
+    <>
+      <ResponseModelsSection curves={analysis.curves} seedUnit={report.trial.units.seed} />
+      <MixedModelSection
+        mixed={analysis.mixed}
+        label={label}
+        referenceLabel={referenceLabel}
+        unit={report.trial.units.yield}
+        digits={decimalsFor(analysis.grandMean)}
+      />
+    </>
   );
 }

@@ -9,6 +9,7 @@ import { cn } from '../../../lib/cn';
 import { pooledSearch } from '../api/get-pooled-report';
 import { usePublishTrial } from '../api/publish-report';
 import { FindingsList } from './findings-list';
+import { StatisticianNotes } from './statistician-notes';
 import { PublishPanel } from './publish-panel';
 import { DownloadLink } from './report-bits';
 import { FiltersForm, PublicLinkControl } from './pooled-report-controls';
@@ -17,6 +18,7 @@ import {
   PooledCurveSection,
   PooledEconomicsSection,
   PooledForestSection,
+  PooledModelSections,
   PooledSitesSection,
 } from './pooled-report-sections';
 
@@ -97,12 +99,14 @@ export function PooledReportView({
         isPublic={isPublic}
       />
       <FindingsList title="What the network found" findings={report.findings} />
+      <StatisticianNotes notes={report.forStatistician} />
 
       <PooledSitesSection report={report} />
       {analysis ? (
         <>
           <PooledForestSection report={report} analysis={analysis} />
           <PooledCurveSection report={report} analysis={analysis} />
+          <PooledModelSections report={report} analysis={analysis} />
           <PooledCombinedSection report={report} analysis={analysis} />
           <PooledEconomicsSection report={report} analysis={analysis} />
         </>
