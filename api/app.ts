@@ -140,6 +140,7 @@ export function createApp(deps: AppDeps): Express {
     mailer: deps.mailer,
     auth,
     invitations,
+    csrf,
   };
 
   // Health answers before sessions so it works with the database down.

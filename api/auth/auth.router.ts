@@ -9,7 +9,7 @@ import {
 } from '../../shared/schemas/auth';
 import { AppError, Unauthenticated } from '../errors';
 import type { Policies } from '../middleware/access';
-import { CSRF_HEADER, type Csrf } from '../middleware/csrf';
+import type { Csrf } from '../middleware/csrf';
 import { PostgresRateLimitStore } from '../middleware/rate-limit-store';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 import { logIn } from '../lib/session-login';
@@ -64,8 +64,7 @@ export function createAuthRouter(deps: {
       throw new Unauthenticated('The e-mail or password is not right');
     }
     await limiter.recordSuccess(input.email, address);
-    await logIn(req, user);
-    res.set(CSRF_HEADER, csrf.tokenFor(req, res));
+    await logIn(req, res, csrf, user);
     res.json(await auth.describeUser(user.id));
   });
 

@@ -32,7 +32,7 @@ export function createSignUpRouter(ctx: RouterContext) {
     const { token } = SignUpConfirmSchema.parse(req.body);
     const userId = await signUps.confirm(token);
     const user = await ctx.auth.findSessionUser(userId);
-    await logIn(req, user!);
+    await logIn(req, res, ctx.csrf, user!);
     res.status(201).json(await ctx.auth.describeUser(userId));
   });
 

@@ -9,6 +9,7 @@ import { logIn } from '../lib/session-login';
 import type { Policies } from '../middleware/access';
 import { secureRouter, type RouteEntry } from '../lib/route-table';
 import { PostgresRateLimitStore } from '../middleware/rate-limit-store';
+import type { Csrf } from '../middleware/csrf';
 import type { DataSource } from 'typeorm';
 import type { InvitationsService } from './invitations.service';
 
@@ -19,6 +20,7 @@ export function createInvitationsRouter(deps: {
   table: RouteEntry[];
   inviteLimit: number;
   dataSource: DataSource;
+  csrf: Csrf;
 }) {
   const router = Router();
   const routes = secureRouter(router, deps.table, '/api');
@@ -85,7 +87,7 @@ export function createInvitationsRouter(deps: {
     const input = InvitationAcceptSchema.parse(req.body);
     const userId = await invitations.accept(input);
     const user = await auth.findSessionUser(userId);
-    await logIn(req, user!);
+    await logIn(req, res, deps.csrf, user!);
     res.json(await auth.describeUser(userId));
   });
 

@@ -5,12 +5,14 @@ import type { AuthService } from '../auth/auth.service';
 import type { InvitationsService } from '../invitations/invitations.service';
 import type { Mailer } from '../mail/mailer';
 import type { Policies } from '../middleware/access';
+import type { Csrf } from '../middleware/csrf';
 import type { RouteEntry } from './route-table';
 
 export interface RouterContext {
   config: AppConfig;
   dataSource: DataSource;
   policies: Policies;
+  csrf: Csrf;
   table: RouteEntry[];
   mailer: Mailer;
   auth: AuthService;

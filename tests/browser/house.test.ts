@@ -133,7 +133,7 @@ describe('the web client as a house to live in', () => {
       const mapGrams = await page.$$eval('.strip-map svg g[data-rate] text', (nodes) =>
         nodes.map((n) => n.textContent ?? '').filter((t) => t.endsWith(' g')),
       );
-      const tableGrams = await page.$$eval('#seed tbody tr td:nth-child(5)', (cells) =>
+      const tableGrams = await page.$$eval('#seed tbody tr td:nth-child(6)', (cells) =>
         cells.map((c) => c.textContent ?? ''),
       );
       expect(mapGrams.length).toBeGreaterThan(0);

@@ -210,8 +210,10 @@ describe('journeys through the navigation', () => {
         .waitFor({ state: 'visible', timeout: 15_000 });
       await expect(reports.getByRole('link').allTextContents()).resolves.toEqual([
         expect.stringContaining('Network report'),
-        expect.stringContaining('Site report: East bank'),
+        // The grower has not chosen to be named, so members see a neutral farm label.
+        expect.stringContaining('Site report: Farm A'),
       ]);
+      await expect(page.getByText('East bank').count()).resolves.toBe(0);
       await expect(page.getByText('Journey unpublished trial').count()).resolves.toBe(0);
       await expect(page.getByText('West bank').count()).resolves.toBe(0);
       await expect(page.getByRole('link', { name: 'New trial' }).count()).resolves.toBe(0);
@@ -228,8 +230,8 @@ describe('journeys through the navigation', () => {
       await page.getByRole('link', { name: 'Reports' }).first().click();
       await expectMainHeading(page, 'Reports');
 
-      await page.getByRole('link', { name: /Site report: East bank/ }).click();
-      await expectMainHeading(page, 'East bank');
+      await page.getByRole('link', { name: /Site report: Farm A/ }).click();
+      await expectMainHeading(page, 'Farm A');
       await expect(page.getByRole('button', { name: /Publish|Unpublish/ }).count()).resolves.toBe(
         0,
       );
