@@ -5,6 +5,7 @@ import { Membership } from '../../db/entities/membership.entity';
 import { PasswordResetToken } from '../../db/entities/password-reset-token.entity';
 import { User } from '../../db/entities/user.entity';
 import type { SessionUser } from '../../shared/schemas/auth';
+import { endSessionsOf } from '../../db/repositories/user-sessions.repository';
 import { AppError } from '../errors';
 import { enqueueJob, type JobHandlers } from '../lib/job-runner';
 import { composeMail, type Mailer } from '../mail/mailer';
@@ -114,11 +115,8 @@ export function createAuthService(deps: {
       }
       await manager.getRepository(User).update(row.userId, { passwordHash });
       await tokens.update({ userId: row.userId, usedAt: IsNull() }, { usedAt: new Date() });
-      // Signing out everywhere: a reset usually means the old password leaked. Raw SQL: the
-      // session table belongs to connect-pg-simple (no entity) and the user id is inside jsonb.
-      await manager.query(`DELETE FROM user_sessions WHERE sess->'passport'->>'user' = $1`, [
-        row.userId,
-      ]);
+      // Signing out everywhere: a reset usually means the old password leaked.
+      await endSessionsOf(manager, [row.userId]);
     });
   }
 

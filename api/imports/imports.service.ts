@@ -1,7 +1,8 @@
 // CSV import of a site's strip values: all rows checked first, then written in one transaction;
 // a file whose values are already stored changes nothing.
 import iconv from 'iconv-lite';
-import type { DataSource } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
+import { Strip } from '../../db/entities/strip.entity';
 import { buildImportTemplate } from '../../shared/import/build-template';
 import type { ImportResult } from '../../shared/schemas/import';
 import { ObservationValuesSchema, type ObservationValues } from '../../shared/schemas/observation';
@@ -138,9 +139,9 @@ export function createImportsService(deps: { dataSource: DataSource }) {
             after: diff.after,
           });
         }
-        await manager.query('UPDATE strips SET version = version + 1 WHERE id = ANY($1::uuid[])', [
-          writes.map((w) => w.stripId),
-        ]);
+        await manager
+          .getRepository(Strip)
+          .update({ id: In(writes.map((w) => w.stripId)) }, { version: () => 'version + 1' });
         await writeObservationsInBulk(manager, writes, actorUserId);
         await recordAuditsInBulk(manager, audits);
         const changed = writes.length;

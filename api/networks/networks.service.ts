@@ -1,5 +1,6 @@
 // Networks: start one (its first person becomes admin), list a person's networks, and delete
 // one with everything in it (trials, sites, data, photos, invitations, history).
+import { endSessionsOf } from '../../db/repositories/user-sessions.repository';
 import fs from 'node:fs/promises';
 import path from 'node:path';
 import { In, type DataSource } from 'typeorm';
@@ -136,11 +137,7 @@ export function createNetworksService(deps: { dataSource: DataSource; uploadDir:
         orphans = formerIds.filter((id) => !stillIn.has(id));
       }
       if (orphans.length) {
-        // Sessions are connect-pg-simple rows keyed by a JSON field, which TypeORM has no entity for.
-        await manager.query(
-          `DELETE FROM user_sessions WHERE sess->'passport'->>'user' = ANY($1::text[])`,
-          [orphans],
-        );
+        await endSessionsOf(manager, orphans);
         await manager.getRepository(User).delete({ id: In(orphans) });
       }
       await recordAudit(manager, {
