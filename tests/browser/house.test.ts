@@ -61,7 +61,7 @@ describe('the web client as a house to live in', () => {
       await cropError.waitFor({ state: 'detached' });
       expect(errors).toEqual([]);
       await close();
-    });
+    }, 120_000);
 
     it(`says "Enter a number" for letters and marks fixed fields as fixed at ${width} px`, async () => {
       const { page, close } = await openPage(browser, width);
@@ -86,7 +86,7 @@ describe('the web client as a house to live in', () => {
       expect(await pageWidth(page)).toBeLessThanOrEqual(width);
       await screenshot(page, `house-wizard-fixed-${width}`);
       await close();
-    });
+    }, 120_000);
 
     it(`shows no error on /calibrate before anything is typed at ${width} px`, async () => {
       const { page, close } = await openPage(browser, width);
@@ -97,7 +97,7 @@ describe('the web client as a house to live in', () => {
       await page.getByText('Enter a number').waitFor();
       await screenshot(page, `house-calibrate-${width}`);
       await close();
-    });
+    }, 120_000);
 
     it(`fits the invitation's join button text inside the button at ${width} px`, async () => {
       const net = await buildNetwork(
@@ -123,7 +123,7 @@ describe('the web client as a house to live in', () => {
       expect(await pageWidth(page)).toBeLessThanOrEqual(width);
       await screenshot(page, `house-invitation-${width}`);
       await close();
-    });
+    }, 120_000);
 
     it(`shows the same seed grams on the packet map and the weighing table, and a layout code at ${width} px`, async () => {
       const { page, close } = await openPage(browser, width);
@@ -142,7 +142,7 @@ describe('the web client as a house to live in', () => {
       expect(await page.getByText(/Seed “/).count()).toBe(0);
       await screenshot(page, `house-packet-${width}`);
       await close();
-    });
+    }, 120_000);
 
     it(`shows prices with cents and counts without "(s)" on the trial page at ${width} px`, async () => {
       const { page, close } = await openPage(browser, width);
@@ -154,7 +154,7 @@ describe('the web client as a house to live in', () => {
       expect(await page.getByText(/\(s\)/).count()).toBe(0);
       expect(await pageWidth(page)).toBeLessThanOrEqual(width);
       await close();
-    });
+    }, 120_000);
 
     it(`draws the heat map the way round the packet map is and fits the charts to ${width} px`, async () => {
       const { page, close } = await openPage(browser, width);
@@ -176,7 +176,7 @@ describe('the web client as a house to live in', () => {
       expect(await pageWidth(page)).toBeLessThanOrEqual(width);
       await screenshot(page, `house-site-report-${width}`);
       await close();
-    });
+    }, 120_000);
   }
 
   it('grows the component chart with a wider window', async () => {
