@@ -67,29 +67,25 @@ async function siteIdOf(manager: EntityManager, key: SiteKey): Promise<string> {
   return strip.siteId;
 }
 
-/** The site entity with its trial, the trial's rate levels (lowest first) and the grower. */
-export async function findSiteWithDesign(manager: EntityManager, siteId: string): Promise<Site> {
-  const site = await manager
+/**
+ * The site entity with its trial, the trial's rate levels (lowest first) and the grower; `lock`
+ * also takes the site row's lock in the same query (writers wait on it).
+ */
+export async function findSiteWithDesign(
+  manager: EntityManager,
+  siteId: string,
+  options: { lock?: boolean } = {},
+): Promise<Site> {
+  const query = manager
     .getRepository(Site)
     .createQueryBuilder('site')
     .innerJoinAndSelect('site.trial', 'trial')
     .leftJoinAndSelect('trial.rateLevels', 'level')
     .leftJoinAndSelect('site.grower', 'grower')
     .where('site.id = :siteId', { siteId })
-    .orderBy('level.multiplier', 'ASC')
-    .getOne();
-  if (!site) throw new NotFound('Site');
-  return site;
-}
-
-/** Takes the row lock every change to a site's data waits on; answers whether it is published. */
-async function lockSiteRow(manager: EntityManager, siteId: string): Promise<Site> {
-  const site = await manager
-    .getRepository(Site)
-    .createQueryBuilder('site')
-    .setLock('pessimistic_write')
-    .where('site.id = :siteId', { siteId })
-    .getOne();
+    .orderBy('level.multiplier', 'ASC');
+  if (options.lock) query.setLock('pessimistic_write', undefined, ['site']);
+  const site = await query.getOne();
   if (!site) throw new NotFound('Site');
   return site;
 }
@@ -140,8 +136,7 @@ export async function loadSite(
   options: { lock?: boolean } = {},
 ): Promise<SiteRecord> {
   const siteId = await siteIdOf(manager, key);
-  if (options.lock) await lockSiteRow(manager, siteId);
-  return toSiteRecord(await findSiteWithDesign(manager, siteId));
+  return toSiteRecord(await findSiteWithDesign(manager, siteId, options));
 }
 
 /** The answer to a data change on a site whose report is published. */

@@ -72,18 +72,18 @@ export function createStripsService(deps: { dataSource: DataSource }) {
       input: UpdateStripInput,
       actorUserId: string,
     ): Promise<StripDto> {
-      const outcome = await dataSource.transaction(async (manager) => {
+      const { outcome, site } = await dataSource.transaction(async (manager) => {
         const site = await loadSite(manager, { stripId }, { lock: true });
         assertSiteOpen(site);
         const current = await loadStrip(manager, stripId);
+        const answer = (outcome: 'saved' | 'stale' | 'unchanged') => ({ outcome, site });
         if (current.version !== input.version) {
-          if (patchAlreadyApplied(current.values, input.values)) return 'unchanged';
-          return 'stale';
+          return answer(patchAlreadyApplied(current.values, input.values) ? 'unchanged' : 'stale');
         }
         const merged = ObservationValuesSchema.parse({ ...current.values, ...input.values });
         const diff = changedFields(current.values, merged);
-        if (!diff) return 'unchanged';
-        if (!(await advanceStripVersion(manager, stripId, current.version))) return 'stale';
+        if (!diff) return answer('unchanged');
+        if (!(await advanceStripVersion(manager, stripId, current.version))) return answer('stale');
         await writeStripChange(manager, {
           siteId: site.siteId,
           stripId,
@@ -92,9 +92,13 @@ export function createStripsService(deps: { dataSource: DataSource }) {
           before: diff.before,
           after: diff.after,
         });
-        return 'saved';
+        return answer('saved');
       });
-      const fresh = presentOne(await loadWholeSite({ stripId }), stripId);
+      // The site's design did not change (its row was locked); only its strips are read again.
+      const fresh = presentOne(
+        { site, strips: await loadSiteStrips(dataSource.manager, site.siteId) },
+        stripId,
+      );
       if (outcome === 'stale') {
         throw new Conflict(
           `Someone saved this strip after you opened it (now version ${fresh.version}). Reload their values, or save yours over them.`,

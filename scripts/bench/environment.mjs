@@ -148,9 +148,14 @@ export async function signIn(base, email = 'coordinator@millbrook.example') {
     body: JSON.stringify({ email, password: 'sheaf-demo' }),
   });
   if (login.status !== 200) throw new Error(`bench sign-in failed: ${login.status}`);
-  const cookie = login.headers
-    .getSetCookie()
-    .map((c) => c.split(';')[0])
-    .join('; ');
-  return { cookie, 'x-csrf-token': csrfToken };
+  // Sign-in rotates the session and its CSRF token: keep every cookie set so far (the later one
+  // of a name wins) and the token the sign-in answer hands out.
+  const jar = new Map();
+  for (const header of [...csrfRes.headers.getSetCookie(), ...login.headers.getSetCookie()]) {
+    const [pair] = header.split(';');
+    const [name] = pair.split('=');
+    jar.set(name, pair);
+  }
+  const cookie = [...jar.values()].join('; ');
+  return { cookie, 'x-csrf-token': login.headers.get('x-csrf-token') ?? csrfToken };
 }
