@@ -419,17 +419,18 @@ async function render(html: () => Promise<string>): Promise<Buffer> {
  * Prints a document to PDF through the process's one Chromium, at most two at a time with four
  * waiting (429 with Retry-After beyond that). A report printed before (same report data, same
  * day, as its printed date shows) is read back from PostgreSQL instead, without building its HTML.
- * The key is the report, not the HTML: Vega's SVG numbers its clip paths anew on every render.
+ * The key is the report's ETag (its inputs and the reader's view), not the HTML: Vega's SVG
+ * numbers its clip paths anew on every render, and two processes build equal reports.
  */
 async function printOnce(
   kind: string,
-  report: unknown,
+  reportKey: string,
   html: () => Promise<string>,
   dataSource: DataSource,
 ): Promise<Buffer> {
   const digest = crypto
     .createHash('sha256')
-    .update(`${kind}\n${new Date().toISOString().slice(0, 10)}\n${JSON.stringify(report)}`)
+    .update(`${kind}\n${new Date().toISOString().slice(0, 10)}\n${reportKey}`)
     .digest('hex');
   const stored = dataSource.getRepository(ReportPdf);
   const found = await stored.findOneBy({ digest });
@@ -440,7 +441,9 @@ async function printOnce(
       .then(async (pdf) => {
         await stored.createQueryBuilder().insert().values({ digest, pdf }).orIgnore().execute();
         await stored.delete({ createdAt: LessThan(new Date(Date.now() - KEEP_STORED_MS)) });
-        return pdf;
+        // Another process may have stored its print of the same report first: answer with the
+        // stored copy, so every request for this report gets the same bytes.
+        return (await stored.findOneBy({ digest }))?.pdf ?? pdf;
       })
       .finally(() => inFlight.delete(digest));
     inFlight.set(digest, printing);
@@ -448,10 +451,19 @@ async function printOnce(
   return printing;
 }
 
-export function siteReportPdf(report: SiteReport, dataSource: DataSource): Promise<Buffer> {
-  return printOnce('site', report, () => siteReportHtml(report), dataSource);
+/** `etag` names the report's inputs and the reader's view (the report read's ETag). */
+export function siteReportPdf(
+  report: SiteReport,
+  etag: string,
+  dataSource: DataSource,
+): Promise<Buffer> {
+  return printOnce('site', etag, () => siteReportHtml(report), dataSource);
 }
 
-export function pooledReportPdf(report: PooledReport, dataSource: DataSource): Promise<Buffer> {
-  return printOnce('pooled', report, () => pooledReportHtml(report), dataSource);
+export function pooledReportPdf(
+  report: PooledReport,
+  etag: string,
+  dataSource: DataSource,
+): Promise<Buffer> {
+  return printOnce('pooled', etag, () => pooledReportHtml(report), dataSource);
 }

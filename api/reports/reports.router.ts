@@ -41,11 +41,11 @@ export function createReportsRouter(ctx: RouterContext) {
   });
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
-    const { report } = await privacy.tagged(
+    const { report, etag } = await privacy.tagged(
       await reports.siteReport(param(req, 'siteId'), req.access ?? null),
       req.access,
     );
-    const pdf = await siteReportPdf(report, ctx.dataSource);
+    const pdf = await siteReportPdf(report, etag, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
     res.set(
       'Content-Disposition',
@@ -78,11 +78,11 @@ export function createReportsRouter(ctx: RouterContext) {
 
   routes.get('/trials/:trialId/pooled-report.pdf', policies.pooledReader(), async (req, res) => {
     const query = PooledQuerySchema.parse(req.query);
-    const { report } = await privacy.tagged(
+    const { report, etag } = await privacy.tagged(
       await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
       req.access,
     );
-    const pdf = await pooledReportPdf(report, ctx.dataSource);
+    const pdf = await pooledReportPdf(report, etag, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
     res.set(
       'Content-Disposition',

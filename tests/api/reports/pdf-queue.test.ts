@@ -76,7 +76,7 @@ describe('PDF printing queue', () => {
     const watch = setInterval(() => (most = Math.max(most, chromiumDescendants())), 100);
     // Six fill the two printing slots and the four waiting places; the next two are refused.
     const outcomes = await Promise.allSettled(
-      reports.map((report) => siteReportPdf(report, t.dataSource)),
+      reports.map((report, i) => siteReportPdf(report, `burst-${i}`, t.dataSource)),
     );
     clearInterval(watch);
     const printed = outcomes.flatMap((o) => (o.status === 'fulfilled' ? [o.value] : []));
