@@ -48,6 +48,8 @@ function CalibrationTable({ site, units }: PacketSectionProps & { units: PacketU
   const rows = calibrationRows(t, t.unitSystem);
   if (rows.length === 0) return null;
   const wheel = lengthOf(units.wheelCircumference, units);
+  // Seeds per m² run in the hundreds; per ft² in tens, where a tenth still matters.
+  const perArea = units.system === 'metric' ? whole : one;
   return (
     // A scrolling box takes keyboard focus so it can be scrolled without a mouse.
     <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Seeder check">
@@ -72,7 +74,7 @@ function CalibrationTable({ site, units }: PacketSectionProps & { units: PacketU
                 {r.label} ×{r.multiplier}
               </td>
               <td className={cell}>{one.format(r.rate)}</td>
-              <td className={cell}>{whole.format(r.seedsPerArea)}</td>
+              <td className={cell}>{perArea.format(r.seedsPerArea)}</td>
               <td className={cell}>{one.format(r.seedsPerRowLength)}</td>
               <td className={cell}>{whole.format(r.seedsPerTurn)}</td>
               <td className="py-1.5 text-right">{whole.format(r.seedsPerTenTurns)}</td>
