@@ -23,6 +23,7 @@ import {
 } from '../../shared/reports/format-numbers';
 import { rateName } from '../../shared/reports/findings';
 import type { PooledReport, SiteReport } from '../../shared/schemas/report';
+import { pricesInWords, reportDisplayUnits } from '../../shared/units/report-units';
 import { ReportPdf } from '../../db/entities/report-pdf.entity';
 import { Busy } from '../errors';
 import { escapeHtml as esc } from '../mail/mailer';
@@ -107,6 +108,9 @@ function anovaTable(
 export async function siteReportHtml(report: SiteReport): Promise<string> {
   const { site, analysis } = report;
   const unit = site.units.yield;
+  const { perArea } = reportDisplayUnits(site.units, site.crop);
+  const area = (value: number | null) => (value === null ? null : perArea.fromStored(value));
+  const areaDigits = perArea.unit === 'm²' ? 0 : 1;
   const digits = decimalsFor(analysis?.grandMean ?? 50);
   const label = (rate: string) => site.design.rates.find((r) => r.key === rate)?.label ?? rate;
   const parts: string[] = [];
@@ -151,7 +155,7 @@ export async function siteReportHtml(report: SiteReport): Promise<string> {
     );
     parts.push(
       await safeChart(
-        componentsSpec({ rows: report.components.byRate }),
+        componentsSpec({ rows: report.components.byRate, perArea }),
         'Yield components by rate (means over strips).',
       ),
     );
@@ -194,9 +198,9 @@ export async function siteReportHtml(report: SiteReport): Promise<string> {
       [
         'Rate',
         `Seed (${site.units.seed})`,
-        'Plants/ft²',
+        `Plants/${perArea.unit}`,
         'Tillers/plant',
-        'Heads/ft²',
+        `Heads/${perArea.unit}`,
         `Yield (${unit})`,
         'Seed return',
         `Return over seed (${site.units.money})`,
@@ -204,9 +208,9 @@ export async function siteReportHtml(report: SiteReport): Promise<string> {
       report.components.byRate.map((c) => [
         c.label,
         formatNumber(c.seedRate, 1),
-        formatNumber(c.plantsPerSquareFoot, 1),
+        formatNumber(area(c.plantsPerSquareFoot), areaDigits),
         formatNumber(c.tillersPerPlant, 2),
-        formatNumber(c.headsPerSquareFoot, 1),
+        formatNumber(area(c.headsPerSquareFoot), areaDigits),
         formatNumber(c.yield, digits),
         formatNumber(c.seedReturn, 1),
         formatMoney(c.returnOverSeedCost),
@@ -296,7 +300,7 @@ export async function pooledReportHtml(report: PooledReport): Promise<string> {
       );
     if (report.economics.length > 0) {
       parts.push(
-        `<h2>Economics</h2><p class="muted">Seed ${formatMoney(report.prices.seedPricePerLb)}/lb, grain ${formatMoney(report.prices.grainPricePerBu)}/bu.</p>`,
+        `<h2>Economics</h2><p class="muted">Prices: ${pricesInWords(report.prices, reportDisplayUnits(trial.units, trial.crop))}.</p>`,
       );
       parts.push(
         table(

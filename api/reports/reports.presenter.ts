@@ -101,9 +101,13 @@ export interface DerivedStrip {
 export const rateKey = (multiplier: number) => String(Number(multiplier));
 
 export function unitsOf(trial: TrialFacts): ReportUnits {
+  const common = {
+    system: trial.unitSystem,
+    bushelPounds: cropFacts(trial.crop, trial.customCrop)?.bushelPounds ?? null,
+  };
   return trial.unitSystem === 'metric'
-    ? { yield: 'kg/ha', seed: 'kg/ha', money: '$/ha' }
-    : { yield: 'bu/acre', seed: 'lb/acre', money: '$/acre' };
+    ? { yield: 'kg/ha', seed: 'kg/ha', money: '$/ha', ...common }
+    : { yield: 'bu/acre', seed: 'lb/acre', money: '$/acre', ...common };
 }
 
 function contextFor(

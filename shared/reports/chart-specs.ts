@@ -170,7 +170,8 @@ export function rateMeansSpec(
 }
 
 /**
- * Yield components by rate: plants/ft², tillers/plant and heads/ft², one small panel each.
+ * Yield components by rate: plants and heads per ft² (per m² on a metric trial) and tillers per
+ * plant, one small panel each.
  */
 export function componentsSpec(
   input: {
@@ -180,6 +181,8 @@ export function componentsSpec(
       tillersPerPlant: number | null;
       headsPerSquareFoot: number | null;
     }[];
+    /** Counts are stored per ft²; a metric trial shows them per m². Per ft² when absent. */
+    perArea?: { unit: string; fromStored: (stored: number) => number };
   },
   options: BaseOptions & { columns?: number; panelWidth?: number } = {},
 ): ChartSpec {
@@ -187,15 +190,20 @@ export function componentsSpec(
   const order = input.rows.map((r) => r.label);
   // Rate labels are turned when there are many, so they never run together ("quarterhalf").
   const labelAngle = order.length > 3 ? -40 : 0;
+  const areaUnit = input.perArea?.unit ?? 'ft²';
+  const perArea = input.perArea?.fromStored ?? ((v: number) => v);
   const measures = [
-    { key: 'plantsPerSquareFoot', title: 'Plants per ft²' },
-    { key: 'tillersPerPlant', title: 'Tillers per plant' },
-    { key: 'headsPerSquareFoot', title: 'Heads per ft²' },
+    { key: 'plantsPerSquareFoot', title: `Plants per ${areaUnit}`, convert: perArea },
+    { key: 'tillersPerPlant', title: 'Tillers per plant', convert: (v: number) => v },
+    { key: 'headsPerSquareFoot', title: `Heads per ${areaUnit}`, convert: perArea },
   ] as const;
   const values = input.rows.flatMap((row) =>
-    measures
-      .filter((m) => row[m.key] !== null)
-      .map((m) => ({ label: row.label, measure: m.title, value: row[m.key] })),
+    measures.flatMap((m) => {
+      const value = row[m.key];
+      return value === null
+        ? []
+        : [{ label: row.label, measure: m.title, value: m.convert(value) }];
+    }),
   );
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',

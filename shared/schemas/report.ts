@@ -1,6 +1,7 @@
 // Report contract: the site report, the pooled network report, publishing and the public link.
 import { z } from 'zod';
 import type { PooledAnalysis, SiteAnalysis } from '../analysis/types';
+import { UnitSystemSchema } from './trial';
 
 /** One rate level as the reports show it: the analysis key, the trial's label and the seed rate. */
 export const ReportRateSchema = z.object({
@@ -20,6 +21,10 @@ export const ReportUnitsSchema = z.object({
   seed: z.string(),
   /** Currency per area for returns ("$/acre"). */
   money: z.string(),
+  /** The trial's unit system; absent in reports published before it was added (read the yield unit). */
+  system: UnitSystemSchema.optional(),
+  /** The crop's bushel weight in lb, to show a grain price per tonne; absent in older reports. */
+  bushelPounds: z.number().nullable().optional(),
 });
 export type ReportUnits = z.infer<typeof ReportUnitsSchema>;
 

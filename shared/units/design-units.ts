@@ -33,6 +33,8 @@ export interface DesignUnits {
   rowSpacing: UnitConversion;
   /** Stored as feet. */
   stripLength: UnitConversion;
+  /** Plants, heads or seeds per unit area, stored per ft². */
+  perArea: UnitConversion;
   /** Seed price, stored as $ per lb. */
   seedPrice: UnitConversion;
   /** A custom crop's bushel (test) weight, stored as lb per bushel. */
@@ -56,6 +58,7 @@ export function designUnits(system: UnitSystem): DesignUnits {
       system,
       rowSpacing: same('in'),
       stripLength: same('ft'),
+      perArea: same('ft²'),
       seedPrice: same('$/lb'),
       bushelWeight: same('lb/bu'),
       defaultRateUnit: 'lb/acre',
@@ -67,6 +70,8 @@ export function designUnits(system: UnitSystem): DesignUnits {
     system,
     rowSpacing: scaled('cm', 1 / CENTIMETRES_PER_INCH),
     stripLength: scaled('m', 1 / METRES_PER_FOOT),
+    // A count per m² is a count per (1 / 0.3048²) ft², so per ft² = per m² × 0.3048².
+    perArea: scaled('m²', METRES_PER_FOOT * METRES_PER_FOOT),
     // $ per kg × kg per lb = $ per lb.
     seedPrice: scaled('$/kg', kilogramsPerPound),
     // kg/hL → lb/bu: (kg ÷ kg per lb) per (hL ÷ hL per bushel).

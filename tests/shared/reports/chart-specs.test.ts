@@ -10,6 +10,7 @@ import {
   stripMapSpec,
   type ChartSpec,
 } from '../../../shared/reports/chart-specs';
+import { designUnits } from '../../../shared/units/design-units';
 
 const compiles = (spec: ChartSpec) => {
   const out = compile(spec as unknown as TopLevelSpec);
@@ -53,6 +54,18 @@ describe('chart specs', () => {
         ],
       }),
     );
+    const metricParts = componentsSpec({
+      rows: [
+        { label: 'half', plantsPerSquareFoot: 20, tillersPerPlant: 2, headsPerSquareFoot: 30 },
+      ],
+      perArea: designUnits('metric').perArea,
+    });
+    const partValues = (metricParts.data as { values: { measure: string; value: number }[] })
+      .values;
+    // Source: NIST SP 811 (2008), Appendix B.8: 1 ft² = 0.092 903 04 m²; 20/ft² = 215.3/m².
+    expect(partValues.find((v) => v.measure === 'Plants per m²')!.value).toBeCloseTo(215.28, 2);
+    expect(partValues.find((v) => v.measure === 'Tillers per plant')!.value).toBe(2);
+    compiles(metricParts);
     compiles(
       stripMapSpec(
         {

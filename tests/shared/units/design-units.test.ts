@@ -17,6 +17,15 @@ describe('designUnits', () => {
     expect(designUnits('metric').stripLength.toStored(30.48)).toBeCloseTo(100, 10);
   });
 
+  it('shows a count per ft² as a count per m² for a metric trial', () => {
+    // Source: NIST SP 811 (2008), Appendix B.8: 1 ft² = 0.092 903 04 m² exactly, so 20 plants
+    // per ft² are 20 ÷ 0.092 903 04 = 215.28 per m².
+    expect(designUnits('metric').perArea.fromStored(20)).toBeCloseTo(215.278, 3);
+    expect(designUnits('metric').perArea.toStored(215.278)).toBeCloseTo(20, 4);
+    expect(designUnits('metric').perArea.unit).toBe('m²');
+    expect(designUnits('imperial').perArea.fromStored(20)).toBe(20);
+  });
+
   it('turns a seed price per kg into a price per lb', () => {
     // Source: NIST SP 811 (2008), Appendix B.8: 1 lb = 0.45359237 kg exactly; $2.00/kg = $0.907/lb.
     expect(designUnits('metric').seedPrice.toStored(2)).toBeCloseTo(0.90718474, 8);

@@ -9,6 +9,7 @@ import {
 import { rateName } from '../../../../shared/reports/findings';
 import { formatMoney, formatNumber } from '../../../../shared/reports/format-numbers';
 import type { PooledReport } from '../../../../shared/schemas/report';
+import { pricesInWords, reportDisplayUnits } from '../../../../shared/units/report-units';
 import { cn } from '../../../lib/cn';
 import { VegaChart } from './vega-chart';
 
@@ -169,11 +170,11 @@ export function ForestSlide({
 
 function EconomicsTable({ report, referenceLabel, digits }: SlideContext) {
   const { trial } = report;
+  const display = reportDisplayUnits(trial.units, trial.crop);
   return (
     <table className="figures w-full text-[clamp(1rem,1.7vw,1.5rem)]">
       <caption className="pb-3 text-left text-[0.8em] text-ink-muted">
-        Seed {formatMoney(report.prices.seedPricePerLb)}/lb, grain{' '}
-        {formatMoney(report.prices.grainPricePerBu)}/bu, per acre
+        {capitalise(pricesInWords(report.prices, display))}, per {display.landArea}
       </caption>
       <thead>
         <tr className="text-left text-ink-muted">

@@ -2,6 +2,8 @@
 // can change (which sites, seed and grain prices).
 import { z } from 'zod';
 import type { PooledQuery, PooledReport } from '../../../../shared/schemas/report';
+import type { UnitConversion } from '../../../../shared/units/design-units';
+import { reportDisplayUnits } from '../../../../shared/units/report-units';
 import { Button } from '../../../components/ui/button';
 import { FormNumberField } from '../../../components/ui/form-controls';
 import { numberText } from '../../../lib/forms/number-text';
@@ -46,20 +48,37 @@ export function PublicLinkControl({ trialId, token }: { trialId: string; token: 
 
 const PricesSchema = z.object({
   seedPrice: numberText(z.number().min(0, 'At least 0').max(1000).optional()),
-  grainPrice: numberText(z.number().positive('Must be above 0').max(1000).optional()),
+  grainPrice: numberText(z.number().positive('Must be above 0').max(10000).optional()),
 });
 
+/** A stored price in the unit the form shows, to four significant figures. */
+const shownPrice = (stored: number | null, unit: UnitConversion) =>
+  stored === null ? '' : String(Number(unit.fromStored(stored).toPrecision(4)));
+
+/**
+ * Prices are typed in the trial's units ($/kg and $/t on a metric trial) and sent to the API in
+ * its own ($/lb of seed, $/bu of grain).
+ */
 function PricesForm({ report, query, onQuery }: Omit<FiltersProps, 'isPublic'>) {
+  const display = reportDisplayUnits(report.trial.units, report.trial.crop);
   const form = useZodForm(PricesSchema, {
     defaultValues: {
-      seedPrice: String(report.prices.seedPricePerLb ?? ''),
-      grainPrice: String(report.prices.grainPricePerBu ?? ''),
+      seedPrice: shownPrice(report.prices.seedPricePerLb, display.seedPrice),
+      grainPrice: shownPrice(report.prices.grainPricePerBu, display.grainPrice),
     },
   });
+  const stored = (value: number | undefined, unit: UnitConversion) =>
+    value === undefined ? undefined : unit.toStored(value);
   return (
     <Form
       form={form}
-      onSubmit={(prices) => onQuery({ ...query, ...prices })}
+      onSubmit={(prices) =>
+        onQuery({
+          ...query,
+          seedPrice: stored(prices.seedPrice, display.seedPrice),
+          grainPrice: stored(prices.grainPrice, display.grainPrice),
+        })
+      }
       className="grid gap-3 sm:grid-cols-[1fr_1fr_auto] sm:items-start"
     >
       <div className="sm:col-span-3">
@@ -68,8 +87,8 @@ function PricesForm({ report, query, onQuery }: Omit<FiltersProps, 'isPublic'>) 
           Return over seed cost is worked out again at the prices you enter.
         </p>
       </div>
-      <FormNumberField name="seedPrice" label="Seed price" suffix="$/lb" />
-      <FormNumberField name="grainPrice" label="Grain price" suffix="$/bu" />
+      <FormNumberField name="seedPrice" label="Seed price" suffix={display.seedPrice.unit} />
+      <FormNumberField name="grainPrice" label="Grain price" suffix={display.grainPrice.unit} />
       <Button type="submit" variant="secondary" className="sm:mt-7">
         Recalculate
       </Button>

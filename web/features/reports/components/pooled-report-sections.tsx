@@ -7,13 +7,9 @@ import {
   responseCurveSpec,
 } from '../../../../shared/reports/chart-specs';
 import { rateName } from '../../../../shared/reports/findings';
-import {
-  decimalsFor,
-  formatMoney,
-  formatNumber,
-  formatP,
-} from '../../../../shared/reports/format-numbers';
+import { decimalsFor, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
 import type { PooledReport } from '../../../../shared/schemas/report';
+import { pricesInWords, reportDisplayUnits } from '../../../../shared/units/report-units';
 import { Badge } from '../../../components/ui/badge';
 import { cn } from '../../../lib/cn';
 import { ChartCard, DataTableNote, Section } from './report-bits';
@@ -225,8 +221,7 @@ export function PooledCurveSection({ report, analysis }: PooledAnalysisSectionPr
                   ? `${formatNumber(curve.economicOptimum, 0)} ${trial.units.seed}`
                   : curve.economicOptimumFlag}
               </strong>{' '}
-              (seed {formatMoney(report.prices.seedPricePerLb)}/lb, grain{' '}
-              {formatMoney(report.prices.grainPricePerBu)}/bu)
+              ({pricesInWords(report.prices, reportDisplayUnits(trial.units, trial.crop))})
             </>
           ) : null}
           . R² {formatNumber(curve.rSquared, 2)} over {curve.points} site means.
@@ -277,7 +272,10 @@ export function PooledEconomicsSection({ report, analysis }: PooledAnalysisSecti
   const digits = decimalsFor(analysis.grandMean);
   if (report.economics.length === 0) return null;
   return (
-    <Section id="economics" title="Economics per acre">
+    <Section
+      id="economics"
+      title={`Economics per ${reportDisplayUnits(trial.units, trial.crop).landArea}`}
+    >
       <EconomicsTable
         rows={report.economics}
         seedUnit={trial.units.seed}
@@ -295,7 +293,11 @@ export function PooledModelSections({ report, analysis }: PooledAnalysisSectionP
   const { label, referenceLabel } = usePooledLabels(report);
   return (
     <>
-      <ResponseModelsSection curves={analysis.curves} seedUnit={report.trial.units.seed} />
+      <ResponseModelsSection
+        curves={analysis.curves}
+        seedUnit={report.trial.units.seed}
+        metric={reportDisplayUnits(report.trial.units).system === 'metric'}
+      />
       <MixedModelSection
         mixed={analysis.mixed}
         label={label}

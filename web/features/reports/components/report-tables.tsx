@@ -8,6 +8,7 @@ import type {
 } from '../../../../shared/analysis/types';
 import { formatMoney, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
 import type { ComponentRow, EconomicsRow } from '../../../../shared/schemas/report';
+import type { UnitConversion } from '../../../../shared/units/design-units';
 import { cn } from '../../../lib/cn';
 
 export function DataTable({
@@ -167,24 +168,28 @@ export function ComponentsTable({
   seedUnit,
   yieldUnit,
   moneyUnit,
+  perArea,
   digits,
 }: {
   rows: ComponentRow[];
   seedUnit: string;
   yieldUnit: string;
   moneyUnit: string;
+  /** Counts are stored per ft²; a metric trial shows them per m². */
+  perArea: UnitConversion;
   digits: number;
 }) {
+  const area = (value: number | null) => (value === null ? null : perArea.fromStored(value));
   return (
     <DataTable
       caption="Yield components and seed economics (means over strips)"
       head={[
         'Rate',
         `Seed (${seedUnit})`,
-        'Plants/ft²',
+        `Plants/${perArea.unit}`,
         'Establishment',
         'Tillers/plant',
-        'Heads/ft²',
+        `Heads/${perArea.unit}`,
         `Yield (${yieldUnit})`,
         'Seed return',
         `Return over seed (${moneyUnit})`,
@@ -192,10 +197,10 @@ export function ComponentsTable({
       rows={rows.map((c) => [
         c.label,
         formatNumber(c.seedRate, 1),
-        formatNumber(c.plantsPerSquareFoot, 1),
+        formatNumber(area(c.plantsPerSquareFoot), perArea.unit === 'm²' ? 0 : 1),
         c.establishmentPercent === null ? '–' : `${formatNumber(c.establishmentPercent, 0)} %`,
         formatNumber(c.tillersPerPlant, 2),
-        formatNumber(c.headsPerSquareFoot, 1),
+        formatNumber(area(c.headsPerSquareFoot), perArea.unit === 'm²' ? 0 : 1),
         formatNumber(c.yield, digits),
         c.seedReturn === null ? '–' : `${formatNumber(c.seedReturn, 1)}×`,
         formatMoney(c.returnOverSeedCost),

@@ -19,9 +19,12 @@ function optimumText(optimum: OptimumInterval | null | undefined, unit: string):
 export function ResponseModelsSection({
   curves,
   seedUnit,
+  metric = false,
 }: {
   curves: ResponseModels | undefined;
   seedUnit: string;
+  /** The analysis prices a metric trial per kg of seed and per kg of grain. */
+  metric?: boolean;
 }) {
   if (!curves) return null;
   const chosen = MODEL_NAMES[curves.chosen];
@@ -51,7 +54,12 @@ export function ResponseModelsSection({
       {curves.economicTable ? (
         <DataTable
           caption={`Best return over seed at other seed-to-grain price ratios (${chosen.toLowerCase()})`}
-          head={['Seed price ÷ grain price', 'Rate of best return (95 % interval)']}
+          head={[
+            metric
+              ? 'Seed price per kg ÷ grain price per kg'
+              : 'Seed price per lb ÷ grain price per bushel',
+            'Rate of best return (95 % interval)',
+          ]}
           rows={curves.economicTable.map((row) => [
             formatNumber(row.priceRatio, 3),
             optimumText(row.optimum, seedUnit),

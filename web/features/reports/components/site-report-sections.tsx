@@ -9,6 +9,7 @@ import {
 import { rateName } from '../../../../shared/reports/findings';
 import { decimalsFor, formatNumber } from '../../../../shared/reports/format-numbers';
 import type { SiteReport } from '../../../../shared/schemas/report';
+import { reportDisplayUnits } from '../../../../shared/units/report-units';
 import { ChartCard, Section } from './report-bits';
 import { AnovaTable, ComponentsTable, DifferencesTable, MeansTable } from './report-tables';
 import { VegaChart } from './vega-chart';
@@ -53,14 +54,18 @@ export function SiteChartsSection({
     [report.strips, unit],
   );
   const rows = report.components.byRate;
+  const { perArea } = useMemo(
+    () => reportDisplayUnits(report.site.units, report.site.crop),
+    [report.site.units, report.site.crop],
+  );
   // Three panels side by side when there is room, stacked on a phone; redrawn on resize.
   const partsSpec = useCallback(
     (width: number) => {
       const columns = width < 560 ? 1 : 3;
       const panelWidth = Math.floor((width - 70 * columns) / columns);
-      return componentsSpec({ rows }, { columns, panelWidth });
+      return componentsSpec({ rows, perArea }, { columns, panelWidth });
     },
-    [rows],
+    [rows, perArea],
   );
   const hasComponents = report.components.byRate.some(
     (c) => c.plantsPerSquareFoot !== null || c.headsPerSquareFoot !== null,
@@ -130,6 +135,7 @@ export function SiteNumbersSection({
         seedUnit={site.units.seed}
         yieldUnit={unit}
         moneyUnit={site.units.money}
+        perArea={reportDisplayUnits(site.units, site.crop).perArea}
         digits={digits}
       />
     </Section>
