@@ -18,6 +18,7 @@ import {
 import { PooledReportView } from '../../../features/reports/components/pooled-report-view';
 import { isApiError } from '../../../lib/api-client';
 import { AmendmentsNotice } from '../../../features/reports/components/amendments-notice';
+import { reportDisplayUnits } from '../../../../shared/units/report-units';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
 import { NotPublishedPanel } from './not-published';
 
@@ -54,7 +55,10 @@ export default function PooledReportPage() {
       : { to: '/', label: 'Reports' };
   return (
     <>
-      <AmendmentsNotice trialId={trialId} />
+      <AmendmentsNotice
+        trialId={trialId}
+        system={reportDisplayUnits(data.trial.units, data.trial.crop).system}
+      />
       <PooledReportView
         back={back}
         report={data}

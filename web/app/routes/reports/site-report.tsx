@@ -12,6 +12,7 @@ import {
 import { SiteReportView } from '../../../features/reports/components/site-report-view';
 import { isApiError } from '../../../lib/api-client';
 import { AmendmentsNotice } from '../../../features/reports/components/amendments-notice';
+import { reportDisplayUnits } from '../../../../shared/units/report-units';
 import { isNotFound, NotFoundPanel } from '../../route-errors';
 import { NotPublishedPanel } from './not-published';
 
@@ -36,7 +37,10 @@ export default function SiteReportPage() {
       : { to: '/', label: 'Reports' };
   return (
     <>
-      <AmendmentsNotice trialId={data.site.trialId} />
+      <AmendmentsNotice
+        trialId={data.site.trialId}
+        system={reportDisplayUnits(data.site.units, data.site.crop).system}
+      />
       <SiteReportView report={data} back={back} />
     </>
   );
