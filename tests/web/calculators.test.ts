@@ -9,7 +9,11 @@ import { SeedCalculator } from '../../web/features/calculator/components/seed-ca
 import { PowerPlanner } from '../../web/features/trials/components/power-planner';
 import { refuseFetch, renderWithProviders } from './render';
 
-afterEach(cleanup);
+afterEach(() => {
+  cleanup();
+  // The unit choice is remembered in this browser; each test starts without one.
+  localStorage.clear();
+});
 
 describe('SeedCalculator', () => {
   it('shows results and no message before anything is typed', () => {
@@ -30,6 +34,34 @@ describe('SeedCalculator', () => {
     await user.type(amount, '96,5');
     expect(screen.queryByText('Enter a number')).toBeNull();
     expect(screen.getByTestId('calc-results')).toBeTruthy();
+  });
+});
+
+describe('SeedCalculator in metric units', () => {
+  it('takes kg/ha, centimetres and metres, gives seeds per m² and metre of row, and remembers the choice', async () => {
+    refuseFetch();
+    const { user } = renderWithProviders(createElement(SeedCalculator));
+    expect(screen.getByText('in')).toBeTruthy();
+    await user.selectOptions(screen.getByLabelText('Units'), 'metric');
+    expect(localStorage.getItem('sheaf.unitSystem')).toBe('metric');
+    expect((screen.getByLabelText('Amount') as HTMLInputElement).value).toBe('110');
+    expect((screen.getByLabelText('Row spacing') as HTMLInputElement).value).toBe('20');
+    expect(screen.getByText('cm')).toBeTruthy();
+    const spacing = screen.getByLabelText('Row spacing');
+    await user.clear(spacing);
+    await user.type(spacing, '25');
+    // Source: ADAS/BASF form in shared/TRADE_FACTS.md §1 (kg/ha = seeds/m² × TKW (g) ÷ 100):
+    // 110 kg/ha of 32-g seed is 110 × 100 ÷ 32 = 343.75 seeds/m²; in 25-cm rows that is
+    // 343.75 × 0.25 = 85.94 seeds per metre of row, and 6 rows × 30 m × 85.9375 = 15,469 seeds.
+    expect(screen.getByText('Seeds per m²').nextSibling?.textContent).toBe('344');
+    expect(screen.getByText('Seeds per metre of row').nextSibling?.textContent).toBe('85.9');
+    expect(screen.getByText('Per strip').nextSibling?.textContent).toContain('15,469 seeds');
+    const results = within(screen.getByTestId('calc-results'));
+    expect(results.queryByText(/foot|ft²|acre/)).toBeNull();
+    cleanup();
+    // A new visit starts in the remembered units.
+    renderWithProviders(createElement(SeedCalculator));
+    expect((screen.getByLabelText('Units') as HTMLSelectElement).value).toBe('metric');
   });
 });
 

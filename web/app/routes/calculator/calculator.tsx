@@ -8,7 +8,7 @@ export default function CalculatorPage() {
       <PageHeader
         eyebrow="Seed calculator"
         title="From one seeding rate to all the others"
-        description="Enter a rate in any unit — or the stand you want — and your seed lot. Seeds per foot of row, per ft² and m², lb/acre, kg/ha, grams per row and strip and seeds per wheel turn follow."
+        description="Enter a rate — or the stand you want — and your seed lot, in imperial or metric units. Seeds per length of row and per area, the weight per area, grams per row and strip and seeds per wheel turn follow."
       />
       <SeedCalculator />
     </>

@@ -10,6 +10,7 @@ import { calibrateSeeder } from '../../../../shared/units/calibration';
 import { SelectField } from '../../../components/ui/form-fields';
 import { FormNumberField } from '../../../components/ui/form-controls';
 import { Form, useZodForm } from '../../../lib/forms/zod-form';
+import { useUnitPreference } from '../../../lib/unit-preference';
 import { useSite } from '../../../lib/queries/sites';
 import {
   calibrationDefaults,
@@ -154,7 +155,8 @@ export function CalibrationHelper({
 }) {
   const [siteId, setSiteId] = useState<string | null>(initialSiteId);
   const [rateLabel, setRateLabel] = useState('');
-  const [chosenSystem, setChosenSystem] = useState<UnitSystem>('imperial');
+  // Without a site, the units the reader chose on either calculator (remembered in this browser).
+  const [chosenSystem, setChosenSystem] = useUnitPreference();
   const site = useSite(siteId);
   // A site's trial sets the units; the boxes start again in them when it changes.
   const system = site.data?.trial.unitSystem ?? chosenSystem;

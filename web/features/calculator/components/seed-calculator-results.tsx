@@ -2,20 +2,39 @@
 // and strip, seeds per wheel turn and the stand to expect.
 import type { CalcUnit, SeedingCalcResult } from '../../../../shared/schemas/calc';
 import { seedGrams } from '../../../../shared/labels/labels';
+import type { UnitSystem } from '../../../../shared/schemas/trial';
+import { GRAMS_PER_POUND, METRES_PER_FOOT } from '../../../../shared/units/constants';
 import { cn } from '../../../lib/cn';
 
 const f1 = new Intl.NumberFormat('en', { maximumFractionDigits: 1 });
 const f0 = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
 
-function RateCards({ result, unit }: { result: SeedingCalcResult; unit: CalcUnit }) {
-  const cards: [string, string, boolean][] = [
-    ['Seeds per foot of row', f1.format(result.seedsPerFootOfRow), unit === 'seeds/ft-row'],
-    ['Seeds per ft²', f1.format(result.seedsPerSquareFoot), unit === 'seeds/ft2'],
-    ['Seeds per m²', f0.format(result.seedsPerSquareMetre), unit === 'seeds/m2'],
-    ['lb per acre', f1.format(result.poundsPerAcre), unit === 'lb/acre'],
-    ['kg per hectare', f1.format(result.kilogramsPerHectare), unit === 'kg/ha'],
-    ['Seeds per acre', f0.format(result.seedsPerAcre), false],
-  ];
+function RateCards({
+  result,
+  unit,
+  system,
+}: {
+  result: SeedingCalcResult;
+  unit: CalcUnit;
+  system: UnitSystem;
+}) {
+  const cards: [string, string, boolean][] =
+    system === 'metric'
+      ? [
+          // Seeds per metre of row = seeds per foot ÷ 0.3048 (1 ft = 0.3048 m, exact).
+          ['Seeds per metre of row', f1.format(result.seedsPerFootOfRow / METRES_PER_FOOT), false],
+          ['Seeds per m²', f0.format(result.seedsPerSquareMetre), unit === 'seeds/m2'],
+          ['kg per hectare', f1.format(result.kilogramsPerHectare), unit === 'kg/ha'],
+          ['Seeds per hectare', f0.format(result.seedsPerSquareMetre * 10_000), false],
+        ]
+      : [
+          ['Seeds per foot of row', f1.format(result.seedsPerFootOfRow), unit === 'seeds/ft-row'],
+          ['Seeds per ft²', f1.format(result.seedsPerSquareFoot), unit === 'seeds/ft2'],
+          ['Seeds per m²', f0.format(result.seedsPerSquareMetre), unit === 'seeds/m2'],
+          ['lb per acre', f1.format(result.poundsPerAcre), unit === 'lb/acre'],
+          ['kg per hectare', f1.format(result.kilogramsPerHectare), unit === 'kg/ha'],
+          ['Seeds per acre', f0.format(result.seedsPerAcre), false],
+        ];
   return (
     <dl className="grid grid-cols-2 gap-3" data-testid="calc-results">
       {cards.map(([label, value, given]) => (
@@ -37,7 +56,8 @@ function RateCards({ result, unit }: { result: SeedingCalcResult; unit: CalcUnit
   );
 }
 
-function Amounts({ result }: { result: SeedingCalcResult }) {
+function Amounts({ result, system }: { result: SeedingCalcResult; system: UnitSystem }) {
+  const metric = system === 'metric';
   const rows: [string, string][] = [
     [
       'Per row of the strip',
@@ -57,11 +77,15 @@ function Amounts({ result }: { result: SeedingCalcResult }) {
     ],
     [
       'Expected plants',
-      `${f1.format(result.expectedPlantsPerSquareFoot)} /ft² · ${f0.format(result.expectedPlantsPerSquareMetre)} /m²`,
+      metric
+        ? `${f0.format(result.expectedPlantsPerSquareMetre)} /m²`
+        : `${f1.format(result.expectedPlantsPerSquareFoot)} /ft² · ${f0.format(result.expectedPlantsPerSquareMetre)} /m²`,
     ],
     [
       'Seed size',
-      `${f1.format(result.thousandKernelWeightG)} g/1,000 · ${f0.format(result.seedsPerLb)} seeds/lb`,
+      metric
+        ? `${f1.format(result.thousandKernelWeightG)} g/1,000 · ${f0.format((result.seedsPerLb * 1000) / GRAMS_PER_POUND)} seeds/kg`
+        : `${f1.format(result.thousandKernelWeightG)} g/1,000 · ${f0.format(result.seedsPerLb)} seeds/lb`,
     ],
   ];
   return (
@@ -79,10 +103,12 @@ function Amounts({ result }: { result: SeedingCalcResult }) {
 export function SeedCalculatorResults({
   result,
   unit,
+  system = 'imperial',
   problem,
 }: {
   result: SeedingCalcResult | null;
   unit: CalcUnit;
+  system?: UnitSystem;
   problem: string | null;
 }) {
   return (
@@ -92,8 +118,8 @@ export function SeedCalculatorResults({
       </h2>
       {result ? (
         <>
-          <RateCards result={result} unit={unit} />
-          <Amounts result={result} />
+          <RateCards result={result} unit={unit} system={system} />
+          <Amounts result={result} system={system} />
           <p className="text-caption text-ink-muted">
             {unit.startsWith('plants')
               ? 'From a target stand, seeds to sow = plants ÷ (germination × emergence). '

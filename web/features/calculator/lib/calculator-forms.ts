@@ -2,51 +2,82 @@
 // calculator schemas (the same ones POST /api/calc/* parses).
 import { z } from 'zod';
 import {
+  CALC_UNITS,
   CalcUnitSchema,
   CalibrationCalcInputSchema,
   SeedingCalcInputSchema,
+  type CalcUnit,
 } from '../../../../shared/schemas/calc';
 import type { UnitSystem } from '../../../../shared/schemas/trial';
-import { METRES_PER_FOOT, SQUARE_FEET_PER_SQUARE_METRE } from '../../../../shared/units/constants';
+import {
+  GRAMS_PER_POUND,
+  METRES_PER_FOOT,
+  SQUARE_FEET_PER_SQUARE_METRE,
+} from '../../../../shared/units/constants';
 import { designUnits } from '../../../../shared/units/design-units';
 import { numberText, type DisplayUnit } from '../../../lib/forms/number-text';
 
 const seeding = SeedingCalcInputSchema.shape;
 
-export const SeedCalcFormSchema = z
-  .object({
-    value: numberText(seeding.value),
-    unit: CalcUnitSchema,
-    sizeMode: z.enum(['tkw', 'seedsPerLb']),
-    thousandKernelWeightG: z.string(),
-    seedsPerLb: z.string(),
-    germinationPct: numberText(seeding.germinationPct),
-    emergencePct: numberText(seeding.emergencePct),
-    rowSpacingIn: numberText(seeding.rowSpacingIn),
-    rowsPerStrip: numberText(seeding.rowsPerStrip),
-    stripLengthFt: numberText(seeding.stripLengthFt),
-    wheelCircumferenceFt: numberText(seeding.wheelCircumferenceFt),
-  })
-  // Only the seed-size box that is shown counts; the other may hold an old value.
-  .transform(
-    (
-      { sizeMode, thousandKernelWeightG, seedsPerLb, ...rest },
-      ctx,
-    ): z.input<typeof SeedingCalcInputSchema> => {
-      const box = sizeMode === 'tkw' ? 'thousandKernelWeightG' : 'seedsPerLb';
-      const schema = numberText(
-        sizeMode === 'tkw' ? seeding.thousandKernelWeightG.unwrap() : seeding.seedsPerLb.unwrap(),
-      );
-      const size = schema.safeParse(sizeMode === 'tkw' ? thousandKernelWeightG : seedsPerLb);
-      if (!size.success) {
-        for (const issue of size.error.issues)
-          ctx.addIssue({ code: 'custom', message: issue.message, path: [box] });
-        return z.NEVER;
-      }
-      return { ...rest, [box]: size.data };
-    },
-  )
-  .pipe(SeedingCalcInputSchema);
+/** Seeds per kg typed, seeds per lb stored (1 lb = 0.453 592 37 kg, exact). */
+const SEEDS_PER_KG: DisplayUnit = {
+  unit: 'seeds/kg',
+  toStored: (perKilogram) => (perKilogram * GRAMS_PER_POUND) / 1000,
+  fromStored: (perPound) => (perPound * 1000) / GRAMS_PER_POUND,
+};
+
+/** The rate units the calculator offers in a unit system (an imperial page keeps every unit). */
+export function calcUnitsFor(system: UnitSystem): readonly CalcUnit[] {
+  return system === 'metric' ? ['kg/ha', 'seeds/m2', 'plants/m2'] : CALC_UNITS;
+}
+
+/**
+ * The seed calculator's boxes in a unit system: a metric page takes centimetres, metres and seeds
+ * per kg; the output is in the API's units (inches, feet, seeds per lb).
+ */
+export function seedCalcFormSchema(system: UnitSystem) {
+  const design = designUnits(system);
+  const seedsPerWeight = system === 'metric' ? SEEDS_PER_KG : undefined;
+  return (
+    z
+      .object({
+        value: numberText(seeding.value),
+        unit: CalcUnitSchema,
+        sizeMode: z.enum(['tkw', 'seedsPerLb']),
+        thousandKernelWeightG: z.string(),
+        seedsPerLb: z.string(),
+        germinationPct: numberText(seeding.germinationPct),
+        emergencePct: numberText(seeding.emergencePct),
+        rowSpacingIn: numberText(seeding.rowSpacingIn, design.rowSpacing),
+        rowsPerStrip: numberText(seeding.rowsPerStrip),
+        stripLengthFt: numberText(seeding.stripLengthFt, design.stripLength),
+        wheelCircumferenceFt: numberText(seeding.wheelCircumferenceFt, design.stripLength),
+      })
+      // Only the seed-size box that is shown counts; the other may hold an old value.
+      .transform(
+        (
+          { sizeMode, thousandKernelWeightG, seedsPerLb, ...rest },
+          ctx,
+        ): z.input<typeof SeedingCalcInputSchema> => {
+          const box = sizeMode === 'tkw' ? 'thousandKernelWeightG' : 'seedsPerLb';
+          const schema =
+            sizeMode === 'tkw'
+              ? numberText(seeding.thousandKernelWeightG.unwrap())
+              : numberText(seeding.seedsPerLb.unwrap(), seedsPerWeight);
+          const size = schema.safeParse(sizeMode === 'tkw' ? thousandKernelWeightG : seedsPerLb);
+          if (!size.success) {
+            for (const issue of size.error.issues)
+              ctx.addIssue({ code: 'custom', message: issue.message, path: [box] });
+            return z.NEVER;
+          }
+          return { ...rest, [box]: size.data };
+        },
+      )
+      .pipe(SeedingCalcInputSchema)
+  );
+}
+
+export const SeedCalcFormSchema = seedCalcFormSchema('imperial');
 
 export type SeedCalcFormValues = z.input<typeof SeedCalcFormSchema>;
 
@@ -63,6 +94,20 @@ export const SEED_CALC_DEFAULTS: SeedCalcFormValues = {
   stripLengthFt: '100',
   wheelCircumferenceFt: '3',
 };
+
+/** Starting values: 96 lb/acre on 8-inch rows, or 110 kg/ha on 20-cm rows, 30-m strips, a 1-m wheel. */
+export function seedCalcDefaults(system: UnitSystem): SeedCalcFormValues {
+  return system === 'metric'
+    ? {
+        ...SEED_CALC_DEFAULTS,
+        value: '110',
+        unit: 'kg/ha',
+        rowSpacingIn: '20',
+        stripLengthFt: '30',
+        wheelCircumferenceFt: '1',
+      }
+    : SEED_CALC_DEFAULTS;
+}
 
 const calibration = CalibrationCalcInputSchema.shape;
 
