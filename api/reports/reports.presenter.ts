@@ -35,6 +35,7 @@ import {
   KG_PER_HA_PER_LB_PER_ACRE,
 } from '../../shared/units/constants';
 import { plotNumber } from '../../shared/units/plot-number';
+import { reportDisplayUnits } from '../../shared/units/report-units';
 import { cropFacts, deriveStripValues, type StripContext } from '../../shared/units/strip-derived';
 
 /** Trial facts the reports need, as loaded from the trials row. */
@@ -312,6 +313,7 @@ export function buildSiteReport(input: {
         returns: components,
         prices: { seedPricePerLb: trial.seedPricePerLb, grainPricePerBu: trial.grainPricePerBu },
         moneyUnit: units.money,
+        priceUnits: reportDisplayUnits(units),
       })
     : [error ?? 'This site cannot be analysed yet.'];
   const strips: ReportStrip[] = derived.map((s) => ({
@@ -572,6 +574,7 @@ export function buildPooledReport(
         economics,
         prices: { seedPricePerLb: seedPrice, grainPricePerBu: grainPrice },
         moneyUnit: units.money,
+        priceUnits: reportDisplayUnits(units),
       }
     : null;
   const findings = findingsInput

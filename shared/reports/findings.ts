@@ -6,6 +6,7 @@ import type {
   SiteAnalysis,
   SiteDifference,
 } from '../analysis/types';
+import { pricePhrase, type ReportDisplayUnits } from '../units/report-units';
 import { decimalsFor, formatMoney, formatNumber, formatP } from './format-numbers';
 
 /** How a rate's difference from the reference reads. */
@@ -79,6 +80,8 @@ export interface SiteFindingsInput {
   returns?: readonly { rate: string; returnOverSeedCost: number | null }[];
   prices?: { seedPricePerLb: number | null; grainPricePerBu: number | null };
   moneyUnit?: string;
+  /** Prices per kg and tonne on a metric trial; per lb and bushel when absent. */
+  priceUnits?: ReportDisplayUnits;
 }
 
 /**
@@ -174,7 +177,7 @@ export function siteFindings(input: SiteFindingsInput): string[] {
   ) {
     const best = returns.reduce((a, b) => (b.returnOverSeedCost > a.returnOverSeedCost ? b : a));
     const money = input.moneyUnit ?? '$/acre';
-    const priceText = `grain at ${formatMoney(input.prices.grainPricePerBu)}/bu and seed at ${formatMoney(input.prices.seedPricePerLb)}/lb`;
+    const priceText = pricePhrase(input.prices, input.priceUnits);
     if (best.rate === analysis.reference) {
       findings.push(
         `With ${priceText}, the ${referenceName} gave the highest return over seed cost (${formatMoney(best.returnOverSeedCost)} ${money.replace('$/', 'per ')}).`,
@@ -213,6 +216,8 @@ export interface PooledFindingsInput {
   }[];
   prices?: { seedPricePerLb: number | null; grainPricePerBu: number | null };
   moneyUnit?: string;
+  /** Prices per kg and tonne on a metric trial; per lb and bushel when absent. */
+  priceUnits?: ReportDisplayUnits;
   seasons?: number;
 }
 
@@ -287,7 +292,7 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
   ) {
     const best = economics.reduce((a, b) => (b.returnOverSeedCost > a.returnOverSeedCost ? b : a));
     const per = (input.moneyUnit ?? '$/acre').replace('$/', 'per ');
-    const priceText = `grain at ${formatMoney(input.prices.grainPricePerBu)}/bu and seed at ${formatMoney(input.prices.seedPricePerLb)}/lb`;
+    const priceText = pricePhrase(input.prices, input.priceUnits);
     if (best.rate === analysis.reference) {
       findings.push(
         `Bottom line: with ${priceText}, the ${referenceName} returned the most over seed cost, averaged over the sites (${formatMoney(best.returnOverSeedCost)} ${per}).`,

@@ -35,6 +35,8 @@ export interface DesignUnits {
   stripLength: UnitConversion;
   /** Plants, heads or seeds per unit area, stored per ft². */
   perArea: UnitConversion;
+  /** Seeds in a weight of the seed lot, stored as seeds per lb. */
+  seedCount: UnitConversion;
   /** Seed price, stored as $ per lb. */
   seedPrice: UnitConversion;
   /** A custom crop's bushel (test) weight, stored as lb per bushel. */
@@ -59,6 +61,7 @@ export function designUnits(system: UnitSystem): DesignUnits {
       rowSpacing: same('in'),
       stripLength: same('ft'),
       perArea: same('ft²'),
+      seedCount: same('seeds/lb'),
       seedPrice: same('$/lb'),
       bushelWeight: same('lb/bu'),
       defaultRateUnit: 'lb/acre',
@@ -72,6 +75,8 @@ export function designUnits(system: UnitSystem): DesignUnits {
     stripLength: scaled('m', 1 / METRES_PER_FOOT),
     // A count per m² is a count per (1 / 0.3048²) ft², so per ft² = per m² × 0.3048².
     perArea: scaled('m²', METRES_PER_FOOT * METRES_PER_FOOT),
+    // Seeds per kg × kg per lb = seeds per lb.
+    seedCount: scaled('seeds/kg', kilogramsPerPound),
     // $ per kg × kg per lb = $ per lb.
     seedPrice: scaled('$/kg', kilogramsPerPound),
     // kg/hL → lb/bu: (kg ÷ kg per lb) per (hL ÷ hL per bushel).

@@ -42,6 +42,11 @@ export function reportDisplayUnits(units: ReportUnits, crop?: string | null): Re
   };
 }
 
+type StoredPrices = { seedPricePerLb: number | null; grainPricePerBu: number | null };
+
+const shownPrice = (value: number | null, unit: UnitConversion) =>
+  `${formatMoney(value === null ? null : unit.fromStored(value))}${unit.unit.replace('$', '')}`;
+
 /**
  * The prices a report was worked out at, in words and the trial's units.
  *
@@ -49,11 +54,17 @@ export function reportDisplayUnits(units: ReportUnits, crop?: string | null): Re
  * @param display - the report's display units
  * @example pricesInWords({ seedPricePerLb: 0.5, grainPricePerBu: 9 }, reportDisplayUnits({ yield: 'bu/acre', seed: 'lb/acre', money: '$/acre' })) // 'seed $0.50/lb, grain $9.00/bu'
  */
-export function pricesInWords(
-  prices: { seedPricePerLb: number | null; grainPricePerBu: number | null },
-  display: ReportDisplayUnits,
-): string {
-  const shown = (value: number | null, unit: UnitConversion) =>
-    `${formatMoney(value === null ? null : unit.fromStored(value))}${unit.unit.replace('$', '')}`;
-  return `seed ${shown(prices.seedPricePerLb, display.seedPrice)}, grain ${shown(prices.grainPricePerBu, display.grainPrice)}`;
+export function pricesInWords(prices: StoredPrices, display: ReportDisplayUnits): string {
+  return `seed ${shownPrice(prices.seedPricePerLb, display.seedPrice)}, grain ${shownPrice(prices.grainPricePerBu, display.grainPrice)}`;
+}
+
+/**
+ * The prices as a findings sentence names them; per bushel and per lb when no units are given.
+ *
+ * @example pricePhrase({ seedPricePerLb: 0.5, grainPricePerBu: 9 }) // 'grain at $9.00/bu and seed at $0.50/lb'
+ */
+export function pricePhrase(prices: StoredPrices, display?: ReportDisplayUnits): string {
+  const units =
+    display ?? reportDisplayUnits({ yield: 'bu/acre', seed: 'lb/acre', money: '$/acre' });
+  return `grain at ${shownPrice(prices.grainPricePerBu, units.grainPrice)} and seed at ${shownPrice(prices.seedPricePerLb, units.seedPrice)}`;
 }

@@ -120,6 +120,15 @@ describe('TrialWizard, step 4 (seed lot and prices)', () => {
     expect(screen.getByText('$/t')).toBeTruthy();
   });
 
+  it('counts a metric seed lot in seeds per kg', async () => {
+    refuseFetch();
+    const { user } = wizard({ trial: buildTrial({ unitSystem: 'metric' }), initialStep: 3 });
+    await user.click(screen.getByLabelText('By count (seeds per kg)'));
+    // Source: NIST SP 811 (2008): 1 kg = 1,000 g; 32-g kernels are 1,000 ÷ 0.032 = 31,250 per kg.
+    expect((screen.getByLabelText('Seeds per kg') as HTMLInputElement).value).toBe('31250');
+    expect(screen.queryByText(/seeds per lb/i)).toBeNull();
+  });
+
   it('asks for germination when it is empty', async () => {
     refuseFetch();
     const { user } = wizard({ trial: buildTrial({ germinationPct: undefined }), initialStep: 3 });

@@ -101,7 +101,9 @@ describe('pooled report prices in the trial’s units', () => {
       full(imperial).returnOverSeedCost! * ACRES_PER_HA,
       6,
     );
-    // The report names the prices it used in the reader's units.
+    // The findings and the report name the prices in the reader's units.
+    expect(metric.findings.join(' ')).toContain('grain at $260.00/t and seed at $1.10/kg');
+    expect(metric.findings.join(' ')).not.toMatch(/\/bu\b|\/lb\b/);
     expect(display.seedPrice.fromStored(metric.prices.seedPricePerLb!)).toBeCloseTo(seedPerKg, 10);
     expect(display.grainPrice.fromStored(metric.prices.grainPricePerBu!)).toBeCloseTo(
       grainPerTonne,

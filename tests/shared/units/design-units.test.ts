@@ -26,6 +26,12 @@ describe('designUnits', () => {
     expect(designUnits('imperial').perArea.fromStored(20)).toBe(20);
   });
 
+  it('counts a seed lot per kg for a metric trial and stores seeds per lb', () => {
+    // Source: NIST SP 811 (2008), Appendix B.8: 1 lb = 0.45359237 kg; 31,250 seeds/kg = 14,175/lb.
+    expect(designUnits('metric').seedCount.toStored(31_250)).toBeCloseTo(14_174.76, 2);
+    expect(designUnits('metric').seedCount.unit).toBe('seeds/kg');
+  });
+
   it('turns a seed price per kg into a price per lb', () => {
     // Source: NIST SP 811 (2008), Appendix B.8: 1 lb = 0.45359237 kg exactly; $2.00/kg = $0.907/lb.
     expect(designUnits('metric').seedPrice.toStored(2)).toBeCloseTo(0.90718474, 8);

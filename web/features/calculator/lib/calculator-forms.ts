@@ -9,22 +9,11 @@ import {
   type CalcUnit,
 } from '../../../../shared/schemas/calc';
 import type { UnitSystem } from '../../../../shared/schemas/trial';
-import {
-  GRAMS_PER_POUND,
-  METRES_PER_FOOT,
-  SQUARE_FEET_PER_SQUARE_METRE,
-} from '../../../../shared/units/constants';
+import { METRES_PER_FOOT, SQUARE_FEET_PER_SQUARE_METRE } from '../../../../shared/units/constants';
 import { designUnits } from '../../../../shared/units/design-units';
 import { numberText, type DisplayUnit } from '../../../lib/forms/number-text';
 
 const seeding = SeedingCalcInputSchema.shape;
-
-/** Seeds per kg typed, seeds per lb stored (1 lb = 0.453 592 37 kg, exact). */
-const SEEDS_PER_KG: DisplayUnit = {
-  unit: 'seeds/kg',
-  toStored: (perKilogram) => (perKilogram * GRAMS_PER_POUND) / 1000,
-  fromStored: (perPound) => (perPound * 1000) / GRAMS_PER_POUND,
-};
 
 /** The rate units the calculator offers in a unit system (an imperial page keeps every unit). */
 export function calcUnitsFor(system: UnitSystem): readonly CalcUnit[] {
@@ -37,7 +26,6 @@ export function calcUnitsFor(system: UnitSystem): readonly CalcUnit[] {
  */
 export function seedCalcFormSchema(system: UnitSystem) {
   const design = designUnits(system);
-  const seedsPerWeight = system === 'metric' ? SEEDS_PER_KG : undefined;
   return (
     z
       .object({
@@ -63,7 +51,7 @@ export function seedCalcFormSchema(system: UnitSystem) {
           const schema =
             sizeMode === 'tkw'
               ? numberText(seeding.thousandKernelWeightG.unwrap())
-              : numberText(seeding.seedsPerLb.unwrap(), seedsPerWeight);
+              : numberText(seeding.seedsPerLb.unwrap(), design.seedCount);
           const size = schema.safeParse(sizeMode === 'tkw' ? thousandKernelWeightG : seedsPerLb);
           if (!size.success) {
             for (const issue of size.error.issues)

@@ -1,14 +1,9 @@
-// Wizard step 4: the seed lot (kernel weight or seeds per lb, germination, expected emergence)
+// Wizard step 4: the seed lot (kernel weight or seeds per lb or kg, germination, expected emergence)
 // and the seed and grain prices, in the trial's unit system.
 import { useFormContext, useWatch } from 'react-hook-form';
 import { CROPS } from '../../../../shared/units/crops';
 import { FormNumberField } from '../../../components/ui/form-controls';
 import { wizardUnits, type WizardValues } from './wizard-values';
-
-const SIZE_MODES = [
-  ['tkw', 'By weight (g per 1,000 seeds)'],
-  ['seedsPerLb', 'By count (seeds per lb)'],
-] as const;
 
 export function SeedLotStep() {
   const { control, register } = useFormContext<WizardValues>();
@@ -17,12 +12,17 @@ export function SeedLotStep() {
     name: ['unitSystem', 'crop', 'customBushel', 'seedSize'],
   });
   const units = wizardUnits({ unitSystem, crop, customBushel });
+  const metric = unitSystem === 'metric';
+  const sizeModes = [
+    ['tkw', 'By weight (g per 1,000 seeds)'],
+    ['seedsPerLb', `By count (seeds per ${metric ? 'kg' : 'lb'})`],
+  ] as const;
   return (
     <div className="grid gap-4 sm:grid-cols-2">
       <fieldset className="min-w-0 space-y-3 sm:col-span-2">
         <legend className="text-label text-ink">Seed size of the lot you will sow</legend>
         <div className="flex flex-wrap gap-x-6 gap-y-1">
-          {SIZE_MODES.map(([value, label]) => (
+          {sizeModes.map(([value, label]) => (
             <label key={value} className="flex min-h-11 items-center gap-2 text-label">
               <input
                 type="radio"
@@ -50,8 +50,9 @@ export function SeedLotStep() {
           <FormNumberField
             name="seedsPerLb"
             whole
-            label="Seeds per lb"
-            hint="From the seed tag, or count a 20 g sample and multiply by 22.68."
+            label={metric ? 'Seeds per kg' : 'Seeds per lb'}
+            // 1,000 g ÷ 20 g = 50; 453.59 g ÷ 20 g = 22.68.
+            hint={`From the seed tag, or count a 20 g sample and multiply by ${metric ? '50' : '22.68'}.`}
           />
         )}
       </fieldset>

@@ -114,7 +114,11 @@ export function initialValues(trial: TrialDetail | undefined, networkId: string)
     seedSize: 'tkw',
     tkw: shown(trial?.thousandKernelWeightG),
     seedsPerLb: trial?.thousandKernelWeightG
-      ? String(Math.round((1000 * GRAMS_PER_POUND) / trial.thousandKernelWeightG))
+      ? String(
+          Math.round(
+            units.seedCount.fromStored((1000 * GRAMS_PER_POUND) / trial.thousandKernelWeightG),
+          ),
+        )
       : '',
     germinationPct: shown(trial?.germinationPct),
     emergencePct: trial ? shown(trial.emergencePct) : '85',
@@ -142,6 +146,7 @@ export function switchUnitSystem(values: WizardValues, next: UnitSystem): Partia
     seedPrice: convert(values.seedPrice, from.seedPrice, to.seedPrice),
     grainPrice: convert(values.grainPrice, from.grainPrice, to.grainPrice),
     customBushel: convert(values.customBushel, from.bushelWeight, to.bushelWeight),
+    seedsPerLb: convert(values.seedsPerLb, from.seedCount, to.seedCount),
   };
   // A rate still in the old system's usual unit follows it (lb/acre ↔ kg/ha).
   const rate = read(values.referenceRate);
@@ -162,7 +167,7 @@ export function toPayload(values: WizardValues): UpdateTrialInput {
     const value = read(text);
     return value === undefined ? undefined : unit.toStored(value);
   };
-  const perLb = read(values.seedsPerLb);
+  const perLb = inUnit(values.seedsPerLb, units.seedCount);
   const payload: Record<string, unknown> = {
     name: values.name,
     question: values.question,
@@ -254,7 +259,12 @@ export function stepSchema(
       return z.object({
         ...(values.seedSize === 'tkw'
           ? { tkw: numberText(design.thousandKernelWeightG) }
-          : { seedsPerLb: numberText(z.number().positive('Must be above 0').max(200_000)) }),
+          : {
+              seedsPerLb: numberText(
+                z.number().positive('Must be above 0').max(200_000),
+                units.seedCount,
+              ),
+            }),
         germinationPct: numberText(design.germinationPct),
         emergencePct: numberText(design.emergencePct),
         seedPrice: numberText(design.seedPricePerLb, units.seedPrice),
