@@ -1,5 +1,11 @@
 // The trial's strips as CSV: raw observations and derived values, one strip per row, with
-// text cells defused so a spreadsheet never runs them as formulas.
+// text cells defused so a spreadsheet never runs them as formulas. Every header names its unit,
+// in the trial's unit system.
+import {
+  ACRES_PER_HECTARE,
+  KG_PER_HA_PER_LB_PER_ACRE,
+  SQUARE_FEET_PER_SQUARE_METRE,
+} from '../../shared/units/constants';
 import { plotNumber } from '../../shared/units/plot-number';
 import type { DerivedValues } from '../../shared/schemas/observation';
 import type { DerivedStrip, SiteRow, TrialFacts } from './reports.presenter';
@@ -17,21 +23,55 @@ export function csvCell(value: string | number | null | undefined): string {
   return /[",\n\r]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
-const DERIVED_COLUMNS: (keyof DerivedValues)[] = [
-  'targetSeedsPerSquareFoot',
-  'seedPoundsPerAcre',
-  'plantsPerSquareFoot',
-  'plantsPerSquareMetre',
-  'establishmentPercent',
-  'tillersPerPlant',
-  'headsPerSquareFoot',
-  'headsPerSquareMetre',
-  'headsPerPlant',
-  'harvestedAreaSquareFeet',
-  'yieldBushelsPerAcre',
-  'yieldKilogramsPerHectare',
-  'seedReturn',
-  'returnOverSeedCostPerAcre',
+type Derived = (d: DerivedValues) => number | null;
+const times =
+  (key: keyof DerivedValues, factor: number): Derived =>
+  (d) =>
+    d[key] === null ? null : d[key] * factor;
+const plain =
+  (key: keyof DerivedValues): Derived =>
+  (d) =>
+    d[key];
+
+/** Derived columns with the unit in each header: an imperial trial's (with kg/ha and m² beside). */
+const IMPERIAL_DERIVED: [string, Derived][] = (
+  [
+    'targetSeedsPerSquareFoot',
+    'seedPoundsPerAcre',
+    'plantsPerSquareFoot',
+    'plantsPerSquareMetre',
+    'establishmentPercent',
+    'tillersPerPlant',
+    'headsPerSquareFoot',
+    'headsPerSquareMetre',
+    'headsPerPlant',
+    'harvestedAreaSquareFeet',
+    'yieldBushelsPerAcre',
+    'yieldKilogramsPerHectare',
+    'seedReturn',
+    'returnOverSeedCostPerAcre',
+  ] as const
+).map((key) => [key.replace(/[A-Z]/g, (m) => `_${m.toLowerCase()}`), plain(key)]);
+
+/** A metric trial's derived columns: per m², kg/ha, m² and $ per hectare only. */
+const METRIC_DERIVED: [string, Derived][] = [
+  [
+    'target_seeds_per_square_metre',
+    times('targetSeedsPerSquareFoot', SQUARE_FEET_PER_SQUARE_METRE),
+  ],
+  ['seed_kilograms_per_hectare', times('seedPoundsPerAcre', KG_PER_HA_PER_LB_PER_ACRE)],
+  ['plants_per_square_metre', plain('plantsPerSquareMetre')],
+  ['establishment_percent', plain('establishmentPercent')],
+  ['tillers_per_plant', plain('tillersPerPlant')],
+  ['heads_per_square_metre', plain('headsPerSquareMetre')],
+  ['heads_per_plant', plain('headsPerPlant')],
+  [
+    'harvested_area_square_metres',
+    times('harvestedAreaSquareFeet', 1 / SQUARE_FEET_PER_SQUARE_METRE),
+  ],
+  ['yield_kilograms_per_hectare', plain('yieldKilogramsPerHectare')],
+  ['seed_return', plain('seedReturn')],
+  ['return_over_seed_cost_per_hectare', times('returnOverSeedCostPerAcre', ACRES_PER_HECTARE)],
 ];
 
 const round = (value: number | null, digits = 4) =>
@@ -45,6 +85,7 @@ export function stripsCsv(
   const siteById = new Map(sites.map((s) => [s.id, s]));
   const lengthUnit = trial.unitSystem === 'metric' ? 'm' : 'ft';
   const weightUnit = trial.unitSystem === 'metric' ? 'kg' : 'lb';
+  const derivedColumns = trial.unitSystem === 'metric' ? METRIC_DERIVED : IMPERIAL_DERIVED;
   const header = [
     'trial',
     'site_id',
@@ -69,13 +110,13 @@ export function stripsCsv(
     `harvest_length_${lengthUnit}`,
     `harvest_area_${lengthUnit}2`,
     'moisture_pct',
-    'test_weight',
+    trial.unitSystem === 'metric' ? 'test_weight_kg_hl' : 'test_weight_lb_bu',
     'sowing_date',
     'emergence_date',
     'heading_date',
     'harvest_date',
     'notes',
-    ...DERIVED_COLUMNS.map((c) => c.replace(/[A-Z]/g, (m) => `_${m.toLowerCase()}`)),
+    ...derivedColumns.map(([name]) => name),
   ];
   const lines = [header.map(csvCell).join(',')];
   const ordered = [...strips].sort((a, b) => {
@@ -120,7 +161,7 @@ export function stripsCsv(
       o?.headingDate ?? '',
       o?.harvestDate ?? '',
       o?.notes ?? '',
-      ...DERIVED_COLUMNS.map((c) => round(s.derived?.[c] ?? null)),
+      ...derivedColumns.map(([, value]) => round(s.derived ? value(s.derived) : null)),
     ];
     lines.push(cells.map(csvCell).join(','));
   }
