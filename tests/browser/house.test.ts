@@ -7,6 +7,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildNetwork, demoIds, signIn } from '../helpers/app';
 import { buildCollectSite, type CollectSite } from '../api/strips/collect-builders';
+import { buildReportTrial, rcbdStrips } from '../api/reports/build-report-trial';
 import {
   ARTIFACTS,
   launchBrowser,
@@ -255,6 +256,79 @@ describe('the web client as a house to live in', () => {
     expect(await measure()).toBeGreaterThan(narrow + 100);
     await close();
   });
+
+  it('shows a metric trial’s site and network reports per m², per kg and per tonne at 390 and 1280 px', async () => {
+    const net = await buildNetwork(server.testApp.dataSource, 'House metric reports');
+    // Yields in kg/ha, with a small site-by-strip wobble so site × rate is not zero.
+    const site = (fieldName: string, shift: number, index: number) => ({
+      fieldName,
+      strips: rcbdStrips(
+        [
+          [3000, 3500, 3700, 3750],
+          [3100, 3600, 3650, 3700],
+          [2950, 3450, 3750, 3650],
+          [3050, 3550, 3700, 3800],
+        ].map((row, b) =>
+          row.map((v, level) => v + shift + (((b * 3 + level * (7 + index)) % 5) - 2) * 40),
+        ),
+      ),
+    });
+    const built = await buildReportTrial(server.testApp.dataSource, net, {
+      unitSystem: 'metric',
+      referenceRate: 120,
+      referenceUnit: 'kg/ha',
+      sites: [
+        site('Invented metric north', 0, 0),
+        site('Invented metric creek', 300, 1),
+        site('Invented metric hill', -200, 2),
+      ],
+    });
+    const imperialWords =
+      /ft²|\bft\b|\bfeet\b|\binch|\/lb\b|\/bu\b|lb\/acre|bu\/acre|per acre|\/acre/;
+    const { page, close, errors } = await openPage(browser, 390);
+    await signInThroughUi(page, server.baseUrl, net.emails.coordinator);
+    await page.goto(`${server.baseUrl}/sites/${built.siteIds[0]}/report`);
+    const parts = page.getByRole('region', { name: /Yield components and seed economics/ });
+    await parts.waitFor();
+    const partsText = await parts.innerText();
+    expect(partsText).toContain('Plants/m²');
+    expect(partsText).toContain('Heads/m²');
+    // Source: PSU-WS (shared/TRADE_FACTS.md: plants per area = count ÷ (row length × row
+    // spacing)) and NIST SP 811 (1 in = 2.54 cm): stand counts 30 + 32 + 28 on three 3 m lengths
+    // of 7.5-in (0.1905 m) rows are 90 ÷ (9 × 0.1905) = 52.5 plants/m²; heads 70 + 66 on two
+    // 3 m lengths are 136 ÷ (6 × 0.1905) = 119.0 heads/m².
+    const full = await parts.locator('tr', { hasText: 'full' }).locator('td').allInnerTexts();
+    expect(full.slice(1, 2)).toEqual(['52']);
+    expect(full.slice(4, 5)).toEqual(['119']);
+    await waitForCharts(page, 3);
+    expect((await page.locator('main').innerText()).match(imperialWords)).toBeNull();
+    await screenshot(page, 'house-site-report-metric-390');
+    await page.setViewportSize({ width: 1280, height: 900 });
+    await screenshot(page, 'house-site-report-metric-1280');
+
+    await page.goto(`${server.baseUrl}/trials/${built.trialId}/report`);
+    const seedPrice = page.getByRole('textbox', { name: 'Seed price' });
+    await seedPrice.waitFor();
+    // Source: NIST SP 811 (2008), Appendix B.8 (1 lb = 0.453 592 37 kg) and the USDA 60-lb
+    // wheat bushel (shared/TRADE_FACTS.md §3): the trial's $0.50/lb is $1.102/kg and its
+    // $8.00/bu is $293.95/t (the box shows four figures).
+    expect(await seedPrice.inputValue()).toBe('1.102');
+    expect(await page.getByRole('textbox', { name: 'Grain price' }).inputValue()).toBe('293.9');
+    await waitForCharts(page, 3);
+    const pooledText = await page.locator('main').innerText();
+    expect(pooledText).toContain('Economics per hectare');
+    expect(pooledText).toContain('seed $1.10/kg, grain $293.95/t');
+    expect(pooledText.match(imperialWords)).toBeNull();
+    await screenshot(page, 'house-pooled-report-metric-1280');
+    // A price typed per kg comes back as the same price per kg (sent to the API per lb).
+    await seedPrice.fill('2');
+    await page.getByRole('button', { name: 'Recalculate' }).click();
+    await page.getByText('seed $2.00/kg, grain $293.95/t').first().waitFor();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await screenshot(page, 'house-pooled-report-metric-390');
+    expect(errors).toEqual([]);
+    await close();
+  }, 120_000);
 
   /** Prints the page to PDF and returns its page count and text (poppler's pdfinfo/pdftotext). */
   async function printToPdf(page: Page, name: string, format: 'Letter' | 'A4') {

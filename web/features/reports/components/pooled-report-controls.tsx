@@ -67,16 +67,22 @@ function PricesForm({ report, query, onQuery }: Omit<FiltersProps, 'isPublic'>) 
       grainPrice: shownPrice(report.prices.grainPricePerBu, display.grainPrice),
     },
   });
-  const stored = (value: number | undefined, unit: UnitConversion) =>
-    value === undefined ? undefined : unit.toStored(value);
+  // A box left as shown (rounded) keeps the report's own price, so recalculating with other seed
+  // prices does not nudge the grain price by its rounding.
+  const stored = (value: number | undefined, unit: UnitConversion, current: number | null) =>
+    value === undefined
+      ? undefined
+      : current !== null && String(value) === shownPrice(current, unit)
+        ? current
+        : unit.toStored(value);
   return (
     <Form
       form={form}
       onSubmit={(prices) =>
         onQuery({
           ...query,
-          seedPrice: stored(prices.seedPrice, display.seedPrice),
-          grainPrice: stored(prices.grainPrice, display.grainPrice),
+          seedPrice: stored(prices.seedPrice, display.seedPrice, report.prices.seedPricePerLb),
+          grainPrice: stored(prices.grainPrice, display.grainPrice, report.prices.grainPricePerBu),
         })
       }
       className="grid gap-3 sm:grid-cols-[1fr_1fr_auto] sm:items-start"

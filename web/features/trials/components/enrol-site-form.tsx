@@ -132,7 +132,7 @@ export function EnrolSiteForm({ trialId, onDone }: { trialId: string; onDone?: (
         <FormTextField
           name="fertility"
           label="Fertility"
-          placeholder="e.g. compost 3 t/acre"
+          placeholder="e.g. compost before sowing, no other fertiliser"
           containerClassName="sm:col-span-2"
         />
         <FormTextAreaField name="notes" label="Notes" containerClassName="sm:col-span-2" />
