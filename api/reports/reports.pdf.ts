@@ -261,7 +261,7 @@ export async function siteReportHtml(report: SiteReport): Promise<string> {
       ),
     );
     parts.push(
-      `<h2>The numbers</h2><p class="muted">Average over every strip ${formatNumber(analysis.grandMean, digits)} ${esc(unit)}. A rate “clearly” differs from the ${esc(name(analysis.reference))} only when its whole interval is on one side of zero; the Dunnett-adjusted intervals allow for comparing every rate with it at once.</p>`,
+      `<h2>The numbers</h2><p class="muted">Average over every strip ${formatNumber(analysis.grandMean, digits)} ${esc(unit)}. A rate “clearly” differs from the ${esc(name(analysis.reference))} only when its whole interval in the difference table is on one side of zero; those intervals are Dunnett-adjusted: they allow for comparing every rate with it at once.</p>`,
     );
     parts.push(
       table(

@@ -428,7 +428,9 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
 
   const couldNot: string[] = [];
   if (Number.isFinite(pooledLsd))
-    couldNot.push(`differences smaller than about ${amount(pooledLsd)} between rates`);
+    couldNot.push(
+      `differences smaller than about ${amount(pooledLsd)} between rates (the smallest gap the combined analysis could detect, one comparison at a time)`,
+    );
   if ((input.seasons ?? 1) <= 1)
     couldNot.push(
       'whether the answer holds in a wetter, drier or later season (this is one season)',

@@ -184,7 +184,7 @@ describe('pooledFindings', () => {
     expect(details.join(' ')).toMatch(/Kenward–Roger/);
     expect(details.join(' ')).toMatch(/Bartlett's test/);
     expect(text.at(-1)).toMatch(
-      /^What the network could not tell: differences smaller than about .* bu\/acre between rates; whether the answer holds .* one season/,
+      /^What the network could not tell: differences smaller than about .* bu\/acre between rates \(the smallest gap the combined analysis could detect, one comparison at a time\); whether the answer holds .* one season/,
     );
   });
 

@@ -121,7 +121,7 @@ export function MeansTable({
   unit,
   digits,
   details = false,
-  caption = 'Rate means with 95 % intervals (each rate on its own)',
+  caption = 'Rate means',
 }: {
   means: (RateMean | PooledMean)[];
   label: (rate: string) => string;
@@ -257,8 +257,8 @@ export function DifferencesTable({
       head={['Rate', `Difference (${unit})`, '95 % interval, one comparison', 'p, one comparison']}
       rows={differences.map((d) => [
         label(d.rate),
-        `${d.diff > 0 ? '+' : ''}${formatNumber(d.diff, digits)}`,
-        `${formatNumber(d.ciLow, digits)} to ${formatNumber(d.ciHigh, digits)}`,
+        signedNumber(d.diff, digits),
+        `${signedNumber(d.ciLow, digits)} to ${signedNumber(d.ciHigh, digits)}`,
         pValue(d.p),
       ])}
     />

@@ -121,19 +121,17 @@ export function SiteNumbersSection({
     <Section
       id="tables"
       title="The numbers"
-      intro={`Average over every strip ${formatNumber(analysis.grandMean, digits)} ${unit}. A rate “clearly” differs from the ${rateName(label(site.design.reference))} only when its whole interval is on one side of zero; the intervals allow for comparing every rate with it at once (Dunnett).`}
+      intro={`Average over every strip ${formatNumber(analysis.grandMean, digits)} ${unit}. A rate “clearly” differs from the ${rateName(label(site.design.reference))} only when its whole interval in the difference table is on one side of zero; those intervals are Dunnett-adjusted: they allow for comparing every rate with it at once.`}
     >
-      <div className="grid gap-4 lg:grid-cols-2">
-        <MeansTable means={analysis.means} label={label} unit={unit} digits={digits} />
-        <PlainDifferencesTable
-          comparisons={comparisons}
-          rates={analysis.differences.map((d) => d.rate)}
-          label={label}
-          referenceLabel={label(site.design.reference)}
-          unit={unit}
-          digits={digits}
-        />
-      </div>
+      <MeansTable means={analysis.means} label={label} unit={unit} digits={digits} />
+      <PlainDifferencesTable
+        comparisons={comparisons}
+        rates={analysis.differences.map((d) => d.rate)}
+        label={label}
+        referenceLabel={label(site.design.reference)}
+        unit={unit}
+        digits={digits}
+      />
       <ComponentsTable
         rows={report.components.byRate}
         seedUnit={site.units.seed}
