@@ -401,7 +401,6 @@ async function pooledGrowerPart(
           formatNumber(m.mean, digits),
           `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`,
         ]),
-        'Expected yield at a farm like these',
       ),
     );
   }

@@ -20,6 +20,7 @@ import { ChartCard, DataTableNote, Section } from './report-bits';
 import {
   AnovaTable,
   DataTable,
+  DifferencesDetailTable,
   DifferencesTable,
   EconomicsTable,
   MeansTable,
@@ -284,6 +285,21 @@ export function PooledStatisticianSection({
           ) : null}
         </div>
       </StatisticianBlock>
+      {analysis.mixed ? (
+        <StatisticianBlock
+          title="Mixed model"
+          intro="Intervals and p use Kenward–Roger standard errors and df; the Dunnett adjustment uses the multivariate t with each comparison’s own df."
+        >
+          <DifferencesDetailTable
+            differences={analysis.mixed.differences.map((d) => ({ ...d, diff: d.estimate }))}
+            caption={`Mixed model: difference from the ${referenceLabel} rate, one comparison and all comparisons`}
+            label={label}
+            referenceLabel={referenceLabel}
+            unit={unit}
+            digits={digits}
+          />
+        </StatisticianBlock>
+      ) : null}
     </StatisticianPart>
   );
 }

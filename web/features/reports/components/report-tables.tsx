@@ -198,17 +198,19 @@ export function DifferencesDetailTable({
   referenceLabel,
   unit,
   digits,
+  caption = `Difference from the ${referenceLabel} rate: one comparison and all comparisons`,
 }: {
   differences: RateDifference[];
   label: (rate: string) => string;
   referenceLabel: string;
   unit: string;
   digits: number;
+  caption?: string;
 }) {
   const adjusted = differences.some((d) => d.pAdjusted !== undefined);
   return (
     <DataTable
-      caption={`Difference from the ${referenceLabel} rate: one comparison and all comparisons`}
+      caption={caption}
       head={[
         'Rate',
         `Difference (${unit})`,
