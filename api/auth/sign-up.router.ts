@@ -13,6 +13,7 @@ export function createSignUpRouter(ctx: RouterContext) {
     dataSource: ctx.dataSource,
     mailer: ctx.mailer,
     publicUrl: ctx.config.PUBLIC_URL,
+    passwordCost: ctx.config.BCRYPT_COST,
     open: ctx.config.SIGNUP === 'open',
   });
 
