@@ -36,11 +36,11 @@ export function MixedModelSection({
     >
       <DataTable
         caption={`Expected yield at a farm like these, with ${level} % intervals`}
-        head={['Rate', `Mean (${unit})`, `${level} % interval`]}
+        head={['Rate', `Mean (${unit})`, `${level} % interval, a farm like these`]}
         rows={mixed.means.map((m) => [
           label(m.rate),
           formatNumber(m.mean, digits),
-          interval(m.ciLow, m.ciHigh, digits),
+          `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`,
         ])}
       />
       <DataTable
