@@ -369,7 +369,7 @@ async function pooledGrowerPart(
           sites: report.siteDifferences.filter((d) => d.rate === difference.rate),
           pooled: difference,
         }),
-        `${label(difference.rate)} minus ${reference} at each site with its 95 % interval (that site on its own); the diamond is the pooled difference.`,
+        `${label(difference.rate)} minus ${reference} at each site with its 95 % interval (that site on its own, not adjusted); the diamond is the pooled difference.`,
       ),
     );
   }

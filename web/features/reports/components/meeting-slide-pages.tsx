@@ -173,7 +173,7 @@ export function ForestSlide({
         { theme, scale: 1.5 },
       )}
       title="Forest plot"
-      description="Each farm’s difference with its 95 % interval; the diamond is the network."
+      description="Each farm’s difference with its 95 % interval (that farm on its own, not adjusted); the diamond is the network’s pooled difference."
       downloads={false}
     />
   );

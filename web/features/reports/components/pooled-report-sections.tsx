@@ -142,7 +142,7 @@ export function PooledForestSection({ report, analysis }: PooledAnalysisSectionP
     <Section
       id="forest"
       title={`Each site against the ${rateName(referenceLabel)}`}
-      intro="Squares are each site’s difference with its 95 % confidence interval; the diamond is the network’s pooled difference. Bars that cross the dashed zero line could not tell the rates apart."
+      intro="Squares are each site’s difference with its 95 % interval (that site on its own, not adjusted); the diamond is the network’s pooled difference. Bars that cross the dashed zero line could not tell the rates apart."
     >
       <RatePicker comparisons={comparisons} shown={shownRate} label={label} onPick={setPicked} />
       {spec ? (

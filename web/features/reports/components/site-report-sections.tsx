@@ -77,14 +77,14 @@ export function SiteChartsSection({
     <Section
       id="charts"
       title="Yield by seeding rate"
-      intro="Filled dots are rate means with their 95 % confidence intervals; open circles are the individual strips."
+      intro="Filled dots are rate means with their 95 % intervals (each rate on its own); open circles are the individual strips."
     >
       <div className="grid gap-4 lg:grid-cols-2">
         <ChartCard>
           <VegaChart
             spec={meansSpec}
             title="Rate means"
-            description={`Mean yield (${unit}) by rate with 95 % confidence intervals and each strip.`}
+            description={`Mean yield (${unit}) by rate with 95 % intervals (each rate on its own) and each strip.`}
           />
         </ChartCard>
         <ChartCard>
