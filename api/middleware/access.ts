@@ -48,6 +48,8 @@ declare module 'express-serve-static-core' {
      * so a read-only handler need not read it again. Writes read and lock it themselves.
      */
     siteRead?: Site;
+    /** The network of the trial a trial policy checked for this request. */
+    trialNetworkId?: string;
   }
 }
 
@@ -96,11 +98,12 @@ export function createPolicies(dataSource: DataSource) {
     return value;
   }
 
-  async function trialNetwork(trialId: string): Promise<string> {
+  async function trialNetwork(req: Request, trialId: string): Promise<string> {
     const trial = await dataSource
       .getRepository(Trial)
       .findOne({ select: { id: true, networkId: true }, where: { id: trialId } });
     if (!trial) throw new NotFound('Trial');
+    req.trialNetworkId = trial.networkId;
     return trial.networkId;
   }
 
@@ -198,7 +201,7 @@ export function createPolicies(dataSource: DataSource) {
         'trial-coordinator',
         async (req) => {
           const ctx = await context(req);
-          const networkId = await trialNetwork(uuidParam(req, param, 'Trial'));
+          const networkId = await trialNetwork(req, uuidParam(req, param, 'Trial'));
           const role = ctx.roles.get(networkId);
           if (!role) throw new NotFound('Trial');
           if (!isCoordinating(role))
@@ -213,7 +216,7 @@ export function createPolicies(dataSource: DataSource) {
         async (req) => {
           const ctx = await context(req);
           const trialId = uuidParam(req, param, 'Trial');
-          const networkId = await trialNetwork(trialId);
+          const networkId = await trialNetwork(req, trialId);
           const role = ctx.roles.get(networkId);
           if (!role) throw new NotFound('Trial');
           if (isCoordinating(role)) return;
@@ -230,7 +233,7 @@ export function createPolicies(dataSource: DataSource) {
         async (req) => {
           const ctx = await context(req);
           const trialId = uuidParam(req, param, 'Trial');
-          const role = ctx.roles.get(await trialNetwork(trialId));
+          const role = ctx.roles.get(await trialNetwork(req, trialId));
           if (!role) throw new NotFound('Trial');
           if (isCoordinating(role)) return;
           if (!(await trialHasPublished(trialId, 'pooled')))
