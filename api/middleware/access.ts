@@ -10,6 +10,7 @@ import { ReportSnapshot } from '../../db/entities/report-snapshot.entity';
 import { Site } from '../../db/entities/site.entity';
 import { Strip } from '../../db/entities/strip.entity';
 import { Trial } from '../../db/entities/trial.entity';
+import { findSiteWithDesign } from '../lib/strip-data';
 
 export type PolicyKind =
   | 'public'
@@ -42,6 +43,13 @@ const COORDINATING: Role[] = ['admin', 'coordinator'];
 declare module 'express-serve-static-core' {
   interface Request {
     access?: AccessContext;
+    /**
+     * The site (with its trial, rate levels and grower) as a site policy read it for this request,
+     * so a read-only handler need not read it again. Writes read and lock it themselves.
+     */
+    siteRead?: Site;
+    /** The network of the trial a trial policy checked for this request. */
+    trialNetworkId?: string;
   }
 }
 
@@ -90,11 +98,12 @@ export function createPolicies(dataSource: DataSource) {
     return value;
   }
 
-  async function trialNetwork(trialId: string): Promise<string> {
+  async function trialNetwork(req: Request, trialId: string): Promise<string> {
     const trial = await dataSource
       .getRepository(Trial)
       .findOne({ select: { id: true, networkId: true }, where: { id: trialId } });
     if (!trial) throw new NotFound('Trial');
+    req.trialNetworkId = trial.networkId;
     return trial.networkId;
   }
 
@@ -103,17 +112,12 @@ export function createPolicies(dataSource: DataSource) {
     growerUserId: string | null;
     published: boolean;
   }
-  async function siteFacts(siteId: string): Promise<SiteFacts> {
-    const site = await dataSource
-      .getRepository(Site)
-      .createQueryBuilder('site')
-      .innerJoin('site.trial', 'trial')
-      .select(['site.id', 'site.growerUserId', 'site.publishedAt', 'trial.id', 'trial.networkId'])
-      .where('site.id = :siteId', { siteId })
-      .getOne();
-    if (!site?.trial) throw new NotFound('Site');
+  /** Reads the site with its design once and keeps it on the request for the handler. */
+  async function siteFacts(req: Request, siteId: string): Promise<SiteFacts> {
+    const site = await findSiteWithDesign(dataSource.manager, siteId);
+    req.siteRead = site;
     return {
-      networkId: site.trial.networkId,
+      networkId: site.trial!.networkId,
       growerUserId: site.growerUserId,
       published: site.publishedAt !== null,
     };
@@ -160,7 +164,7 @@ export function createPolicies(dataSource: DataSource) {
     allowGrower: boolean,
     allowMemberWhenPublished: boolean,
   ) {
-    const [ctx, site] = await Promise.all([context(req), siteFacts(siteId)]);
+    const [ctx, site] = await Promise.all([context(req), siteFacts(req, siteId)]);
     const role = ctx.roles.get(site.networkId);
     if (isCoordinating(role)) return;
     if (!role) throw new NotFound('Site');
@@ -197,7 +201,7 @@ export function createPolicies(dataSource: DataSource) {
         'trial-coordinator',
         async (req) => {
           const ctx = await context(req);
-          const networkId = await trialNetwork(uuidParam(req, param, 'Trial'));
+          const networkId = await trialNetwork(req, uuidParam(req, param, 'Trial'));
           const role = ctx.roles.get(networkId);
           if (!role) throw new NotFound('Trial');
           if (!isCoordinating(role))
@@ -212,7 +216,7 @@ export function createPolicies(dataSource: DataSource) {
         async (req) => {
           const ctx = await context(req);
           const trialId = uuidParam(req, param, 'Trial');
-          const networkId = await trialNetwork(trialId);
+          const networkId = await trialNetwork(req, trialId);
           const role = ctx.roles.get(networkId);
           if (!role) throw new NotFound('Trial');
           if (isCoordinating(role)) return;
@@ -229,7 +233,7 @@ export function createPolicies(dataSource: DataSource) {
         async (req) => {
           const ctx = await context(req);
           const trialId = uuidParam(req, param, 'Trial');
-          const role = ctx.roles.get(await trialNetwork(trialId));
+          const role = ctx.roles.get(await trialNetwork(req, trialId));
           if (!role) throw new NotFound('Trial');
           if (isCoordinating(role)) return;
           if (!(await trialHasPublished(trialId, 'pooled')))

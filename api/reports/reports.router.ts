@@ -34,16 +34,18 @@ export function createReportsRouter(ctx: RouterContext) {
       req,
       res,
       await privacy.tagged(
-        await reports.siteReport(param(req, 'siteId'), req.access ?? null),
+        await reports.siteReport(param(req, 'siteId'), req.access ?? null, req.siteRead),
         req.access,
+        req.siteRead?.trial?.networkId,
       ),
     );
   });
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
     const { report, etag } = await privacy.tagged(
-      await reports.siteReport(param(req, 'siteId'), req.access ?? null),
+      await reports.siteReport(param(req, 'siteId'), req.access ?? null, req.siteRead),
       req.access,
+      req.siteRead?.trial?.networkId,
     );
     const pdf = await siteReportPdf(report, etag, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
@@ -72,6 +74,7 @@ export function createReportsRouter(ctx: RouterContext) {
       await privacy.tagged(
         await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
         req.access,
+        req.trialNetworkId,
       ),
     );
   });
@@ -81,6 +84,7 @@ export function createReportsRouter(ctx: RouterContext) {
     const { report, etag } = await privacy.tagged(
       await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
       req.access,
+      req.trialNetworkId,
     );
     const pdf = await pooledReportPdf(report, etag, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
