@@ -150,17 +150,22 @@ export function buildSeriesReport(input: SeriesReportInput): Body {
           : `${capitalise(name(d.rate))} yielded within ${amount(d.estimate)} of the ${name(reference)} over the seasons (${ci}); the series could not tell them apart.`;
       const agreement =
         d.compared > 0
-          ? ` The ${name(d.rate)} did as well as the ${name(reference)} in ${d.asWell} of ${countWord(d.compared, 'season')} (no difference that season's farms could detect).`
+          ? ` The ${name(d.rate)} did as well as the ${name(reference)} in ${d.asWell} of ${d.compared} seasons (no difference that season's farms could detect).`
           : '';
       findings.push(lead + agreement);
     }
     findings.push(consistencySentence(pooled.varianceComponents, seasons.length));
+    const referenceMean = pooled.means.find((m) => m.rate === reference);
+    if (referenceMean && seasons.length < 4)
+      findings.push(
+        `The yield to expect from any rate next season is much less sure than the differences between rates (the ${name(reference)}: ${formatNumber(referenceMean.ciLow, digits)} to ${formatNumber(referenceMean.ciHigh, digits)} ${input.unit}, ${level} % interval): a season lifts or lowers every rate together, and ${countWord(seasons.length, 'season')} say little about how far. That swing cancels out of the differences, which is why they are much narrower.`,
+      );
   } else if (analysis) {
     notes.push(...analysis.notes);
   }
   if (seasons.length < 3)
     findings.push(
-      `Two seasons are a start, not a climate: a third season (wetter, drier or later) would show whether the answer holds.`,
+      `${capitalise(countWord(seasons.length, 'season'))} ${seasons.length === 1 ? 'is' : 'are'} a start, not a climate: another season (wetter, drier or later) would show whether the answer holds.`,
     );
 
   return {

@@ -134,7 +134,7 @@ describe('series across seasons', () => {
       expect(row.pooled!.mean).toBeGreaterThanOrEqual(Math.min(a!, b!) - 1e-9);
       expect(row.pooled!.mean).toBeLessThanOrEqual(Math.max(a!, b!) + 1e-9);
     }
-    expect(report.findings.join(' ')).toMatch(/in \d of two seasons/);
+    expect(report.findings.join(' ')).toMatch(/in \d of 2 seasons/);
     expect(report.statistician.varianceComponents.map((c) => c.name)).toContain('seasonByRate');
     const etag = res.headers.etag as string;
     const again = await coordinator
