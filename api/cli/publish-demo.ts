@@ -28,12 +28,10 @@ async function main() {
       .find({ where: { networkId: network.id, status: 'closed' } });
     for (const trial of trials) {
       if (!trial.createdBy) continue;
-      const sites = await dataSource
-        .getRepository(Site)
-        .find({
-          where: { trialId: trial.id, publishedAt: IsNull() },
-          order: { reportNumber: 'ASC' },
-        });
+      const sites = await dataSource.getRepository(Site).find({
+        where: { trialId: trial.id, publishedAt: IsNull() },
+        order: { reportNumber: 'ASC' },
+      });
       for (const site of sites) await reports.publishSite(site.id, trial.createdBy);
       const pooled = await dataSource
         .getRepository(ReportSnapshot)
