@@ -117,6 +117,7 @@ export function createApp(deps: AppDeps): Express {
     dataSource,
     mailer: deps.mailer,
     publicUrl: config.PUBLIC_URL,
+    passwordCost: config.BCRYPT_COST,
     jobQueue: deps.jobs?.queue,
   });
   if (deps.jobs)
@@ -133,6 +134,7 @@ export function createApp(deps: AppDeps): Express {
     dataSource,
     mailer: deps.mailer,
     publicUrl: config.PUBLIC_URL,
+    passwordCost: config.BCRYPT_COST,
   });
   const ctx: RouterContext = {
     config,
