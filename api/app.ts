@@ -35,6 +35,7 @@ import { startJobRunner, type JobRunner } from './lib/job-runner';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
 import { createReportsRouter } from './reports/reports.router';
+import { createSeriesRouter } from './series/series.router';
 import { createSitesRouter } from './sites/sites.router';
 import { createTrialsRouter } from './trials/trials.router';
 
@@ -68,6 +69,7 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createPeopleRouter,
   createNetworksRouter,
   createHistoryRouter,
+  createSeriesRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {

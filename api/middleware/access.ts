@@ -10,6 +10,7 @@ import { ReportSnapshot } from '../../db/entities/report-snapshot.entity';
 import { Site } from '../../db/entities/site.entity';
 import { Strip } from '../../db/entities/strip.entity';
 import { Trial } from '../../db/entities/trial.entity';
+import { TrialSeries } from '../../db/entities/trial-series.entity';
 import { findSiteWithDesign } from '../lib/strip-data';
 
 export type PolicyKind =
@@ -24,7 +25,8 @@ export type PolicyKind =
   | 'site-grower'
   | 'site-reader'
   | 'strip-grower'
-  | 'attachment-reader';
+  | 'attachment-reader'
+  | 'series-reader';
 
 export interface Policy {
   kind: PolicyKind;
@@ -265,6 +267,20 @@ export function createPolicies(dataSource: DataSource) {
         async (req) => {
           const siteId = await parentSite(Strip, uuidParam(req, param, 'Strip'), 'Strip');
           await checkSite(req, siteId, true, false);
+        },
+        param,
+      ),
+    /** A series: everyone in its network reads it (the report itself limits what each reader sees). */
+    seriesReader: (param = 'seriesId') =>
+      policy(
+        'series-reader',
+        async (req) => {
+          const ctx = await context(req);
+          const series = await dataSource.getRepository(TrialSeries).findOne({
+            select: { id: true, networkId: true },
+            where: { id: uuidParam(req, param, 'Series') },
+          });
+          if (!series || !ctx.roles.has(series.networkId)) throw new NotFound('Series');
         },
         param,
       ),
