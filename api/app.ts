@@ -35,6 +35,7 @@ import { startJobRunner, type JobRunner } from './lib/job-runner';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
 import { createReportsRouter } from './reports/reports.router';
+import { createSeriesRouter } from './series/series.router';
 import { createSitesRouter } from './sites/sites.router';
 import { createTrialsRouter } from './trials/trials.router';
 
@@ -68,6 +69,7 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createPeopleRouter,
   createNetworksRouter,
   createHistoryRouter,
+  createSeriesRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {
@@ -170,7 +172,7 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use('/api/auth', createSignUpRouter(ctx));
-  app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_LOGIN * 5 }));
+  app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_INVITES }));
   app.use('/api', createHomeRouter(ctx));
   app.use(
     '/api/admin',
