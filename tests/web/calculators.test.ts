@@ -42,7 +42,7 @@ describe('SeedCalculator in metric units', () => {
     refuseFetch();
     const { user } = renderWithProviders(createElement(SeedCalculator));
     expect(screen.getByText('in')).toBeTruthy();
-    await user.selectOptions(screen.getByLabelText('Units'), 'metric');
+    await user.selectOptions(screen.getByLabelText('Measure in'), 'metric');
     expect(localStorage.getItem('sheaf.unitSystem')).toBe('metric');
     expect((screen.getByLabelText('Amount') as HTMLInputElement).value).toBe('110');
     expect((screen.getByLabelText('Row spacing') as HTMLInputElement).value).toBe('20');
@@ -61,7 +61,7 @@ describe('SeedCalculator in metric units', () => {
     cleanup();
     // A new visit starts in the remembered units.
     renderWithProviders(createElement(SeedCalculator));
-    expect((screen.getByLabelText('Units') as HTMLSelectElement).value).toBe('metric');
+    expect((screen.getByLabelText('Measure in') as HTMLSelectElement).value).toBe('metric');
   });
 });
 

@@ -67,7 +67,7 @@ function SeedCalculatorForm({
         aria-label="Seed calculator inputs"
       >
         <SelectField
-          label="Units"
+          label="Measure in"
           value={system}
           onChange={(e) => onSystem(e.target.value as UnitSystem)}
         >
