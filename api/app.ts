@@ -32,6 +32,7 @@ import { createCsrf } from './middleware/csrf';
 import { rejectUnsafeText } from './middleware/body-guard';
 import { idempotency } from './middleware/idempotency';
 import { startJobRunner, type JobRunner } from './lib/job-runner';
+import { createWebShell } from './lib/web-shell';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
 import { createReportsRouter } from './reports/reports.router';
@@ -186,10 +187,11 @@ export function createApp(deps: AppDeps): Express {
   if (fs.existsSync(path.join(webRoot, 'index.html'))) {
     app.use(precompressed(webRoot));
     app.use(express.static(webRoot, { index: false, maxAge: '1h', setHeaders: staticHeaders }));
-    app.get('/{*splat}', (_req, res) => {
-      res.set('Cache-Control', 'no-cache');
-      // root keeps the dot-folder check off the build folder itself (e.g. .data/web-x).
-      res.sendFile('index.html', { root: webRoot });
+    const webShell = createWebShell(webRoot);
+    app.get('/{*splat}', (req, res) => {
+      const page = webShell(req.path);
+      res.set({ 'Cache-Control': 'no-cache', ETag: page.etag });
+      res.type('html').send(page.html);
     });
   }
   app.use(errorHandler);
@@ -240,6 +242,6 @@ function staticHeaders(res: express.Response, filePath: string) {
   }
   if (original.includes(`${path.sep}assets${path.sep}`))
     res.set('Cache-Control', 'public, max-age=31536000, immutable');
-  else if (/(sw\.js|registerSW\.js|manifest\.webmanifest|index\.html)$/.test(original))
+  else if (/(sw\.js|manifest\.webmanifest|index\.html)$/.test(original))
     res.set('Cache-Control', 'no-cache');
 }

@@ -5,10 +5,17 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { z } from 'zod';
 import { AppProvider } from './app/provider';
-import { AppRouter } from './app/router';
+import { AppRouter, router } from './app/router';
+import { meQueryOptions } from './features/auth/api/get-me';
+import { queryClient } from './lib/query-client';
+import { registerServiceWorkerAfter } from './lib/service-worker';
 
 // zod probes for eval support once at start-up; the CSP forbids eval, so tell zod not to try.
 z.config({ jitless: true });
+
+// Every page's loader asks who is signed in: ask now, while the page's own code is still loading,
+// rather than one round trip after it.
+void queryClient.prefetchQuery(meQueryOptions());
 
 const container = document.getElementById('root');
 if (!container) throw new Error('Sheaf needs an element with id "root" in index.html');
@@ -20,3 +27,18 @@ createRoot(container).render(
     </AppProvider>
   </StrictMode>,
 );
+
+/** Resolves once the router has loaded the first page's code and data. */
+function firstPageLoaded(): Promise<void> {
+  const done = () => router.state.initialized && router.state.navigation.state === 'idle';
+  if (done()) return Promise.resolve();
+  return new Promise((resolve) => {
+    const unsubscribe = router.subscribe(() => {
+      if (!done()) return;
+      unsubscribe();
+      resolve();
+    });
+  });
+}
+
+void registerServiceWorkerAfter(firstPageLoaded());
