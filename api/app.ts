@@ -128,6 +128,7 @@ export function createApp(deps: AppDeps): Express {
     dataSource,
     mailer: deps.mailer,
     publicUrl: config.PUBLIC_URL,
+    passwordCost: config.BCRYPT_COST,
     jobQueue: deps.jobs?.queue,
   });
   if (deps.jobs)
@@ -144,6 +145,7 @@ export function createApp(deps: AppDeps): Express {
     dataSource,
     mailer: deps.mailer,
     publicUrl: config.PUBLIC_URL,
+    passwordCost: config.BCRYPT_COST,
   });
   const ctx: RouterContext = {
     config,

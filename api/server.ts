@@ -1,86 +1,9 @@
-// Reads the environment, connects to PostgreSQL and listens. With WEB_CONCURRENCY=N above 1 a
-// primary process forks N workers (Node's cluster module) that share PORT; every worker is the
-// same stateless app, since PostgreSQL holds all shared state. SIGTERM/SIGINT finish in-flight
+// Reads the environment and listens. With WEB_CONCURRENCY=N above 1 a primary process forks N
+// workers (Node's cluster module) that share PORT; every worker is the same stateless app
+// (api/worker.ts), since PostgreSQL holds all shared state. SIGTERM/SIGINT finish in-flight
 // requests and close everything.
-import 'reflect-metadata';
 import cluster from 'node:cluster';
-import http from 'node:http';
-import pg from 'pg';
-import { createDataSource } from '../db/data-source';
-import { createApp } from './app';
 import { readConfig, type AppConfig } from './config/env';
-import { createSmtpMailer } from './mail/mailer';
-import { closePdfBrowser } from './reports/reports.pdf';
-
-async function connectWithRetry(init: () => Promise<unknown>, attempts = 30): Promise<void> {
-  for (let i = 1; ; i += 1) {
-    try {
-      await init();
-      return;
-    } catch (error) {
-      if (i >= attempts) throw error;
-      console.log(`[sheaf] waiting for PostgreSQL (${(error as Error).message})`);
-      await new Promise((r) => setTimeout(r, 1000));
-    }
-  }
-}
-
-/** One API process: the app on PORT, alone or as a cluster worker. */
-async function serve(config: AppConfig, announce: (port: number) => void) {
-  const dataSource = createDataSource(config.DATABASE_URL);
-  await connectWithRetry(() => dataSource.initialize());
-  const sessionPool = new pg.Pool({
-    connectionString: config.DATABASE_URL,
-    max: 5,
-    connectionTimeoutMillis: 2000,
-  });
-  sessionPool.on('error', () => {});
-  const mailer = createSmtpMailer({
-    host: config.SMTP_HOST,
-    port: config.SMTP_PORT,
-    from: config.MAIL_FROM,
-  });
-  const app = createApp({
-    config,
-    dataSource,
-    sessionPool,
-    mailer,
-    jobs: { queue: 'default' },
-  });
-  // A client that trickles its headers or body in is cut off (408) instead of holding a socket;
-  // the timeouts are checked every second rather than Node's default 30 s.
-  const server = http.createServer(
-    {
-      headersTimeout: config.HEADERS_TIMEOUT_MS,
-      requestTimeout: Math.max(config.REQUEST_TIMEOUT_MS, config.HEADERS_TIMEOUT_MS),
-      connectionsCheckingInterval: 1000,
-    },
-    app,
-  );
-  server.keepAliveTimeout = 5000;
-  await new Promise<void>((resolve) => server.listen(config.PORT, config.HOST, resolve));
-  const address = server.address();
-  announce(typeof address === 'object' && address ? address.port : config.PORT);
-
-  let stopping = false;
-  const shutdown = () => {
-    if (stopping) return;
-    stopping = true;
-    const force = setTimeout(() => process.exit(1), 10_000);
-    force.unref();
-    server.close(async () => {
-      await app.locals.jobRunner?.stop();
-      await closePdfBrowser();
-      await Promise.allSettled([dataSource.destroy(), sessionPool.end()]);
-      process.exit(0);
-    });
-    // Keep-alive sockets become idle as in-flight requests finish; close them as they do.
-    server.closeIdleConnections();
-    setInterval(() => server.closeIdleConnections(), 100).unref();
-  };
-  process.on('SIGTERM', shutdown);
-  process.on('SIGINT', shutdown);
-}
 
 /** The cluster primary: forks the workers, replaces one that crashes, stops them all on a signal. */
 function supervise(config: AppConfig) {
@@ -118,13 +41,15 @@ function supervise(config: AppConfig) {
   for (let i = 0; i < count; i += 1) fork();
 }
 
-function main() {
+async function main() {
   const config = readConfig();
   if (config.WEB_CONCURRENCY > 1 && cluster.isPrimary) {
     supervise(config);
     return;
   }
   const worker = cluster.isWorker;
+  // Loaded here, not at the top: the primary forks workers and never needs the app.
+  const { serve } = await import('./worker');
   return serve(config, (port) => {
     if (worker) process.send?.({ listening: port });
     else console.log(`[sheaf] listening on http://${config.HOST}:${port}`);

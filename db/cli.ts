@@ -19,7 +19,9 @@ async function main() {
       await dataSource.undoLastMigration({ transaction: 'each' });
       console.log('[sheaf] reverted the last migration');
     } else if (action === 'seed') {
-      const loaded = await seedDemo(dataSource);
+      // BCRYPT_COST as the API reads it (api/config/env.ts); tests lower it to sign in faster.
+      const passwordCost = process.env.BCRYPT_COST ? Number(process.env.BCRYPT_COST) : undefined;
+      const loaded = await seedDemo(dataSource, { passwordCost });
       console.log(
         loaded
           ? '[sheaf] demo scenario loaded (invented data)'

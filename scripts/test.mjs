@@ -1,5 +1,5 @@
 // npm test: install what is missing (npm deps, PostgreSQL, Chromium); on a full run, check
-// formatting, lint, types and the lint rules' probe test first; build the web app, start a
+// formatting, lint and types side by side with the web build, then the lint rules' probe test; start a
 // throw-away PostgreSQL cluster on 127.0.0.1, migrate and load the demo, run every test with
 // vitest, then stop and delete the cluster. Exits non-zero on any failure. `npm test --
 // tests/some/path` runs chosen files only and skips the static checks (they cover the whole
@@ -10,20 +10,42 @@ import { ensureDebianPackage, ensureNodeModules } from './lib/deps.mjs';
 import {
   DATA_DIR,
   buildWeb,
+  buildWebAlongside,
   runChild,
   runTs,
   runningChildren,
   stopWhenOrphaned,
 } from './lib/env.mjs';
 import { freePort, startCluster } from './lib/postgres.mjs';
-import { ARCHITECTURE_TESTS, runStaticChecks } from './lib/static-checks.mjs';
+import {
+  ARCHITECTURE_TESTS,
+  reportFailedChecks,
+  runArchitectureProbes,
+  runSideBySideChecks,
+} from './lib/static-checks.mjs';
 
 const extraArgs = process.argv.slice(2);
 ensureNodeModules();
-if (extraArgs.length === 0 && !runStaticChecks()) process.exit(1);
 if (!ensureDebianPackage('/usr/bin/chromium', 'chromium')) process.exit(1);
 ensureDebianPackage('/usr/bin/pdfinfo', 'poppler-utils');
-const webDist = buildWeb();
+const webDist = extraArgs.length === 0 ? await checkAndBuild() : buildWeb();
+
+/**
+ * The full run's static checks and the web build, side by side (each check is one thread, the
+ * machine has two cores or more); the lint probes last. Exits when any of them fails.
+ */
+async function checkAndBuild() {
+  const build = buildWebAlongside().catch((error) => error);
+  const failed = await runSideBySideChecks();
+  const built = await build;
+  if (built instanceof Error) failed.push('web build (vite build)');
+  if (!(await runArchitectureProbes())) failed.push('architecture probes');
+  if (failed.length > 0) {
+    reportFailedChecks(failed);
+    process.exit(1);
+  }
+  return built;
+}
 
 const dataDir = path.join(DATA_DIR, `test-pg-${process.pid}`);
 const cluster = await startCluster({
@@ -61,6 +83,8 @@ let code = 1;
 try {
   const env = {
     NODE_ENV: 'test',
+    // The lowest bcrypt cost for the demo's and the tests' accounts: sign-ins are many.
+    BCRYPT_COST: '4',
     WEB_DIST: webDist,
     DATABASE_URL: cluster.databaseUrl,
     SHEAF_TEST_PG_BIN: cluster.bin,

@@ -9,31 +9,33 @@ import { endSessionsOf } from '../../db/repositories/user-sessions.repository';
 import { AppError } from '../errors';
 import { enqueueJob, type JobHandlers } from '../lib/job-runner';
 import { composeMail, type Mailer } from '../mail/mailer';
-import { BCRYPT_COST, hashPassword } from '../lib/passwords';
+import { hashPassword } from '../lib/passwords';
 import { hashToken, newToken } from '../lib/tokens';
 
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
 export const RESET_MAIL_JOB = 'password-reset-mail';
-// Compared against when the e-mail is unknown, so both failures take about as long.
-const DUMMY_HASH = bcrypt.hashSync('sheaf-timing-equaliser', BCRYPT_COST);
 
 export function createAuthService(deps: {
   dataSource: DataSource;
   mailer: Mailer;
   publicUrl: string;
+  /** bcrypt cost for new password hashes (config BCRYPT_COST). */
+  passwordCost: number;
   /** The job queue this app's background mail goes to (tests give each app its own). */
   jobQueue?: string;
 }) {
   const { dataSource, mailer, publicUrl } = deps;
   const users = dataSource.getRepository(User);
   const jobQueue = deps.jobQueue ?? 'default';
+  // Compared against when the e-mail is unknown, so both failures take about as long.
+  const dummyHash = bcrypt.hashSync('sheaf-timing-equaliser', deps.passwordCost);
 
   async function verifyPassword(email: string, password: string) {
     const user = await users.findOne({
       select: { id: true, email: true, name: true, passwordHash: true },
       where: { email: email.trim().toLowerCase() },
     });
-    const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
+    const ok = await bcrypt.compare(password, user?.passwordHash ?? dummyHash);
     if (!user || !ok) return null;
     return { id: user.id, email: user.email, name: user.name };
   }
@@ -98,7 +100,7 @@ export function createAuthService(deps: {
   }
 
   async function completePasswordReset(token: string, password: string): Promise<void> {
-    const passwordHash = await hashPassword(password);
+    const passwordHash = await hashPassword(password, deps.passwordCost);
     await dataSource.transaction(async (manager) => {
       const tokens = manager.getRepository(PasswordResetToken);
       const row = await tokens.findOne({

@@ -16,6 +16,8 @@ export function createSignUpService(deps: {
   dataSource: DataSource;
   mailer: Mailer;
   publicUrl: string;
+  /** bcrypt cost for new password hashes (config BCRYPT_COST). */
+  passwordCost: number;
   open: boolean;
 }) {
   const { dataSource, mailer } = deps;
@@ -50,7 +52,7 @@ export function createSignUpService(deps: {
     await dataSource.getRepository(PendingSignUp).insert({
       email: input.email,
       name: input.name,
-      passwordHash: await hashPassword(input.password),
+      passwordHash: await hashPassword(input.password, deps.passwordCost),
       networkName: input.networkName,
       tokenHash: hash,
       expiresAt: new Date(Date.now() + CONFIRM_LIFETIME_MS),

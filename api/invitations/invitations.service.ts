@@ -20,6 +20,8 @@ export function createInvitationsService(deps: {
   dataSource: DataSource;
   mailer: Mailer;
   publicUrl: string;
+  /** bcrypt cost for new password hashes (config BCRYPT_COST). */
+  passwordCost: number;
 }) {
   const { dataSource, mailer, publicUrl } = deps;
 
@@ -108,7 +110,7 @@ export function createInvitationsService(deps: {
 
   /** Creates the account (or adds the membership) and returns the user id to sign in. */
   async function accept(input: InvitationAccept): Promise<string> {
-    const passwordHash = await hashPassword(input.password);
+    const passwordHash = await hashPassword(input.password, deps.passwordCost);
     return dataSource.transaction(async (manager) => {
       const row = await findOpen(input.token, manager);
       if (!row) {

@@ -5,7 +5,6 @@ import type { DataSource } from 'typeorm';
 import type { PooledReport, SiteReport } from '../../shared/schemas/report';
 import type { SiteDetail } from '../../shared/schemas/site';
 import { Site } from '../../db/entities/site.entity';
-import { Trial } from '../../db/entities/trial.entity';
 import type { AccessContext } from '../middleware/access';
 import {
   renameEverywhere,
@@ -35,29 +34,34 @@ function renames(naming: TrialNaming, viewer: Viewer): Map<string, string> {
 }
 
 export function createReportPrivacy(dataSource: DataSource) {
+  /** The trial's sites with their naming choices, in one query; null when it has no site. */
   async function naming(trialId: string): Promise<TrialNaming | null> {
-    const trial = await dataSource
-      .getRepository(Trial)
-      .findOne({ select: { id: true, networkId: true }, where: { id: trialId } });
-    if (!trial) return null;
-    const sites = await dataSource.getRepository(Site).find({
-      select: {
-        id: true,
-        fieldName: true,
-        growerUserId: true,
-        namedInReports: true,
-        reportNumber: true,
-      },
-      where: { trialId },
-    });
-    return { networkId: trial.networkId, sites };
+    const sites = await dataSource
+      .getRepository(Site)
+      .createQueryBuilder('site')
+      .innerJoin('site.trial', 'trial')
+      .select([
+        'site.id',
+        'site.fieldName',
+        'site.growerUserId',
+        'site.namedInReports',
+        'site.reportNumber',
+        'trial.id',
+        'trial.networkId',
+      ])
+      .where('site.trialId = :trialId', { trialId })
+      .getMany();
+    const [first] = sites;
+    if (!first) return null;
+    return { networkId: first.trial!.networkId, sites };
   }
 
   async function siteReport(
     report: SiteReport,
     access: AccessContext | null | undefined,
+    known?: TrialNaming | null,
   ): Promise<SiteReport> {
-    const trialNaming = await naming(report.site.trialId);
+    const trialNaming = known === undefined ? await naming(report.site.trialId) : known;
     if (!trialNaming) return report;
     const viewer = viewerOf(access, trialNaming.networkId);
     const site = trialNaming.sites.find((s) => s.id === report.site.id);
@@ -78,8 +82,9 @@ export function createReportPrivacy(dataSource: DataSource) {
   async function pooledReport(
     report: PooledReport,
     access: AccessContext | null | undefined,
+    known?: TrialNaming | null,
   ): Promise<PooledReport> {
-    const trialNaming = await naming(report.trial.id);
+    const trialNaming = known === undefined ? await naming(report.trial.id) : known;
     if (!trialNaming) return report;
     const viewer = viewerOf(access, trialNaming.networkId);
     const map = renames(trialNaming, viewer);
@@ -123,8 +128,8 @@ export function createReportPrivacy(dataSource: DataSource) {
       : '';
     const report = (
       'site' in input.report
-        ? await siteReport(input.report, access)
-        : await pooledReport(input.report as PooledReport, access)
+        ? await siteReport(input.report, access, trialNaming)
+        : await pooledReport(input.report as PooledReport, access, trialNaming)
     ) as T;
     const digest = crypto.createHash('sha256').update(view).digest('hex').slice(0, 16);
     return { etag: `${input.etag}-${digest}`, report };

@@ -81,7 +81,9 @@ export async function findSiteWithDesign(
     .createQueryBuilder('site')
     .innerJoinAndSelect('site.trial', 'trial')
     .leftJoinAndSelect('trial.rateLevels', 'level')
-    .leftJoinAndSelect('site.grower', 'grower')
+    // Only the grower's name and address: the account row also holds the password hash.
+    .leftJoin('site.grower', 'grower')
+    .addSelect(['grower.id', 'grower.name', 'grower.email'])
     .where('site.id = :siteId', { siteId })
     .orderBy('level.multiplier', 'ASC');
   if (options.lock) query.setLock('pessimistic_write', undefined, ['site']);

@@ -10,6 +10,7 @@ import { ReportSnapshot } from '../../db/entities/report-snapshot.entity';
 import { Site } from '../../db/entities/site.entity';
 import { Strip } from '../../db/entities/strip.entity';
 import { Trial } from '../../db/entities/trial.entity';
+import { findSiteWithDesign } from '../lib/strip-data';
 
 export type PolicyKind =
   | 'public'
@@ -42,6 +43,11 @@ const COORDINATING: Role[] = ['admin', 'coordinator'];
 declare module 'express-serve-static-core' {
   interface Request {
     access?: AccessContext;
+    /**
+     * The site (with its trial, rate levels and grower) as a site policy read it for this request,
+     * so a read-only handler need not read it again. Writes read and lock it themselves.
+     */
+    siteRead?: Site;
   }
 }
 
@@ -103,17 +109,12 @@ export function createPolicies(dataSource: DataSource) {
     growerUserId: string | null;
     published: boolean;
   }
-  async function siteFacts(siteId: string): Promise<SiteFacts> {
-    const site = await dataSource
-      .getRepository(Site)
-      .createQueryBuilder('site')
-      .innerJoin('site.trial', 'trial')
-      .select(['site.id', 'site.growerUserId', 'site.publishedAt', 'trial.id', 'trial.networkId'])
-      .where('site.id = :siteId', { siteId })
-      .getOne();
-    if (!site?.trial) throw new NotFound('Site');
+  /** Reads the site with its design once and keeps it on the request for the handler. */
+  async function siteFacts(req: Request, siteId: string): Promise<SiteFacts> {
+    const site = await findSiteWithDesign(dataSource.manager, siteId);
+    req.siteRead = site;
     return {
-      networkId: site.trial.networkId,
+      networkId: site.trial!.networkId,
       growerUserId: site.growerUserId,
       published: site.publishedAt !== null,
     };
@@ -160,7 +161,7 @@ export function createPolicies(dataSource: DataSource) {
     allowGrower: boolean,
     allowMemberWhenPublished: boolean,
   ) {
-    const [ctx, site] = await Promise.all([context(req), siteFacts(siteId)]);
+    const [ctx, site] = await Promise.all([context(req), siteFacts(req, siteId)]);
     const role = ctx.roles.get(site.networkId);
     if (isCoordinating(role)) return;
     if (!role) throw new NotFound('Site');

@@ -34,7 +34,7 @@ export function createReportsRouter(ctx: RouterContext) {
       req,
       res,
       await privacy.tagged(
-        await reports.siteReport(param(req, 'siteId'), req.access ?? null),
+        await reports.siteReport(param(req, 'siteId'), req.access ?? null, req.siteRead),
         req.access,
       ),
     );
@@ -42,7 +42,7 @@ export function createReportsRouter(ctx: RouterContext) {
 
   routes.get('/sites/:siteId/report.pdf', policies.siteReader(), async (req, res) => {
     const { report, etag } = await privacy.tagged(
-      await reports.siteReport(param(req, 'siteId'), req.access ?? null),
+      await reports.siteReport(param(req, 'siteId'), req.access ?? null, req.siteRead),
       req.access,
     );
     const pdf = await siteReportPdf(report, etag, ctx.dataSource);

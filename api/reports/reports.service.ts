@@ -198,8 +198,9 @@ export function createReportsService(deps: ReportsServiceDeps) {
   const siteBodies = createReportCache<Awaited<ReturnType<typeof buildSiteReport>>>();
   const pooledBodies = createReportCache<ReturnType<typeof buildPooledReport>>(100);
 
-  async function loadSiteBundle(manager: EntityManager, siteId: string) {
-    const site = await findSiteWithDesign(manager, siteId);
+  /** The site's report inputs; `known` is the site the access check already read for this request. */
+  async function loadSiteBundle(manager: EntityManager, siteId: string, known?: Site) {
+    const site = known?.id === siteId ? known : await findSiteWithDesign(manager, siteId);
     const snapshot = await latestSnapshot(manager, { siteId, scope: 'site' });
     return {
       trial: toTrial(site.trial!),
@@ -258,9 +259,10 @@ export function createReportsService(deps: ReportsServiceDeps) {
   async function siteReport(
     siteId: string,
     access: AccessContext | null,
+    known?: Site,
   ): Promise<Tagged<SiteReport>> {
     const manager = dataSource.manager;
-    const bundle = await loadSiteBundle(manager, siteId);
+    const bundle = await loadSiteBundle(manager, siteId, known);
     const published = toPublished(bundle.snapshot);
     const changed =
       !!bundle.snapshot && bundle.snapshot.dataVersion !== String(bundle.site.dataVersion);

@@ -19,7 +19,7 @@ export function createSitesRouter(ctx: RouterContext) {
   });
 
   routes.get('/sites/:siteId', ctx.policies.siteReader(), async (req, res) => {
-    const detail = await sites.get(String(req.params.siteId), req.user!.id);
+    const detail = await sites.get(String(req.params.siteId), req.user!.id, req.siteRead);
     res.json(await privacy.siteDetail(detail, req.access));
   });
 
@@ -29,7 +29,7 @@ export function createSitesRouter(ctx: RouterContext) {
   });
 
   routes.get('/sites/:siteId/layout', ctx.policies.siteReader(), async (req, res) => {
-    res.json(await sites.layout(String(req.params.siteId)));
+    res.json(await sites.layout(String(req.params.siteId), req.siteRead));
   });
 
   routes.post('/sites/:siteId/calibrations', ctx.policies.siteGrower(), async (req, res) => {

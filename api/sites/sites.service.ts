@@ -84,9 +84,10 @@ function trialContext(trial: Trial): SiteDetail['trial'] {
 export function createSitesService(deps: { dataSource: DataSource }) {
   const { dataSource } = deps;
 
-  async function get(siteId: string, userId: string): Promise<SiteDetail> {
+  /** The site's detail; `known` is the site the access check already read for this request. */
+  async function get(siteId: string, userId: string, known?: Site): Promise<SiteDetail> {
     const manager = dataSource.manager;
-    const site = await findSiteWithDesign(manager, siteId);
+    const site = known?.id === siteId ? known : await findSiteWithDesign(manager, siteId);
     const trial = site.trial!;
     const [network, membership, strips] = await Promise.all([
       manager.getRepository(Network).findOneByOrFail({ id: trial.networkId }),
@@ -202,9 +203,9 @@ export function createSitesService(deps: { dataSource: DataSource }) {
     return layout(siteId);
   }
 
-  async function layout(siteId: string): Promise<Layout> {
+  async function layout(siteId: string, known?: Site): Promise<Layout> {
     const manager = dataSource.manager;
-    const site = await findSiteWithDesign(manager, siteId);
+    const site = known?.id === siteId ? known : await findSiteWithDesign(manager, siteId);
     const trial = trialContext(site.trial!);
     const amounts = new Map(
       rateTable({ ...trial, rateLevels: trial.rateLevels }).map((r) => [r.rateLevelId, r] as const),

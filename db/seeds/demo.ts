@@ -87,10 +87,13 @@ function round(value: number, digits: number): number {
 }
 
 /** Loads the demo once; returns false when it is already there (restart-safe). */
-export async function seedDemo(dataSource: DataSource): Promise<boolean> {
+export async function seedDemo(
+  dataSource: DataSource,
+  options: { passwordCost?: number } = {},
+): Promise<boolean> {
   if (await dataSource.getRepository(Network).existsBy({ slug: DEMO_NETWORK_SLUG })) return false;
   // bcrypt directly (db/ does not import api/); sign-in reads the cost from the hash itself.
-  const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 11);
+  const passwordHash = await bcrypt.hash(DEMO_PASSWORD, options.passwordCost ?? 11);
   await dataSource.transaction(async (manager) => {
     const network = await manager.getRepository(Network).save({
       name: 'Millbrook Valley Grain Circle (invented demo)',

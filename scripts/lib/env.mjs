@@ -46,6 +46,50 @@ export function buildWeb(outDir = process.env.WEB_DIST_DIR ?? 'dist/web') {
   return outDir;
 }
 
+/** The web app build as an async step, so `npm test` can run it beside the static checks. */
+export async function buildWebAlongside(outDir = process.env.WEB_DIST_DIR ?? 'dist/web') {
+  if (process.env.SKIP_BUILD) return outDir;
+  const result = await runQuietly('building the web app', process.execPath, [
+    'node_modules/vite/bin/vite.js',
+    'build',
+    '--logLevel',
+    'warn',
+    '--outDir',
+    outDir,
+    '--emptyOutDir',
+  ]);
+  if (result.code !== 0) throw new Error('vite build failed');
+  return outDir;
+}
+
+/**
+ * Runs a child with its output held back and printed in one piece when it ends, so steps run
+ * side by side do not interleave their lines; resolves with the exit code and the seconds taken.
+ */
+export function runQuietly(name, cmd, args, env = {}) {
+  console.log(`[sheaf] ${name}…`);
+  const started = Date.now();
+  return new Promise((resolve) => {
+    const child = spawn(cmd, args, {
+      stdio: ['ignore', 'pipe', 'pipe'],
+      env: { ...process.env, FORCE_COLOR: '1', ...env },
+    });
+    runningChildren.add(child);
+    const chunks = [];
+    child.stdout.on('data', (chunk) => chunks.push(chunk));
+    child.stderr.on('data', (chunk) => chunks.push(chunk));
+    child.on('close', (code, signal) => {
+      runningChildren.delete(child);
+      const output = Buffer.concat(chunks).toString();
+      if (output.trim()) process.stdout.write(output.endsWith('\n') ? output : `${output}\n`);
+      const seconds = ((Date.now() - started) / 1000).toFixed(1);
+      const exit = code ?? (signal ? 1 : 0);
+      console.log(`[sheaf] ${name}: ${exit === 0 ? 'ok' : 'FAILED'} (${seconds} s)`);
+      resolve({ code: exit, seconds });
+    });
+  });
+}
+
 /** Children started by runChild that are still running, so a stopping script can end them. */
 export const runningChildren = new Set();
 

@@ -6,6 +6,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildNetwork, demoIds, signIn } from '../helpers/app';
+import { buildCollectSite, type CollectSite } from '../api/strips/collect-builders';
 import {
   ARTIFACTS,
   launchBrowser,
@@ -32,6 +33,17 @@ describe('the web client as a house to live in', () => {
     await browser?.close();
     await server?.close();
   });
+
+  /** One invented metric trial with a randomized site, built on first use. */
+  let metric: Promise<{ site: CollectSite; coordinator: string }> | null = null;
+  const metricTrial = () =>
+    (metric ??= buildNetwork(server.testApp.dataSource, 'House metric').then(async (net) => ({
+      site: await buildCollectSite(server.testApp.dataSource, net, {
+        unitSystem: 'metric',
+        fieldName: 'Invented metric field',
+      }),
+      coordinator: net.emails.coordinator,
+    })));
 
   const pageWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth);
 
@@ -141,6 +153,50 @@ describe('the web client as a house to live in', () => {
       await page.getByText(/Layout code/).waitFor();
       expect(await page.getByText(/Seed “/).count()).toBe(0);
       await screenshot(page, `house-packet-${width}`);
+      await close();
+    }, 120_000);
+
+    it(`speaks metric throughout a metric trial's packet: seeder check, counting and sheet at ${width} px`, async () => {
+      const { site, coordinator } = await metricTrial();
+      const { page, close, errors } = await openPage(browser, width);
+      await signInThroughUi(page, server.baseUrl, coordinator);
+      await page.goto(`${server.baseUrl}/sites/${site.siteId}/packet`);
+      await page.getByTestId('calibration-table').waitFor();
+      const packet = page.locator('article.field-packet');
+      const text = (await packet.innerText()).replace(/\s+/g, ' ');
+      for (const words of [
+        'strips of 4 rows at 20.3 cm, 15.2 m long',
+        'Seeds / m of row',
+        'measure the distance, in metres',
+        'seeds per metre of row × circumference (m)',
+        'Per turn of a 1 m wheel',
+        'Seeds / m²',
+        'Use a 1 m stick',
+        'Plants along 1 m of row',
+        'Plants/m² = count in 1 m × 100 ÷ row spacing in cm',
+        'Heads along 1 m of row',
+        'weigh in kg',
+        'Plants expected in 1 m of row',
+        'plants per 1 m of row',
+        'Threshed grain weight (kg)',
+      ])
+        expect(text, words).toContain(words);
+      expect(text).not.toMatch(/\bft\b|\bfeet\b|\bfoot\b|\binch|\blb\b|bu\/|\bacre/);
+      const full = page.getByTestId('calibration-table').locator('tr', { hasText: 'full ×1' });
+      const cells = await full.locator('td').allInnerTexts();
+      // Source: NIST SP 811 (2008), Appendix B.8 (1 lb = 0.453 592 37 kg, 1 ft = 0.3048 m) and
+      // NIST Handbook 44 (2023), Appendix C (1 acre = 43,560 ft²). By hand: 90 lb/acre ×
+      // 1.120 851 = 100.9 kg/ha; 90 × 453.592 37 g ÷ 0.032 g per seed ÷ 43,560 ft² = 29.29
+      // seeds/ft², × 8/12 ft of row spacing = 19.52 seeds/ft, ÷ 0.3048 = 64.1 seeds per metre.
+      expect(cells.slice(1, 2)).toEqual(['100.9']);
+      expect(cells.slice(3, 4)).toEqual(['64.1']);
+      // The weighing table gives the same seeds per metre of row as the seeder check.
+      const seedRow = page.locator('#seed tbody tr', { hasText: 'full ×1' }).first();
+      expect(await seedRow.locator('td').nth(4).innerText()).toBe('64.1');
+      expect(await pageWidth(page)).toBeLessThanOrEqual(width);
+      await page.locator('#calibrate').scrollIntoViewIfNeeded();
+      await screenshot(page, `house-packet-metric-${width}`);
+      expect(errors).toEqual([]);
       await close();
     }, 120_000);
 

@@ -8,11 +8,10 @@ import pg from 'pg';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { inject } from 'vitest';
-import { createApp } from '../../api/app';
 import { readConfig, type AppConfig } from '../../api/config/env';
 import type { RouteEntry } from '../../api/lib/route-table';
 import { fetchCaughtMail } from '../../api/mail/mail-catcher';
-import { hashPassword } from '../../api/lib/passwords';
+import { DEFAULT_BCRYPT_COST, hashPassword } from '../../api/lib/passwords';
 import { createDataSource } from '../../db/data-source';
 import type { CaughtMail } from '../../shared/schemas/auth';
 import { freePort, startApiServer } from './spawn-server';
@@ -33,7 +32,7 @@ export interface TestApp {
   dataSource: DataSource;
   mailCatcher: MailReader;
   /** Every route and its access policy, as the app registers them. */
-  routes: RouteEntry[];
+  routes(): Promise<RouteEntry[]>;
   /** The environment the server was started with (to start another one like it). */
   serverEnv: Record<string, string>;
   close(): Promise<void>;
@@ -66,8 +65,12 @@ function mailReader(catcherUrl: string): MailReader {
   };
 }
 
-/** The route table of the app, read from an app built in this process (it is never served). */
-function routeTable(config: AppConfig, dataSource: DataSource): RouteEntry[] {
+/**
+ * The route table of the app, read from an app built in this process (it is never served).
+ * Loaded on demand: importing the whole API takes seconds, and most test files never need it.
+ */
+async function routeTable(config: AppConfig, dataSource: DataSource): Promise<RouteEntry[]> {
+  const { createApp } = await import('../../api/app');
   // The pool is never used: no request reaches this app, so it opens no connection.
   const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 1 });
   const app = createApp({
@@ -95,7 +98,9 @@ export async function createTestApp(
   let stop = async () => {};
   if (own) {
     const port = await freePort();
-    serverEnv = { ...shared.env, PORT: String(port), ...env };
+    // Production mode refuses the tests' low bcrypt cost: such a server gets production's lowest.
+    const cost: Record<string, string> = env.NODE_ENV === 'production' ? { BCRYPT_COST: '10' } : {};
+    serverEnv = { ...shared.env, PORT: String(port), ...cost, ...env };
     const server = await startApiServer(serverEnv);
     url = `http://127.0.0.1:${port}`;
     stop = server.stop;
@@ -108,7 +113,7 @@ export async function createTestApp(
     config,
     dataSource,
     mailCatcher: mailReader(shared.catcherUrl),
-    routes: routeTable(config, dataSource),
+    routes: () => routeTable(config, dataSource),
     serverEnv,
     async close() {
       await Promise.allSettled([dataSource.destroy(), stop()]);
@@ -195,7 +200,10 @@ export async function buildNetwork(
   dataSource: DataSource,
   label = 'Test network',
 ): Promise<BuiltNetwork> {
-  cachedHash ??= await hashPassword(DEMO_PASSWORD);
+  cachedHash ??= await hashPassword(
+    DEMO_PASSWORD,
+    Number(process.env.BCRYPT_COST ?? DEFAULT_BCRYPT_COST),
+  );
   const suffix = crypto.randomBytes(4).toString('hex');
   const [network] = await dataSource.query(
     'INSERT INTO networks (name, slug) VALUES ($1, $2) RETURNING id',

@@ -96,6 +96,8 @@ export function serverEnv(
     UPLOAD_DIR: `.data/test-uploads-${process.pid}`,
     WEB_DIST: process.env.WEB_DIST ?? 'dist/web',
     WEB_CONCURRENCY: '2',
+    // The lowest bcrypt cost: tests sign in hundreds of times, and the hash format is the same.
+    BCRYPT_COST: process.env.BCRYPT_COST ?? '4',
     ...env,
   };
 }

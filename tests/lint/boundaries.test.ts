@@ -19,6 +19,12 @@ interface Probe {
   rule: string | null;
 }
 
+/** A function of 160 counted lines (no blank lines or comments, which the rule skips). */
+function longFunction(head: string, tail: string): string {
+  const lines = Array.from({ length: 158 }, (_, i) => `  total += ${i};`);
+  return [head, '  let total = 0;', ...lines, `  ${tail}`, '}', ''].join('\n');
+}
+
 const probes: Probe[] = [
   {
     name: 'web imports api',
@@ -121,6 +127,18 @@ const probes: Probe[] = [
     file: `api/lib/LintProbe${tag.replace(/-/g, '')}.ts`,
     source: `export const probe = 1;\n`,
     rule: 'check-file/filename-naming-convention',
+  },
+  {
+    name: 'a web component of more than 150 lines, in the collect feature too',
+    file: `web/features/collect/components/${tag}-long-component.tsx`,
+    source: longFunction('export function LongProbe() {', 'return <p>{total}</p>;'),
+    rule: 'max-lines-per-function',
+  },
+  {
+    name: 'a web hook of more than 150 lines in a .ts file',
+    file: `web/features/collect/lib/${tag}-long-hook.ts`,
+    source: longFunction('export function useLongProbe() {', 'return total;'),
+    rule: 'max-lines-per-function',
   },
   // The allowed directions, so the rules above are shown to refuse only what they should.
   {

@@ -270,7 +270,7 @@ describe('every API route declares a policy and enforces it for every role', () 
     t = await createTestApp();
     net = await buildNetwork(t.dataSource, 'Matrix');
     other = await buildNetwork(t.dataSource, 'Matrix other');
-    routes = t.routes;
+    routes = await t.routes();
     clients.anonymous = clientFor(t.app);
     clients.member = await signIn(t.app, net.emails.member);
     clients.otherGrower = await signIn(t.app, net.emails.grower2);

@@ -22,6 +22,17 @@ async function signInFrom(app: string, address: string, email: string, password:
     .send({ email, password });
 }
 
+/** One sign-up (which e-mails a link) from a given client address. */
+async function signUpFrom(app: string, address: string, email: string) {
+  const agent = request.agent(app);
+  const csrf = await agent.get('/api/auth/csrf').set('X-Forwarded-For', address);
+  return agent
+    .post('/api/auth/sign-up')
+    .set('X-Forwarded-For', address)
+    .set('X-CSRF-Token', csrf.body.csrfToken)
+    .send({ name: 'Limit Tester', email, password: 'long enough password', networkName: 'Limits' });
+}
+
 describe('sign-in limiter', () => {
   let t: TestApp;
   let second: TestApp;
@@ -96,5 +107,29 @@ describe('sign-in limiter', () => {
       );
     expect(statuses.slice(0, 15)).toEqual(Array(15).fill(401));
     expect(statuses[15]).toBe(429);
+  });
+
+  it('limits sign-up e-mails per client address and per inbox, in PostgreSQL', async () => {
+    const tag = net.suffix;
+    const client = '203.0.113.20';
+    const fromOneClient: number[] = [];
+    for (let i = 0; i < 4; i += 1)
+      fromOneClient.push((await signUpFrom(t.app, client, `one-${i}-${tag}@test.example`)).status);
+    expect(fromOneClient).toEqual([202, 202, 202, 429]);
+
+    // Many clients writing one inbox: the fourth is refused, on the other server process too.
+    const inbox = `target-${tag}@test.example`;
+    const toOneInbox: number[] = [];
+    for (let i = 0; i < 3; i += 1)
+      toOneInbox.push((await signUpFrom(t.app, `198.51.100.${60 + i}`, inbox)).status);
+    toOneInbox.push((await signUpFrom(second.app, '198.51.100.70', inbox)).status);
+    expect(toOneInbox).toEqual([202, 202, 202, 429]);
+    const refused = await signUpFrom(second.app, '198.51.100.71', inbox.toUpperCase());
+    expect(refused.status).toBe(429);
+    expect(refused.body.error.code).toBe('rate_limited');
+    // Another client and another inbox are not affected.
+    expect((await signUpFrom(t.app, '198.51.100.72', `other-${tag}@test.example`)).status).toBe(
+      202,
+    );
   });
 });

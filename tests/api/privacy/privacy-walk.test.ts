@@ -92,7 +92,7 @@ describe('growers’ privacy across every route', () => {
     grower = await signIn(t.app, net.emails.grower);
     grower2 = await signIn(t.app, net.emails.grower2);
     foreignGrower = await signIn(t.app, other.emails.grower);
-    routes = t.routes.filter(
+    routes = (await t.routes()).filter(
       (r) => r.method === 'get' && !r.path.endsWith('.pdf') && r.path !== '/api/admin/mail',
     );
   });

@@ -19,7 +19,7 @@ describe('bad input on every write route', () => {
   beforeAll(async () => {
     t = await createTestApp();
     grower = await signIn(t.app, 'grower1@millbrook.example');
-    routes = t.routes.filter((r) => WRITE_METHODS.has(r.method));
+    routes = (await t.routes()).filter((r) => WRITE_METHODS.has(r.method));
     const demo = await demoIds(t.dataSource);
     const site = demo.sites.find((s) => s.email === 'grower1@millbrook.example')!;
     const [strip] = await t.dataSource.query('SELECT id FROM strips WHERE site_id = $1 LIMIT 1', [

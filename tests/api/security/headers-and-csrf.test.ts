@@ -75,7 +75,7 @@ describe('CSRF on every state-changing route', () => {
 
   it('refuses every POST, PATCH, PUT and DELETE without the token, signed in or not', async () => {
     const coordinator = await signIn(t.app, 'coordinator@millbrook.example');
-    const routes = t.routes.filter((r) => r.method !== 'get');
+    const routes = (await t.routes()).filter((r) => r.method !== 'get');
     expect(routes.length).toBeGreaterThan(3);
     const failures: string[] = [];
     for (const route of routes) {

@@ -103,7 +103,7 @@ describe('SQL only through parameters', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    routes = t.routes;
+    routes = await t.routes();
     coordinator = await signIn(t.app, COORDINATOR);
     const demo = await demoIds(t.dataSource);
     const [trial] = await t.dataSource.query('SELECT network_id FROM trials WHERE id = $1', [

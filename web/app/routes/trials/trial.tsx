@@ -197,7 +197,11 @@ export default function TrialPage() {
               Seed for every rate
             </h2>
             {table.length > 0 ? (
-              <RateSummaryTable rows={table} caption="Seed amounts per rate" />
+              <RateSummaryTable
+                rows={table}
+                caption="Seed amounts per rate"
+                unitSystem={trial.unitSystem ?? 'imperial'}
+              />
             ) : (
               <p className="text-ink-muted">
                 The design is not complete enough for seed amounts yet.

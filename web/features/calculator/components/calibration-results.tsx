@@ -11,7 +11,7 @@ import { Button } from '../../../components/ui/button';
 import { cn } from '../../../lib/cn';
 import { errorSummary } from '../../../lib/form-errors';
 import { useSaveCalibration } from '../api/calibration';
-import type { CalibrationFormSchema } from '../lib/calculator-forms';
+import type { CalibrationFormSchema, CalibrationUnits } from '../lib/calculator-forms';
 
 const f1 = new Intl.NumberFormat('en', { maximumFractionDigits: 1 });
 
@@ -21,11 +21,14 @@ export interface CalibrationOutcome {
   targetForRun: number;
 }
 
-function Figures({ outcome }: { outcome: CalibrationOutcome }) {
+function Figures({ outcome, units }: { outcome: CalibrationOutcome; units: CalibrationUnits }) {
   const { input, result, targetForRun } = outcome;
   const figures: [string, number][] = [
-    ['Delivered per foot of row', result.deliveredSeedsPerFootOfRow],
-    ['Delivered per ft²', result.deliveredSeedsPerSquareFoot],
+    [
+      `Delivered per ${units.lengthWord} of row`,
+      units.target.fromStored(result.deliveredSeedsPerFootOfRow),
+    ],
+    [`Delivered per ${units.area.unit}`, units.area.fromStored(result.deliveredSeedsPerSquareFoot)],
     ['Target per turn', result.targetSeedsPerTurn],
     [`Target for ${countOf(input.wheelTurns, 'turn')}`, targetForRun],
   ];
@@ -82,11 +85,13 @@ function SaveCheck({
 
 export function CalibrationResults({
   outcome,
+  units,
   user,
   site,
   rateLabel,
 }: {
   outcome: CalibrationOutcome | null;
+  units: CalibrationUnits;
   user: SessionUser | null;
   site: SiteDetail | null;
   rateLabel: string;
@@ -113,7 +118,7 @@ export function CalibrationResults({
             </p>
             <p className="mt-2 font-medium text-ink">{outcome.result.advice}</p>
           </div>
-          <Figures outcome={outcome} />
+          <Figures outcome={outcome} units={units} />
           {site ? <SaveCheck outcome={outcome} site={site} rateLabel={rateLabel} /> : null}
           {!user ? (
             <p className="text-caption text-ink-muted">

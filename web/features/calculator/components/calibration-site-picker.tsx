@@ -1,6 +1,7 @@
 // For a signed-in grower: which of their sites the check is for, and which of its rates is being
-// set (which fills in the target seeds per foot of row).
+// set (which fills in the target seeds per foot or metre of row).
 import { useMemo } from 'react';
+import { packetUnits } from '../../../../shared/design/packet-numbers';
 import { rateTable } from '../../../../shared/design/rate-table';
 import { rateLevelShort } from '../../../../shared/labels/labels';
 import type { SiteDetail } from '../../../../shared/schemas/site';
@@ -27,6 +28,7 @@ export function CalibrationSitePicker({
     () => (site ? rateTable({ ...site.trial, rateLevels: site.trial.rateLevels }) : []),
     [site],
   );
+  const units = packetUnits(site?.trial.unitSystem ?? 'imperial');
   const growerSites = mySites.data ?? [];
   if (growerSites.length === 0) return null;
   return (
@@ -55,7 +57,7 @@ export function CalibrationSitePicker({
           <option value="">Choose a rate…</option>
           {targets.map((r) => (
             <option key={r.label} value={r.label}>
-              {rateLevelShort(r)} — {f1.format(r.seedsPerFootOfRow)} seeds/ft
+              {`${rateLevelShort(r)} — ${f1.format(units.perRowLength(r.seedsPerFootOfRow))} seeds/${units.length}`}
             </option>
           ))}
         </SelectField>

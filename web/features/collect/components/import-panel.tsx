@@ -43,6 +43,52 @@ function RowErrors({ errors }: { errors: ImportRowError[] }) {
   );
 }
 
+/** The first rows of the chosen file, with the cells in error marked. */
+function PreviewTable({ table, errors }: { table: string[][]; errors: ParsedImport['errors'] }) {
+  const errorCells = new Set(errors.map((e) => `${e.row}:${e.column}`));
+  // A scrolling box takes keyboard focus so it can be scrolled without a mouse.
+  return (
+    <div
+      className="max-h-96 overflow-auto rounded-field border border-line"
+      tabIndex={0}
+      role="region"
+      aria-label="Preview of the file"
+    >
+      <table className="text-caption" data-testid="import-preview">
+        <thead className="sticky top-0 bg-sunken">
+          <tr>
+            <th className="px-2 py-1 text-left">row</th>
+            {(table[0] ?? []).map((h, i) => (
+              <th key={i} className="whitespace-nowrap px-2 py-1 text-left font-mono">
+                {h}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {table.slice(1, PREVIEW_ROWS + 1).map((cells, r) => (
+            <tr key={r} className="border-t border-line">
+              <td className="figures px-2 py-1 text-ink-muted">{r + 2}</td>
+              {cells.map((cell, c) => (
+                <td
+                  key={c}
+                  className={
+                    errorCells.has(`${r + 2}:${(table[0]?.[c] ?? '').trim().toLowerCase()}`)
+                      ? 'bg-danger-soft px-2 py-1 font-semibold text-danger'
+                      : 'px-2 py-1'
+                  }
+                >
+                  {cell}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
 export function ImportPanel({ data }: { data: SiteStrips }) {
   const { site } = data;
   const [file, setFile] = useState<File | null>(null);
@@ -68,7 +114,6 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
     setPreview({ table, parsed });
   };
 
-  const errorCells = new Set((preview?.parsed.errors ?? []).map((e) => `${e.row}:${e.column}`));
   const serverErrors = isApiError(upload.error, 422) ? upload.error.rows : [];
 
   return (
@@ -128,41 +173,7 @@ export function ImportPanel({ data }: { data: SiteStrips }) {
                 title={`${plural(preview.parsed.rows.length, 'strip row')} ready to upload`}
               />
             )}
-            <div className="max-h-96 overflow-auto rounded-field border border-line">
-              <table className="text-caption" data-testid="import-preview">
-                <thead className="sticky top-0 bg-sunken">
-                  <tr>
-                    <th className="px-2 py-1 text-left">row</th>
-                    {(preview.table[0] ?? []).map((h, i) => (
-                      <th key={i} className="whitespace-nowrap px-2 py-1 text-left font-mono">
-                        {h}
-                      </th>
-                    ))}
-                  </tr>
-                </thead>
-                <tbody>
-                  {preview.table.slice(1, PREVIEW_ROWS + 1).map((cells, r) => (
-                    <tr key={r} className="border-t border-line">
-                      <td className="figures px-2 py-1 text-ink-muted">{r + 2}</td>
-                      {cells.map((cell, c) => (
-                        <td
-                          key={c}
-                          className={
-                            errorCells.has(
-                              `${r + 2}:${(preview.table[0]?.[c] ?? '').trim().toLowerCase()}`,
-                            )
-                              ? 'bg-danger-soft px-2 py-1 font-semibold text-danger'
-                              : 'px-2 py-1'
-                          }
-                        >
-                          {cell}
-                        </td>
-                      ))}
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
+            <PreviewTable table={preview.table} errors={preview.parsed.errors} />
           </>
         ) : null}
       </Card>

@@ -3,9 +3,8 @@
 import { PRINT } from '../../../../shared/brand/colours';
 import type { Layout } from '../../../../shared/schemas/layout';
 import type { SiteDetail } from '../../../../shared/schemas/site';
+import { PacketCalibrateSection, PacketCountingSection } from './packet-check-sections';
 import {
-  PacketCalibrateSection,
-  PacketCountingSection,
   PacketHeader,
   PacketMapSection,
   PacketSafetySection,

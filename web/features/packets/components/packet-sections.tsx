@@ -1,16 +1,14 @@
 // The field packet's sections, one component each, all taking the same site, layout and design
 // facts, so a packet section is one component and one line in FieldPacket.
 import { Link } from 'react-router-dom';
-import { rateTable } from '../../../../shared/design/rate-table';
+import { calibrationRows, packetUnits } from '../../../../shared/design/packet-numbers';
 import { seedGrams } from '../../../../shared/labels/labels';
 import type { Layout } from '../../../../shared/schemas/layout';
 import type { SiteDetail } from '../../../../shared/schemas/site';
-import { METRES_PER_FOOT } from '../../../../shared/units/constants';
 import { StripMap } from './strip-map';
 import { RecordingSheet } from './recording-sheet';
 
 const one = new Intl.NumberFormat('en', { maximumFractionDigits: 1 });
-const whole = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
 
 export interface PacketSectionProps {
   site: SiteDetail;
@@ -19,18 +17,14 @@ export interface PacketSectionProps {
 
 /** Lengths in the trial's unit system (1 ft = 0.3048 m, 1 in = 2.54 cm, exact). */
 function lengthsFor(trial: SiteDetail['trial']) {
-  const metric = trial.unitSystem === 'metric';
+  const units = packetUnits(trial.unitSystem);
   return {
     length: (feet: number | null) =>
-      feet === null ? '—' : metric ? `${one.format(feet * METRES_PER_FOOT)} m` : `${feet} ft`,
+      feet === null ? '—' : `${one.format(units.fromFeet(feet))} ${units.length}`,
     spacing: (inches: number | null) =>
-      inches === null
-        ? '—'
-        : metric
-          ? `${one.format((inches * METRES_PER_FOOT * 100) / 12)} cm`
-          : `${inches} in`,
-    perRowLength: (perFoot: number) => (metric ? perFoot / METRES_PER_FOOT : perFoot),
-    rowUnit: metric ? 'm' : 'ft',
+      inches === null ? '—' : `${one.format(units.rowSpacing(inches))} ${units.spacing}`,
+    perRowLength: units.perRowLength,
+    rowUnit: units.length,
   };
 }
 
@@ -39,7 +33,7 @@ export function packetStrips(layout: Layout) {
   return layout.blocks.flatMap((b) => b.strips.map((s) => ({ ...s, block: b.block })));
 }
 
-function Section({
+export function Section({
   id,
   title,
   children,
@@ -120,6 +114,17 @@ export function PacketSeedSection({ site, layout }: PacketSectionProps) {
   const t = site.trial;
   const strips = packetStrips(layout);
   const { length, perRowLength, rowUnit } = lengthsFor(t);
+  // Seeds per length of row from the design itself (not the layout's rounded per-foot figure),
+  // so this table and the seeder check show the same number.
+  const perRow = new Map(
+    calibrationRows(t, t.unitSystem).map((r) => [
+      `${r.label}|${r.multiplier}`,
+      r.seedsPerRowLength,
+    ]),
+  );
+  const seedsPerRow = (s: { label: string; rate: number; seedsPerFootOfRow: number | null }) =>
+    perRow.get(`${s.label}|${s.rate}`) ??
+    (s.seedsPerFootOfRow === null ? null : perRowLength(s.seedsPerFootOfRow));
   const rowLength = t.stripLengthFt ? length(t.stripLengthFt) : 'the strip length';
   return (
     <Section id="seed" title="2. Seed to weigh for each strip" newPage>
@@ -155,9 +160,7 @@ export function PacketSeedSection({ site, layout }: PacketSectionProps) {
                   {s.label} ×{s.rate}
                 </td>
                 <td className="py-1.5 pr-2 text-right">
-                  {s.seedsPerFootOfRow === null
-                    ? '—'
-                    : one.format(perRowLength(s.seedsPerFootOfRow))}
+                  {seedsPerRow(s) === null ? '—' : one.format(seedsPerRow(s)!)}
                 </td>
                 <td className="py-1.5 pr-2 text-right font-semibold">{seedGrams(s.seedGrams)}</td>
                 <td className="py-1.5 text-center">☐</td>
@@ -166,137 +169,6 @@ export function PacketSeedSection({ site, layout }: PacketSectionProps) {
           </tbody>
         </table>
       </div>
-    </Section>
-  );
-}
-
-export function PacketCalibrateSection({ site }: PacketSectionProps) {
-  const t = site.trial;
-  const rows = rateTable({ ...t, rateLevels: t.rateLevels });
-  return (
-    <Section id="calibrate" title="3. Check your seeder before you sow">
-      <ol className="list-decimal space-y-1.5 pl-5 text-label font-normal">
-        <li>
-          Measure the drive wheel: roll it one full turn on a flat floor and measure the distance,
-          in feet. That is its circumference.
-        </li>
-        <li>
-          Lift the seeder so the wheel turns freely, put a bowl or bag under one row outlet and fill
-          the hopper with this trial’s seed.
-        </li>
-        <li>
-          Turn the wheel a set number of times (5 or 10) at walking speed and count the seeds that
-          fell.
-        </li>
-        <li>
-          Target seeds per turn = seeds per foot of row × circumference (ft). Compare your count
-          with the target × turns.
-        </li>
-        <li>
-          Adjust the plate, cups or opening and repeat until you are within about 5 % — then do the
-          same for the next rate.
-        </li>
-      </ol>
-      {rows.length > 0 ? (
-        <table className="figures w-full max-w-xl border-collapse text-label">
-          <thead>
-            <tr className="border-b-2 border-ink text-left">
-              <th className="py-1 pr-2">Rate</th>
-              <th className="py-1 pr-2 text-right">Seeds / ft of row</th>
-              <th className="py-1 pr-2 text-right">Per turn of a 3-ft wheel</th>
-              <th className="py-1 text-right">Per 10 turns</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((r) => (
-              <tr key={r.label} className="border-b border-line">
-                <td className="py-1.5 pr-2">
-                  {r.label} ×{r.multiplier}
-                </td>
-                <td className="py-1.5 pr-2 text-right">{one.format(r.seedsPerFootOfRow)}</td>
-                <td className="py-1.5 pr-2 text-right">{whole.format(r.seedsPerFootOfRow * 3)}</td>
-                <td className="py-1.5 text-right">{whole.format(r.seedsPerFootOfRow * 30)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      ) : null}
-      <p className="text-caption text-ink-muted">
-        Different wheel? Sheaf’s{' '}
-        <Link to={`/calibrate?site=${site.id}`}>seeder calibration helper</Link> (the Calibrate
-        page) works it out and, when you are signed in, saves the check to this site. Wheel slip in
-        soft soil makes the field rate a little lower than the bowl test.
-      </p>
-    </Section>
-  );
-}
-
-export function PacketCountingSection({ site }: PacketSectionProps) {
-  const t = site.trial;
-  const harvestRows = t.rowsPerStrip ? Math.max(1, t.rowsPerStrip - 2 * (t.borderRows ?? 0)) : null;
-  return (
-    <Section id="counting" title="4. What to count, and when" newPage>
-      <p className="text-label font-normal">
-        Count in the middle rows of each strip, away from the strip ends and border rows. Use a 3-ft
-        stick (or a 1-m stick — write down which) laid along one row; count at 6 or more spots per
-        strip, skipping the very best and worst patches.
-      </p>
-      <table className="w-full border-collapse text-label">
-        <thead>
-          <tr className="border-b-2 border-ink text-left">
-            <th className="py-1 pr-2">What</th>
-            <th className="py-1 pr-2">When (growth stage)</th>
-            <th className="py-1">How</th>
-          </tr>
-        </thead>
-        <tbody className="align-top">
-          <tr className="border-b border-line">
-            <td className="py-1.5 pr-2 font-semibold">Stand count (plants)</td>
-            <td className="py-1.5 pr-2">
-              2–3 leaves, before tillers show: Zadoks 12–13 (seedling), Feekes 1
-            </td>
-            <td className="py-1.5">
-              Plants along 3 ft of row, 6 spots per strip. Plants/ft² = (count in 3 ft × 4) ÷ row
-              spacing in inches.
-            </td>
-          </tr>
-          <tr className="border-b border-line">
-            <td className="py-1.5 pr-2 font-semibold">Tillers</td>
-            <td className="py-1.5 pr-2">
-              Start of stem elongation: Feekes 5 = Zadoks 30 (winter wheat: also at green-up, Feekes
-              3)
-            </td>
-            <td className="py-1.5">
-              Dig or pull 10 plants in a row; count tillers with at least 3 leaves.
-            </td>
-          </tr>
-          <tr className="border-b border-line">
-            <td className="py-1.5 pr-2 font-semibold">Heads</td>
-            <td className="py-1.5 pr-2">
-              After heading is complete, Feekes 10.5 (Zadoks 5x, ear emergence), up to ripening
-            </td>
-            <td className="py-1.5">
-              Heads along 3 ft of row, 4 spots per strip; later counts are more reliable.
-            </td>
-          </tr>
-          <tr className="border-b border-line">
-            <td className="py-1.5 pr-2 font-semibold">Grain</td>
-            <td className="py-1.5 pr-2">Ripe: Feekes 11 (Zadoks 9x, ripening)</td>
-            <td className="py-1.5">
-              Cut{' '}
-              {harvestRows
-                ? `the middle ${harvestRows} row${harvestRows > 1 ? 's' : ''}`
-                : 'the middle rows'}{' '}
-              over a measured length, thresh, clean and weigh; measure moisture % the same day.
-              Write the rows and length you harvested.
-            </td>
-          </tr>
-        </tbody>
-      </table>
-      <p className="text-caption text-ink-muted">
-        A stage is reached when about half the main stems show it. Record dates of sowing,
-        emergence, heading and harvest at the top of this packet.
-      </p>
     </Section>
   );
 }

@@ -34,12 +34,19 @@ export function SummaryStep() {
             Grams are for one strip of {values.rowsPerStrip} rows × {values.stripLength}{' '}
             {values.unitSystem === 'metric' ? 'm' : 'ft'}.
           </p>
-          <RateSummaryTable rows={table} caption="Seed amounts per rate level" />
+          <RateSummaryTable
+            rows={table}
+            caption="Seed amounts per rate level"
+            unitSystem={values.unitSystem}
+          />
         </div>
       ) : (
         <Alert tone="caution" title="Seed amounts need the full design">
-          Fill in the reference rate, strips and seed lot to see seeds per foot of row, seeds/ft²,
-          lb/acre, kg/ha and grams per strip.
+          Fill in the reference rate, strips and seed lot to see seeds per{' '}
+          {values.unitSystem === 'metric'
+            ? 'metre of row, seeds/m², kg/ha'
+            : 'foot of row, seeds/ft², lb/acre, kg/ha'}{' '}
+          and grams per strip.
         </Alert>
       )}
       <PowerPlanner
