@@ -200,8 +200,10 @@ export default defineConfig({
     tailwindcss(),
     VitePWA({
       registerType: 'autoUpdate',
-      // web/main.tsx registers the worker once the first page has shown (web/lib/service-worker.ts).
-      injectRegister: false,
+      // A same-origin script file (the Content-Security-Policy allows no inline script); it
+      // registers the worker at the window's load event. Registering later, once the first page
+      // had shown, measured worse: the worker's install then competed with the page's last tasks.
+      injectRegister: 'script-defer',
       includeAssets: ['icons/apple-touch-icon.png', 'icons/sheaf-mark.svg'],
       manifest: {
         id: '/',

@@ -5,10 +5,9 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { z } from 'zod';
 import { AppProvider } from './app/provider';
-import { AppRouter, router } from './app/router';
+import { AppRouter } from './app/router';
 import { meQueryOptions } from './features/auth/api/get-me';
 import { queryClient } from './lib/query-client';
-import { registerServiceWorkerAfter } from './lib/service-worker';
 
 // zod probes for eval support once at start-up; the CSP forbids eval, so tell zod not to try.
 z.config({ jitless: true });
@@ -27,18 +26,3 @@ createRoot(container).render(
     </AppProvider>
   </StrictMode>,
 );
-
-/** Resolves once the router has loaded the first page's code and data. */
-function firstPageLoaded(): Promise<void> {
-  const done = () => router.state.initialized && router.state.navigation.state === 'idle';
-  if (done()) return Promise.resolve();
-  return new Promise((resolve) => {
-    const unsubscribe = router.subscribe(() => {
-      if (!done()) return;
-      unsubscribe();
-      resolve();
-    });
-  });
-}
-
-void registerServiceWorkerAfter(firstPageLoaded());
