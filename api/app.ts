@@ -37,6 +37,7 @@ import { createWebShell } from './lib/web-shell';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
 import { createReportsRouter } from './reports/reports.router';
+import { createSeriesRouter } from './series/series.router';
 import { createSitesRouter } from './sites/sites.router';
 import { createTrialsRouter } from './trials/trials.router';
 
@@ -70,6 +71,7 @@ const FEATURE_ROUTERS: ((ctx: RouterContext) => express.Router)[] = [
   createPeopleRouter,
   createNetworksRouter,
   createHistoryRouter,
+  createSeriesRouter,
 ];
 
 export function createApp(deps: AppDeps): Express {

@@ -5,6 +5,7 @@ import { ENTITIES } from './entities/index';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
 import { RateLimitHits1765000000000 } from './migrations/1765000000000-rate-limit-hits';
 import { SecurityTables1765100000000 } from './migrations/1765100000000-security-tables';
+import { TrialSeries1765200000000 } from './migrations/1765200000000-trial-series';
 import { NetworksAndTrialLife1765400000000 } from './migrations/1765400000000-networks-and-trial-life';
 
 export function createDataSource(
@@ -19,6 +20,7 @@ export function createDataSource(
       InitialSchema1764633600000,
       RateLimitHits1765000000000,
       SecurityTables1765100000000,
+      TrialSeries1765200000000,
       NetworksAndTrialLife1765400000000,
     ],
     synchronize: false,

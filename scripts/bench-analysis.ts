@@ -6,7 +6,10 @@ import path from 'node:path';
 import {
   analyzePooled,
   analyzeSite,
+  analyzeSeries,
   fitNetworkMixedModel,
+  fitSeriesMixedModel,
+  type SeriesStripObservation,
   type StripObservation,
 } from '../shared/analysis/index';
 
@@ -101,6 +104,28 @@ const mixed = time(() => {
 }, 20);
 console.log(
   `mixed model (REML + Kenward–Roger rate test), 200 sites × 4 rates × 6 blocks: median ${mixed.median.toFixed(1)} ms wall, ${median(mixedCpu.slice(1)).toFixed(1)} ms CPU (first run ${mixed.first.toFixed(1)} ms; target ≤ 100 ms)`,
+);
+
+// The series model (seasons): 2 seasons × 100 sites × 4 rates × 4 blocks, a season shift and a
+// season × rate effect on top of the invented network.
+const series: SeriesStripObservation[] = [2026, 2027].flatMap((season, index) =>
+  inventNetwork(100, 4, rates, 20_260_000 + season).map((row) => ({
+    ...row,
+    season: String(season),
+    value: (row.value as number) - 4 * index + (index ? 1.5 : -1.5) * Number(row.rate),
+  })),
+);
+const seriesFit = time(() => {
+  const fit = fitSeriesMixedModel(series);
+  fit.kenwardRoger([
+    [1, 0, -1, 0],
+    [0, 1, -1, 0],
+    [0, 0, -1, 1],
+  ]);
+}, 10);
+const seriesWhole = time(() => analyzeSeries(series, ['0.25', '0.5', '1', '2'], '1'), 5);
+console.log(
+  `series model (REML + Kenward–Roger rate test), 2 seasons × 100 sites × 4 rates × 4 blocks (${series.length} strips): median ${seriesFit.median.toFixed(1)} ms (first run ${seriesFit.first.toFixed(1)} ms); whole series analysis with each season's own model and Dunnett: median ${seriesWhole.median.toFixed(1)} ms`,
 );
 
 // The same data in R's lmer + pbkrtest, side by side, when R is installed.

@@ -32,6 +32,7 @@ try {
   const env = { DATABASE_URL: cluster.databaseUrl };
   if (action === 'migrate' || action === 'revert' || action === 'seed') {
     runTs('db/cli.ts', [action], env);
+    if (action === 'seed') runTs('api/cli/publish-demo.ts', [], env);
   } else if (action === 'backup') {
     const file =
       fileArg ??

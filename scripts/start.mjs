@@ -44,6 +44,7 @@ try {
   const env = { DATABASE_URL: cluster.databaseUrl };
   runTs('db/cli.ts', ['migrate'], env);
   runTs('db/cli.ts', ['seed'], env);
+  runTs('api/cli/publish-demo.ts', [], env);
   buildWeb('dist/web');
 } catch (error) {
   console.error(`[sheaf] ${error.message}`);

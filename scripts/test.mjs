@@ -94,6 +94,7 @@ try {
   };
   runTs('db/cli.ts', ['migrate'], env);
   runTs('db/cli.ts', ['seed'], env);
+  runTs('api/cli/publish-demo.ts', [], env);
   const vitest = 'node_modules/vitest/vitest.mjs';
   if (extraArgs.length > 0) {
     // A chosen set that includes fault tests runs one file at a time, like the full run.

@@ -87,8 +87,8 @@ export function presentStrips(
   return strips.map((strip) => {
     const derived = derivedOf(strip);
     const warnings = plausibilityWarnings(strip.values, derived, crop);
-    const studentized = outliers.get(strip.stripId);
-    if (studentized !== undefined) warnings.push(outlierWarning(studentized));
+    const adjustedP = outliers.get(strip.stripId);
+    if (adjustedP !== undefined) warnings.push(outlierWarning(adjustedP));
     return {
       stripId: strip.stripId,
       siteId: strip.siteId,

@@ -10,6 +10,7 @@ import { ReportSnapshot } from '../../db/entities/report-snapshot.entity';
 import { Site } from '../../db/entities/site.entity';
 import { Strip } from '../../db/entities/strip.entity';
 import { Trial } from '../../db/entities/trial.entity';
+import { TrialSeries } from '../../db/entities/trial-series.entity';
 import { findSiteWithDesign } from '../lib/strip-data';
 
 export type PolicyKind =
@@ -24,7 +25,8 @@ export type PolicyKind =
   | 'site-grower'
   | 'site-reader'
   | 'strip-grower'
-  | 'attachment-reader';
+  | 'attachment-reader'
+  | 'series-reader';
 
 export interface Policy {
   kind: PolicyKind;
@@ -48,6 +50,8 @@ declare module 'express-serve-static-core' {
      * so a read-only handler need not read it again. Writes read and lock it themselves.
      */
     siteRead?: Site;
+    /** The network of the trial a trial policy checked for this request. */
+    trialNetworkId?: string;
   }
 }
 
@@ -96,11 +100,12 @@ export function createPolicies(dataSource: DataSource) {
     return value;
   }
 
-  async function trialNetwork(trialId: string): Promise<string> {
+  async function trialNetwork(req: Request, trialId: string): Promise<string> {
     const trial = await dataSource
       .getRepository(Trial)
       .findOne({ select: { id: true, networkId: true }, where: { id: trialId } });
     if (!trial) throw new NotFound('Trial');
+    req.trialNetworkId = trial.networkId;
     return trial.networkId;
   }
 
@@ -198,7 +203,7 @@ export function createPolicies(dataSource: DataSource) {
         'trial-coordinator',
         async (req) => {
           const ctx = await context(req);
-          const networkId = await trialNetwork(uuidParam(req, param, 'Trial'));
+          const networkId = await trialNetwork(req, uuidParam(req, param, 'Trial'));
           const role = ctx.roles.get(networkId);
           if (!role) throw new NotFound('Trial');
           if (!isCoordinating(role))
@@ -213,7 +218,7 @@ export function createPolicies(dataSource: DataSource) {
         async (req) => {
           const ctx = await context(req);
           const trialId = uuidParam(req, param, 'Trial');
-          const networkId = await trialNetwork(trialId);
+          const networkId = await trialNetwork(req, trialId);
           const role = ctx.roles.get(networkId);
           if (!role) throw new NotFound('Trial');
           if (isCoordinating(role)) return;
@@ -230,7 +235,7 @@ export function createPolicies(dataSource: DataSource) {
         async (req) => {
           const ctx = await context(req);
           const trialId = uuidParam(req, param, 'Trial');
-          const role = ctx.roles.get(await trialNetwork(trialId));
+          const role = ctx.roles.get(await trialNetwork(req, trialId));
           if (!role) throw new NotFound('Trial');
           if (isCoordinating(role)) return;
           if (!(await trialHasPublished(trialId, 'pooled')))
@@ -262,6 +267,20 @@ export function createPolicies(dataSource: DataSource) {
         async (req) => {
           const siteId = await parentSite(Strip, uuidParam(req, param, 'Strip'), 'Strip');
           await checkSite(req, siteId, true, false);
+        },
+        param,
+      ),
+    /** A series: everyone in its network reads it (the report itself limits what each reader sees). */
+    seriesReader: (param = 'seriesId') =>
+      policy(
+        'series-reader',
+        async (req) => {
+          const ctx = await context(req);
+          const series = await dataSource.getRepository(TrialSeries).findOne({
+            select: { id: true, networkId: true },
+            where: { id: uuidParam(req, param, 'Series') },
+          });
+          if (!series || !ctx.roles.has(series.networkId)) throw new NotFound('Series');
         },
         param,
       ),

@@ -14,7 +14,9 @@ import {
   pooledFindings,
   pooledStatisticianNotes,
   siteFindings,
+  siteStatisticianNotes,
 } from '../../shared/reports/findings';
+import { notEnoughDataSentence } from '../../shared/reports/plain-words';
 import type {
   ComponentRow,
   EconomicsRow,
@@ -300,16 +302,22 @@ export function buildSiteReport(input: {
   const labels = Object.fromEntries(rates.map((r) => [r.key, r.label]));
   const withYield = derived.filter((s) => s.yield !== null).length;
   const blocks = new Set(input.strips.map((s) => s.block)).size || trial.blocksPerSite || 0;
-  const findings = analysis
-    ? siteFindings({
+  const findingsInput = analysis
+    ? {
         analysis,
         rateLabels: labels,
         yieldUnit: units.yield,
         returns: components,
         prices: { seedPricePerLb: trial.seedPricePerLb, grainPricePerBu: trial.grainPricePerBu },
         moneyUnit: units.money,
-      })
-    : [error ?? 'This site cannot be analysed yet.'];
+      }
+    : null;
+  const findings = findingsInput
+    ? siteFindings(findingsInput)
+    : withYield > 0 && withYield < derived.length
+      ? [notEnoughDataSentence({ withYield, strips: derived.length })]
+      : [error ?? 'This site cannot be analysed yet.'];
+  const forStatistician = findingsInput ? siteStatisticianNotes(findingsInput) : [];
   const strips: ReportStrip[] = derived.map((s) => ({
     id: s.strip.id,
     block: s.strip.block,
@@ -362,6 +370,7 @@ export function buildSiteReport(input: {
     },
     strips,
     findings,
+    forStatistician,
     photos: [...input.photos],
   };
 }

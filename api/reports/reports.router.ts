@@ -36,6 +36,7 @@ export function createReportsRouter(ctx: RouterContext) {
       await privacy.tagged(
         await reports.siteReport(param(req, 'siteId'), req.access ?? null, req.siteRead),
         req.access,
+        req.siteRead?.trial?.networkId,
       ),
     );
   });
@@ -44,6 +45,7 @@ export function createReportsRouter(ctx: RouterContext) {
     const { report, etag } = await privacy.tagged(
       await reports.siteReport(param(req, 'siteId'), req.access ?? null, req.siteRead),
       req.access,
+      req.siteRead?.trial?.networkId,
     );
     const pdf = await siteReportPdf(report, etag, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');
@@ -72,6 +74,7 @@ export function createReportsRouter(ctx: RouterContext) {
       await privacy.tagged(
         await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
         req.access,
+        req.trialNetworkId,
       ),
     );
   });
@@ -81,6 +84,7 @@ export function createReportsRouter(ctx: RouterContext) {
     const { report, etag } = await privacy.tagged(
       await reports.pooledReport(param(req, 'trialId'), req.access ?? null, query),
       req.access,
+      req.trialNetworkId,
     );
     const pdf = await pooledReportPdf(report, etag, ctx.dataSource);
     res.set('Content-Type', 'application/pdf');

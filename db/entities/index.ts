@@ -13,6 +13,7 @@ import { ReportSnapshot } from './report-snapshot.entity';
 import { Site } from './site.entity';
 import { Strip } from './strip.entity';
 import { Trial } from './trial.entity';
+import { TrialSeries } from './trial-series.entity';
 import { User } from './user.entity';
 import { SignInFailure } from './sign-in-failure.entity';
 import { Job } from './job.entity';
@@ -25,6 +26,7 @@ export const ENTITIES = [
   Network,
   Membership,
   Trial,
+  TrialSeries,
   RateLevelRow,
   Site,
   Strip,

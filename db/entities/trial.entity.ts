@@ -139,6 +139,10 @@ export class Trial {
   @Column({ name: 'created_by', type: 'uuid', nullable: true })
   createdBy!: string | null;
 
+  /** The series this trial belongs to (trials of one crop linked across seasons), if any. */
+  @Column({ name: 'series_id', type: 'uuid', nullable: true })
+  seriesId!: string | null;
+
   // Named by string so this file needs only the type: the rate level imports Trial, and a
   // value import both ways would be an import cycle.
   @OneToMany('RateLevelRow', (level: RateLevelRow) => level.trial)

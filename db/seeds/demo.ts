@@ -11,6 +11,7 @@ import { RateLevelRow } from '../entities/rate-level.entity';
 import { Site } from '../entities/site.entity';
 import { Strip } from '../entities/strip.entity';
 import { Trial } from '../entities/trial.entity';
+import { TrialSeries } from '../entities/trial-series.entity';
 import { User } from '../entities/user.entity';
 
 export const DEMO_PASSWORD = 'sheaf-demo';
@@ -115,26 +116,83 @@ export async function seedDemo(
         },
       );
     }
-    await seedOatTrial(manager, network.id, userIds);
+    const coordinatorId = userIds['coordinator@millbrook.example'] ?? null;
+    const series = await manager.getRepository(TrialSeries).save({
+      networkId: network.id,
+      name: 'Hulless oat seeding rate, 2026 onwards (invented)',
+      crop: 'hullessOats',
+      createdBy: coordinatorId,
+    });
+    // Last season's trial, run on paper and typed in by the coordinator (so no grower accounts
+    // on its sites); closed, with its reports published by the demo publishing step.
+    await seedOatTrial(manager, network.id, userIds, OAT_2027, series.id);
+    await seedOatTrial(manager, network.id, userIds, OAT_2026, series.id);
     await seedWheatDraft(manager, network.id, userIds['coordinator@millbrook.example']!);
   });
   return true;
 }
 
+interface OatSeason {
+  season: string;
+  status: 'in-field' | 'closed';
+  fields: readonly { field: string; soil: string; previous: string; fertility: string }[];
+  /** Growers' accounts on the sites (false: the coordinator entered the data from paper). */
+  growerAccounts: boolean;
+  /** Yield response (bu/acre) = top − drop·exp(−2.3·multiplier)·site slope: the season's weather. */
+  top: number;
+  drop: number;
+}
+
+const OAT_2027: OatSeason = {
+  season: '2027',
+  status: 'in-field',
+  fields: FIELDS,
+  growerAccounts: true,
+  top: 62,
+  drop: 26,
+};
+
+/** A drier invented 2026 on six of the same farms (other fields in the rotation). */
+const OAT_2026: OatSeason = {
+  season: '2026',
+  status: 'closed',
+  fields: [
+    { field: 'Creekside upper field', soil: 'silt loam', previous: 'oats', fertility: 'none' },
+    { field: 'Orchard edge', soil: 'sandy loam', previous: 'garlic', fertility: 'none' },
+    { field: 'Hilltop east', soil: 'clay loam', previous: 'red clover', fertility: 'none' },
+    {
+      field: 'Barn paddock',
+      soil: 'loam',
+      previous: 'winter squash',
+      fertility: 'composted manure 2 t/acre',
+    },
+    { field: 'Willow rise', soil: 'silt loam', previous: 'buckwheat', fertility: 'none' },
+    { field: 'South bench', soil: 'sandy loam', previous: 'field peas', fertility: 'none' },
+  ],
+  growerAccounts: false,
+  top: 55,
+  drop: 22,
+};
+
 async function seedOatTrial(
   manager: EntityManager,
   networkId: string,
   userIds: Record<string, string>,
+  plan: OatSeason,
+  seriesId: string,
 ) {
   const layout = OAT_LAYOUT;
+  const year = plan.season;
   const trial = await manager.getRepository(Trial).save({
     networkId,
-    name: 'Hulless oat seeding rate 2027',
+    name: `Hulless oat seeding rate ${year}`,
     question:
       'Does half the usual hulless-oat seeding rate yield as well as the full rate on our farms?',
-    status: 'in-field',
+    status: plan.status,
+    closedAt: plan.status === 'closed' ? new Date(`${Number(year) + 1}-01-20T12:00:00Z`) : null,
     crop: 'hullessOats',
-    season: '2027',
+    season: year,
+    seriesId,
     unitSystem: 'imperial',
     referenceRate: layout.referenceLbPerAcre,
     referenceUnit: 'lb/acre',
@@ -167,31 +225,34 @@ async function seedOatTrial(
     levelIds.push(row.id);
   }
   const multiplierOf = new Map(levelIds.map((id, i) => [id, levels[i]!.multiplier]));
-  const random = seedrandom('millbrook-demo-2027');
+  const random = seedrandom(`millbrook-demo-${year}`);
   // Seeds per ft² at the full rate: lb/acre × g/lb ÷ TKW(g/1000 seeds) ÷ ft²/acre.
   const fullSeedsPerFt2 = (layout.referenceLbPerAcre * 453.59237) / (layout.tkwG / 1000) / 43560;
   const harvestAreaFt2 = layout.rowsPerStrip * (layout.rowSpacingIn / 12) * layout.stripLengthFt;
 
-  for (let s = 0; s < 8; s += 1) {
+  for (let s = 0; s < plan.fields.length; s += 1) {
     const growerEmail = `grower${s + 1}@millbrook.example`;
-    const field = FIELDS[s]!;
+    const growerUserId = plan.growerAccounts ? (userIds[growerEmail] ?? null) : null;
+    const field = plan.fields[s]!;
     const siteEffect = normal(random, 0, 9);
     const siteSlope = normal(random, 1, 0.35);
-    const seed = `demo-site-${s + 1}`;
+    const seed = year === '2027' ? `demo-site-${s + 1}` : `demo-site-${year}-${s + 1}`;
     const site = await manager.getRepository(Site).save({
       trialId: trial.id,
-      growerUserId: userIds[growerEmail] ?? null,
+      growerUserId,
       fieldName: field.field,
       soil: field.soil,
       previousCrop: field.previous,
       fertility: field.fertility,
-      notes: 'Invented demo site.',
+      notes: plan.growerAccounts
+        ? 'Invented demo site.'
+        : 'Invented demo site; entered by the coordinator from the paper field sheets.',
       randomizationSeed: seed,
       randomizedAt: new Date(),
-      sowingDate: `2027-04-${String(10 + s).padStart(2, '0')}`,
-      emergenceDate: `2027-04-${String(22 + s).padStart(2, '0')}`,
-      headingDate: `2027-06-${String(18 + s).padStart(2, '0')}`,
-      harvestDate: `2027-08-${String(2 + s).padStart(2, '0')}`,
+      sowingDate: `${year}-04-${String(10 + s).padStart(2, '0')}`,
+      emergenceDate: `${year}-04-${String(22 + s).padStart(2, '0')}`,
+      headingDate: `${year}-06-${String(18 + s).padStart(2, '0')}`,
+      harvestDate: `${year}-08-${String(2 + s).padStart(2, '0')}`,
       dataVersion: 1,
     });
     const map = randomizeRcbd(levelIds, 4, seed);
@@ -228,7 +289,7 @@ async function seedOatTrial(
           ),
         );
         // Yield response (bu/acre): rises steeply to the full rate, flat to slightly down beyond.
-        const response = 62 - 26 * Math.exp(-2.3 * multiplier) * siteSlope;
+        const response = plan.top - plan.drop * Math.exp(-2.3 * multiplier) * siteSlope;
         const yieldBu = Math.max(15, response + siteEffect + blockEffect + normal(random, 0, 3));
         const moisture = round(normal(random, 13.2, 1.1), 1);
         const dryLb = (yieldBu * BUSHEL_LB * harvestAreaFt2) / 43560;
@@ -255,7 +316,7 @@ async function seedOatTrial(
           moisturePct: moisture,
           testWeight: round(normal(random, 44, 2), 1),
           notes: '',
-          updatedBy: userIds[growerEmail] ?? null,
+          updatedBy: growerUserId ?? userIds['coordinator@millbrook.example'] ?? null,
         });
       }
     }

@@ -37,3 +37,6 @@ export { chiSquareUpperTailP } from './chi-square-upper-tail-p';
 export { studentizedRangeQuantile } from './studentized-range-quantile';
 export { studentizedRangeUpperTailP } from './studentized-range-upper-tail-p';
 export type * from './types';
+export { fitSeriesMixedModel } from './fit-series-mixed-model';
+export type { SeriesMixedModelFit } from './fit-series-mixed-model';
+export { analyzeSeries } from './analyze-series';

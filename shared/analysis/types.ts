@@ -241,3 +241,55 @@ export type MixedModelAnalysis = {
   captions: { means: string; differences: string };
   notes: string[];
 };
+
+/** One strip of a series of trials across seasons (site names need only be unique per season). */
+export type SeriesStripObservation = StripObservation & { season: string };
+
+/** The series mixed model across seasons (REML, Kenward–Roger). */
+export type SeriesMixedModelAnalysis = Omit<MixedModelAnalysis, 'varianceComponents' | 'sites'> & {
+  seasons: number;
+  siteSeasons: number;
+  varianceComponents: {
+    season: number;
+    seasonByRate: number;
+    siteSeason: number;
+    blockWithinSiteSeason: number;
+    siteSeasonByRate: number;
+    residual: number;
+  };
+  /** Components estimated as zero (on the boundary of the parameter space: a singular fit). */
+  boundary: string[];
+};
+
+/** One season of a series: its own network mixed model beside the pooled one. */
+export type SeriesSeason = {
+  season: string;
+  sites: number;
+  observations: number;
+  /** Plain mean of the observed strips per rate (null when the rate has no strip that season). */
+  rawMeans: { rate: string; mean: number | null; strips: number }[];
+  /** The season's own mixed model (as its trial's pooled report), when it can be fitted. */
+  mixed: MixedModelAnalysis | null;
+  note?: string;
+};
+
+/** How consistent the rate effect is across seasons. */
+export type SeriesConsistency = {
+  /** σ² season × rate and σ² site-season × rate: rate effects that move with the season vs the farm. */
+  seasonByRate: number;
+  siteSeasonByRate: number;
+  /** σ² season × rate / (σ² season × rate + σ² site-season × rate); null when both are zero. */
+  seasonShare: number | null;
+  /** Per rate: in how many seasons it did as well as the reference (no detectable difference). */
+  perRate: { rate: string; seasons: number; asWell: number; worse: number; better: number }[];
+};
+
+export type SeriesAnalysis = {
+  reference: string;
+  rateLevels: string[];
+  alpha: number;
+  pooled: SeriesMixedModelAnalysis | null;
+  seasons: SeriesSeason[];
+  consistency: SeriesConsistency | null;
+  notes: string[];
+};

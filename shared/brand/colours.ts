@@ -209,6 +209,19 @@ export const RATE_RAMP = [
   '#132b1b',
 ] as const;
 
+/**
+ * The yield map's ramp, pale straw (low yield) to deep field green (high), taken from the brand
+ * scales so the heat map on screen and in the PDF reads in Sheaf's own colours.
+ */
+export const YIELD_RAMP = [
+  straw[100],
+  straw[300],
+  field[300],
+  field[500],
+  field[700],
+  field[900],
+] as const;
+
 /** Ramp entries light enough that dark text reads better than white on them. */
 export const RATE_RAMP_LIGHT: ReadonlySet<string> = new Set(RATE_RAMP.slice(0, 4));
 

@@ -1,7 +1,14 @@
 // Vega-Lite specs for the report charts, as pure functions of report data so they can be
 // tested and rendered the same way in the browser and in the server's PDF.
 
-import { DARK_CHART, LIGHT_CHART, soil, white, type ChartColours } from '../brand/colours';
+import {
+  DARK_CHART,
+  LIGHT_CHART,
+  soil,
+  white,
+  YIELD_RAMP,
+  type ChartColours,
+} from '../brand/colours';
 
 /** A Vega-Lite top-level spec (kept as plain JSON so shared/ needs no charting import). */
 export type ChartSpec = Record<string, unknown>;
@@ -9,8 +16,8 @@ export type ChartSpec = Record<string, unknown>;
 /** Fonts and colours of one chart theme; every colour comes from shared/brand/colours.ts. */
 export interface ChartTheme extends ChartColours {
   font: string;
-  /** Sequential colour scheme for yield maps. */
-  scheme: string;
+  /** Sequential colour ramp for yield maps (brand tokens, low to high). */
+  yieldRamp: readonly string[];
   /** Label colours on the light and dark halves of the yield map's scale. */
   onLight: string;
   onDark: string;
@@ -21,7 +28,7 @@ const CHART_FONT = 'Inter Variable, Inter, system-ui, sans-serif';
 export const LIGHT_CHART_THEME: ChartTheme = {
   ...LIGHT_CHART,
   font: CHART_FONT,
-  scheme: 'yellowgreen',
+  yieldRamp: YIELD_RAMP,
   onLight: soil[900],
   onDark: white,
 };
@@ -29,7 +36,7 @@ export const LIGHT_CHART_THEME: ChartTheme = {
 export const DARK_CHART_THEME: ChartTheme = {
   ...DARK_CHART,
   font: CHART_FONT,
-  scheme: 'yellowgreen',
+  yieldRamp: YIELD_RAMP,
   onLight: soil[900],
   onDark: white,
 };
@@ -295,7 +302,7 @@ export function stripMapSpec(
             field: 'yield',
             type: 'quantitative',
             title: input.yieldUnit,
-            scale: { scheme: theme.scheme },
+            scale: { range: [...theme.yieldRamp] },
             legend: { orient: 'bottom', gradientLength: 160 },
           },
           tooltip: [

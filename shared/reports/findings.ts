@@ -7,6 +7,17 @@ import type {
   SiteDifference,
 } from '../analysis/types';
 import { decimalsFor, formatMoney, formatNumber, formatP } from './format-numbers';
+import {
+  comparisonHeadline,
+  farmsAgreeSentence,
+  comparisonSentence,
+  comparisonVerdict,
+  oneSeasonCaution,
+  outlierSentence,
+  precisionSentence,
+  signedNumber,
+  type Comparison,
+} from './plain-words';
 
 /** How a rate's difference from the reference reads. */
 export type DifferenceVerdict = 'clear' | 'borderline' | 'undetectable';
@@ -68,7 +79,6 @@ const NUMBER_WORDS = [
   'ten',
 ];
 const countWord = (count: number) => NUMBER_WORDS[count] ?? String(count);
-const siteCount = (count: number) => (count === 0 ? 'none' : countWord(count));
 
 export interface SiteFindingsInput {
   analysis: SiteAnalysis;
@@ -81,71 +91,77 @@ export interface SiteFindingsInput {
   moneyUnit?: string;
 }
 
+/** Is `rate` more seed than `reference`? Rate keys are multipliers or seeding rates. */
+function sowsMore(rate: string, reference: string): boolean {
+  const a = Number(rate);
+  const b = Number(reference);
+  return Number.isFinite(a) && Number.isFinite(b) && a > b;
+}
+
 /**
- * Findings for one site: the overall rate test, each rate against the reference with the
- * site's LSD as the yardstick, how precise the site was, missing strips and odd strips,
- * the seed economics, and the reminder that one field and one season is not an answer.
+ * Each rate of a site against the reference, read from the Dunnett-adjusted interval when the
+ * analysis has it (else the unadjusted one, labelled so). A gap whose unadjusted test or
+ * p < 0.10 leans one way without the adjusted interval settling it is marked as a lean.
+ *
+ * @param analysis - the site analysis
+ * @param name - how a rate key reads in a sentence ("half rate")
+ * @returns one comparison per rate other than the reference
+ */
+export function siteComparisons(
+  analysis: Pick<SiteAnalysis, 'differences' | 'reference' | 'alpha'>,
+  name: (rate: string) => string,
+): Comparison[] {
+  return analysis.differences.map((d) => {
+    const adjusted = d.ciLowAdjusted !== undefined && d.ciHighAdjusted !== undefined;
+    const low = adjusted ? (d.ciLowAdjusted as number) : d.ciLow;
+    const high = adjusted ? (d.ciHighAdjusted as number) : d.ciHigh;
+    const settled = low > 0 || high < 0;
+    return {
+      rate: name(d.rate),
+      reference: name(analysis.reference),
+      estimate: d.diff,
+      low,
+      high,
+      kind: adjusted ? 'dunnett' : 'unadjusted',
+      level: Math.round((1 - analysis.alpha) * 100),
+      moreSeed: sowsMore(d.rate, analysis.reference),
+      lean: !settled && d.p < BORDERLINE_P,
+    };
+  });
+}
+
+/**
+ * Findings for one site in plain words, for the grower: which rates clearly differed from the
+ * reference and which yielded about as much (read from the Dunnett-adjusted interval, said as
+ * such), what that means for the seed bag, how precise the site was, missing and odd strips,
+ * the seed economics, and the reminder that one field and one season is not an answer. F, df,
+ * p, LSD details and the outlier test are in siteStatisticianNotes.
  *
  * @param input - the site analysis, rate labels, yield unit and optional returns over seed cost
  * @returns sentences in reading order
  * @example siteFindings({ analysis, rateLabels: { '0.5': 'half', '1': 'full' }, yieldUnit: 'bu/acre' })[1]
- *   // 'Half rate yielded within 2.1 bu/acre of the full rate; the difference is smaller than this site could detect (LSD 4.8).'
+ *   // 'The half rate yielded about as much as the full rate here: the difference, −1.2 bu/acre, is within what strip-to-strip variation explains (95 % interval −4.0 to +1.6 bu/acre, Dunnett-adjusted). It saved seed without a yield loss this site could detect.'
  */
 export function siteFindings(input: SiteFindingsInput): string[] {
   const { analysis, yieldUnit } = input;
   const digits = decimalsFor(analysis.grandMean);
-  const amount = (value: number) => `${formatNumber(Math.abs(value), digits)} ${yieldUnit}`;
+  const wording = { unit: yieldUnit, digits, scope: 'site' as const };
   const name = (rate: string) => rateName(input.rateLabels[rate] ?? `${rate}×`);
   const referenceName = name(analysis.reference);
-  const lsdText = formatNumber(analysis.lsd, digits);
-  const findings: string[] = [];
+  const comparisons = siteComparisons(analysis, name);
+  const findings: string[] = [comparisonHeadline(comparisons, 'site')];
+  for (const comparison of comparisons) findings.push(comparisonSentence(comparison, wording));
 
-  const rateRow = analysis.anova.find((row) => row.source === 'rate') as { p?: number } | undefined;
-  const rateP = rateRow?.p ?? Number.NaN;
-  const verdicts = analysis.differences.map((d) => ({
-    difference: d,
-    verdict: classifyDifference(d, analysis.lsd, analysis.alpha),
-  }));
-  const anyClear = verdicts.some((v) => v.verdict === 'clear');
-  if (rateP < analysis.alpha) {
-    findings.push(
-      `Seeding rate made a difference to yield at this site that is larger than the strip-to-strip variation (${formatP(rateP)}).`,
-    );
-  } else if (!anyClear) {
-    findings.push(
-      `At this site the rates did not yield detectably differently: the gaps between rates were no larger than the differences between strips sown alike (${formatP(rateP)}).`,
-    );
-  } else {
-    findings.push(
-      `Taken all together the rates were not clearly different (${formatP(rateP)}), although one comparison with the ${referenceName} stands out below; read it with care.`,
-    );
-  }
-
-  for (const { difference, verdict } of verdicts) {
-    const rate = capitalise(name(difference.rate));
-    const direction = difference.diff < 0 ? 'less' : 'more';
-    if (verdict === 'clear') {
-      const low = Math.min(Math.abs(difference.ciLow), Math.abs(difference.ciHigh));
-      const high = Math.max(Math.abs(difference.ciLow), Math.abs(difference.ciHigh));
-      findings.push(
-        `${rate} yielded ${amount(difference.diff)} ${direction} than the ${referenceName} (95 % confidence interval ${formatNumber(low, digits)} to ${formatNumber(high, digits)} ${direction}); that is more than this site could put down to chance (LSD ${lsdText}).`,
-      );
-    } else if (verdict === 'borderline') {
-      findings.push(
-        `${rate} yielded ${amount(difference.diff)} ${direction} than the ${referenceName}, close to the smallest difference this site could detect (LSD ${lsdText}, ${formatP(difference.p)}); treat it as a hint to check against other sites, not as a result.`,
-      );
-    } else {
-      findings.push(
-        `${rate} yielded within ${amount(difference.diff)} of the ${referenceName}; the difference is smaller than this site could detect (LSD ${lsdText}).`,
-      );
-    }
-  }
-
-  const precision = `Strips sown alike varied by ${formatNumber(analysis.cvPercent, 1)} % (CV); with ${plural(analysis.blocks, 'block')} this site could tell apart rates about ${amount(analysis.lsd)} apart or more.`;
   findings.push(
-    analysis.cvPercent > HIGH_CV_PERCENT
-      ? `${precision} That is a lot of variation for a strip trial, so only large differences could show up.`
-      : precision,
+    precisionSentence(
+      {
+        cvPercent: analysis.cvPercent,
+        lsd: analysis.lsd,
+        blocks: analysis.blocks,
+        highCv: analysis.cvPercent > HIGH_CV_PERCENT,
+      },
+      wording,
+    ),
   );
 
   if (analysis.missing > 0) {
@@ -158,7 +174,15 @@ export function siteFindings(input: SiteFindingsInput): string[] {
   }
   for (const outlier of analysis.outliers) {
     findings.push(
-      `The strip in block ${outlier.block} at ${name(outlier.rate)} (${amount(outlier.value)}) is far from what its block and rate predict; check its weight and harvested area before leaning on it.`,
+      outlierSentence(
+        {
+          block: outlier.block,
+          rate: name(outlier.rate),
+          value: outlier.value,
+          pBonferroni: outlier.pBonferroni,
+        },
+        wording,
+      ),
     );
   }
 
@@ -181,9 +205,10 @@ export function siteFindings(input: SiteFindingsInput): string[] {
       );
     } else {
       const gap = best.returnOverSeedCost - referenceReturn.returnOverSeedCost;
-      const bestVerdict = verdicts.find((v) => v.difference.rate === best.rate)?.verdict;
+      const bestComparison =
+        comparisons[analysis.differences.findIndex((d) => d.rate === best.rate)];
       const hedge =
-        bestVerdict === 'clear'
+        bestComparison && comparisonVerdict(bestComparison) === 'more'
           ? 'its yield gain over the reference was detectable at this site.'
           : 'the seed saving is certain, but the yield part of the gap is within what this site could not tell apart.';
       findings.push(
@@ -192,10 +217,63 @@ export function siteFindings(input: SiteFindingsInput): string[] {
     }
   }
 
-  findings.push(
-    'This is one field in one season. Weather, soil and seed lot change from year to year, so read this result alongside the other sites in the network before changing how much seed you sow.',
-  );
+  findings.push(oneSeasonCaution('site'));
   return findings;
+}
+
+/**
+ * The details a statistician checks at a site, kept below the plain-word findings: the RCBD
+ * ANOVA's F tests, error mean square and df, CV, LSD and Tukey's HSD, each difference's
+ * one-comparison and Dunnett p, the Bonferroni outlier test on studentized residuals, and the
+ * engine's notes (missing strips, too few df for Tukey).
+ *
+ * @param input - as siteFindings
+ * @returns sentences in reading order
+ */
+export function siteStatisticianNotes(input: SiteFindingsInput): string[] {
+  const { analysis } = input;
+  const digits = decimalsFor(analysis.grandMean);
+  const name = (rate: string) => input.rateLabels[rate] ?? `${rate}×`;
+  const effect = (source: string) =>
+    analysis.anova.find((row) => row.source === source) as
+      { df: number; f?: number; p?: number } | undefined;
+  const rate = effect('rate');
+  const block = effect('block');
+  const notes: string[] = [];
+  notes.push(
+    `Analysis of variance (RCBD, ${analysis.method === 'least-squares' ? 'least squares with missing strips' : 'balanced'}): rate F = ${formatNumber(rate?.f, 2)} on ${rate?.df ?? '–'} and ${analysis.errorDf} df, ${formatP(rate?.p ?? Number.NaN)}; blocks F = ${formatNumber(block?.f, 2)} on ${block?.df ?? '–'} and ${analysis.errorDf} df, ${formatP(block?.p ?? Number.NaN)}.`,
+  );
+  notes.push(
+    `Error mean square ${formatNumber(analysis.errorMeanSquare, digits)} on ${analysis.errorDf} df; CV ${formatNumber(analysis.cvPercent, 1)} %; standard error of a difference ${formatNumber(analysis.sed, digits)}; LSD (5 %) ${formatNumber(analysis.lsd, digits)}; ${analysis.hsd === null ? 'no Tukey HSD (too few error df)' : `Tukey HSD (5 %) ${formatNumber(analysis.hsd, digits)}; rates sharing a group letter are not different by Tukey's test`}.`,
+  );
+  if (analysis.differences.length > 0) {
+    const parts = analysis.differences.map(
+      (d) =>
+        `${name(d.rate)} ${signedNumber(d.diff, digits)} (t-test ${formatP(d.p)}${d.pAdjusted === undefined ? '' : `; Dunnett ${formatP(d.pAdjusted)}`})`,
+    );
+    notes.push(
+      `Differences from the ${name(analysis.reference)} rate on ${analysis.errorDf} error df: ${parts.join('; ')}. The grower's sentences read the Dunnett-adjusted intervals, which hold for every comparison with the ${name(analysis.reference)} rate together.`,
+    );
+  }
+  const tested = analysis.residuals.filter(
+    (r): r is typeof r & { studentized: number } => r.studentized !== null,
+  );
+  if (tested.length > 0) {
+    const largest = tested.reduce((a, b) =>
+      Math.abs(b.studentized) > Math.abs(a.studentized) ? b : a,
+    );
+    const flagged = analysis.outliers
+      .map(
+        (o) =>
+          `block ${o.block}, ${name(o.rate)}: studentized residual ${formatNumber(o.studentized, 2)}, Bonferroni-adjusted ${formatP(o.pBonferroni)}`,
+      )
+      .join('; ');
+    notes.push(
+      `Outlier test (externally studentized residuals on ${analysis.errorDf - 1} df, Bonferroni-adjusted over ${tested.length} strips, as R's car::outlierTest): largest |residual| ${formatNumber(Math.abs(largest.studentized), 2)} (block ${largest.block}, ${name(largest.rate)}, adjusted ${formatP(largest.pBonferroni ?? Number.NaN)}); ${flagged === '' ? `no strip flagged at ${analysis.alpha}` : `flagged: ${flagged}`}.`,
+    );
+  }
+  notes.push(...analysis.notes);
+  return notes;
 }
 
 export interface PooledFindingsInput {
@@ -217,6 +295,39 @@ export interface PooledFindingsInput {
 }
 
 /**
+ * Each rate against the reference over the network: the mixed model's difference ("at a farm
+ * like these") with its Dunnett-adjusted interval when the model was fitted, else the combined
+ * analysis's difference with its unadjusted interval, labelled so.
+ *
+ * @param analysis - the pooled analysis
+ * @param name - how a rate key reads in a sentence
+ * @returns one comparison per rate other than the reference, in the order of analysis.differences
+ */
+export function networkComparisons(
+  analysis: Pick<PooledAnalysis, 'differences' | 'mixed' | 'reference' | 'alpha'>,
+  name: (rate: string) => string,
+): Comparison[] {
+  const level = Math.round((1 - analysis.alpha) * 100);
+  return analysis.differences.map((d) => {
+    const mixed = analysis.mixed?.differences.find((m) => m.rate === d.rate);
+    const [estimate, low, high, p, kind] = mixed
+      ? [mixed.estimate, mixed.ciLowAdjusted, mixed.ciHighAdjusted, mixed.p, 'dunnett' as const]
+      : [d.diff, d.ciLow, d.ciHigh, d.p, 'unadjusted' as const];
+    return {
+      rate: name(d.rate),
+      reference: name(analysis.reference),
+      estimate,
+      low,
+      high,
+      kind,
+      level,
+      moreSeed: sowsMore(d.rate, analysis.reference),
+      lean: !(low > 0 || high < 0) && p < BORDERLINE_P,
+    };
+  });
+}
+
+/**
  * Findings for the network in plain words: how many sites, whether rate mattered more than
  * the farms disagreed, each rate against the reference with how consistent the farms were
  * ("in 6 of 8 farms the half rate did as well as the full rate"), the economic bottom line
@@ -229,6 +340,7 @@ export interface PooledFindingsInput {
 export function pooledFindings(input: PooledFindingsInput): string[] {
   const { analysis, yieldUnit } = input;
   const digits = decimalsFor(analysis.grandMean);
+  const wording = { unit: yieldUnit, digits, scope: 'network' as const };
   const amount = (value: number) => `${formatNumber(Math.abs(value), digits)} ${yieldUnit}`;
   const name = (rate: string) => rateName(input.rateLabels[rate] ?? `${rate}×`);
   const referenceName = name(analysis.reference);
@@ -254,27 +366,23 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
       : 'Over the network, the rates did not change yield by more than the farms disagreed with each other about it: no firm difference between rates.',
   );
 
-  for (const difference of analysis.differences) {
-    const rate = name(difference.rate);
-    const verdict = classifyDifference(difference, pooledLsd, analysis.alpha);
-    const direction = difference.diff < 0 ? 'less' : 'more';
-    const ci = `95 % CI ${formatSigned(difference.ciLow, digits)} to ${formatSigned(difference.ciHigh, digits)}`;
-    const lead =
-      verdict === 'clear'
-        ? `${capitalise(rate)} yielded ${amount(difference.diff)} ${direction} than the ${referenceName} on average (${ci}), a difference the network can stand behind.`
-        : verdict === 'borderline'
-          ? `${capitalise(rate)} yielded ${amount(difference.diff)} ${direction} than the ${referenceName} on average (${ci}, ${formatP(difference.p)}): a lean, not a firm answer.`
-          : `${capitalise(rate)} yielded within ${amount(difference.diff)} of the ${referenceName} on average (${ci}); the network could not tell them apart.`;
+  const comparisons = networkComparisons(analysis, name);
+  analysis.differences.forEach((difference, index) => {
+    const comparison = comparisons[index]!;
     const perSite = input.siteDifferences.filter((d) => d.rate === difference.rate);
-    const within = perSite.filter((d) => d.p >= analysis.alpha).length;
-    const lower = perSite.filter((d) => d.p < analysis.alpha && d.diff < 0).length;
-    const higher = perSite.filter((d) => d.p < analysis.alpha && d.diff > 0).length;
     const consistency =
       perSite.length > 0
-        ? ` In ${within} of ${perSite.length} farms the ${rate} did as well as the ${referenceName} (no difference that farm's strips could detect); it did detectably worse at ${siteCount(lower)} and detectably better at ${siteCount(higher)}.`
+        ? ` ${farmsAgreeSentence({
+            rate: comparison.rate,
+            reference: referenceName,
+            within: perSite.filter((d) => d.p >= analysis.alpha).length,
+            lower: perSite.filter((d) => d.p < analysis.alpha && d.diff < 0).length,
+            higher: perSite.filter((d) => d.p < analysis.alpha && d.diff > 0).length,
+            total: perSite.length,
+          })}`
         : '';
-    findings.push(lead + consistency);
-  }
+    findings.push(comparisonSentence(comparison, wording) + consistency);
+  });
 
   const economics = (input.economics ?? []).filter(
     (row): row is { rate: string; returnOverSeedCost: number; versusReference: number } =>
@@ -293,8 +401,9 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
         `Bottom line: with ${priceText}, the ${referenceName} returned the most over seed cost, averaged over the sites (${formatMoney(best.returnOverSeedCost)} ${per}).`,
       );
     } else {
-      const bestDifference = analysis.differences.find((d) => d.rate === best.rate);
-      const firm = bestDifference && bestDifference.p < analysis.alpha;
+      const bestComparison =
+        comparisons[analysis.differences.findIndex((d) => d.rate === best.rate)];
+      const firm = bestComparison && comparisonVerdict(bestComparison) === 'more';
       findings.push(
         `Bottom line: with ${priceText}, ${name(best.rate)} returned ${formatMoney(best.versusReference)} ${per} more over seed cost than the ${referenceName}, averaged over the sites${firm ? '.' : '; the seed saving is certain, the yield part of it is not.'}`,
       );
@@ -319,7 +428,9 @@ export function pooledFindings(input: PooledFindingsInput): string[] {
 
   const couldNot: string[] = [];
   if (Number.isFinite(pooledLsd))
-    couldNot.push(`differences smaller than about ${amount(pooledLsd)} between rates`);
+    couldNot.push(
+      `differences smaller than about ${amount(pooledLsd)} between rates (the smallest gap the combined analysis could detect, one comparison at a time)`,
+    );
   if ((input.seasons ?? 1) <= 1)
     couldNot.push(
       'whether the answer holds in a wetter, drier or later season (this is one season)',
@@ -377,10 +488,4 @@ export function pooledStatisticianNotes(input: PooledFindingsInput): string[] {
     );
   }
   return notes;
-}
-
-function formatSigned(value: number, digits: number): string {
-  const text = formatNumber(Math.abs(value), digits);
-  if (Number(text.replace(/,/g, '')) === 0) return text;
-  return value < 0 ? `−${text}` : `+${text}`;
 }

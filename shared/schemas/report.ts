@@ -132,6 +132,8 @@ export const SiteReportSchema = z.object({
   components: SiteComponentsSchema,
   strips: z.array(ReportStripSchema),
   findings: z.array(z.string()),
+  /** F, df, p, LSD, Tukey, Dunnett p and the outlier test: the details below the findings. */
+  forStatistician: z.array(z.string()).optional(),
   photos: z.array(ReportPhotoSchema),
   published: PublishedInfoSchema.nullable(),
   dataChangedSincePublished: z.boolean(),

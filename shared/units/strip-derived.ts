@@ -13,6 +13,7 @@ import {
 import { CROPS } from './crops';
 import { convertRate } from './rate-units';
 import { weightAtStandardMoisture } from './yield';
+import { outlierReason } from '../reports/plain-words';
 
 export interface CropFacts {
   name: string;
@@ -254,20 +255,29 @@ export interface StripYield {
   value: number | null;
 }
 
+/** The outlier test's level: a strip is flagged when its Bonferroni-adjusted p is below it. */
+const OUTLIER_ALPHA = 0.05;
+
 /**
- * Strips whose yield is an outlier in their site: |externally studentized residual| > 3 from
- * the RCBD fit of the analysis engine (`analyzeSite`). Returns an empty map when the site
- * cannot be analysed yet (too few strips with a yield, a rate without data, no error df).
+ * Strips whose yield is an outlier in their site, by the same rule as the site analysis: the
+ * Bonferroni outlier test on externally studentized residuals of the RCBD fit (R's
+ * `car::outlierTest`, as `analyzeSite` computes it), flagged when the adjusted p is below 0.05.
+ * Returns each flagged strip's adjusted p; an empty map when the site cannot be analysed yet
+ * (too few strips with a yield, a rate without data, no error df).
+ *
+ * @param strips - every strip of the site with its yield (null when not recorded)
+ * @param analyze - the site analysis (`analyzeSite`), passed in so shared/units stays free of it
+ * @returns strip key → Bonferroni-adjusted p of the flagged strips
  */
 export function yieldOutliers(
   strips: readonly StripYield[],
   analyze: (rows: { block: string; rate: string; value: number | null }[]) => {
-    residuals: { block: string; rate: string; studentized: number | null }[];
+    residuals: { block: string; rate: string; pBonferroni?: number }[];
   },
 ): Map<string, number> {
   const found = new Map<string, number>();
   if (strips.filter((s) => s.value !== null).length < 4) return found;
-  let residuals: { block: string; rate: string; studentized: number | null }[];
+  let residuals: { block: string; rate: string; pBonferroni?: number }[];
   try {
     residuals = analyze(
       strips.map((s) => ({ block: String(s.block), rate: s.rate, value: s.value })),
@@ -276,16 +286,16 @@ export function yieldOutliers(
     return found;
   }
   for (const residual of residuals) {
-    if (residual.studentized === null || Math.abs(residual.studentized) <= 3) continue;
+    if (residual.pBonferroni === undefined || !(residual.pBonferroni < OUTLIER_ALPHA)) continue;
     const strip = strips.find(
       (s) => String(s.block) === residual.block && s.rate === residual.rate,
     );
-    if (strip) found.set(strip.key, residual.studentized);
+    if (strip) found.set(strip.key, residual.pBonferroni);
   }
   return found;
 }
 
-/** The warning text for a yield outlier. */
-export function outlierWarning(studentized: number): string {
-  return `This strip's yield stands out from the rest of the site (studentized residual ${studentized.toFixed(1)}): check the weight, moisture and harvested area.`;
+/** The warning text for a yield outlier, with the outlier test's adjusted p. */
+export function outlierWarning(pBonferroni: number): string {
+  return `This strip's yield is ${outlierReason(pBonferroni)}: check the weight, moisture and harvested area.`;
 }

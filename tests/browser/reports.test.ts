@@ -78,6 +78,14 @@ describe('reports in the browser', () => {
       );
       expect(overflow).toBeLessThanOrEqual(1);
       await screenshot(page, `reports-site-${width}`);
+      // Plain words first; the test statistics sit under their own heading at the end.
+      const findings = await page.locator('#findings-title').locator('..').innerText();
+      expect(findings).toMatch(/95 % interval .* Dunnett-adjusted/);
+      expect(findings).not.toMatch(/\bF = |\bdf\b|studentized/);
+      const statistician = page.getByRole('heading', { name: 'For the statistician' });
+      await statistician.scrollIntoViewIfNeeded();
+      await page.getByText(/Outlier test \(externally studentized residuals/).waitFor();
+      await screenshot(page, `reports-site-statistician-${width}`);
       expect(errors).toEqual([]);
       await close();
     });
@@ -107,7 +115,7 @@ describe('reports in the browser', () => {
       await mixed.scrollIntoViewIfNeeded();
       await page.getByText('all comparisons (Dunnett)').first().waitFor();
       await page.getByRole('heading', { name: 'Does yield level off?' }).waitFor();
-      await page.getByText('For the statistician', { exact: true }).first().click();
+      await page.getByRole('heading', { name: 'For the statistician' }).scrollIntoViewIfNeeded();
       await page
         .getByText(/Kenward–Roger\), p/)
         .first()
@@ -146,6 +154,10 @@ describe('reports in the browser', () => {
     await page.keyboard.press('ArrowRight');
     await expectChartsDrawn(page, 1);
     await screenshot(page, 'reports-meeting-economics-light');
+    await page.keyboard.press('End');
+    expect(await page.locator('[data-slide]').getAttribute('data-slide')).toBe('statistician');
+    await page.getByText(/Kenward–Roger\), p/).waitFor();
+    await screenshot(page, 'reports-meeting-statistician-light');
     expect(errors).toEqual([]);
     await close();
   });

@@ -61,6 +61,8 @@ export const appRoutes: RouteObject[] = [
   { path: 'trials/:trialId/edit', lazy: routeModule(() => import('./routes/trials/edit')) },
   { path: 'sites/:siteId/map', lazy: routeModule(() => import('./routes/sites/map')) },
   { path: 'sites/:siteId/packet', lazy: routeModule(() => import('./routes/sites/packet')) },
+  { path: 'series', lazy: routeModule(() => import('./routes/series/series-list')) },
+  { path: 'series/:seriesId', lazy: routeModule(() => import('./routes/series/series')) },
   { path: '*', lazy: routeModule(() => import('./routes/app/not-found')) },
 ];
 

@@ -45,3 +45,10 @@ export const adminKeys = {
   all: ['admin'] as const,
   mail: () => [...adminKeys.all, 'mail'] as const,
 };
+
+export const seriesKeys = {
+  all: ['series'] as const,
+  list: () => [...seriesKeys.all, 'list'] as const,
+  detail: (seriesId: string) => [...seriesKeys.all, 'detail', seriesId] as const,
+  report: (seriesId: string) => [...seriesKeys.all, 'report', seriesId] as const,
+};

@@ -140,6 +140,15 @@ const MATRIX: Record<PolicyKind, Record<Persona, Expectation>> = {
     coordinator: 'allowed',
     admin: 'allowed',
   },
+  'series-reader': {
+    anonymous: 401,
+    member: 'allowed',
+    otherGrower: 'allowed',
+    otherCoordinator: 404,
+    grower: 'allowed',
+    coordinator: 'allowed',
+    admin: 'allowed',
+  },
 };
 
 interface Fixture {
@@ -150,6 +159,7 @@ interface Fixture {
   photoId: string;
   memberUserId: string;
   invitationId: string;
+  seriesId: string;
 }
 
 /** A fresh unpublished trial with one randomized site (owned by the grower), strips, a photo record and an open invitation. */
@@ -207,7 +217,12 @@ async function buildFixture(t: TestApp, net: BuiltNetwork): Promise<Fixture> {
     person.id,
     net.networkId,
   ]);
+  const [series] = await q(
+    `INSERT INTO trial_series (network_id, name, crop) VALUES ($1, 'Matrix series', 'oats') RETURNING id`,
+    [net.networkId],
+  );
   return {
+    seriesId: series.id,
     networkId: net.networkId,
     trialId: trial.id,
     siteId: site.id,
@@ -236,6 +251,8 @@ function concretePath(route: RouteEntry, fixture: Fixture): string {
         return fixture.memberUserId;
       case 'invitationId':
         return fixture.invitationId;
+      case 'seriesId':
+        return fixture.seriesId;
       case 'token':
         return 'not-a-real-token-for-the-matrix';
       default:

@@ -225,7 +225,11 @@ describe('report ANOVA on the Gomez & Gomez (1984) seeding-rate example loaded a
       close(mean.ciLow, expected.ciLow, 8);
       close(mean.ciHigh, expected.ciHigh, 8);
     }
-    // Every rate within the LSD of 100 kg/ha except none: the F test is not significant (p = 0.11).
-    expect(report.findings[0]).toMatch(/did not yield detectably differently/);
+    // The F test is not significant (p = 0.11) and every Dunnett interval holds zero: the grower
+    // reads that no rate differed detectably, in plain words, and the F test under the statistician's part.
+    expect(report.findings[0]).toMatch(
+      /^At this site no rate yielded detectably differently from the /,
+    );
+    expect(report.forStatistician![0]).toMatch(/rate F = 2\.17 on 5 and 15 df, p = 0\.11/);
   });
 });

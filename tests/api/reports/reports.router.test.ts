@@ -342,6 +342,21 @@ describe('PDF export', () => {
       const pages = Number(/Pages:\s+(\d+)/.exec(info)?.[1]);
       expect(pages).toBeGreaterThanOrEqual(2);
       expect(fs.statSync(file).size).toBeGreaterThan(20_000);
+      // Plain words first: the grower's part names its intervals; F, df and the outlier test
+      // come only under "For the statistician", below it.
+      const text = execFileSync('/usr/bin/pdftotext', [file, '-'], { encoding: 'utf8' }).replace(
+        /\s+/g,
+        ' ',
+      );
+      const split = text.indexOf('For the statistician');
+      expect(split, name).toBeGreaterThan(
+        text.indexOf(name === 'site.pdf' ? 'What this site found' : 'What the network found'),
+      );
+      const grower = text.slice(0, split);
+      expect(grower).toMatch(/95 % interval .* Dunnett-adjusted/);
+      expect(grower).not.toMatch(/\bF = |\bdf\b|Bartlett|studentized/);
+      expect(text.slice(split)).toMatch(/rate F = .* df/);
+      expect(text.slice(split)).toMatch(name === 'site.pdf' ? /Outlier test/ : /Bartlett/);
     }
     fs.rmSync(dir, { recursive: true, force: true });
   });

@@ -244,7 +244,7 @@ describe('strip data: GET /api/sites/:siteId/strips and PATCH /api/strips/:strip
     expect(notes.map((r: { notes: string }) => r.notes)).not.toContain('too late');
   });
 
-  it('warns about a yield outlier using the site analysis residuals', async () => {
+  it('warns about a yield outlier by the site analysis’s Bonferroni outlier test, with the adjusted p', async () => {
     const net3 = await buildNetwork(t.dataSource, 'Strips outlier');
     const levels = [
       { multiplier: 0.5, label: 'half' },
@@ -274,7 +274,7 @@ describe('strip data: GET /api/sites/:siteId/strips and PATCH /api/strips/:strip
     }
     const list = await owner.get(`/api/sites/${big.siteId}/strips`);
     const flagged = list.body.strips.filter((s: { warnings: string[] }) =>
-      s.warnings.some((w) => /stands out/.test(w)),
+      s.warnings.some((w) => /than chance explains, .*Bonferroni-adjusted p < 0\.001\)/.test(w)),
     );
     expect(flagged.map((s: { stripId: string }) => s.stripId)).toEqual([big.strips[7]!.id]);
   });

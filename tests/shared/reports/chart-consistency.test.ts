@@ -8,6 +8,7 @@ import {
   stripMapSpec,
   type ChartSpec,
 } from '../../../shared/reports/chart-specs';
+import { field, soil, straw } from '../../../shared/brand/colours';
 
 // Common practice, no published source: an invented curve with both optima inside the range.
 const curveInput = {
@@ -80,5 +81,24 @@ describe('stripMapSpec', () => {
     });
     const y = (spec.encoding as { y: { sort: string[] } }).y;
     expect(y.sort).toEqual(['Block 1 · strip 1', 'Block 1 · strip 2', 'Block 2 · strip 1']);
+  });
+
+  it('shades yield in brand colours, lighter for low yield and darker for high', () => {
+    const spec = stripMapSpec({
+      strips: [{ block: 1, position: 1, label: 'full', yield: 50 }],
+      yieldUnit: 'bu/acre',
+    });
+    const rect = (spec.layer as { encoding: { color?: { scale?: { range?: string[] } } } }[])[0]!;
+    const range = rect.encoding.color!.scale!.range!;
+    const brand = new Set(
+      [straw, field, soil].flatMap((scale) => Object.values(scale as Record<string, string>)),
+    );
+    for (const colour of range) expect(brand.has(colour), colour).toBe(true);
+    // Relative luminance (sRGB weights, no gamma: enough to order the steps) falls along the ramp.
+    const light = (hex: string) =>
+      [1, 3, 5]
+        .map((i) => parseInt(hex.slice(i, i + 2), 16))
+        .reduce((sum, v, i) => sum + v * [0.2126, 0.7152, 0.0722][i]!, 0);
+    range.slice(1).forEach((colour, i) => expect(light(colour)).toBeLessThan(light(range[i]!)));
   });
 });

@@ -13,6 +13,7 @@ import {
   pooledStatisticianNotes,
   rateName,
   siteFindings,
+  siteStatisticianNotes,
 } from '../../../shared/reports/findings';
 import { formatMoney, formatNumber, formatP } from '../../../shared/reports/format-numbers';
 
@@ -33,23 +34,29 @@ const rowsOf = (values: number[], site = 'A'): StripObservation[] =>
     value,
   }));
 const analysisOf = (name: keyof FindingsFixture['sites']): SiteAnalysis =>
-  analyzeSite(rowsOf(fixture.sites[name]));
+  analyzeSite(rowsOf(fixture.sites[name]), { manyToOne: true });
 const findingsOf = (
   analysis: SiteAnalysis,
   extra: Partial<Parameters<typeof siteFindings>[0]> = {},
 ) => siteFindings({ analysis, rateLabels: fixture.labels, yieldUnit: 'bu/acre', ...extra });
 
 describe('siteFindings', () => {
-  it('states a clear difference with its interval and the LSD as the yardstick', () => {
+  const signed = (value: number) =>
+    value < 0 ? `−${formatNumber(-value, 1)}` : `+${formatNumber(value, 1)}`;
+
+  it('leads with which rate clearly differed and reads the Dunnett-adjusted interval, said as such', () => {
     const analysis = analysisOf('clear');
     const quarter = analysis.differences.find((d) => d.rate === '0.25')!;
-    expect(quarter.p).toBeLessThan(0.001);
+    // The adjusted interval holds for all three comparisons together, so it is wider.
+    expect(quarter.ciHighAdjusted! - quarter.ciLowAdjusted!).toBeGreaterThan(
+      quarter.ciHigh - quarter.ciLow,
+    );
     const text = findingsOf(analysis);
-    expect(text[0]).toMatch(
-      /^Seeding rate made a difference to yield at this site .* \(p < 0\.001\)\.$/,
+    expect(text[0]).toBe(
+      'At this site the quarter rate yielded clearly less than the full rate; the half rate and double rate yielded about as much as the full rate.',
     );
     expect(text[1]).toBe(
-      `Quarter rate yielded ${formatNumber(-quarter.diff, 1)} bu/acre less than the full rate (95 % confidence interval ${formatNumber(-quarter.ciHigh, 1)} to ${formatNumber(-quarter.ciLow, 1)} less); that is more than this site could put down to chance (LSD ${formatNumber(analysis.lsd, 1)}).`,
+      `The quarter rate yielded less than the full rate here: ${formatNumber(-quarter.diff, 1)} bu/acre less, more than strip-to-strip variation explains (95 % interval ${signed(quarter.ciLowAdjusted!)} to ${signed(quarter.ciHighAdjusted!)} bu/acre, Dunnett-adjusted). Cutting seed to the quarter rate cost yield on this field.`,
     );
     expect(text.at(-1)).toMatch(/^This is one field in one season\./);
   });
@@ -60,21 +67,33 @@ describe('siteFindings', () => {
     expect(quarter.p).toBeGreaterThan(0.05);
     expect(quarter.p).toBeLessThan(0.1);
     const text = findingsOf(analysis);
-    expect(text[1]).toBe(
-      `Quarter rate yielded ${formatNumber(-quarter.diff, 1)} bu/acre less than the full rate, close to the smallest difference this site could detect (LSD ${formatNumber(analysis.lsd, 1)}, ${formatP(quarter.p)}); treat it as a hint to check against other sites, not as a result.`,
+    expect(text[1]).toMatch(
+      /^The quarter rate yielded about as much as the full rate here: .* The gap leans one way but is not settled: treat it as a hint to check against the other sites, not as a result\.$/,
     );
-    expect(text.join(' ')).not.toMatch(/more than this site could put down to chance/);
+    expect(text.join(' ')).not.toMatch(/more than strip-to-strip variation explains/);
   });
 
-  it('says a null result is smaller than the site could detect, in the issue’s words', () => {
+  it('says a null result is within strip-to-strip variation, with no test statistics', () => {
     const analysis = analysisOf('null');
     const half = analysis.differences.find((d) => d.rate === '0.5')!;
     const text = findingsOf(analysis);
-    expect(text[0]).toMatch(/^At this site the rates did not yield detectably differently/);
+    expect(text[0]).toMatch(/^At this site no rate yielded detectably differently/);
     expect(text).toContain(
-      `Half rate yielded within ${formatNumber(Math.abs(half.diff), 1)} bu/acre of the full rate; the difference is smaller than this site could detect (LSD ${formatNumber(analysis.lsd, 1)}).`,
+      `The half rate yielded about as much as the full rate here: the difference, ${signed(half.diff)} bu/acre, is within what strip-to-strip variation explains (95 % interval ${signed(half.ciLowAdjusted!)} to ${signed(half.ciHighAdjusted!)} bu/acre, Dunnett-adjusted). It saved seed without a yield loss this site could detect.`,
     );
     expect(text.join(' ')).not.toMatch(/\bproves?\b|\bwill\b|always|guarantee/i);
+    // Plain words first: F, df, p and residuals are for the statistician.
+    expect(text.join(' ')).not.toMatch(/\bF = |\bdf\b|\bp [=<]|studentized|Bartlett/);
+    const details = siteStatisticianNotes({
+      analysis,
+      rateLabels: fixture.labels,
+      yieldUnit: 'bu/acre',
+    });
+    expect(details[0]).toMatch(
+      /^Analysis of variance \(RCBD, balanced\): rate F = .* on 3 and 9 df/,
+    );
+    expect(details.join(' ')).toMatch(/Dunnett p = /);
+    expect(details.join(' ')).toMatch(/Outlier test .* Bonferroni-adjusted over 16 strips/);
   });
 
   it('hedges the economics when the cheaper rate’s yield gap is not detectable', () => {
@@ -109,6 +128,7 @@ describe('siteFindings', () => {
       /One strip had no yield \(block 2, half rate\); the analysis filled it in/,
     );
     expect(text).toMatch(/a lot of variation for a strip trial/);
+    expect(text).toMatch(/least significant difference, 5 %, one comparison/);
   });
 });
 
@@ -164,7 +184,7 @@ describe('pooledFindings', () => {
     expect(details.join(' ')).toMatch(/Kenward–Roger/);
     expect(details.join(' ')).toMatch(/Bartlett's test/);
     expect(text.at(-1)).toMatch(
-      /^What the network could not tell: differences smaller than about .* bu\/acre between rates; whether the answer holds .* one season/,
+      /^What the network could not tell: differences smaller than about .* bu\/acre between rates \(the smallest gap the combined analysis could detect, one comparison at a time\); whether the answer holds .* one season/,
     );
   });
 

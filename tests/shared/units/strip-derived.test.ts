@@ -5,6 +5,7 @@ import { countPerArea, stripYield } from '../../../shared/units/yield';
 import {
   cropFacts,
   deriveStripValues,
+  outlierWarning,
   plausibilityWarnings,
   recordedGroups,
   yieldOutliers,
@@ -167,26 +168,41 @@ describe('recordedGroups and yieldOutliers', () => {
     ).toEqual({ stand: true, tillers: false, heads: false, yield: true });
   });
 
-  it('flags a strip whose studentized residual exceeds 3, and nothing when the site cannot be analysed', () => {
-    const strips = [];
+  it('flags a strip by the Bonferroni outlier test of the analysis, not by |studentized residual| > 3', () => {
     const noise = [
       0.3, -0.2, 0.1, -0.4, 0.2, 0.0, -0.1, 0.3, -0.3, 0.2, 0.1, -0.2, 0.0, 0.4, -0.1, -0.2, 0.3,
       0.1,
     ];
-    let i = 0;
-    for (let block = 1; block <= 6; block += 1) {
-      for (const rate of ['half', 'full', 'double']) {
-        const value = 60 + (rate === 'half' ? -5 : rate === 'double' ? 2 : 0) + block + noise[i]!;
-        strips.push({
-          key: `${block}-${rate}`,
-          block,
-          rate,
-          value: block === 3 && rate === 'full' ? value + 40 : value,
-        });
-        i += 1;
+    const site = (spike: number) => {
+      const strips = [];
+      let i = 0;
+      for (let block = 1; block <= 6; block += 1) {
+        for (const rate of ['half', 'full', 'double']) {
+          const value = 60 + (rate === 'half' ? -5 : rate === 'double' ? 2 : 0) + block + noise[i]!;
+          strips.push({
+            key: `${block}-${rate}`,
+            block,
+            rate,
+            value: block === 3 && rate === 'full' ? value + spike : value,
+          });
+          i += 1;
+        }
       }
-    }
-    expect([...yieldOutliers(strips, analyzeSite).keys()]).toEqual(['3-full']);
-    expect(yieldOutliers(strips.slice(0, 3), analyzeSite).size).toBe(0);
+      return strips;
+    };
+    // Source: R 4.2.2, car 3.1.1 outlierTest(lm(value ~ block + rate), cutoff = Inf) on this
+    // site (block and rate as factors, the same noise; fixtures/reference/strip-outliers.R):
+    // spike 40 gives rstudent 118.8627, Bonferroni p 1.93019e-14; spike 0.9 gives rstudent
+    // 3.596541, Bonferroni p 0.1040298.
+    const spiked = yieldOutliers(site(40), analyzeSite);
+    expect([...spiked.keys()]).toEqual(['3-full']);
+    expect(spiked.get('3-full')! / 1.93019e-14).toBeCloseTo(1, 5);
+    // |rstudent| 3.6 is above the old cut-off of 3, but not beyond chance over 18 strips.
+    expect(yieldOutliers(site(0.9), analyzeSite).size).toBe(0);
+    expect(yieldOutliers(site(40).slice(0, 3), analyzeSite).size).toBe(0);
+    expect(outlierWarning(spiked.get('3-full')!)).toBe(
+      "This strip's yield is further from what its block and rate predict than chance explains, even allowing for checking every strip (outlier test, Bonferroni-adjusted p < 0.001): check the weight, moisture and harvested area.",
+    );
+    expect(outlierWarning(0.0042)).toMatch(/Bonferroni-adjusted p = 0\.004\)/);
   });
 });

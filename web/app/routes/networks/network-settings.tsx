@@ -2,7 +2,7 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
+import { Button, ButtonLink } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { PageHeader } from '../../../components/ui/page-header';
 import { LoadingBlock } from '../../../components/ui/spinner';
@@ -58,6 +58,11 @@ export default function NetworkSettingsPage() {
         eyebrow="Network"
         title={membership.networkName}
         description={`You are ${membership.role === 'admin' ? 'an admin' : `a ${membership.role}`} of this network.`}
+        actions={
+          <ButtonLink to="/series" variant="secondary">
+            Series across seasons
+          </ButtonLink>
+        }
       />
       {membership.role === 'admin' ? (
         <DeleteNetwork networkId={membership.networkId} name={membership.networkName} />

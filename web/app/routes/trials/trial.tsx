@@ -70,6 +70,11 @@ function TrialLinksCard({ trial }: { trial: TrialDetail }) {
           </li>
         )}
         <li>
+          <Link className={linkClass} to="/series">
+            Series across seasons
+          </Link>
+        </li>
+        <li>
           <Link className={linkClass} to="/calculator">
             Seed calculator
           </Link>

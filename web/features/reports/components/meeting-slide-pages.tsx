@@ -6,7 +6,8 @@ import {
   responseCurveSpec,
   type ChartTheme,
 } from '../../../../shared/reports/chart-specs';
-import { rateName } from '../../../../shared/reports/findings';
+import { networkComparisons, rateName } from '../../../../shared/reports/findings';
+import { comparisonLine, farmsAgreeSentence } from '../../../../shared/reports/plain-words';
 import { formatMoney, formatNumber } from '../../../../shared/reports/format-numbers';
 import type { PooledReport } from '../../../../shared/schemas/report';
 import { cn } from '../../../lib/cn';
@@ -92,15 +93,20 @@ export function SitesSlide({ report }: SlideContext) {
 
 function answerLines(ctx: AnalysedSlideContext): string[] {
   const { analysis, label, referenceLabel, unit, digits, keyRate, report } = ctx;
-  const lines = analysis.differences.map((d) => {
-    const verdict = d.p < analysis.alpha ? '' : ' (not a detectable difference)';
-    return `${capitalise(rateName(label(d.rate)))}: ${formatNumber(Math.abs(d.diff), digits)} ${unit} ${d.diff < 0 ? 'less' : 'more'} than ${rateName(referenceLabel)}${verdict}.`;
-  });
+  const name = (rate: string) => rateName(label(rate));
+  const wording = { unit, digits, scope: 'network' as const };
+  const lines = networkComparisons(analysis, name).map((c) => comparisonLine(c, wording));
   if (keyRate) {
     const perSite = report.siteDifferences.filter((d) => d.rate === keyRate);
-    const within = perSite.filter((d) => d.p >= analysis.alpha).length;
     lines.push(
-      `At ${within} of ${perSite.length} farms ${rateName(label(keyRate))} was within the LSD of ${rateName(referenceLabel)}.`,
+      farmsAgreeSentence({
+        rate: name(keyRate),
+        reference: rateName(referenceLabel),
+        within: perSite.filter((d) => d.p >= analysis.alpha).length,
+        lower: perSite.filter((d) => d.p < analysis.alpha && d.diff < 0).length,
+        higher: perSite.filter((d) => d.p < analysis.alpha && d.diff > 0).length,
+        total: perSite.length,
+      }),
     );
   }
   return lines;
@@ -108,12 +114,14 @@ function answerLines(ctx: AnalysedSlideContext): string[] {
 
 export function AnswerSlide(ctx: AnalysedSlideContext) {
   const { analysis, label, unit, theme } = ctx;
+  // Expected yield at a farm like these (mixed model) when fitted, else the combined means.
+  const means = analysis.mixed?.means ?? analysis.means;
   return (
     <div className="grid items-start gap-8 lg:grid-cols-[3fr_2fr]">
       <VegaChart
         spec={pooledMeansSpec(
           {
-            means: analysis.means.map((m) => ({
+            means: means.map((m) => ({
               label: label(m.rate),
               mean: m.mean,
               ciLow: m.ciLow,
@@ -124,7 +132,11 @@ export function AnswerSlide(ctx: AnalysedSlideContext) {
           { theme, scale: 1.5 },
         )}
         title="Network rate means"
-        description="Mean yield over sites with 95 % confidence intervals."
+        description={
+          analysis.mixed
+            ? 'Expected yield at a farm like these, with 95 % intervals that allow for farm-to-farm differences.'
+            : 'Mean yield over sites with 95 % intervals for comparing rates (tested against site × rate).'
+        }
         downloads={false}
       />
       <div className="text-[clamp(1.1rem,1.9vw,1.6rem)]">
@@ -161,7 +173,7 @@ export function ForestSlide({
         { theme, scale: 1.5 },
       )}
       title="Forest plot"
-      description="Each farm’s difference with its 95 % interval; the diamond is the network."
+      description="Each farm’s difference with its 95 % interval (that farm on its own, not adjusted); the diamond is the network’s pooled difference."
       downloads={false}
     />
   );
@@ -249,5 +261,17 @@ export function NextSlide({ report }: SlideContext) {
         'Rates in a trial are treatments to compare, not recommendations; local extension advice and the seed label come first.',
       ]}
     />
+  );
+}
+
+/** The last slide: the test statistics, in smaller type, for anyone who asks. */
+export function StatisticianSlide({ report }: SlideContext) {
+  const notes = report.forStatistician ?? [];
+  return (
+    <ul className="max-w-[80ch] list-disc space-y-3 pl-6 text-[clamp(0.85rem,1.25vw,1.1rem)] text-ink-muted">
+      {notes.map((note) => (
+        <li key={note}>{note}</li>
+      ))}
+    </ul>
   );
 }

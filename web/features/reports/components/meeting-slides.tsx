@@ -14,6 +14,7 @@ import {
   NextSlide,
   QuestionSlide,
   SitesSlide,
+  StatisticianSlide,
   TitleSlide,
   type SlideContext,
 } from './meeting-slide-pages';
@@ -45,6 +46,12 @@ function buildSlides(ctx: SlideContext): Slide[] {
     slides.push({ id: 'economics', title: 'Does it pay?', body: <EconomicsSlide {...full} /> });
   }
   slides.push({ id: 'next', title: 'What next', body: <NextSlide {...ctx} /> });
+  if ((report.forStatistician ?? []).length > 0)
+    slides.push({
+      id: 'statistician',
+      title: 'For the statistician',
+      body: <StatisticianSlide {...ctx} />,
+    });
   return slides;
 }
 

@@ -1,13 +1,17 @@
 // The network mixed model in a pooled report: expected yield at a farm like these, and differences from the reference rate.
 import type { MixedModelAnalysis } from '../../../../shared/analysis/types';
-import { formatNumber, formatP } from '../../../../shared/reports/format-numbers';
-import { DataTableNote, Section } from './report-bits';
+import { formatNumber } from '../../../../shared/reports/format-numbers';
+import {
+  comparisonVerdict,
+  signedNumber,
+  verdictWords,
+} from '../../../../shared/reports/plain-words';
+import { Section } from './report-bits';
 import { DataTable } from './report-tables';
 
 const interval = (low: number, high: number, digits: number) =>
-  `${formatNumber(low, digits)} to ${formatNumber(high, digits)}`;
-const signed = (value: number, digits: number) =>
-  `${value > 0 ? '+' : ''}${formatNumber(value, digits)}`;
+  `${signedNumber(low, digits)} to ${signedNumber(high, digits)}`;
+const signed = signedNumber;
 
 export function MixedModelSection({
   mixed,
@@ -24,7 +28,6 @@ export function MixedModelSection({
 }) {
   if (!mixed) return null;
   const level = Math.round((1 - mixed.alpha) * 100);
-  const components = mixed.varianceComponents;
   return (
     <Section
       id="farm-like-these"
@@ -33,11 +36,11 @@ export function MixedModelSection({
     >
       <DataTable
         caption={`Expected yield at a farm like these, with ${level} % intervals`}
-        head={['Rate', `Mean (${unit})`, `${level} % interval`]}
+        head={['Rate', `Mean (${unit})`, `${level} % interval, a farm like these`]}
         rows={mixed.means.map((m) => [
           label(m.rate),
           formatNumber(m.mean, digits),
-          interval(m.ciLow, m.ciHigh, digits),
+          `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`,
         ])}
       />
       <DataTable
@@ -46,35 +49,27 @@ export function MixedModelSection({
           'Rate',
           `Difference (${unit})`,
           `${level} % interval, one comparison`,
-          'p, one comparison',
           `${level} % interval, all comparisons (Dunnett)`,
-          'p, all comparisons (Dunnett)',
+          'What it means (Dunnett)',
         ]}
         rows={mixed.differences.map((d) => [
           label(d.rate),
           signed(d.estimate, digits),
           interval(d.ciLow, d.ciHigh, digits),
-          formatP(d.p),
           interval(d.ciLowAdjusted, d.ciHighAdjusted, digits),
-          formatP(d.pAdjusted),
+          verdictWords(
+            comparisonVerdict({ low: d.ciLowAdjusted, high: d.ciHighAdjusted }),
+            `${referenceLabel} rate`,
+          ),
         ])}
       />
       <p className="max-w-prose text-label text-ink-muted">
-        Difference from the {referenceLabel} rate: intervals and p for “one comparison” treat each
-        rate on its own; those for “all comparisons (Dunnett)” hold for every comparison with the{' '}
-        {referenceLabel} rate together, so they are wider.
+        Difference from the {referenceLabel} rate: the “one comparison” interval treats each rate on
+        its own; the “all comparisons (Dunnett)” interval holds for every comparison with the{' '}
+        {referenceLabel} rate together, so it is wider. A rate clearly differs only when its whole
+        Dunnett interval is on one side of zero. The p-values and the model’s details are under “For
+        the statistician” below.
       </p>
-      <DataTableNote title="For the statistician">
-        Mixed model fitted by REML to {mixed.observations} strips at {mixed.sites} sites: rate
-        fixed; site, block within site and site × rate random. Variance components: site{' '}
-        {formatNumber(components.site, 3)}, block within site{' '}
-        {formatNumber(components.blockWithinSite, 3)}, site × rate{' '}
-        {formatNumber(components.siteByRate, 3)}, strips {formatNumber(components.residual, 3)}.
-        Rate test: F = {formatNumber(mixed.rateTest.f, 2)} on {mixed.rateTest.df1} and{' '}
-        {formatNumber(mixed.rateTest.df2, 1)} df (Kenward–Roger), {formatP(mixed.rateTest.p)}.
-        Intervals use Kenward–Roger standard errors and df; Dunnett adjustment by the multivariate t
-        with each comparison’s own df.
-      </DataTableNote>
     </Section>
   );
 }

@@ -20,12 +20,14 @@ import { ChartCard, DataTableNote, Section } from './report-bits';
 import {
   AnovaTable,
   DataTable,
+  DifferencesDetailTable,
   DifferencesTable,
   EconomicsTable,
   MeansTable,
 } from './report-tables';
 import { MixedModelSection } from './mixed-model-section';
 import { ResponseModelsSection } from './response-models-section';
+import { StatisticianBlock, StatisticianPart } from './statistician-notes';
 import { VegaChart } from './vega-chart';
 
 export interface PooledSectionProps {
@@ -140,7 +142,7 @@ export function PooledForestSection({ report, analysis }: PooledAnalysisSectionP
     <Section
       id="forest"
       title={`Each site against the ${rateName(referenceLabel)}`}
-      intro="Squares are each site’s difference with its 95 % confidence interval; the diamond is the network’s pooled difference. Bars that cross the dashed zero line could not tell the rates apart."
+      intro="Squares are each site’s difference with its 95 % interval (that site on its own, not adjusted); the diamond is the network’s pooled difference. Bars that cross the dashed zero line could not tell the rates apart."
     >
       <RatePicker comparisons={comparisons} shown={shownRate} label={label} onPick={setPicked} />
       {spec ? (
@@ -229,45 +231,76 @@ export function PooledCurveSection({ report, analysis }: PooledAnalysisSectionPr
               {formatMoney(report.prices.grainPricePerBu)}/bu)
             </>
           ) : null}
-          . R² {formatNumber(curve.rSquared, 2)} over {curve.points} site means.
+          .
         </p>
       ) : null}
     </Section>
   );
 }
 
-export function PooledCombinedSection({ report, analysis }: PooledAnalysisSectionProps) {
+/** The classical combined analysis and the notes, under "For the statistician". */
+export function PooledStatisticianSection({
+  report,
+  analysis,
+}: PooledSectionProps & { analysis: Analysis | null }) {
   const { label, referenceLabel } = usePooledLabels(report);
+  if (!analysis) return <StatisticianPart notes={report.forStatistician} />;
   const unit = report.trial.units.yield;
   const digits = decimalsFor(analysis.grandMean);
   const errorRow = analysis.anova.find((r) => r.source === 'site:rate');
   return (
-    <Section
-      id="combined"
-      title="Combined analysis"
-      intro={`Sites are taken as a random sample of farms, so rate is tested against the site × rate interaction (${analysis.rateTest.df1} and ${analysis.rateTest.df2} df${errorRow && 'ms' in errorRow ? `, mean square ${formatNumber(errorRow.ms, digits)}` : ''}), not against the strip error. ${analysis.method === 'site-means' ? 'Sites differ in blocks or have missing strips, so the analysis uses each site’s rate means.' : ''}`}
-    >
-      <AnovaTable anova={analysis.anova} digits={digits} caption="Combined analysis of variance" />
-      <div className="grid gap-4 lg:grid-cols-2">
-        <MeansTable means={analysis.means} label={label} unit={unit} digits={digits} />
-        <DifferencesTable
-          differences={analysis.differences}
-          label={label}
-          referenceLabel={referenceLabel}
-          unit={unit}
+    <StatisticianPart notes={report.forStatistician}>
+      <StatisticianBlock
+        title="Combined analysis of variance"
+        intro={`Sites are taken as a random sample of farms, so rate is tested against the site × rate interaction (${analysis.rateTest.df1} and ${analysis.rateTest.df2} df${errorRow && 'ms' in errorRow ? `, mean square ${formatNumber(errorRow.ms, digits)}` : ''}), not against the strip error. ${analysis.method === 'site-means' ? 'Sites differ in blocks or have missing strips, so the analysis uses each site’s rate means.' : ''}`}
+      >
+        <AnovaTable
+          anova={analysis.anova}
           digits={digits}
+          caption="Combined analysis of variance"
         />
-        {analysis.bartlett ? (
-          <DataTableNote title="Homogeneity of site variances">
-            Bartlett’s test: χ² = {formatNumber(analysis.bartlett.chiSquare, 2)} on{' '}
-            {analysis.bartlett.df} df, {formatP(analysis.bartlett.p)}.{' '}
-            {analysis.bartlett.p < 0.05
-              ? 'Some sites were much noisier than others.'
-              : 'The sites were about equally precise.'}
-          </DataTableNote>
-        ) : null}
-      </div>
-    </Section>
+        <div className="grid gap-4 lg:grid-cols-2">
+          <MeansTable
+            means={analysis.means}
+            label={label}
+            unit={unit}
+            digits={digits}
+            caption="Rate means over sites, 95 % intervals for comparing rates (tested against site × rate)"
+          />
+          <DifferencesTable
+            differences={analysis.differences}
+            label={label}
+            referenceLabel={referenceLabel}
+            unit={unit}
+            digits={digits}
+          />
+          {analysis.bartlett ? (
+            <DataTableNote title="Homogeneity of site variances">
+              Bartlett’s test: χ² = {formatNumber(analysis.bartlett.chiSquare, 2)} on{' '}
+              {analysis.bartlett.df} df, {formatP(analysis.bartlett.p)}.{' '}
+              {analysis.bartlett.p < 0.05
+                ? 'Some sites were much noisier than others.'
+                : 'The sites were about equally precise.'}
+            </DataTableNote>
+          ) : null}
+        </div>
+      </StatisticianBlock>
+      {analysis.mixed ? (
+        <StatisticianBlock
+          title="Mixed model"
+          intro="Intervals and p use Kenward–Roger standard errors and df; the Dunnett adjustment uses the multivariate t with each comparison’s own df."
+        >
+          <DifferencesDetailTable
+            differences={analysis.mixed.differences.map((d) => ({ ...d, diff: d.estimate }))}
+            caption={`Mixed model: difference from the ${referenceLabel} rate, one comparison and all comparisons`}
+            label={label}
+            referenceLabel={referenceLabel}
+            unit={unit}
+            digits={digits}
+          />
+        </StatisticianBlock>
+      ) : null}
+    </StatisticianPart>
   );
 }
 

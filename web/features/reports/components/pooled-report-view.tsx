@@ -9,17 +9,16 @@ import { cn } from '../../../lib/cn';
 import { pooledSearch } from '../api/get-pooled-report';
 import { usePublishTrial } from '../api/publish-report';
 import { FindingsList } from './findings-list';
-import { StatisticianNotes } from './statistician-notes';
 import { PublishPanel } from './publish-panel';
 import { DownloadLink } from './report-bits';
 import { FiltersForm, PublicLinkControl } from './pooled-report-controls';
 import {
-  PooledCombinedSection,
   PooledCurveSection,
   PooledEconomicsSection,
   PooledForestSection,
   PooledModelSections,
   PooledSitesSection,
+  PooledStatisticianSection,
 } from './pooled-report-sections';
 
 export interface PooledReportViewProps {
@@ -99,7 +98,6 @@ export function PooledReportView({
         isPublic={isPublic}
       />
       <FindingsList title="What the network found" findings={report.findings} />
-      <StatisticianNotes notes={report.forStatistician} />
 
       <PooledSitesSection report={report} />
       {analysis ? (
@@ -107,7 +105,6 @@ export function PooledReportView({
           <PooledForestSection report={report} analysis={analysis} />
           <PooledCurveSection report={report} analysis={analysis} />
           <PooledModelSections report={report} analysis={analysis} />
-          <PooledCombinedSection report={report} analysis={analysis} />
           <PooledEconomicsSection report={report} analysis={analysis} />
         </>
       ) : (
@@ -115,6 +112,7 @@ export function PooledReportView({
           {report.analysisError}
         </Alert>
       )}
+      <PooledStatisticianSection report={report} analysis={analysis} />
     </div>
   );
 }

@@ -7,6 +7,13 @@ import type {
   RateMean,
 } from '../../../../shared/analysis/types';
 import { formatMoney, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
+import {
+  comparisonVerdict,
+  intervalKindWords,
+  signedNumber,
+  verdictWords,
+  type Comparison,
+} from '../../../../shared/reports/plain-words';
 import type { ComponentRow, EconomicsRow } from '../../../../shared/schemas/report';
 import { cn } from '../../../lib/cn';
 
@@ -113,23 +120,121 @@ export function MeansTable({
   label,
   unit,
   digits,
+  details = false,
+  caption = 'Rate means',
 }: {
   means: (RateMean | PooledMean)[];
   label: (rate: string) => string;
   unit: string;
   digits: number;
+  /** The statistician's view: standard errors and Tukey group letters. */
+  details?: boolean;
+  caption?: string;
 }) {
-  const letters = means.some((m) => 'group' in m);
+  const letters = details && means.some((m) => 'group' in m);
   return (
     <DataTable
-      caption="Rate means with 95 % confidence intervals"
-      head={['Rate', 'Strips', `Mean (${unit})`, '95 % CI', ...(letters ? ['Group'] : [])]}
+      caption={caption}
+      head={[
+        'Rate',
+        'Strips',
+        `Mean (${unit})`,
+        '95 % interval, this rate alone',
+        ...(details ? ['Standard error'] : []),
+        ...(letters ? ['Tukey group'] : []),
+      ]}
       rows={means.map((m) => [
         label(m.rate),
         m.n,
         formatNumber(m.mean, digits),
         `${formatNumber(m.ciLow, digits)} – ${formatNumber(m.ciHigh, digits)}`,
+        ...(details ? [formatNumber(m.se, digits + 1)] : []),
         ...(letters ? [(m as RateMean).group] : []),
+      ])}
+    />
+  );
+}
+
+/** Differences from the reference for the grower: the Dunnett-adjusted interval and a verdict. */
+export function PlainDifferencesTable({
+  comparisons,
+  rates,
+  label,
+  referenceLabel,
+  unit,
+  digits,
+}: {
+  comparisons: Comparison[];
+  rates: string[];
+  label: (rate: string) => string;
+  referenceLabel: string;
+  unit: string;
+  digits: number;
+}) {
+  const kind = comparisons[0]?.kind ?? 'dunnett';
+  return (
+    <DataTable
+      caption={`Difference from the ${referenceLabel} rate`}
+      head={[
+        'Rate',
+        `Difference (${unit})`,
+        `95 % interval, ${intervalKindWords(kind)}`,
+        'What it means',
+      ]}
+      rows={comparisons.map((c, i) => [
+        label(rates[i] ?? ''),
+        signedNumber(c.estimate, digits),
+        `${signedNumber(c.low, digits)} to ${signedNumber(c.high, digits)}`,
+        verdictWords(comparisonVerdict(c), c.reference),
+      ])}
+    />
+  );
+}
+
+/** Differences from the reference for the statistician: each test alone and Dunnett's. */
+export function DifferencesDetailTable({
+  differences,
+  label,
+  referenceLabel,
+  unit,
+  digits,
+  caption = `Difference from the ${referenceLabel} rate: one comparison and all comparisons`,
+}: {
+  differences: RateDifference[];
+  label: (rate: string) => string;
+  referenceLabel: string;
+  unit: string;
+  digits: number;
+  caption?: string;
+}) {
+  const adjusted = differences.some((d) => d.pAdjusted !== undefined);
+  return (
+    <DataTable
+      caption={caption}
+      head={[
+        'Rate',
+        `Difference (${unit})`,
+        'Standard error',
+        '95 % interval, one comparison',
+        'p, one comparison',
+        ...(adjusted
+          ? ['95 % interval, all comparisons (Dunnett)', 'p, all comparisons (Dunnett)']
+          : []),
+      ]}
+      rows={differences.map((d) => [
+        label(d.rate),
+        signedNumber(d.diff, digits),
+        formatNumber(d.se, digits + 1),
+        `${signedNumber(d.ciLow, digits)} to ${signedNumber(d.ciHigh, digits)}`,
+        pValue(d.p),
+        ...(adjusted
+          ? [
+              d.ciLowAdjusted === undefined || d.ciHighAdjusted === undefined
+                ? '–'
+                : `${signedNumber(d.ciLowAdjusted, digits)} to ${signedNumber(d.ciHighAdjusted, digits)}`,
+              pValue(d.pAdjusted),
+            ]
+          : []),
       ])}
     />
   );
@@ -150,12 +255,12 @@ export function DifferencesTable({
 }) {
   return (
     <DataTable
-      caption={`Difference from the ${referenceLabel} rate`}
-      head={['Rate', `Difference (${unit})`, '95 % CI', 'p']}
+      caption={`Difference from the ${referenceLabel} rate (each comparison on its own, not adjusted)`}
+      head={['Rate', `Difference (${unit})`, '95 % interval, one comparison', 'p, one comparison']}
       rows={differences.map((d) => [
         label(d.rate),
-        `${d.diff > 0 ? '+' : ''}${formatNumber(d.diff, digits)}`,
-        `${formatNumber(d.ciLow, digits)} to ${formatNumber(d.ciHigh, digits)}`,
+        signedNumber(d.diff, digits),
+        `${signedNumber(d.ciLow, digits)} to ${signedNumber(d.ciHigh, digits)}`,
         pValue(d.p),
       ])}
     />

@@ -6,11 +6,19 @@ import {
   rateMeansSpec,
   stripMapSpec,
 } from '../../../../shared/reports/chart-specs';
-import { rateName } from '../../../../shared/reports/findings';
+import { rateName, siteComparisons } from '../../../../shared/reports/findings';
+import { outlierSentence } from '../../../../shared/reports/plain-words';
 import { decimalsFor, formatNumber } from '../../../../shared/reports/format-numbers';
 import type { SiteReport } from '../../../../shared/schemas/report';
 import { ChartCard, Section } from './report-bits';
-import { AnovaTable, ComponentsTable, DifferencesTable, MeansTable } from './report-tables';
+import {
+  AnovaTable,
+  ComponentsTable,
+  DifferencesDetailTable,
+  MeansTable,
+  PlainDifferencesTable,
+} from './report-tables';
+import { StatisticianBlock, StatisticianPart } from './statistician-notes';
 import { VegaChart } from './vega-chart';
 
 export interface SiteReportSectionProps {
@@ -69,14 +77,14 @@ export function SiteChartsSection({
     <Section
       id="charts"
       title="Yield by seeding rate"
-      intro="Filled dots are rate means with their 95 % confidence intervals; open circles are the individual strips."
+      intro="Filled dots are rate means with their 95 % intervals (each rate on its own); open circles are the individual strips."
     >
       <div className="grid gap-4 lg:grid-cols-2">
         <ChartCard>
           <VegaChart
             spec={meansSpec}
             title="Rate means"
-            description={`Mean yield (${unit}) by rate with 95 % confidence intervals and each strip.`}
+            description={`Mean yield (${unit}) by rate with 95 % intervals (each rate on its own) and each strip.`}
           />
         </ChartCard>
         <ChartCard>
@@ -108,23 +116,22 @@ export function SiteNumbersSection({
   const { site } = report;
   const unit = site.units.yield;
   const digits = decimalsFor(analysis.grandMean);
+  const comparisons = siteComparisons(analysis, (rate) => rateName(label(rate)));
   return (
     <Section
       id="tables"
       title="The numbers"
-      intro={`Grand mean ${formatNumber(analysis.grandMean, digits)} ${unit}; CV ${formatNumber(analysis.cvPercent, 1)} %; LSD (5 %) ${formatNumber(analysis.lsd, digits)}; Tukey HSD ${formatNumber(analysis.hsd, digits)}. Rates sharing a group letter are not detectably different (Tukey).`}
+      intro={`Average over every strip ${formatNumber(analysis.grandMean, digits)} ${unit}. A rate “clearly” differs from the ${rateName(label(site.design.reference))} only when its whole interval in the difference table is on one side of zero; those intervals are Dunnett-adjusted: they allow for comparing every rate with it at once.`}
     >
-      <AnovaTable anova={analysis.anova} digits={digits} />
-      <div className="grid gap-4 lg:grid-cols-2">
-        <MeansTable means={analysis.means} label={label} unit={unit} digits={digits} />
-        <DifferencesTable
-          differences={analysis.differences}
-          label={label}
-          referenceLabel={label(site.design.reference)}
-          unit={unit}
-          digits={digits}
-        />
-      </div>
+      <MeansTable means={analysis.means} label={label} unit={unit} digits={digits} />
+      <PlainDifferencesTable
+        comparisons={comparisons}
+        rates={analysis.differences.map((d) => d.rate)}
+        label={label}
+        referenceLabel={label(site.design.reference)}
+        unit={unit}
+        digits={digits}
+      />
       <ComponentsTable
         rows={report.components.byRate}
         seedUnit={site.units.seed}
@@ -143,33 +150,69 @@ export function SiteChecksSection({
   const label = useRateLabel(report);
   const unit = report.site.units.yield;
   const digits = decimalsFor(analysis.grandMean);
-  if (analysis.missing === 0 && analysis.outliers.length === 0 && analysis.notes.length === 0)
-    return null;
+  if (analysis.missing === 0 && analysis.outliers.length === 0) return null;
   return (
     <Section id="checks" title="Missing and unusual strips">
       <ul className="space-y-2 text-ink">
         {analysis.missingEstimates.map((m) => (
           <li key={`m-${m.block}-${m.rate}`}>
             Block {m.block}, {rateName(label(m.rate))}: no yield. The analysis used an estimate of{' '}
-            {formatNumber(m.estimate, digits)} {unit} from the rest of the site, and lost one degree
-            of freedom for it.
+            {formatNumber(m.estimate, digits)} {unit} from the rest of the site, which makes the
+            comparisons a little less certain.
           </li>
         ))}
         {analysis.outliers.map((o) => (
           <li key={`o-${o.block}-${o.rate}`}>
-            Block {o.block}, {rateName(label(o.rate))}: {formatNumber(o.value, digits)} {unit} is
-            far from what its block and rate predict (studentized residual{' '}
-            {formatNumber(o.studentized, 1)}). It is kept in the analysis; check the weight and
-            area.
-          </li>
-        ))}
-        {analysis.notes.map((note, i) => (
-          <li key={`n-${i}`} className="text-ink-muted">
-            {note}
+            {outlierSentence(
+              {
+                block: o.block,
+                rate: rateName(label(o.rate)),
+                value: o.value,
+                pBonferroni: o.pBonferroni,
+              },
+              { unit, digits, scope: 'site' },
+            )}
           </li>
         ))}
       </ul>
     </Section>
+  );
+}
+
+/** The ANOVA, the means with Tukey letters, both kinds of p and the residual checks. */
+export function SiteStatisticianSection({
+  report,
+  analysis,
+}: SiteReportSectionProps & { analysis: Analysis | null }) {
+  const label = useRateLabel(report);
+  const { site } = report;
+  const unit = site.units.yield;
+  if (!analysis) return <StatisticianPart notes={report.forStatistician} />;
+  const digits = decimalsFor(analysis.grandMean);
+  return (
+    <StatisticianPart notes={report.forStatistician ?? analysis.notes}>
+      <AnovaTable anova={analysis.anova} digits={digits} />
+      <StatisticianBlock
+        title="Rate means and differences in full"
+        intro={`LSD (5 %) ${formatNumber(analysis.lsd, digits)}; Tukey HSD ${formatNumber(analysis.hsd, digits)}. Rates sharing a Tukey group letter are not detectably different by Tukey’s test.`}
+      >
+        <MeansTable
+          means={analysis.means}
+          label={label}
+          unit={unit}
+          digits={digits}
+          details
+          caption="Rate means with standard errors and Tukey groups"
+        />
+        <DifferencesDetailTable
+          differences={analysis.differences}
+          label={label}
+          referenceLabel={label(site.design.reference)}
+          unit={unit}
+          digits={digits}
+        />
+      </StatisticianBlock>
+    </StatisticianPart>
   );
 }
 

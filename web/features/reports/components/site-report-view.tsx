@@ -14,6 +14,7 @@ import {
   SiteChecksSection,
   SiteNotesSection,
   SiteNumbersSection,
+  SiteStatisticianSection,
 } from './site-report-sections';
 
 export function SiteReportView({ report, back }: { report: SiteReport; back?: BackTo }) {
@@ -82,6 +83,7 @@ export function SiteReportView({ report, back }: { report: SiteReport; back?: Ba
         </Alert>
       )}
       <SiteNotesSection report={report} />
+      <SiteStatisticianSection report={report} analysis={analysis} />
     </div>
   );
 }
