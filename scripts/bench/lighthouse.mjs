@@ -74,6 +74,14 @@ export async function runLighthouse({ base }) {
           onlyCategories: ['performance', 'accessibility'],
           ...(page.cookie ? { extraHeaders: { Cookie: page.cookie } } : {}),
         });
+        if (lhr.categories.performance.score === null) {
+          // Lighthouse could not read the trace (it happens on a very busy machine): say so, and
+          // leave the run out of the medians.
+          console.log(
+            `  run ${run}, ${page.label}: no score (${lhr.runtimeError?.code ?? 'metrics missing'}), left out`,
+          );
+          continue;
+        }
         const row = figures(lhr);
         runs.get(page.label).push({ row, lhr });
         console.log(
@@ -87,6 +95,10 @@ export async function runLighthouse({ base }) {
   fs.mkdirSync(DATA_DIR, { recursive: true });
   return pages.map(({ label }) => {
     const measured = runs.get(label);
+    if (measured.length === 0) {
+      console.log(`${label}: no run gave a score`);
+      return { page: label, runs: 0 };
+    }
     const row = { page: label, runs: measured.length };
     for (const key of Object.keys(measured[0].row))
       row[key] = median(measured.map((m) => m.row[key]));
@@ -98,7 +110,7 @@ export async function runLighthouse({ base }) {
       path.join(DATA_DIR, `lighthouse-${label.replace(/\W+/g, '-')}.json`),
       JSON.stringify(middle.lhr),
     );
-    console.log(`${label}, median: ${describe(row)}`);
+    console.log(`${label}, median of ${row.runs}: ${describe(row)}`);
     return row;
   });
 }
