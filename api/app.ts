@@ -185,7 +185,7 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use('/api/auth', createSignUpRouter(ctx));
-  app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_LOGIN * 5 }));
+  app.use('/api', createInvitationsRouter({ ...ctx, inviteLimit: config.RATE_LIMIT_INVITES }));
   app.use('/api', createHomeRouter(ctx));
   app.use(
     '/api/admin',

@@ -21,6 +21,8 @@ const EnvSchema = z
     WEB_DIST: z.string().default('dist/web'),
     TRUST_PROXY: z.enum(['on', 'off']).default('off'),
     RATE_LIMIT_LOGIN: z.coerce.number().int().min(1).default(10),
+    /** Invitations one coordinator may send, and invitation answers from one address, per hour. */
+    RATE_LIMIT_INVITES: z.coerce.number().int().min(1).default(50),
     /** A client must send all its headers within this time, and the whole request within the next. */
     HEADERS_TIMEOUT_MS: z.coerce.number().int().min(100).default(10_000),
     REQUEST_TIMEOUT_MS: z.coerce.number().int().min(100).default(30_000),

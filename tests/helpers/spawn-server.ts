@@ -93,6 +93,7 @@ export function serverEnv(
     SMTP_PORT: String(base.catcher.smtpPort),
     MAIL_CATCHER_URL: base.catcher.url,
     RATE_LIMIT_LOGIN: '1000',
+    RATE_LIMIT_INVITES: '1000',
     UPLOAD_DIR: `.data/test-uploads-${process.pid}`,
     WEB_DIST: process.env.WEB_DIST ?? 'dist/web',
     WEB_CONCURRENCY: '2',
