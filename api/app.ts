@@ -1,6 +1,7 @@
 // createApp(deps): the Express app serving the API and the built web app; no listen() here.
 import path from 'node:path';
 import fs from 'node:fs';
+import compression from 'compression';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type pg from 'pg';
@@ -32,6 +33,7 @@ import { createCsrf } from './middleware/csrf';
 import { rejectUnsafeText } from './middleware/body-guard';
 import { idempotency } from './middleware/idempotency';
 import { startJobRunner, type JobRunner } from './lib/job-runner';
+import { createWebShell } from './lib/web-shell';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createPassport, createSessionMiddleware } from './middleware/session';
 import { createReportsRouter } from './reports/reports.router';
@@ -108,6 +110,17 @@ export function createApp(deps: AppDeps): Express {
         },
       },
       strictTransportSecurity: config.NODE_ENV === 'production',
+    }),
+  );
+
+  // JSON answers and the app's page go gzip- or brotli-compressed when the browser takes it: a
+  // site's strips are ~30 kB of JSON, ~4 kB compressed, and on a phone's slow link that is the
+  // wait before the page shows. Build assets carry their own .br/.gz copies and are left alone.
+  // Sign-in answers (session and CSRF token) stay as they are, so no reflected input can be used
+  // to guess a secret from the compressed length.
+  app.use(
+    compression({
+      filter: (req, res) => !req.path.startsWith('/api/auth/') && compression.filter(req, res),
     }),
   );
 
@@ -190,10 +203,11 @@ export function createApp(deps: AppDeps): Express {
   if (fs.existsSync(path.join(webRoot, 'index.html'))) {
     app.use(precompressed(webRoot));
     app.use(express.static(webRoot, { index: false, maxAge: '1h', setHeaders: staticHeaders }));
-    app.get('/{*splat}', (_req, res) => {
-      res.set('Cache-Control', 'no-cache');
-      // root keeps the dot-folder check off the build folder itself (e.g. .data/web-x).
-      res.sendFile('index.html', { root: webRoot });
+    const webShell = createWebShell(webRoot);
+    app.get('/{*splat}', (req, res) => {
+      const page = webShell(req.path);
+      res.set({ 'Cache-Control': 'no-cache', ETag: page.etag });
+      res.type('html').send(page.html);
     });
   }
   app.use(errorHandler);

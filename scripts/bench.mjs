@@ -11,6 +11,7 @@
 //                      (comma list; lighthouse: mobile emulation, simulated slow 4G, 4× CPU).
 //                      "analysis" alone needs no web build and no PostgreSQL.
 //   BENCH_PROFILE      folder: start the server with --cpu-prof and leave its CPU profiles there
+//   BENCH_LIGHTHOUSE_RUNS  Lighthouse runs per page, default 3; the medians are reported
 //
 // Each part is a module in scripts/bench/; add a part there and list it below.
 import fs from 'node:fs';

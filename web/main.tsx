@@ -6,9 +6,15 @@ import { createRoot } from 'react-dom/client';
 import { z } from 'zod';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
+import { meQueryOptions } from './features/auth/api/get-me';
+import { queryClient } from './lib/query-client';
 
 // zod probes for eval support once at start-up; the CSP forbids eval, so tell zod not to try.
 z.config({ jitless: true });
+
+// Every page's loader asks who is signed in: ask now, while the page's own code is still loading,
+// rather than one round trip after it.
+void queryClient.prefetchQuery(meQueryOptions());
 
 const container = document.getElementById('root');
 if (!container) throw new Error('Sheaf needs an element with id "root" in index.html');

@@ -34,11 +34,11 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
-/** A full-page screenshot in .test-artifacts/ to look at (JPEG: a tall page encodes several times quicker than PNG). */
+/** A full-page PNG screenshot in .test-artifacts/, to look at. */
 export async function screenshot(page: Page, name: string): Promise<string> {
   fs.mkdirSync(ARTIFACTS, { recursive: true });
-  const file = path.join(ARTIFACTS, `${name}.jpg`);
-  await page.screenshot({ path: file, fullPage: true, type: 'jpeg', quality: 85 });
+  const file = path.join(ARTIFACTS, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
   return file;
 }
 

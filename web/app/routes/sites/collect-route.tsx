@@ -17,9 +17,13 @@ import { isNotFound, NotFoundPanel } from '../../route-errors';
 export const siteStripsLoader =
   (queryClient: QueryClient) =>
   async ({ params }: LoaderFunctionArgs) => {
+    // Ask for the strips while the sign-in check is still under way (one round trip, not two on
+    // a slow connection); a signed-out visitor's 401 is dropped and the app layout redirects.
+    const strips = params.siteId ? siteStripsQueryOptions(params.siteId) : null;
+    if (strips) void queryClient.prefetchQuery(strips);
     const user = await queryClient.ensureQueryData(meQueryOptions());
-    if (!user || !params.siteId) return null;
-    await queryClient.ensureQueryData(siteStripsQueryOptions(params.siteId));
+    if (!user || !strips) return null;
+    await queryClient.ensureQueryData(strips);
     return null;
   };
 

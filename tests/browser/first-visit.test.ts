@@ -1,0 +1,68 @@
+// A first visit on a phone loads only the code of the page asked for, and the page the server sends
+// names all of it, so the browser fetches it at once rather than after the entry code has run.
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchBrowser, openPage, signInThroughUi, startTestServer } from '../helpers/browser';
+
+const GROWER = 'grower1@millbrook.example';
+/** Code only other pages need: charts, the trial wizard, the grid, CSV import. */
+const OTHER_PAGES = /vega|trial-wizard|\/grid-|\/import-|papaparse/;
+
+/** Opens `url` and returns the app's script files the page fetched, and the HTML it was sent. */
+async function scriptsOf(page: Page, url: string, ready: () => Promise<unknown>) {
+  const scripts = new Set<string>();
+  const listen = (request: { url(): string; resourceType(): string }) => {
+    const { pathname } = new URL(request.url());
+    if (request.resourceType() === 'script' && pathname.startsWith('/assets/'))
+      scripts.add(pathname);
+  };
+  page.on('request', listen);
+  const response = await page.goto(url);
+  await ready();
+  page.off('request', listen);
+  return { scripts: [...scripts], html: (await response?.text()) ?? '' };
+}
+
+describe('first visit', () => {
+  let server: Awaited<ReturnType<typeof startTestServer>>;
+  let browser: Browser;
+
+  beforeAll(async () => {
+    server = await startTestServer();
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+  });
+
+  it('loads the sign-in page and a grower’s site page with only their own code, all named in the page sent', async () => {
+    const { page, errors, close } = await openPage(browser, 390);
+    try {
+      const signIn = await scriptsOf(page, `${server.baseUrl}/sign-in`, () =>
+        page.getByRole('button', { name: 'Sign in' }).waitFor(),
+      );
+      expect(signIn.scripts.some((file) => /\/sign-in-[\w-]+\.js$/.test(file))).toBe(true);
+      expect(signIn.scripts.filter((file) => OTHER_PAGES.test(file))).toEqual([]);
+      expect(signIn.scripts.filter((file) => !signIn.html.includes(`"${file}"`))).toEqual([]);
+
+      await signInThroughUi(page, server.baseUrl, GROWER);
+      const mine = await (await page.request.get(`${server.baseUrl}/api/sites/mine`)).json();
+      const siteId = (Array.isArray(mine) ? mine : mine.items)[0].id as string;
+      // A new tab, as when the grower opens a saved link: nothing of the app is in memory yet.
+      const tab = await page.context().newPage();
+      const site = await scriptsOf(tab, `${server.baseUrl}/sites/${siteId}`, () =>
+        tab
+          .getByRole('link', { name: /^Plot \d+,/ })
+          .first()
+          .waitFor(),
+      );
+      expect(site.html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/site-/);
+      expect(site.scripts.filter((file) => OTHER_PAGES.test(file))).toEqual([]);
+      expect(site.scripts.filter((file) => !site.html.includes(`"${file}"`))).toEqual([]);
+      expect(errors).toEqual([]);
+    } finally {
+      await close();
+    }
+  });
+});
