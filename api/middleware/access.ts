@@ -114,10 +114,29 @@ export function createPolicies(dataSource: DataSource) {
     growerUserId: string | null;
     published: boolean;
   }
-  /** Reads the site with its design once and keeps it on the request for the handler. */
-  async function siteFacts(req: Request, siteId: string): Promise<SiteFacts> {
-    const site = await findSiteWithDesign(dataSource.manager, siteId);
-    req.siteRead = site;
+  /**
+   * What the access check needs of a site. For reads (`keep`) it reads the site with its design
+   * and keeps it on the request, so the handler need not read it again; writes get the small
+   * read, since they lock and read the site themselves.
+   */
+  async function siteFacts(req: Request, siteId: string, keep: boolean): Promise<SiteFacts> {
+    const site = keep
+      ? await findSiteWithDesign(dataSource.manager, siteId)
+      : await dataSource
+          .getRepository(Site)
+          .createQueryBuilder('site')
+          .innerJoin('site.trial', 'trial')
+          .select([
+            'site.id',
+            'site.growerUserId',
+            'site.publishedAt',
+            'trial.id',
+            'trial.networkId',
+          ])
+          .where('site.id = :siteId', { siteId })
+          .getOne();
+    if (!site?.trial) throw new NotFound('Site');
+    if (keep) req.siteRead = site;
     return {
       networkId: site.trial!.networkId,
       growerUserId: site.growerUserId,
@@ -165,8 +184,10 @@ export function createPolicies(dataSource: DataSource) {
     siteId: string,
     allowGrower: boolean,
     allowMemberWhenPublished: boolean,
+    /** Keep the site with its design on the request (read handlers that use it). */
+    keep = false,
   ) {
-    const [ctx, site] = await Promise.all([context(req), siteFacts(req, siteId)]);
+    const [ctx, site] = await Promise.all([context(req), siteFacts(req, siteId, keep)]);
     const role = ctx.roles.get(site.networkId);
     if (isCoordinating(role)) return;
     if (!role) throw new NotFound('Site');
@@ -258,7 +279,7 @@ export function createPolicies(dataSource: DataSource) {
     siteReader: (param = 'siteId') =>
       policy(
         'site-reader',
-        (req) => checkSite(req, uuidParam(req, param, 'Site'), true, true),
+        (req) => checkSite(req, uuidParam(req, param, 'Site'), true, true, true),
         param,
       ),
     stripGrower: (param = 'stripId') =>

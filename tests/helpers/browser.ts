@@ -1,9 +1,11 @@
 // Browser-test helpers: the real app on a loopback port serving the built web app, and
 // Debian's Chromium driven by playwright-core.
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { AxeBuilder } from '@axe-core/playwright';
 import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
+import { inject } from 'vitest';
 import { createTestApp, type TestApp } from './app';
 
 export const ARTIFACTS = path.resolve('.test-artifacts');
@@ -113,16 +115,30 @@ export async function expectAccessible(page: Page): Promise<void> {
 
 const AXE_SETTLE_MS = 400;
 
-/**
- * Pages axe-core has checked in this test file, by width and path with ids left out: each kind
- * of page is checked once per width (axe takes seconds a page, most of a browser test's time).
- */
-const checkedPages = new Set<string>();
 const UUID = /[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/gi;
 
 function pageKind(page: Page): string {
-  const path = new URL(page.url()).pathname.replace(UUID, ':id');
-  return `${page.viewportSize()?.width ?? 0}:${path}`;
+  const where = new URL(page.url()).pathname.replace(UUID, ':id');
+  return `${page.viewportSize()?.width ?? 0}:${where}`;
+}
+
+/**
+ * Claims the axe check of a kind of page (width and path with ids left out) for this run: each
+ * kind is checked once per width across all test files (axe takes about a second a page, the
+ * largest share of the browser tests' time). A marker file made with the `wx` flag is the claim,
+ * so test files in other processes skip it; a check that did not finish gives its claim back.
+ */
+function claimAxeCheck(kind: string): { release(): void } | null {
+  const marker = path.join(
+    inject('axeChecked'),
+    crypto.createHash('sha1').update(kind).digest('hex'),
+  );
+  try {
+    fs.writeFileSync(marker, kind, { flag: 'wx' });
+  } catch {
+    return null;
+  }
+  return { release: () => fs.rmSync(marker, { force: true }) };
 }
 
 /**
@@ -136,8 +152,8 @@ function watchAccessibility(page: Page, errors: string[]) {
   const check = async () => {
     timer = null;
     if (page.isClosed()) return;
-    const where = pageKind(page);
-    if (checkedPages.has(where)) return;
+    const claim = claimAxeCheck(pageKind(page));
+    if (!claim) return;
     try {
       await page.waitForLoadState('load', { timeout: 5000 });
       for (const problem of await accessibilityProblems(page)) {
@@ -145,10 +161,10 @@ function watchAccessibility(page: Page, errors: string[]) {
         seen.add(problem);
         errors.push(problem);
       }
-      // Counted only once a check finished: an interrupted one is tried on the next visit.
-      checkedPages.add(where);
     } catch {
-      // The page navigated or closed while axe ran: the next navigation is checked instead.
+      // The page navigated or closed while axe ran: the next visit to this kind of page (here
+      // or in another file) checks it instead.
+      claim.release();
     }
   };
   page.on('framenavigated', (frame) => {
