@@ -116,7 +116,8 @@ describe('collecting strip data in the browser', () => {
     await page.getByTestId('outbox-status').filter({ hasText: '1 change waiting' }).waitFor();
     await page.reload();
     await page.getByRole('heading', { name: 'Plot 101' }).waitFor();
-    expect(await page.getByLabel('Test weight').inputValue()).toBe('38.5');
+    // The page may draw the server's values first; the edit appears once the device's queue is read.
+    await expect.poll(() => page.getByLabel('Test weight').inputValue()).toBe('38.5');
     await page.getByTestId('outbox-status').filter({ hasText: '1 change waiting' }).waitFor();
     await page.unroute('**/api/strips/**');
     // The outbox retries on its own every few seconds.
