@@ -55,18 +55,6 @@ export interface StripRecord {
   updatedAt: string | null;
 }
 
-/** Which site: by its id, or by the id of one of its strips. */
-export type SiteKey = string | { stripId: string };
-
-async function siteIdOf(manager: EntityManager, key: SiteKey): Promise<string> {
-  if (typeof key === 'string') return key;
-  const strip = await manager
-    .getRepository(Strip)
-    .findOne({ select: { id: true, siteId: true }, where: { id: key.stripId } });
-  if (!strip) throw new NotFound('Strip');
-  return strip.siteId;
-}
-
 /**
  * The site entity with its trial, the trial's rate levels (lowest first) and the grower; `lock`
  * also takes the site row's lock in the same query (writers wait on it).
@@ -134,10 +122,9 @@ export function toSiteRecord(site: Site): SiteRecord {
 /** The site with its trial's layout and rate levels; `lock` takes the row lock writers need first. */
 export async function loadSite(
   manager: EntityManager,
-  key: SiteKey,
+  siteId: string,
   options: { lock?: boolean } = {},
 ): Promise<SiteRecord> {
-  const siteId = await siteIdOf(manager, key);
   return toSiteRecord(await findSiteWithDesign(manager, siteId, options));
 }
 
@@ -252,21 +239,12 @@ export function stripsWithObservations(manager: EntityManager) {
 
 export async function loadSiteStrips(
   manager: EntityManager,
-  key: SiteKey,
+  siteId: string,
   options: { lock?: boolean } = {},
 ): Promise<StripRecord[]> {
-  const siteId = await siteIdOf(manager, key);
   const query = stripsWithObservations(manager).where('strip.siteId = :siteId', { siteId });
   if (options.lock) query.setLock('pessimistic_write', undefined, ['strip']);
   return (await query.getMany()).map(toStripRecord);
-}
-
-export async function loadStrip(manager: EntityManager, stripId: string): Promise<StripRecord> {
-  const strip = await stripsWithObservations(manager)
-    .where('strip.id = :stripId', { stripId })
-    .getOne();
-  if (!strip) throw new NotFound('Strip');
-  return toStripRecord(strip);
 }
 
 const sameValue = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
@@ -329,7 +307,8 @@ export async function advanceStripVersion(
 
 /**
  * Writes one strip's new values in the caller's transaction, after its site is locked and its
- * version advanced: the observation, the audit event and the site's data_version.
+ * version advanced: the observation, the audit event and the site's data_version. Returns the
+ * observation's new updatedAt (the value written, so the caller need not read it back).
  */
 export async function writeStripChange(
   manager: EntityManager,
@@ -341,12 +320,9 @@ export async function writeStripChange(
     before: Record<string, unknown>;
     after: Record<string, unknown>;
   },
-): Promise<void> {
-  await manager
-    .getRepository(Observation)
-    .upsert(observationRow(change.stripId, change.values, change.actorUserId), {
-      conflictPaths: ['stripId'],
-    });
+): Promise<{ updatedAt: string }> {
+  const row = observationRow(change.stripId, change.values, change.actorUserId);
+  await manager.getRepository(Observation).upsert(row, { conflictPaths: ['stripId'] });
   await recordAudit(manager, {
     actorUserId: change.actorUserId,
     entityType: 'strip',
@@ -359,4 +335,5 @@ export async function writeStripChange(
   await manager
     .getRepository(Site)
     .update(change.siteId, { dataVersion: () => 'data_version + 1', updatedAt: () => 'now()' });
+  return { updatedAt: row.updatedAt!.toISOString() };
 }

@@ -52,6 +52,8 @@ declare module 'express-serve-static-core' {
     siteRead?: Site;
     /** The network of the trial a trial policy checked for this request. */
     trialNetworkId?: string;
+    /** The site of the strip a strip policy checked for this request. */
+    stripSiteId?: string;
   }
 }
 
@@ -144,16 +146,12 @@ export function createPolicies(dataSource: DataSource) {
     };
   }
 
-  /** The site a strip or a photo belongs to. */
-  async function parentSite(
-    entity: typeof Strip | typeof Attachment,
-    id: string,
-    what: string,
-  ): Promise<string> {
+  /** The site a photo belongs to. */
+  async function photoSite(attachmentId: string): Promise<string> {
     const row = await dataSource
-      .getRepository<{ id: string; siteId: string }>(entity)
-      .findOne({ select: { id: true, siteId: true }, where: { id } });
-    if (!row) throw new NotFound(what);
+      .getRepository(Attachment)
+      .findOne({ select: { id: true, siteId: true }, where: { id: attachmentId } });
+    if (!row) throw new NotFound('Photo');
     return row.siteId;
   }
 
@@ -188,12 +186,51 @@ export function createPolicies(dataSource: DataSource) {
     keep = false,
   ) {
     const [ctx, site] = await Promise.all([context(req), siteFacts(req, siteId, keep)]);
+    decideSite(ctx, site, allowGrower, allowMemberWhenPublished);
+  }
+
+  function decideSite(
+    ctx: AccessContext,
+    site: SiteFacts,
+    allowGrower: boolean,
+    allowMemberWhenPublished: boolean,
+  ) {
     const role = ctx.roles.get(site.networkId);
     if (isCoordinating(role)) return;
     if (!role) throw new NotFound('Site');
     if (allowGrower && growsSite(role, site.growerUserId, ctx.userId)) return;
     if (allowMemberWhenPublished && site.published) return;
     throw new Forbidden();
+  }
+
+  /**
+   * A strip's site facts in one query (a strip change is the busiest write); the site's id is
+   * kept on the request so the handler need not look it up again.
+   */
+  async function stripSiteFacts(req: Request, stripId: string): Promise<SiteFacts> {
+    const strip = await dataSource
+      .getRepository(Strip)
+      .createQueryBuilder('strip')
+      .innerJoin('strip.site', 'site')
+      .innerJoin('site.trial', 'trial')
+      .select([
+        'strip.id',
+        'strip.siteId',
+        'site.id',
+        'site.growerUserId',
+        'site.publishedAt',
+        'trial.id',
+        'trial.networkId',
+      ])
+      .where('strip.id = :stripId', { stripId })
+      .getOne();
+    if (!strip?.site?.trial) throw new NotFound('Strip');
+    req.stripSiteId = strip.siteId;
+    return {
+      networkId: strip.site.trial.networkId,
+      growerUserId: strip.site.growerUserId,
+      published: strip.site.publishedAt !== null,
+    };
   }
 
   return {
@@ -286,8 +323,9 @@ export function createPolicies(dataSource: DataSource) {
       policy(
         'strip-grower',
         async (req) => {
-          const siteId = await parentSite(Strip, uuidParam(req, param, 'Strip'), 'Strip');
-          await checkSite(req, siteId, true, false);
+          const stripId = uuidParam(req, param, 'Strip');
+          const [ctx, site] = await Promise.all([context(req), stripSiteFacts(req, stripId)]);
+          decideSite(ctx, site, true, false);
         },
         param,
       ),
@@ -309,7 +347,7 @@ export function createPolicies(dataSource: DataSource) {
       policy(
         'attachment-reader',
         async (req) => {
-          const siteId = await parentSite(Attachment, uuidParam(req, param, 'Photo'), 'Photo');
+          const siteId = await photoSite(uuidParam(req, param, 'Photo'));
           await checkSite(req, siteId, true, true);
         },
         param,

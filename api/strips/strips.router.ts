@@ -9,6 +9,11 @@ export function callerOf(req: Request): Caller {
   return { userId: req.user!.id, roles: req.access?.roles ?? new Map() };
 }
 
+/** The strip of the route and its site, as the strip policy found it. */
+function stripOf(req: Request) {
+  return { stripId: String(req.params.stripId), siteId: req.stripSiteId! };
+}
+
 export function createStripsRouter(ctx: RouterContext) {
   const router = Router();
   const routes = secureRouter(router, ctx.table, '/api');
@@ -19,12 +24,12 @@ export function createStripsRouter(ctx: RouterContext) {
   });
 
   routes.get('/strips/:stripId', ctx.policies.stripGrower(), async (req, res) => {
-    res.json(await strips.getStrip(String(req.params.stripId)));
+    res.json(await strips.getStrip(stripOf(req)));
   });
 
   routes.patch('/strips/:stripId', ctx.policies.stripGrower(), async (req, res) => {
     const input = UpdateStripInputSchema.parse(req.body);
-    res.json(await strips.updateStrip(String(req.params.stripId), input, req.user!.id));
+    res.json(await strips.updateStrip(stripOf(req), input, req.user!.id));
   });
 
   return router;

@@ -9,11 +9,10 @@ import {
   changedFields,
   loadSite,
   loadSiteStrips,
-  loadStrip,
   patchAlreadyApplied,
   assertSiteOpen,
   writeStripChange,
-  type SiteKey,
+  type StripRecord,
 } from '../lib/strip-data';
 import { growsSite, isCoordinating } from '../middleware/access';
 import { presentSite, presentStrips } from '../lib/strip-presenter';
@@ -27,10 +26,10 @@ export function createStripsService(deps: { dataSource: DataSource }) {
   const { dataSource } = deps;
 
   /** The site and all its strips: the outlier warning of one strip looks at the whole site. */
-  async function loadWholeSite(key: SiteKey) {
+  async function loadWholeSite(siteId: string) {
     const [site, strips] = await Promise.all([
-      loadSite(dataSource.manager, key),
-      loadSiteStrips(dataSource.manager, key),
+      loadSite(dataSource.manager, siteId),
+      loadSiteStrips(dataSource.manager, siteId),
     ]);
     return { site, strips };
   }
@@ -57,48 +56,64 @@ export function createStripsService(deps: { dataSource: DataSource }) {
       };
     },
 
-    async getStrip(stripId: string): Promise<StripDto> {
-      return presentOne(await loadWholeSite({ stripId }), stripId);
+    async getStrip(change: { stripId: string; siteId: string }): Promise<StripDto> {
+      return presentOne(await loadWholeSite(change.siteId), change.stripId);
     },
 
     /**
      * Applies a partial update made on `input.version`, in one transaction: lock the site row,
-     * refuse a published site (423), check the strip's version (409 with the current strip,
-     * unless the values sent are already stored: a retried send), then write the observation,
-     * its audit event and the site's data_version. Equal values change nothing.
+     * refuse a published site (423), read the site's strips and check this strip's version (409
+     * with the current strip, unless the values sent are already stored: a retried send), then
+     * write the observation, its audit event and the site's data_version. Equal values change
+     * nothing. The answer is built from what the transaction read and wrote: with the site row
+     * locked, nothing else changed the site's strips meanwhile.
      */
     async updateStrip(
-      stripId: string,
+      change: { stripId: string; siteId: string },
       input: UpdateStripInput,
       actorUserId: string,
     ): Promise<StripDto> {
-      const { outcome, site } = await dataSource.transaction(async (manager) => {
-        const site = await loadSite(manager, { stripId }, { lock: true });
+      const { stripId, siteId } = change;
+      const { outcome, whole } = await dataSource.transaction(async (manager) => {
+        const site = await loadSite(manager, siteId, { lock: true });
         assertSiteOpen(site);
-        const current = await loadStrip(manager, stripId);
-        const answer = (outcome: 'saved' | 'stale' | 'unchanged') => ({ outcome, site });
+        const strips = await loadSiteStrips(manager, siteId);
+        const current = strips.find((strip) => strip.stripId === stripId);
+        if (!current) throw new NotFound('Strip');
+        const answer = (outcome: 'saved' | 'stale' | 'unchanged', now = strips) => ({
+          outcome,
+          whole: { site, strips: now },
+        });
         if (current.version !== input.version) {
           return answer(patchAlreadyApplied(current.values, input.values) ? 'unchanged' : 'stale');
         }
         const merged = ObservationValuesSchema.parse({ ...current.values, ...input.values });
         const diff = changedFields(current.values, merged);
         if (!diff) return answer('unchanged');
-        if (!(await advanceStripVersion(manager, stripId, current.version))) return answer('stale');
-        await writeStripChange(manager, {
-          siteId: site.siteId,
+        if (!(await advanceStripVersion(manager, stripId, current.version))) {
+          throw new Error(`strip ${stripId} changed under its site's lock`);
+        }
+        const { updatedAt } = await writeStripChange(manager, {
+          siteId,
           stripId,
           values: merged,
           actorUserId,
           before: diff.before,
           after: diff.after,
         });
-        return answer('saved');
+        const saved: StripRecord = {
+          ...current,
+          values: merged,
+          version: current.version + 1,
+          hasObservation: true,
+          updatedAt,
+        };
+        return answer(
+          'saved',
+          strips.map((strip) => (strip.stripId === stripId ? saved : strip)),
+        );
       });
-      // The site's design did not change (its row was locked); only its strips are read again.
-      const fresh = presentOne(
-        { site, strips: await loadSiteStrips(dataSource.manager, site.siteId) },
-        stripId,
-      );
+      const fresh = presentOne(whole, stripId);
       if (outcome === 'stale') {
         throw new Conflict(
           `Someone saved this strip after you opened it (now version ${fresh.version}). Reload their values, or save yours over them.`,

@@ -72,6 +72,9 @@ describe('strip data: GET /api/sites/:siteId/strips and PATCH /api/strips/:strip
     // 63 plants on 3 × 3 ft of 8-inch row = 63 ÷ 6 ft² = 10.5 plants/ft² [PSU-WS].
     expect(res.body.derived.plantsPerSquareFoot).toBeCloseTo(10.5, 10);
     expect(await dataVersion(t.dataSource, site.siteId)).toBe(before + 1);
+    // The answer is built from what the change wrote, without reading it back: a fresh read
+    // must give the very same strip.
+    expect((await grower.get(`/api/strips/${strip.id}`)).body).toEqual(res.body);
     const [event] = await t.dataSource.query(
       `SELECT * FROM audit_events WHERE entity_id = $1 ORDER BY created_at DESC LIMIT 1`,
       [strip.id],
