@@ -125,11 +125,9 @@ export async function runHttp({ autocannon, options, server, ids, headers, datab
     const prepared = await endpoint.prepare(context);
     const shape = { rate: endpoint.rate, request: prepared.request };
     const allowedStatuses = endpoint.allowedStatuses ?? [];
-    if (options.warmup > 0)
-      await fixedRate(autocannon, { ...shape, duration: options.warmup, allowedStatuses });
-    await prepared.refresh?.();
     const result = await fixedRate(autocannon, {
       ...shape,
+      warmup: options.warmup,
       duration: options.duration,
       allowedStatuses,
     });

@@ -8,6 +8,10 @@
 // its answer only once a second, so the schedule holds unless an answer takes over a second.
 // Latency is recorded from each response (autocannon's own "coordinated omission" correction is
 // off: with a per-connection rate it adds made-up samples at 1 ms steps).
+//
+// The warm-up is the first seconds of the same run: the arrivals never pause or restart between
+// warm-up and measurement (a restart starts 50 load generators at once, and the first seconds
+// after it measured the load generator), and only requests sent after the warm-up are recorded.
 
 const MAX_SLICES = 50;
 const sleep = (ms) => new Promise((resolve) => setTimeout(resolve, ms));
@@ -46,13 +50,20 @@ function collector(allowedStatuses) {
 
 const round = (value) => Math.round(value * 10) / 10;
 
-/** `rate` requests per second for `duration` seconds, arriving evenly; see the file comment. */
-export async function fixedRate(autocannon, { rate, duration, request, allowedStatuses = [] }) {
+/**
+ * `rate` requests per second for `warmup` + `duration` seconds, arriving evenly (see the file
+ * comment); only requests sent after the warm-up are recorded.
+ */
+export async function fixedRate(
+  autocannon,
+  { rate, duration, warmup = 0, request, allowedStatuses = [] },
+) {
   const slices = Math.min(rate, MAX_SLICES);
   const spacing = 1000 / slices;
   const results = collector(allowedStatuses);
   const trackers = [];
   const started = performance.now();
+  const recordFrom = started + warmup * 1000;
   for (let i = 0; i < slices; i++) {
     const sliceRate = Math.floor(rate / slices) + (i < rate % slices ? 1 : 0);
     const wait = started + i * spacing - performance.now();
@@ -61,14 +72,17 @@ export async function fixedRate(autocannon, { rate, duration, request, allowedSt
       ...request,
       connections: sliceRate,
       overallRate: sliceRate,
-      duration,
+      duration: warmup + duration,
       ignoreCoordinatedOmission: true,
       timeout: 10,
     });
-    tracker.on('response', (_client, status, _bytes, ms) => results.record(status, ms));
+    tracker.on('response', (_client, status, _bytes, ms) => {
+      if (performance.now() - ms >= recordFrom) results.record(status, ms);
+    });
     trackers.push(tracker);
   }
   const finished = await Promise.all(trackers);
+  // autocannon counts errors and timeouts over the whole run, warm-up included.
   return results.summary({
     duration,
     errors: finished.reduce((n, r) => n + r.errors - r.timeouts, 0),
