@@ -158,10 +158,12 @@ function routePreloads(routerFile: string): Plugin {
       const chunks = Object.values(bundle).filter((item) => item.type === 'chunk');
       const byFile = new Map(chunks.map((chunk) => [chunk.fileName, chunk]));
       const byModule = new Map<string, string>();
-      for (const chunk of chunks) {
-        if (chunk.facadeModuleId)
-          byModule.set(chunk.facadeModuleId.replace(/\.[cm]?[jt]sx?$/, ''), chunk.fileName);
-      }
+      const moduleKey = (id: string) => id.replace(/\.[cm]?[jt]sx?$/, '');
+      // A route module is the face of its own chunk, or one of the modules of a group's chunk.
+      for (const chunk of chunks)
+        for (const id of chunk.moduleIds) byModule.set(moduleKey(id), chunk.fileName);
+      for (const chunk of chunks)
+        if (chunk.facadeModuleId) byModule.set(moduleKey(chunk.facadeModuleId), chunk.fileName);
       const closure = (start: string[]) => {
         const seen = new Set<string>();
         const stack = [...start];
@@ -176,9 +178,7 @@ function routePreloads(routerFile: string): Plugin {
       // The entry's own imports are in index.html already.
       const inShell = closure(chunks.filter((chunk) => chunk.isEntry).map((c) => c.fileName));
       const table = readRouteTable(ts, path.resolve(routerFile)).map((leaf) => {
-        const own = leaf.modules.map((module) =>
-          byModule.get(module.replace(/\.[cm]?[jt]sx?$/, '')),
-        );
+        const own = leaf.modules.map((module) => byModule.get(moduleKey(module)));
         if (own.some((file) => !file))
           this.error(`route ${leaf.path}: a route module has no chunk of its own`);
         const files = [...closure(own as string[])].filter((file) => !inShell.has(file));

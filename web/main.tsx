@@ -1,7 +1,7 @@
 // Browser entry: self-hosted font, global styles, providers and the router.
 import '@fontsource-variable/inter';
 import './styles/app.css';
-import { StrictMode } from 'react';
+import { startTransition, StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { z } from 'zod';
 import { AppProvider } from './app/provider';
@@ -19,10 +19,15 @@ void queryClient.prefetchQuery(meQueryOptions());
 const container = document.getElementById('root');
 if (!container) throw new Error('Sheaf needs an element with id "root" in index.html');
 
-createRoot(container).render(
-  <StrictMode>
-    <AppProvider>
-      <AppRouter />
-    </AppProvider>
-  </StrictMode>,
-);
+// The first render as a transition: React then renders in slices and lets the browser in between,
+// rather than in one long task that a tap on a slow phone would have to wait out.
+const root = createRoot(container);
+startTransition(() => {
+  root.render(
+    <StrictMode>
+      <AppProvider>
+        <AppRouter />
+      </AppProvider>
+    </StrictMode>,
+  );
+});

@@ -4,6 +4,10 @@
 // first visit downloads the page's own code together with the entry code instead of one round
 // trip after the entry has run. Build files never change while the server runs: each path
 // pattern's page is put together once.
+//
+// The page also asks for the API answers it shows first (`<link rel="preload" as="fetch">`): who
+// is signed in, and on a site page its strips. They then download alongside the app's code
+// instead of after it has run, and the app's own request for them takes the preloaded answer.
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -43,6 +47,52 @@ function readPreloads(webRoot: string): RoutePreload[] {
 
 const escapeAttribute = (value: string) => value.replace(/&/g, '&amp;').replace(/"/g, '&quot;');
 
+/** Who is signed in: every page asks first (web/main.tsx). */
+const SIGNED_IN_CHECK = '/api/auth/me';
+
+/**
+ * The API answers a page needs for its first paint, by route path; `:name` is filled from the
+ * URL. Kept to what the pages' loader asks for (`siteStripsLoader` in
+ * web/app/routes/sites/collect-route.tsx).
+ */
+const SITE_STRIPS = ['/api/sites/:siteId/strips'];
+const FIRST_DATA: Record<string, string[]> = {
+  '/sites/:siteId': SITE_STRIPS,
+  '/sites/:siteId/strips/:stripId': SITE_STRIPS,
+  '/sites/:siteId/grid': SITE_STRIPS,
+  '/sites/:siteId/import': SITE_STRIPS,
+  '/sites/:siteId/photos': SITE_STRIPS,
+  '/sites/:siteId/history': SITE_STRIPS,
+};
+
+/** The URL's value for each `:name` of a route path; null when a value is not a plain id. */
+function routeParams(pattern: string, pathname: string): Map<string, string> | null {
+  const want = pattern.split('/').filter(Boolean);
+  const have = pathname.split('/').filter(Boolean);
+  const params = new Map<string, string>();
+  for (const [i, segment] of want.entries()) {
+    if (!segment.startsWith(':')) continue;
+    const value = have[i] ?? '';
+    if (!/^[A-Za-z0-9-]{1,64}$/.test(value)) return null;
+    params.set(segment, value);
+  }
+  return params;
+}
+
+const fetchPreload = (url: string) =>
+  `<link rel="preload" as="fetch" crossorigin href="${escapeAttribute(url)}">`;
+
+/** The preload links of the data a page shows first. */
+function dataPreloads(route: RoutePreload | undefined, pathname: string): string {
+  const urls = [SIGNED_IN_CHECK];
+  const wanted = route ? FIRST_DATA[route.path] : undefined;
+  const params = wanted && route ? routeParams(route.path, pathname) : null;
+  if (wanted && params)
+    for (const template of wanted)
+      urls.push(template.replace(/:[A-Za-z]+/g, (name) => params.get(name) ?? name));
+  return urls.map(fetchPreload).join('');
+}
+
 export interface ShellPage {
   html: string;
   /** A strong validator of the HTML, so a browser revalidating the page gets a 304. */
@@ -59,16 +109,16 @@ export function createWebShell(webRoot: string): (pathname: string) => ShellPage
   const plain = shellPage(fs.readFileSync(path.join(webRoot, 'index.html'), 'utf8'));
   const preloads = readPreloads(webRoot);
   const pages = new Map<string, ShellPage>();
-  const pageFor = (route: RoutePreload | undefined): ShellPage => {
-    if (!route || route.files.length === 0) return plain;
+  const codeFor = (route: RoutePreload | undefined): string => {
+    if (!route || route.files.length === 0) return plain.html;
     const cached = pages.get(route.path);
-    if (cached) return cached;
+    if (cached) return cached.html;
     const links = route.files
       .map((file) => `<link rel="modulepreload" crossorigin href="/${escapeAttribute(file)}">`)
       .join('');
     const page = shellPage(plain.html.replace('</head>', `${links}</head>`));
     pages.set(route.path, page);
-    return page;
+    return page.html;
   };
   return (pathname) => {
     let best: RoutePreload | undefined;
@@ -80,6 +130,6 @@ export function createWebShell(webRoot: string): (pathname: string) => ShellPage
         bestScore = score;
       }
     }
-    return pageFor(best);
+    return shellPage(codeFor(best).replace('</head>', `${dataPreloads(best, pathname)}</head>`));
   };
 }

@@ -21,6 +21,12 @@ function buildFolder(preloads: unknown): string {
 
 const preloadsIn = (html: string) =>
   [...html.matchAll(/<link rel="modulepreload" crossorigin href="([^"]+)">/g)].map((m) => m[1]);
+const dataPreloadsIn = (html: string) =>
+  [...html.matchAll(/<link rel="preload" as="fetch" crossorigin href="([^"]+)">/g)].map(
+    (m) => m[1],
+  );
+const withoutDataPreloads = (html: string) =>
+  html.replace(/<link rel="preload" as="fetch" crossorigin href="[^"]+">/g, '');
 
 describe('web shell', () => {
   const folders: string[] = [];
@@ -59,7 +65,7 @@ describe('web shell', () => {
     expect(preloadsIn(shell('/trials/8f0c').html)).toEqual(['/assets/trial-e.js']);
 
     const unknown = shell('/nothing/here');
-    expect(unknown.html).toBe(INDEX);
+    expect(withoutDataPreloads(unknown.html)).toBe(INDEX);
     // The same page always carries the same validator; different pages differ.
     expect(shell('/sign-in').etag).toBe(signIn.etag);
     expect(unknown.etag).not.toBe(signIn.etag);
@@ -68,6 +74,35 @@ describe('web shell', () => {
   it('sends the plain page when the build has no list', () => {
     const dir = buildFolder(undefined);
     folders.push(dir);
-    expect(createWebShell(dir)('/sign-in').html).toBe(INDEX);
+    expect(withoutDataPreloads(createWebShell(dir)('/sign-in').html)).toBe(INDEX);
+  });
+
+  it('asks for the data a page shows first alongside its code: who is signed in, a site’s strips', () => {
+    const dir = buildFolder([
+      { path: '/sign-in', files: ['assets/sign-in-b.js'] },
+      { path: '/sites/:siteId', files: ['assets/site-f.js'] },
+      { path: '/sites/:siteId/grid', files: ['assets/grid-g.js'] },
+      { path: '/sites/:siteId/map', files: ['assets/map-h.js'] },
+    ]);
+    folders.push(dir);
+    const shell = createWebShell(dir);
+    const siteId = '6f1c2a9e-0b7d-4c1e-9a55-3d2b8e7f4a10';
+    expect(dataPreloadsIn(shell('/sign-in').html)).toEqual(['/api/auth/me']);
+    expect(dataPreloadsIn(shell(`/sites/${siteId}`).html)).toEqual([
+      '/api/auth/me',
+      `/api/sites/${siteId}/strips`,
+    ]);
+    expect(dataPreloadsIn(shell(`/sites/${siteId}/grid`).html)).toEqual([
+      '/api/auth/me',
+      `/api/sites/${siteId}/strips`,
+    ]);
+    // Only pages that show the strips first ask for them.
+    expect(dataPreloadsIn(shell(`/sites/${siteId}/map`).html)).toEqual(['/api/auth/me']);
+    // A segment that is not a plain id never reaches the page.
+    const odd = shell('/sites/%22%3E%3Cscript%3E');
+    expect(dataPreloadsIn(odd.html)).toEqual(['/api/auth/me']);
+    expect(odd.html).not.toContain('script%3E');
+    // The page's validator follows what the page asks for.
+    expect(shell(`/sites/${siteId}`).etag).not.toBe(shell('/sites/another-site').etag);
   });
 });
