@@ -5,6 +5,7 @@ import { cleanup, screen } from '@testing-library/react';
 import { createElement } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
 import type { ComponentRow, PooledQuery, PooledReport } from '../../shared/schemas/report';
+import { decimalsFor } from '../../shared/reports/format-numbers';
 import { designUnits } from '../../shared/units/design-units';
 import { AmendmentsNotice } from '../../web/features/reports/components/amendments-notice';
 import { FiltersForm } from '../../web/features/reports/components/pooled-report-controls';
@@ -14,7 +15,7 @@ import { refuseFetch, renderWithProviders } from './render';
 afterEach(cleanup);
 
 const METRIC_UNITS = {
-  yield: 'kg/ha',
+  yield: 't/ha',
   seed: 'kg/ha',
   money: '$/ha',
   system: 'metric' as const,
@@ -22,7 +23,7 @@ const METRIC_UNITS = {
 };
 
 describe('ComponentsTable on a metric trial', () => {
-  it('shows plants and heads per m²', () => {
+  it('shows plants and heads per m² and yield in t/ha with two decimals', () => {
     const row: ComponentRow = {
       rate: '1',
       label: 'full',
@@ -33,7 +34,7 @@ describe('ComponentsTable on a metric trial', () => {
       tillersPerPlant: 2.1,
       headsPerSquareFoot: 50,
       headsPerPlant: 2.5,
-      yield: 4000,
+      yield: 4.0353,
       seedReturn: 30,
       returnOverSeedCost: 900,
     };
@@ -41,10 +42,10 @@ describe('ComponentsTable on a metric trial', () => {
       createElement(ComponentsTable, {
         rows: [row],
         seedUnit: 'kg/ha',
-        yieldUnit: 'kg/ha',
+        yieldUnit: 't/ha',
         moneyUnit: '$/ha',
         perArea: designUnits('metric').perArea,
-        digits: 0,
+        digits: decimalsFor(4.0353),
       }),
     );
     expect(screen.getByText('Plants/m²')).toBeTruthy();
@@ -53,6 +54,9 @@ describe('ComponentsTable on a metric trial', () => {
     // 50/ft² = 538/m².
     expect(screen.getByText('215')).toBeTruthy();
     expect(screen.getByText('538')).toBeTruthy();
+    // Source: NIST SP 811 (2008 ed.), Appendix B.8 / SI: 1 t = 1000 kg; 4,035.3 kg/ha = 4.04 t/ha.
+    expect(screen.getByText('Yield (t/ha)')).toBeTruthy();
+    expect(screen.getByText('4.04')).toBeTruthy();
   });
 });
 
