@@ -10,6 +10,8 @@ import { designUnits } from '../../shared/units/design-units';
 import { AmendmentsNotice } from '../../web/features/reports/components/amendments-notice';
 import { FiltersForm } from '../../web/features/reports/components/pooled-report-controls';
 import { ComponentsTable } from '../../web/features/reports/components/report-tables';
+import { ResponseModelsSection } from '../../web/features/reports/components/response-models-section';
+import type { ResponseModels } from '../../shared/analysis/index';
 import { refuseFetch, renderWithProviders } from './render';
 
 afterEach(cleanup);
@@ -119,5 +121,41 @@ describe('Pooled report prices on a metric trial', () => {
     // $2.00/kg × 0.453 592 37 kg/lb = $0.907/lb; $300/t × 0.027 216 t/bu = $8.165/bu.
     expect(queries.at(-1)!.seedPrice).toBeCloseTo(0.90718474, 8);
     expect(queries.at(-1)!.grainPrice).toBeCloseTo(8.1646627, 6);
+  });
+});
+
+describe('Price ratios on a metric pooled report', () => {
+  const curves = (priceRatio: number) =>
+    ({
+      models: [],
+      chosen: 'quadratic',
+      intervalMethod: 'delta method',
+      points: 12,
+      sites: 3,
+      testedRange: { low: 30, high: 240 },
+      priceRatio,
+      economicTable: [{ priceRatio, optimum: null }],
+    }) as ResponseModels;
+
+  it('gives seed $/kg ÷ grain $/kg whether grain was priced per tonne (t/ha) or per kg (kg/ha)', () => {
+    // Source: NIST SP 811 (2008 ed.), Appendix B.8 / SI: 1 t = 1000 kg. Seed at $1.10/kg and
+    // grain at $260/t ($0.26/kg): the analysis of a t/ha report works with 1.10 ÷ 260 = 0.00423,
+    // an older kg/ha report with 1.10 ÷ 0.26 = 4.231; both read 4.231 per kg ÷ per kg.
+    for (const [ratio, yieldUnit] of [
+      [1.1 / 260, 't/ha'],
+      [1.1 / 0.26, 'kg/ha'],
+    ] as const) {
+      renderWithProviders(
+        createElement(ResponseModelsSection, {
+          curves: curves(ratio),
+          seedUnit: 'kg/ha',
+          metric: true,
+          yieldUnit,
+        }),
+      );
+      expect(screen.getByText('Seed price per kg ÷ grain price per kg')).toBeTruthy();
+      expect(screen.getByText('4.231')).toBeTruthy();
+      cleanup();
+    }
   });
 });

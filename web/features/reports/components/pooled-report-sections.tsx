@@ -335,6 +335,7 @@ export function PooledModelSections({ report, analysis }: PooledAnalysisSectionP
         curves={analysis.curves}
         seedUnit={report.trial.units.seed}
         metric={reportDisplayUnits(report.trial.units).system === 'metric'}
+        yieldUnit={report.trial.units.yield}
       />
       <MixedModelSection
         mixed={analysis.mixed}
