@@ -4,6 +4,7 @@
 import {
   ACRES_PER_HECTARE,
   KG_PER_HA_PER_LB_PER_ACRE,
+  KILOGRAMS_PER_TONNE,
   SQUARE_FEET_PER_SQUARE_METRE,
 } from '../../shared/units/constants';
 import { plotNumber } from '../../shared/units/plot-number';
@@ -53,7 +54,7 @@ const IMPERIAL_DERIVED: [string, Derived][] = (
   ] as const
 ).map((key) => [key.replace(/[A-Z]/g, (m) => `_${m.toLowerCase()}`), plain(key)]);
 
-/** A metric trial's derived columns: per m², kg/ha, m² and $ per hectare only. */
+/** A metric trial's derived columns: per m², seed in kg/ha, yield in t/ha, m² and $ per hectare only. */
 const METRIC_DERIVED: [string, Derived][] = [
   [
     'target_seeds_per_square_metre',
@@ -69,7 +70,7 @@ const METRIC_DERIVED: [string, Derived][] = [
     'harvested_area_square_metres',
     times('harvestedAreaSquareFeet', 1 / SQUARE_FEET_PER_SQUARE_METRE),
   ],
-  ['yield_kilograms_per_hectare', plain('yieldKilogramsPerHectare')],
+  ['yield_tonnes_per_hectare', times('yieldKilogramsPerHectare', 1 / KILOGRAMS_PER_TONNE)],
   ['seed_return', plain('seedReturn')],
   ['return_over_seed_cost_per_hectare', times('returnOverSeedCostPerAcre', ACRES_PER_HECTARE)],
 ];

@@ -20,6 +20,7 @@ import {
   formatMoney,
   formatNumber,
   formatP,
+  squaredDecimals,
 } from '../../shared/reports/format-numbers';
 import { networkComparisons, rateName, siteComparisons } from '../../shared/reports/findings';
 import {
@@ -128,8 +129,8 @@ function anovaTable(
     rows.map((r) => [
       SOURCES[r.source] ?? r.source,
       r.df,
-      formatNumber(r.ss, digits),
-      r.ms === undefined ? '' : formatNumber(r.ms, digits),
+      formatNumber(r.ss, squaredDecimals(digits)),
+      r.ms === undefined ? '' : formatNumber(r.ms, squaredDecimals(digits)),
       r.f === undefined ? '' : formatNumber(r.f, 2),
       pCell(r.p),
     ]),

@@ -35,6 +35,7 @@ import {
   ACRES_PER_HECTARE,
   GRAMS_PER_POUND,
   KG_PER_HA_PER_LB_PER_ACRE,
+  KILOGRAMS_PER_TONNE,
 } from '../../shared/units/constants';
 import { plotNumber } from '../../shared/units/plot-number';
 import { reportDisplayUnits } from '../../shared/units/report-units';
@@ -103,14 +104,23 @@ export interface DerivedStrip {
 /** The rate key the analysis uses: the multiplier as a string ("0.5"). */
 export const rateKey = (multiplier: number) => String(Number(multiplier));
 
-export function unitsOf(trial: TrialFacts): ReportUnits {
+/** A metric trial's yield unit: tonnes per hectare, as metric growers quote grain yield. */
+export const METRIC_YIELD_UNIT = 't/ha';
+/** The metric yield unit of pooled inputs published before yields were given in t/ha. */
+const OLD_METRIC_YIELD_UNIT = 'kg/ha';
+
+/**
+ * The report's units. `yieldUnit` names the unit stored yields are in when they were frozen in a
+ * published snapshot before metric yields became t/ha (kg/ha); live reports leave it out.
+ */
+export function unitsOf(trial: TrialFacts, yieldUnit?: string): ReportUnits {
   const common = {
     system: trial.unitSystem,
     bushelPounds: cropFacts(trial.crop, trial.customCrop)?.bushelPounds ?? null,
   };
   return trial.unitSystem === 'metric'
-    ? { yield: 'kg/ha', seed: 'kg/ha', money: '$/ha', ...common }
-    : { yield: 'bu/acre', seed: 'lb/acre', money: '$/acre', ...common };
+    ? { yield: yieldUnit ?? METRIC_YIELD_UNIT, seed: 'kg/ha', money: '$/ha', ...common }
+    : { yield: yieldUnit ?? 'bu/acre', seed: 'lb/acre', money: '$/acre', ...common };
 }
 
 function contextFor(
@@ -176,7 +186,7 @@ export function reportRates(trial: TrialFacts, levels: readonly LevelRow[]): Rep
   });
 }
 
-/** Derives every strip's values; yield in the trial's unit (bu/acre or kg/ha). */
+/** Derives every strip's values; yield in the trial's unit (bu/acre or t/ha). */
 export function deriveStrips(
   trial: TrialFacts,
   levels: readonly LevelRow[],
@@ -195,7 +205,9 @@ export function deriveStrips(
       : null;
     const value = derived
       ? trial.unitSystem === 'metric'
-        ? derived.yieldKilogramsPerHectare
+        ? derived.yieldKilogramsPerHectare === null
+          ? null
+          : derived.yieldKilogramsPerHectare / KILOGRAMS_PER_TONNE
         : derived.yieldBushelsPerAcre
       : null;
     return { strip, rate: rateKey(multiplier), label: level?.label ?? '?', derived, yield: value };
@@ -387,6 +399,11 @@ export function buildSiteReport(input: {
  */
 export interface PooledInput {
   trial: TrialFacts;
+  /**
+   * The unit of the frozen yields (bu/acre or t/ha). Absent in snapshots published before it was
+   * stored: their metric yields are in kg/ha, and re-running them keeps that unit.
+   */
+  yieldUnit?: string;
   rates: ReportRate[];
   sites: (PooledSite & { yields: { block: number; rate: string; value: number | null }[] })[];
 }
@@ -407,6 +424,7 @@ export function pooledInput(
   }
   return {
     trial,
+    yieldUnit: unitsOf(trial).yield,
     rates: reportRates(trial, levels),
     sites: sites.map((site) => {
       const mine = bySite.get(site.id) ?? [];
@@ -440,10 +458,12 @@ function enginePrices(
   if (trial.unitSystem === 'metric') {
     const bushelKg =
       ((cropFacts(trial.crop, trial.customCrop)?.bushelPounds ?? 60) * GRAMS_PER_POUND) / 1000;
-    // $ per kg/ha of seed over one hectare is $ per kg; grain likewise.
+    // $ per kg/ha of seed over one hectare is $ per kg; grain in t/ha is worth $ per tonne (per kg
+    // in a snapshot frozen in kg/ha), so either way price × yield is $ per hectare.
+    const kilogramsPerYieldUnit = units.yield === OLD_METRIC_YIELD_UNIT ? 1 : KILOGRAMS_PER_TONNE;
     return {
       seedPricePerRateUnit: (seed * 1000) / GRAMS_PER_POUND,
-      grainPricePerYieldUnit: grain / bushelKg,
+      grainPricePerYieldUnit: (grain / bushelKg) * kilogramsPerYieldUnit,
       rateUnit: units.seed,
       yieldUnit: units.yield,
     };
@@ -465,7 +485,10 @@ export function buildPooledReport(
   'published' | 'dataChangedSincePublished' | 'fromSnapshot' | 'canPublish' | 'publicLinkToken'
 > {
   const { trial, rates } = input;
-  const units = unitsOf(trial);
+  const units = unitsOf(
+    trial,
+    input.yieldUnit ?? (trial.unitSystem === 'metric' ? OLD_METRIC_YIELD_UNIT : undefined),
+  );
   const reference = referenceOf(rates);
   const labels = Object.fromEntries(rates.map((r) => [r.key, r.label]));
   const seedPrice = query.seedPrice ?? trial.seedPricePerLb;

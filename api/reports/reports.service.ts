@@ -106,6 +106,13 @@ function toStrip(strip: Strip): StripRow {
   };
 }
 
+/**
+ * Names how live report bodies are worked out (2: metric yields in t/ha, were kg/ha). It is part
+ * of their ETags, so a browser's cached body and a PDF printed earlier the same day are not
+ * served once the numbers are given in another unit.
+ */
+const LIVE_REPORT_FORMAT = 2;
+
 const toPublished = (snapshot: ReportSnapshot | null): PublishedInfo | null =>
   snapshot
     ? {
@@ -282,7 +289,7 @@ export function createReportsService(deps: ReportsServiceDeps) {
       };
     }
     const photos = await loadPhotos(manager, bundle.site.id);
-    const bodyKey = digestOf('site', bundle.trial, bundle.site, photos);
+    const bodyKey = digestOf('site', LIVE_REPORT_FORMAT, bundle.trial, bundle.site, photos);
     const body = await siteBodies.getOrCompute(bodyKey, () =>
       liveSiteBody(manager, bundle, photos),
     );
@@ -362,7 +369,7 @@ export function createReportsService(deps: ReportsServiceDeps) {
         },
       };
     }
-    const bodyKey = digestOf('pooled', bundle.trial, bundle.sites, query);
+    const bodyKey = digestOf('pooled', LIVE_REPORT_FORMAT, bundle.trial, bundle.sites, query);
     const body = await pooledBodies.getOrCompute(bodyKey, async () =>
       buildPooledReport(await livePooledInput(manager, bundle), query),
     );

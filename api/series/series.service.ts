@@ -8,6 +8,8 @@ import { Trial } from '../../db/entities/trial.entity';
 import { TrialSeries } from '../../db/entities/trial-series.entity';
 import { cropLabel } from '../../shared/labels/labels';
 import { buildSeriesReport, type SeriesSeasonInput } from '../../shared/reports/series-report';
+import type { DerivedValues } from '../../shared/schemas/observation';
+import { KILOGRAMS_PER_TONNE } from '../../shared/units/constants';
 import type {
   CreateSeriesInput,
   LinkTrialSeriesInput,
@@ -21,10 +23,16 @@ import { Forbidden, NotFound, ValidationError } from '../errors';
 import { siteNameFor } from '../lib/site-names';
 import { observationValues, stripsWithObservations } from '../lib/strip-data';
 import { isCoordinating, type AccessContext } from '../middleware/access';
-import { deriveStrips, type TrialFacts } from '../reports/reports.presenter';
+import { deriveStrips, METRIC_YIELD_UNIT, type TrialFacts } from '../reports/reports.presenter';
 
 /** A site joins the pool with yield on at least this share of its strips (as the pooled report). */
 const MIN_COMPLETE_SHARE = 0.75;
+
+/** A strip's yield in t/ha, whatever the unit system of the season it came from. */
+const tonnesPerHectare = (derived: DerivedValues | null): number | null =>
+  derived?.yieldKilogramsPerHectare == null
+    ? null
+    : derived.yieldKilogramsPerHectare / KILOGRAMS_PER_TONNE;
 
 const toTrialRow = (trial: Trial): SeriesTrial => ({
   id: trial.id,
@@ -295,9 +303,7 @@ export function createSeriesService(deps: { dataSource: DataSource }) {
           .map((d) => ({
             block: String(d.strip.block),
             rate: d.rate,
-            value:
-              (metric ? d.derived?.yieldKilogramsPerHectare : d.derived?.yieldBushelsPerAcre) ??
-              null,
+            value: metric ? tonnesPerHectare(d.derived) : (d.derived?.yieldBushelsPerAcre ?? null),
           }));
         const withYield = rows.filter((r) => r.value !== null).length;
         const reason = site.lostReason
@@ -326,7 +332,7 @@ export function createSeriesService(deps: { dataSource: DataSource }) {
         crop: series.crop,
         cropName: cropLabel(series.crop),
       },
-      unit: metric ? 'kg/ha' : 'bu/acre',
+      unit: metric ? METRIC_YIELD_UNIT : 'bu/acre',
       seasons,
     });
     return { ...body, unpublishedTrials: inputs.hidden, canLink: inputs.coordinating };

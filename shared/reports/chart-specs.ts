@@ -77,6 +77,9 @@ interface BaseOptions {
   description?: string;
 }
 
+/** Tooltip number format for a yield: two decimals in t/ha (4.52), one in bu/acre or kg/ha. */
+const yieldFormat = (yieldUnit: string) => (yieldUnit === 't/ha' ? '.2f' : '.1f');
+
 const sorted = <T extends { order: number }>(items: readonly T[]) =>
   [...items].sort((a, b) => a.order - b.order);
 
@@ -139,7 +142,7 @@ export function rateMeansSpec(
                 tooltip: [
                   { field: 'label', title: 'Rate' },
                   { field: 'block', title: 'Block' },
-                  { field: 'yield', title: 'Strip yield', format: '.1f' },
+                  { field: 'yield', title: 'Strip yield', format: yieldFormat(input.yieldUnit) },
                 ],
               },
             },
@@ -164,9 +167,9 @@ export function rateMeansSpec(
               y: { ...y, field: 'mean' },
               tooltip: [
                 { field: 'label', title: 'Rate' },
-                { field: 'mean', title: 'Mean', format: '.1f' },
-                { field: 'ciLow', title: '95 % CI low', format: '.1f' },
-                { field: 'ciHigh', title: '95 % CI high', format: '.1f' },
+                { field: 'mean', title: 'Mean', format: yieldFormat(input.yieldUnit) },
+                { field: 'ciLow', title: '95 % CI low', format: yieldFormat(input.yieldUnit) },
+                { field: 'ciHigh', title: '95 % CI high', format: yieldFormat(input.yieldUnit) },
               ],
             },
           },
@@ -317,7 +320,11 @@ export function stripMapSpec(
             { field: 'block', title: 'Block' },
             { field: 'position', title: 'Strip' },
             { field: 'label', title: 'Rate' },
-            { field: 'yield', title: `Yield (${input.yieldUnit})`, format: '.1f' },
+            {
+              field: 'yield',
+              title: `Yield (${input.yieldUnit})`,
+              format: yieldFormat(input.yieldUnit),
+            },
           ],
         },
       },
@@ -420,9 +427,9 @@ export function forestSpec(
               },
               tooltip: [
                 { field: 'site', title: 'Site' },
-                { field: 'diff', title: 'Difference', format: '.1f' },
-                { field: 'ciLow', title: '95 % CI low', format: '.1f' },
-                { field: 'ciHigh', title: '95 % CI high', format: '.1f' },
+                { field: 'diff', title: 'Difference', format: yieldFormat(input.yieldUnit) },
+                { field: 'ciLow', title: '95 % CI low', format: yieldFormat(input.yieldUnit) },
+                { field: 'ciHigh', title: '95 % CI high', format: yieldFormat(input.yieldUnit) },
               ],
             },
           },
@@ -476,7 +483,7 @@ export function responseCurveSpec(
         tooltip: [
           { field: 'site', title: 'Site' },
           { field: 'seedRate', title: 'Rate', format: '.1f' },
-          { field: 'mean', title: 'Site mean', format: '.1f' },
+          { field: 'mean', title: 'Site mean', format: yieldFormat(input.yieldUnit) },
         ],
       },
     },

@@ -7,7 +7,7 @@ import type {
   SiteDifference,
 } from '../analysis/types';
 import { pricePhrase, type ReportDisplayUnits } from '../units/report-units';
-import { decimalsFor, formatMoney, formatNumber, formatP } from './format-numbers';
+import { decimalsFor, formatMoney, formatNumber, formatP, squaredDecimals } from './format-numbers';
 import {
   comparisonHeadline,
   farmsAgreeSentence,
@@ -247,7 +247,7 @@ export function siteStatisticianNotes(input: SiteFindingsInput): string[] {
     `Analysis of variance (RCBD, ${analysis.method === 'least-squares' ? 'least squares with missing strips' : 'balanced'}): rate F = ${formatNumber(rate?.f, 2)} on ${rate?.df ?? '–'} and ${analysis.errorDf} df, ${formatP(rate?.p ?? Number.NaN)}; blocks F = ${formatNumber(block?.f, 2)} on ${block?.df ?? '–'} and ${analysis.errorDf} df, ${formatP(block?.p ?? Number.NaN)}.`,
   );
   notes.push(
-    `Error mean square ${formatNumber(analysis.errorMeanSquare, digits)} on ${analysis.errorDf} df; CV ${formatNumber(analysis.cvPercent, 1)} %; standard error of a difference ${formatNumber(analysis.sed, digits)}; LSD (5 %) ${formatNumber(analysis.lsd, digits)}; ${analysis.hsd === null ? 'no Tukey HSD (too few error df)' : `Tukey HSD (5 %) ${formatNumber(analysis.hsd, digits)}; rates sharing a group letter are not different by Tukey's test`}.`,
+    `Error mean square ${formatNumber(analysis.errorMeanSquare, squaredDecimals(digits))} on ${analysis.errorDf} df; CV ${formatNumber(analysis.cvPercent, 1)} %; standard error of a difference ${formatNumber(analysis.sed, digits)}; LSD (5 %) ${formatNumber(analysis.lsd, digits)}; ${analysis.hsd === null ? 'no Tukey HSD (too few error df)' : `Tukey HSD (5 %) ${formatNumber(analysis.hsd, digits)}; rates sharing a group letter are not different by Tukey's test`}.`,
   );
   if (analysis.differences.length > 0) {
     const parts = analysis.differences.map(

@@ -2,7 +2,7 @@
 
 /**
  * Decimals that suit a quantity of this size: none from 1,000 up (kg/ha), one from 10 up
- * (bu/acre), two below.
+ * (bu/acre), two below (t/ha: 4.52).
  *
  * @param scale - a typical value of the quantity (e.g. the grand mean)
  * @returns number of decimals
@@ -13,6 +13,19 @@ export function decimalsFor(scale: number): number {
   if (size >= 1000) return 0;
   if (size >= 10) return 1;
   return 2;
+}
+
+/**
+ * Decimals for a squared yield (sums of squares, mean squares): the yield's own, but twice as
+ * many when it shows two, so a mean square in (t/ha)² keeps its figures (0.0412, not 0.04).
+ *
+ * @param yieldDecimals - the decimals the yield itself is shown with (from decimalsFor)
+ * @returns number of decimals
+ * @example squaredDecimals(2) // 4
+ * @example squaredDecimals(1) // 1
+ */
+export function squaredDecimals(yieldDecimals: number): number {
+  return yieldDecimals >= 2 ? 2 * yieldDecimals : yieldDecimals;
 }
 
 /**

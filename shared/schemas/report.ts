@@ -15,7 +15,7 @@ export const ReportRateSchema = z.object({
 export type ReportRate = z.infer<typeof ReportRateSchema>;
 
 export const ReportUnitsSchema = z.object({
-  /** bu/acre for imperial trials, kg/ha for metric ones. */
+  /** bu/acre for imperial trials, t/ha for metric ones (kg/ha in metric reports published before). */
   yield: z.string(),
   /** lb/acre or kg/ha. */
   seed: z.string(),

@@ -15,3 +15,5 @@ export const ACRES_PER_HECTARE =
   (SQUARE_METRES_PER_HECTARE * SQUARE_FEET_PER_SQUARE_METRE) / SQUARE_FEET_PER_ACRE;
 /** 1.12085 kg/ha per lb/ac (derived; USU rounds to 1.12). */
 export const KG_PER_HA_PER_LB_PER_ACRE = (GRAMS_PER_POUND / 1000) * ACRES_PER_HECTARE;
+/** Kilograms in one tonne (megagram), exact (SI; NIST SP 811, 2008, Appendix B.8). */
+export const KILOGRAMS_PER_TONNE = 1000;

@@ -7,6 +7,9 @@ import type { UnitSystem } from '../schemas/trial';
 import { CROPS, type CropKey } from './crops';
 import { designUnits, grainPriceUnit, type UnitConversion } from './design-units';
 
+/** Yield units only a metric report gives: t/ha, and kg/ha in reports published before t/ha. */
+const METRIC_YIELD_UNITS: readonly string[] = ['t/ha', 'kg/ha'];
+
 export interface ReportDisplayUnits {
   system: UnitSystem;
   /** The land area money and yield are given per, in words. */
@@ -21,15 +24,17 @@ export interface ReportDisplayUnits {
 
 /**
  * The display units of a report, from the units it carries. Reports published before the unit
- * system was part of the body are read by their yield unit (kg/ha only on metric trials).
+ * system was part of the body are read by their yield unit: t/ha, or kg/ha as metric reports
+ * gave it before, only on metric trials.
  *
  * @param units - the report's units
  * @param crop - the trial's crop key, for the bushel weight when the report lacks it
  * @returns conversions between the stored values and what the report shows
- * @example reportDisplayUnits({ yield: 'kg/ha', seed: 'kg/ha', money: '$/ha' }, 'wheat').grainPrice.unit // '$/t'
+ * @example reportDisplayUnits({ yield: 't/ha', seed: 'kg/ha', money: '$/ha' }, 'wheat').grainPrice.unit // '$/t'
  */
 export function reportDisplayUnits(units: ReportUnits, crop?: string | null): ReportDisplayUnits {
-  const system: UnitSystem = units.system ?? (units.yield === 'kg/ha' ? 'metric' : 'imperial');
+  const system: UnitSystem =
+    units.system ?? (METRIC_YIELD_UNITS.includes(units.yield) ? 'metric' : 'imperial');
   const design = designUnits(system);
   const bushelPounds =
     units.bushelPounds ?? (crop && crop in CROPS ? CROPS[crop as CropKey].bushelPounds : null);

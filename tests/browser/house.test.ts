@@ -259,7 +259,8 @@ describe('the web client as a house to live in', () => {
 
   it('shows a metric trial’s site and network reports per m², per kg and per tonne at 390 and 1280 px', async () => {
     const net = await buildNetwork(server.testApp.dataSource, 'House metric reports');
-    // Yields in kg/ha, with a small site-by-strip wobble so site × rate is not zero.
+    // Yields built in kg/ha (the report gives t/ha), with a small site-by-strip wobble so site ×
+    // rate is not zero.
     const site = (fieldName: string, shift: number, index: number) => ({
       fieldName,
       strips: rcbdStrips(
@@ -300,6 +301,11 @@ describe('the web client as a house to live in', () => {
     const full = await parts.locator('tr', { hasText: 'full' }).locator('td').allInnerTexts();
     expect(full.slice(1, 2)).toEqual(['52']);
     expect(full.slice(4, 5)).toEqual(['119']);
+    // Yield in t/ha, two decimals. Source: NIST SP 811 (2008 ed.), Appendix B.8 / SI: 1 t =
+    // 1000 kg; the full rate's strips at the north site are 3,780, 3,650, 3,670 and 3,740 kg/ha
+    // (base plus wobble above), mean 3,710 kg/ha = 3.71 t/ha.
+    expect(partsText).toContain('Yield (t/ha)');
+    expect(full).toContain('3.71');
     await waitForCharts(page, 3);
     expect((await page.locator('main').innerText()).match(imperialWords)).toBeNull();
     await screenshot(page, 'house-site-report-metric-390');
@@ -318,6 +324,8 @@ describe('the web client as a house to live in', () => {
     const pooledText = await page.locator('main').innerText();
     expect(pooledText).toContain('Economics per hectare');
     expect(pooledText).toContain('seed $1.10/kg, grain $293.95/t');
+    expect(pooledText).toContain('Yield (t/ha)');
+    expect(pooledText).not.toMatch(/Yield \(kg\/ha\)/);
     expect(pooledText.match(imperialWords)).toBeNull();
     await screenshot(page, 'house-pooled-report-metric-1280');
     // A price typed per kg comes back as the same price per kg (sent to the API per lb).

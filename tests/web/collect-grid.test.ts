@@ -119,6 +119,8 @@ describe('StripForm', () => {
     expect(screen.getByText('Heads per m²')).toBeTruthy();
     expect(screen.getByText('Yield, t/ha')).toBeTruthy();
     expect(screen.queryByText(/per ft²|bu\/acre/)).toBeNull();
+    // Yield only in t/ha, as the metric reports give it (kg/ha is left to the seed rate).
+    expect(screen.queryByText('Yield, kg/ha')).toBeNull();
     const nav = screen.getByRole('navigation', { name: 'Other strips' });
     expect(within(nav).getByRole('link', { name: '← Plot 101' })).toBeTruthy();
     expect(within(nav).getByRole('link', { name: 'Plot 201 →' })).toBeTruthy();

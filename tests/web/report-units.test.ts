@@ -5,16 +5,19 @@ import { cleanup, screen } from '@testing-library/react';
 import { createElement } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
 import type { ComponentRow, PooledQuery, PooledReport } from '../../shared/schemas/report';
+import { decimalsFor } from '../../shared/reports/format-numbers';
 import { designUnits } from '../../shared/units/design-units';
 import { AmendmentsNotice } from '../../web/features/reports/components/amendments-notice';
 import { FiltersForm } from '../../web/features/reports/components/pooled-report-controls';
 import { ComponentsTable } from '../../web/features/reports/components/report-tables';
+import { ResponseModelsSection } from '../../web/features/reports/components/response-models-section';
+import type { ResponseModels } from '../../shared/analysis/index';
 import { refuseFetch, renderWithProviders } from './render';
 
 afterEach(cleanup);
 
 const METRIC_UNITS = {
-  yield: 'kg/ha',
+  yield: 't/ha',
   seed: 'kg/ha',
   money: '$/ha',
   system: 'metric' as const,
@@ -22,7 +25,7 @@ const METRIC_UNITS = {
 };
 
 describe('ComponentsTable on a metric trial', () => {
-  it('shows plants and heads per m²', () => {
+  it('shows plants and heads per m² and yield in t/ha with two decimals', () => {
     const row: ComponentRow = {
       rate: '1',
       label: 'full',
@@ -33,7 +36,7 @@ describe('ComponentsTable on a metric trial', () => {
       tillersPerPlant: 2.1,
       headsPerSquareFoot: 50,
       headsPerPlant: 2.5,
-      yield: 4000,
+      yield: 4.0353,
       seedReturn: 30,
       returnOverSeedCost: 900,
     };
@@ -41,10 +44,10 @@ describe('ComponentsTable on a metric trial', () => {
       createElement(ComponentsTable, {
         rows: [row],
         seedUnit: 'kg/ha',
-        yieldUnit: 'kg/ha',
+        yieldUnit: 't/ha',
         moneyUnit: '$/ha',
         perArea: designUnits('metric').perArea,
-        digits: 0,
+        digits: decimalsFor(4.0353),
       }),
     );
     expect(screen.getByText('Plants/m²')).toBeTruthy();
@@ -53,6 +56,9 @@ describe('ComponentsTable on a metric trial', () => {
     // 50/ft² = 538/m².
     expect(screen.getByText('215')).toBeTruthy();
     expect(screen.getByText('538')).toBeTruthy();
+    // Source: NIST SP 811 (2008 ed.), Appendix B.8 / SI: 1 t = 1000 kg; 4,035.3 kg/ha = 4.04 t/ha.
+    expect(screen.getByText('Yield (t/ha)')).toBeTruthy();
+    expect(screen.getByText('4.04')).toBeTruthy();
   });
 });
 
@@ -115,5 +121,41 @@ describe('Pooled report prices on a metric trial', () => {
     // $2.00/kg × 0.453 592 37 kg/lb = $0.907/lb; $300/t × 0.027 216 t/bu = $8.165/bu.
     expect(queries.at(-1)!.seedPrice).toBeCloseTo(0.90718474, 8);
     expect(queries.at(-1)!.grainPrice).toBeCloseTo(8.1646627, 6);
+  });
+});
+
+describe('Price ratios on a metric pooled report', () => {
+  const curves = (priceRatio: number) =>
+    ({
+      models: [],
+      chosen: 'quadratic',
+      intervalMethod: 'delta method',
+      points: 12,
+      sites: 3,
+      testedRange: { low: 30, high: 240 },
+      priceRatio,
+      economicTable: [{ priceRatio, optimum: null }],
+    }) as ResponseModels;
+
+  it('gives seed $/kg ÷ grain $/kg whether grain was priced per tonne (t/ha) or per kg (kg/ha)', () => {
+    // Source: NIST SP 811 (2008 ed.), Appendix B.8 / SI: 1 t = 1000 kg. Seed at $1.10/kg and
+    // grain at $260/t ($0.26/kg): the analysis of a t/ha report works with 1.10 ÷ 260 = 0.00423,
+    // an older kg/ha report with 1.10 ÷ 0.26 = 4.231; both read 4.231 per kg ÷ per kg.
+    for (const [ratio, yieldUnit] of [
+      [1.1 / 260, 't/ha'],
+      [1.1 / 0.26, 'kg/ha'],
+    ] as const) {
+      renderWithProviders(
+        createElement(ResponseModelsSection, {
+          curves: curves(ratio),
+          seedUnit: 'kg/ha',
+          metric: true,
+          yieldUnit,
+        }),
+      );
+      expect(screen.getByText('Seed price per kg ÷ grain price per kg')).toBeTruthy();
+      expect(screen.getByText('4.231')).toBeTruthy();
+      cleanup();
+    }
   });
 });

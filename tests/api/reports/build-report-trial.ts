@@ -7,7 +7,10 @@ export interface StripSpec {
   block: number;
   /** Index into the trial's levels. */
   level: number;
-  /** Yield in the trial's unit (bu/acre imperial, kg/ha metric); null = strip without yield. */
+  /**
+   * Yield to build: bu/acre on an imperial trial, kg/ha (as weighed) on a metric one, whose report
+   * gives it in t/ha; null = strip without yield.
+   */
   yield: number | null;
   notes?: string;
 }

@@ -37,11 +37,19 @@ const trial = (unitSystem: 'imperial' | 'metric'): TrialFacts => ({
 const MULTIPLIERS = [0.25, 0.5, 1, 2];
 const REFERENCE_LB = 120;
 
-/** Three sites whose yield rises and levels off with rate, in bu/acre against lb/acre. */
-function input(unitSystem: 'imperial' | 'metric'): PooledInput {
+// Source: NIST SP 811 (2008 ed.), Appendix B.8 / SI: 1 t = 1000 kg.
+const KG_PER_T = 1000;
+
+/**
+ * Three sites whose yield rises and levels off with rate, in bu/acre against lb/acre; a metric
+ * input in t/ha, or (`frozenInKilograms`) as a pooled snapshot published while metric yields
+ * were kg/ha, which carries no yield unit.
+ */
+function input(unitSystem: 'imperial' | 'metric', frozenInKilograms = false): PooledInput {
   const metric = unitSystem === 'metric';
   const rate = (m: number) => REFERENCE_LB * m * (metric ? KG_PER_LB * ACRES_PER_HA : 1);
-  const toUnit = (bu: number) => (metric ? bu * WHEAT_BUSHEL_KG * ACRES_PER_HA : bu);
+  const perUnit = frozenInKilograms ? 1 : KG_PER_T;
+  const toUnit = (bu: number) => (metric ? (bu * WHEAT_BUSHEL_KG * ACRES_PER_HA) / perUnit : bu);
   const sites = ['North', 'Creek', 'Hill'].map((fieldName, s) => ({
     id: `00000000-0000-4000-8000-00000000001${s}`,
     fieldName,
@@ -62,6 +70,7 @@ function input(unitSystem: 'imperial' | 'metric'): PooledInput {
   }));
   return {
     trial: trial(unitSystem),
+    ...(frozenInKilograms ? {} : { yieldUnit: metric ? 't/ha' : 'bu/acre' }),
     rates: MULTIPLIERS.map((m) => ({
       key: String(m),
       label: `${m}×`,
@@ -111,6 +120,40 @@ describe('pooled report prices in the trial’s units', () => {
     );
   });
 
+  it('gives a metric pooled report in t/ha, with the same optimum and returns as a snapshot frozen in kg/ha', () => {
+    const display = reportDisplayUnits(unitsOf(trial('metric')), 'wheat');
+    const prices = {
+      seedPrice: display.seedPrice.toStored(1.1),
+      grainPrice: display.grainPrice.toStored(260),
+    };
+    const tonnes = buildPooledReport(input('metric'), prices);
+    const kilograms = buildPooledReport(input('metric', true), prices);
+    expect(tonnes.trial.units.yield).toBe('t/ha');
+    // A snapshot published before keeps its own unit when a reader narrows it.
+    expect(kilograms.trial.units.yield).toBe('kg/ha');
+    // Source: NIST SP 811 (2008 ed.), Appendix B.8 / SI: 1 t = 1000 kg. The analysis is
+    // scale-equivariant: means, differences and intervals in t/ha are the kg/ha ones ÷ 1000.
+    const a = tonnes.analysis!;
+    const b = kilograms.analysis!;
+    a.means.forEach((m, i) => expect(m.mean).toBeCloseTo(b.means[i]!.mean / KG_PER_T, 9));
+    a.differences.forEach((d, i) => {
+      const old = b.differences[i]!;
+      expect(d.diff).toBeCloseTo(old.diff / KG_PER_T, 9);
+      expect(d.ciLow).toBeCloseTo(old.ciLow / KG_PER_T, 9);
+      expect(d.ciHigh).toBeCloseTo(old.ciHigh / KG_PER_T, 9);
+    });
+    expect(a.rateTest.f).toBeCloseTo(b.rateTest.f, 6);
+    // Grain priced per tonne against t/ha, per kg against kg/ha: the same $ per hectare.
+    expect(optimum(tonnes)).toBeCloseTo(optimum(kilograms), 6);
+    tonnes.economics.forEach((e, i) => {
+      const old = kilograms.economics[i]!;
+      expect(e.meanYield).toBeCloseTo(old.meanYield / KG_PER_T, 9);
+      expect(e.grainValue!).toBeCloseTo(old.grainValue!, 6);
+      expect(e.returnOverSeedCost!).toBeCloseTo(old.returnOverSeedCost!, 6);
+    });
+    expect(tonnes.findings.join(' ')).toMatch(/\d\.\d\d t\/ha/);
+  });
+
   it('reads a metric report published before the unit system was stored by its yield unit', () => {
     const old: ReportUnits = { yield: 'kg/ha', seed: 'kg/ha', money: '$/ha' };
     const display = reportDisplayUnits(old, 'oats');
@@ -118,5 +161,10 @@ describe('pooled report prices in the trial’s units', () => {
     // 0.453 592 37 kg): $4.00 a bushel is $4.00 per 14.515 kg, $275.58 a tonne.
     expect(display.grainPrice.fromStored(4)).toBeCloseTo(4 / (32 * KG_PER_LB * 0.001), 6);
     expect(display.perArea.unit).toBe('m²');
+    // One published in t/ha but without its unit system reads as metric too.
+    expect(reportDisplayUnits({ ...old, yield: 't/ha' }, 'oats').system).toBe('metric');
+    expect(reportDisplayUnits({ yield: 'bu/acre', seed: 'lb/acre', money: '$/acre' }).system).toBe(
+      'imperial',
+    );
   });
 });

@@ -163,57 +163,65 @@ describe('report numbers on the demo oat trial', () => {
   });
 });
 
+// Source: NIST SP 811 (2008 ed.), Appendix B.8 / SI: 1 t = 1000 kg, so kg/ha = t/ha × 1000 and
+// (kg/ha)² = (t/ha)² × 1,000,000. The handbook works in kg/ha; a metric report gives t/ha.
+const KG_PER_T = 1000;
+
+const gomezRates = [25, 50, 75, 100, 125, 150];
+const gomezLevels = gomezRates.map((r) => ({ multiplier: r / 100, label: `${r} kg/ha` }));
+const gomezCrop = {
+  unitSystem: 'metric' as const,
+  crop: 'custom',
+  customCrop: {
+    name: 'Rice (handbook example)',
+    thousandKernelWeightG: 25,
+    bushelWeightLb: 45,
+    standardMoisturePct: 14,
+  },
+  referenceRate: 100,
+  referenceUnit: 'kg/ha',
+  levels: gomezLevels,
+};
+/** The handbook's strips (kg/ha, as weighed), each raised by `shift(level index)` kg/ha. */
+const gomezStrips = (shift: (level: number) => number = () => 0) =>
+  gomez.data.map((d) => {
+    const level = gomezRates.indexOf(d.rateKgPerHa);
+    return { block: Number(d.block.slice(1)), level, yield: d.yieldKgPerHa + shift(level) };
+  });
+
 describe('report ANOVA on the Gomez & Gomez (1984) seeding-rate example loaded as a trial', () => {
-  it('reproduces the handbook ANOVA', async () => {
+  it('reproduces the handbook ANOVA, in t/ha on the metric report', async () => {
     const network = await buildNetwork(testApp.dataSource, 'Gomez');
-    const rates = [25, 50, 75, 100, 125, 150];
     const built = await buildReportTrial(testApp.dataSource, network, {
-      unitSystem: 'metric',
-      crop: 'custom',
-      customCrop: {
-        name: 'Rice (handbook example)',
-        thousandKernelWeightG: 25,
-        bushelWeightLb: 45,
-        standardMoisturePct: 14,
-      },
-      referenceRate: 100,
-      referenceUnit: 'kg/ha',
-      levels: rates.map((r) => ({ multiplier: r / 100, label: `${r} kg/ha` })),
-      sites: [
-        {
-          fieldName: 'IRRI example field',
-          strips: gomez.data.map((d) => ({
-            block: Number(d.block.slice(1)),
-            level: rates.indexOf(d.rateKgPerHa),
-            yield: d.yieldKgPerHa,
-          })),
-        },
-      ],
+      ...gomezCrop,
+      sites: [{ fieldName: 'IRRI example field', strips: gomezStrips() }],
     });
     const coordinator = await signIn(testApp.app, network.emails.coordinator);
     const res = await coordinator.get(`/api/sites/${built.siteIds[0]}/report`);
     expect(res.status).toBe(200);
     const report = res.body as SiteReport;
-    expect(report.site.units.yield).toBe('kg/ha');
+    expect(report.site.units.yield).toBe('t/ha');
     const anova = report.analysis!.anova;
     const table = gomez.publishedTable2_6;
-    // Source: Gomez & Gomez (1984), Table 2.6, p. 28 (values rounded as printed)
+    const kg = (tonnes: number) => tonnes * KG_PER_T;
+    const kg2 = (tonnes2: number) => tonnes2 * KG_PER_T * KG_PER_T;
+    // Source: Gomez & Gomez (1984), Table 2.6, p. 28 (values rounded as printed), in kg/ha
     expect(row(anova, 'block').df).toBe(table.blockDf);
-    expect(Math.round(row(anova, 'block').ss)).toBe(table.blockSs);
-    expect(Math.round(row(anova, 'block').ms)).toBe(table.blockMs);
+    expect(Math.round(kg2(row(anova, 'block').ss))).toBe(table.blockSs);
+    expect(Math.round(kg2(row(anova, 'block').ms))).toBe(table.blockMs);
     expect(row(anova, 'rate').df).toBe(table.rateDf);
-    expect(Math.round(row(anova, 'rate').ss)).toBe(table.rateSs);
-    expect(Math.round(row(anova, 'rate').ms)).toBe(table.rateMs);
+    expect(Math.round(kg2(row(anova, 'rate').ss))).toBe(table.rateSs);
+    expect(Math.round(kg2(row(anova, 'rate').ms))).toBe(table.rateMs);
     expect(Number(row(anova, 'rate').f.toFixed(2))).toBe(table.rateF);
-    expect(Math.round(row(anova, 'error').ss)).toBe(table.errorSs);
-    expect(Math.round(row(anova, 'error').ms)).toBe(table.errorMs);
-    expect(Math.round(row(anova, 'total').ss)).toBe(table.totalSs);
+    expect(Math.round(kg2(row(anova, 'error').ss))).toBe(table.errorSs);
+    expect(Math.round(kg2(row(anova, 'error').ms))).toBe(table.errorMs);
+    expect(Math.round(kg2(row(anova, 'total').ss))).toBe(table.totalSs);
     expect(Number(report.analysis!.cvPercent.toFixed(1))).toBe(table.cvPercent);
-    expect(Math.round(report.analysis!.grandMean)).toBe(table.grandMean);
+    expect(Math.round(kg(report.analysis!.grandMean))).toBe(table.grandMean);
     // Source: R 4.2.2 anova(lm(y ~ block + rate)) on Gomez & Gomez (1984) p. 26 data
     for (const expected of gomez.r.anova) {
       const actual = row(anova, expected.source === 'treatment' ? 'rate' : expected.source);
-      close(actual.ss, expected.ss, 8);
+      close(kg2(actual.ss), expected.ss, 8);
       if (expected.p != null) close(actual.p, expected.p, 6);
     }
     // Source: R 4.2.2 emmeans confint on the same data
@@ -221,15 +229,70 @@ describe('report ANOVA on the Gomez & Gomez (1984) seeding-rate example loaded a
       const mean = report.analysis!.means.find(
         (m) => m.rate === String(expected.rateKgPerHa / 100),
       )!;
-      close(mean.mean, expected.mean, 9);
-      close(mean.ciLow, expected.ciLow, 8);
-      close(mean.ciHigh, expected.ciHigh, 8);
+      close(kg(mean.mean), expected.mean, 9);
+      close(kg(mean.ciLow), expected.ciLow, 8);
+      close(kg(mean.ciHigh), expected.ciHigh, 8);
     }
+    // Differences from the reference are the kg/ha ones ÷ 1000: 75 minus 100 kg seed/ha is
+    // 5,304.25 − 4,847.75 = 456.5 kg/ha (R means above), 0.4565 t/ha.
+    const diff = report.analysis!.differences.find((d) => d.rate === '0.75')!;
+    close(diff.diff, (5304.25 - 4847.75) / KG_PER_T, 9);
+    // Source: R 4.2.2 on the same data: standard error of a difference 235.115 kg/ha.
+    close(diff.se, 235.115302682653 / KG_PER_T, 8);
+    // Source: R 4.2.2 qt(0.975, 15) × sed on the same data: LSD (5 %) 501.136 kg/ha = 0.501 t/ha.
+    close(report.analysis!.lsd, 501.13640505709 / KG_PER_T, 8);
+    // Component means carry the same unit as the analysis.
+    const full = report.components.byRate.find((c) => c.rate === '1')!;
+    close(full.yield!, 4847.75 / KG_PER_T, 9);
     // The F test is not significant (p = 0.11) and every Dunnett interval holds zero: the grower
     // reads that no rate differed detectably, in plain words, and the F test under the statistician's part.
     expect(report.findings[0]).toMatch(
       /^At this site no rate yielded detectably differently from the /,
     );
     expect(report.forStatistician![0]).toMatch(/rate F = 2\.17 on 5 and 15 df, p = 0\.11/);
+    // The statistician's numbers in t/ha with two decimals, the error mean square in (t/ha)² with
+    // four: 110,558 (kg/ha)² = 0.1106 (t/ha)²; LSD 0.50 t/ha.
+    const notes = report.forStatistician!.join(' ');
+    expect(notes).toContain('Error mean square 0.1106 on 15 df');
+    expect(notes).toContain('LSD (5 %) 0.50;');
+    // The grower's words give yields in t/ha (the rate labels stay kg/ha of seed).
+    const words = report.findings.join(' ');
+    expect(words).toContain('the difference, +0.46 t/ha,');
+    expect(words).toContain('a difference of about 0.50 t/ha or more');
+  });
+
+  it('pools two metric sites in t/ha: rate means are the site means’ average ÷ 1000', async () => {
+    const network = await buildNetwork(testApp.dataSource, 'GomezPooled');
+    // The second site is the handbook's field with each strip 200 + 40 × (rate's index) kg/ha
+    // higher (invented), so site × rate is not zero.
+    const shift = (level: number) => 200 + 40 * level;
+    const built = await buildReportTrial(testApp.dataSource, network, {
+      ...gomezCrop,
+      sites: [
+        { fieldName: 'IRRI example field', strips: gomezStrips() },
+        { fieldName: 'A richer field', strips: gomezStrips(shift) },
+      ],
+    });
+    const coordinator = await signIn(testApp.app, network.emails.coordinator);
+    const res = await coordinator.get(`/api/trials/${built.trialId}/pooled-report`);
+    expect(res.status).toBe(200);
+    const report = res.body as PooledReport;
+    expect(report.trial.units.yield).toBe('t/ha');
+    expect(report.trial.units.seed).toBe('kg/ha');
+    expect(report.analysis, report.analysisError ?? '').not.toBeNull();
+    // Source: R 4.2.2 means above (kg/ha): the pooled mean of a balanced pair of sites is their
+    // average, the handbook mean + half the shift; e.g. 100 kg seed/ha: (4,847.75 + 160) ÷ 1000.
+    for (const expected of gomez.r.means) {
+      const mean = report.analysis!.means.find(
+        (m) => m.rate === String(expected.rateKgPerHa / 100),
+      )!;
+      const level = gomezRates.indexOf(expected.rateKgPerHa);
+      close(mean.mean, (expected.mean + shift(level) / 2) / KG_PER_T, 9);
+    }
+    // 75 minus 100 kg seed/ha: 456.5 kg/ha at the first site, 456.5 − 40 at the second; pooled
+    // 436.5 kg/ha = 0.4365 t/ha.
+    const pooledDiff = report.analysis!.differences.find((d) => d.rate === '0.75')!;
+    close(pooledDiff.diff, (5304.25 - 4847.75 - 20) / KG_PER_T, 9);
+    expect(report.findings.join(' ')).toMatch(/\d\.\d\d t\/ha/);
   });
 });

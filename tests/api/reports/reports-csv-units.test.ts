@@ -1,5 +1,5 @@
 // The trial export names each column's unit in the trial's unit system: a metric trial's derived
-// columns are per m², kg/ha, m² and $ per hectare, with no imperial column left.
+// columns are per m², seed in kg/ha, yield in t/ha, m² and $ per hectare, with no imperial column left.
 import { describe, expect, it } from 'vitest';
 import { stripsCsv } from '../../../api/reports/reports.csv';
 import type { DerivedStrip, SiteRow, TrialFacts } from '../../../api/reports/reports.presenter';
@@ -56,7 +56,7 @@ function parse(csv: string) {
 }
 
 describe('stripsCsv units', () => {
-  it('writes a metric trial’s derived columns per m², kg/ha and hectare', () => {
+  it('writes a metric trial’s derived columns per m², kg/ha of seed, t/ha of grain and hectare', () => {
     const row = parse(stripsCsv(trial('metric'), [site as SiteRow], [strip]));
     const headers = Object.keys(row);
     expect(headers.filter((h) => /foot|feet|acre|_ft|_lb|pounds|bushel/.test(h))).toEqual([]);
@@ -70,6 +70,9 @@ describe('stripsCsv units', () => {
     expect(Number(row.seed_kilograms_per_hectare)).toBeCloseTo(134.502, 2);
     expect(Number(row.harvested_area_square_metres)).toBeCloseTo(9.2903, 3);
     expect(Number(row.return_over_seed_cost_per_hectare)).toBeCloseTo(948.88, 1);
+    // Source: NIST SP 811 (2008), Appendix B.8 / SI: 1 t = 1000 kg, so 4,035.3 kg/ha = 4.0353 t/ha.
+    expect(Number(row.yield_tonnes_per_hectare)).toBeCloseTo(4.0353, 4);
+    expect(headers.filter((h) => h.startsWith('yield_'))).toEqual(['yield_tonnes_per_hectare']);
   });
 
   it('keeps an imperial trial’s columns per ft², lb/acre and acre', () => {

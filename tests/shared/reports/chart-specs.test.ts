@@ -46,6 +46,18 @@ describe('chart specs', () => {
     expect(layers[0]!.data.values).toHaveLength(1);
     expect(layers[1]!.data.values).toEqual(means);
   });
+  it('gives a t/ha yield two decimals in the tooltips, bu/acre one', () => {
+    // Common practice, no published source: t/ha to two decimals (4.52), bu/acre to one (62.4).
+    const formats = (yieldUnit: string) =>
+      JSON.stringify(rateMeansSpec({ means, strips: [], yieldUnit })).match(/"format":"[^"]+"/g);
+    expect(new Set(formats('t/ha'))).toEqual(new Set(['"format":".2f"']));
+    expect(new Set(formats('bu/acre'))).toEqual(new Set(['"format":".1f"']));
+    const map = stripMapSpec({
+      strips: [{ block: 1, position: 1, label: 'full', yield: 4.52 }],
+      yieldUnit: 't/ha',
+    });
+    expect(JSON.stringify(map)).toContain('"title":"Yield (t/ha)","format":".2f"');
+  });
   it('compiles the components, strip map, forest plot and response curve, light and dark', () => {
     compiles(
       componentsSpec({

@@ -4,7 +4,7 @@ import { pricesInWords, reportDisplayUnits } from '../../../shared/units/report-
 describe('reportDisplayUnits', () => {
   it('shows a metric wheat report per m², per kg of seed and per tonne of grain', () => {
     const display = reportDisplayUnits({
-      yield: 'kg/ha',
+      yield: 't/ha',
       seed: 'kg/ha',
       money: '$/ha',
       system: 'metric',

@@ -4,6 +4,7 @@ import type { ReactNode } from 'react';
 import type { DerivedValues } from '../../../../shared/schemas/observation';
 import type { SiteContext, StripDto } from '../../../../shared/schemas/strip';
 import { SUBSAMPLES } from '../../../../shared/import/columns';
+import { KILOGRAMS_PER_TONNE } from '../../../../shared/units/constants';
 import { entryUnits } from '../../../../shared/units/strip-derived';
 import { Card } from '../../../components/ui/card';
 import { formatNumber } from '../lib/strip-values';
@@ -173,24 +174,24 @@ export function HeadSection({ site, derived, common }: StripSectionProps) {
 }
 
 function yieldReadout(metric: boolean, derived: DerivedValues): ReadoutItem[] {
-  const kilograms = {
-    label: 'Yield, kg/ha',
-    value: formatNumber(derived.yieldKilogramsPerHectare, 0),
-    testId: 'yield-kg',
-  };
-  if (!metric) {
+  const kilograms = derived.yieldKilogramsPerHectare;
+  // A metric grower reads yield in t/ha, as the reports give it; an imperial one gets kg/ha beside.
+  if (metric)
     return [
       {
-        label: 'Yield, bu/acre',
-        value: formatNumber(derived.yieldBushelsPerAcre),
-        testId: 'yield-bu',
+        label: 'Yield, t/ha',
+        value: formatNumber(kilograms === null ? null : kilograms / KILOGRAMS_PER_TONNE, 2),
+        testId: 'yield-t',
       },
-      kilograms,
     ];
-  }
-  const tonnes =
-    derived.yieldKilogramsPerHectare === null ? null : derived.yieldKilogramsPerHectare / 1000;
-  return [{ label: 'Yield, t/ha', value: formatNumber(tonnes, 2), testId: 'yield-t' }, kilograms];
+  return [
+    {
+      label: 'Yield, bu/acre',
+      value: formatNumber(derived.yieldBushelsPerAcre),
+      testId: 'yield-bu',
+    },
+    { label: 'Yield, kg/ha', value: formatNumber(kilograms, 0), testId: 'yield-kg' },
+  ];
 }
 
 export function GrainSection({ site, derived, common }: StripSectionProps) {

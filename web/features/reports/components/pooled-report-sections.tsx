@@ -7,7 +7,12 @@ import {
   responseCurveSpec,
 } from '../../../../shared/reports/chart-specs';
 import { rateName } from '../../../../shared/reports/findings';
-import { decimalsFor, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
+import {
+  decimalsFor,
+  formatNumber,
+  formatP,
+  squaredDecimals,
+} from '../../../../shared/reports/format-numbers';
 import type { PooledReport } from '../../../../shared/schemas/report';
 import { pricesInWords, reportDisplayUnits } from '../../../../shared/units/report-units';
 import { Badge } from '../../../components/ui/badge';
@@ -247,7 +252,7 @@ export function PooledStatisticianSection({
     <StatisticianPart notes={report.forStatistician}>
       <StatisticianBlock
         title="Combined analysis of variance"
-        intro={`Sites are taken as a random sample of farms, so rate is tested against the site × rate interaction (${analysis.rateTest.df1} and ${analysis.rateTest.df2} df${errorRow && 'ms' in errorRow ? `, mean square ${formatNumber(errorRow.ms, digits)}` : ''}), not against the strip error. ${analysis.method === 'site-means' ? 'Sites differ in blocks or have missing strips, so the analysis uses each site’s rate means.' : ''}`}
+        intro={`Sites are taken as a random sample of farms, so rate is tested against the site × rate interaction (${analysis.rateTest.df1} and ${analysis.rateTest.df2} df${errorRow && 'ms' in errorRow ? `, mean square ${formatNumber(errorRow.ms, squaredDecimals(digits))}` : ''}), not against the strip error. ${analysis.method === 'site-means' ? 'Sites differ in blocks or have missing strips, so the analysis uses each site’s rate means.' : ''}`}
       >
         <AnovaTable
           anova={analysis.anova}
@@ -330,6 +335,7 @@ export function PooledModelSections({ report, analysis }: PooledAnalysisSectionP
         curves={analysis.curves}
         seedUnit={report.trial.units.seed}
         metric={reportDisplayUnits(report.trial.units).system === 'metric'}
+        yieldUnit={report.trial.units.yield}
       />
       <MixedModelSection
         mixed={analysis.mixed}

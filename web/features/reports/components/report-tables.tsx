@@ -6,7 +6,12 @@ import type {
   RateDifference,
   RateMean,
 } from '../../../../shared/analysis/types';
-import { formatMoney, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
+import {
+  formatMoney,
+  formatNumber,
+  formatP,
+  squaredDecimals,
+} from '../../../../shared/reports/format-numbers';
 import {
   comparisonVerdict,
   intervalKindWords,
@@ -107,8 +112,8 @@ export function AnovaTable({
       rows={anova.map((row) => [
         SOURCES[row.source] ?? row.source,
         row.df,
-        formatNumber(row.ss, digits),
-        'ms' in row ? formatNumber(row.ms, digits) : '',
+        formatNumber(row.ss, squaredDecimals(digits)),
+        'ms' in row ? formatNumber(row.ms, squaredDecimals(digits)) : '',
         'f' in row ? formatNumber(row.f, 2) : '',
         'p' in row ? pValue(row.p) : '',
       ])}

@@ -1,6 +1,7 @@
 // Response curves with site effects removed: the three fits, the AIC choice and optimum rates with intervals.
 import type { OptimumInterval, ResponseModels } from '../../../../shared/analysis/index';
 import { formatNumber } from '../../../../shared/reports/format-numbers';
+import { KILOGRAMS_PER_TONNE } from '../../../../shared/units/constants';
 import { Section } from './report-bits';
 import { DataTable } from './report-tables';
 
@@ -20,13 +21,19 @@ export function ResponseModelsSection({
   curves,
   seedUnit,
   metric = false,
+  yieldUnit,
 }: {
   curves: ResponseModels | undefined;
   seedUnit: string;
-  /** The analysis prices a metric trial per kg of seed and per kg of grain. */
+  /** A metric trial prices seed per kg and grain per tonne (per kg in reports published before t/ha). */
   metric?: boolean;
+  /** The report's yield unit: the analysis prices grain per unit of it. */
+  yieldUnit?: string;
 }) {
   if (!curves) return null;
+  // Both prices per kg on a metric trial: the engine's ratio is per kg of seed ÷ per tonne of
+  // grain on a t/ha report, 1000 kg to the tonne (NIST SP 811, Appendix B.8).
+  const ratioFactor = metric && yieldUnit === 't/ha' ? KILOGRAMS_PER_TONNE : 1;
   const chosen = MODEL_NAMES[curves.chosen];
   return (
     <Section
@@ -61,7 +68,7 @@ export function ResponseModelsSection({
             'Rate of best return (95 % interval)',
           ]}
           rows={curves.economicTable.map((row) => [
-            formatNumber(row.priceRatio, 3),
+            formatNumber(row.priceRatio * ratioFactor, 3),
             optimumText(row.optimum, seedUnit),
           ])}
         />
