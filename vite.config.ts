@@ -195,6 +195,20 @@ function routePreloads(routerFile: string): Plugin {
 
 export default defineConfig({
   root: '.',
+  resolve: {
+    // React Router's package exports only its development build (the same code with its dev-only
+    // warnings switched on); the app takes the production copy the package ships beside it.
+    alias: [
+      {
+        find: /^react-router$/,
+        replacement: path.resolve('node_modules/react-router/dist/production/index.mjs'),
+      },
+      {
+        find: /^react-router\/dom$/,
+        replacement: path.resolve('node_modules/react-router/dist/production/dom-export.mjs'),
+      },
+    ],
+  },
   plugins: [
     react(),
     tailwindcss(),
