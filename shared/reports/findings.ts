@@ -7,7 +7,14 @@ import type {
   SiteDifference,
 } from '../analysis/types';
 import { pricePhrase, type ReportDisplayUnits } from '../units/report-units';
-import { decimalsFor, formatMoney, formatNumber, formatP, squaredDecimals } from './format-numbers';
+import {
+  decimalsFor,
+  formatMoney,
+  formatNumber,
+  formatP,
+  formatVariance,
+  squaredDecimals,
+} from './format-numbers';
 import {
   comparisonHeadline,
   farmsAgreeSentence,
@@ -468,7 +475,7 @@ export function pooledStatisticianNotes(input: PooledFindingsInput): string[] {
   if (mixed) {
     const v = mixed.varianceComponents;
     notes.push(
-      `Mixed model (REML on ${mixed.observations} strips; site, block within site and site × rate random): rate F = ${formatNumber(mixed.rateTest.f, 2)} on ${mixed.rateTest.df1} and ${formatNumber(mixed.rateTest.df2, 1)} df (Kenward–Roger), ${formatP(mixed.rateTest.p)}. Variance components: site ${formatNumber(v.site, 3)}, block within site ${formatNumber(v.blockWithinSite, 3)}, site × rate ${formatNumber(v.siteByRate, 3)}, residual ${formatNumber(v.residual, 3)}.`,
+      `Mixed model (REML on ${mixed.observations} strips; site, block within site and site × rate random): rate F = ${formatNumber(mixed.rateTest.f, 2)} on ${mixed.rateTest.df1} and ${formatNumber(mixed.rateTest.df2, 1)} df (Kenward–Roger), ${formatP(mixed.rateTest.p)}. Variance components: site ${formatVariance(v.site)}, block within site ${formatVariance(v.blockWithinSite)}, site × rate ${formatVariance(v.siteByRate)}, residual ${formatVariance(v.residual)}.`,
     );
   }
   if (analysis.bartlett) {

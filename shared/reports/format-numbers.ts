@@ -29,6 +29,24 @@ export function squaredDecimals(yieldDecimals: number): number {
 }
 
 /**
+ * Formats a variance (a squared yield, whose size depends on the unit: about 50,000 in (kg/ha)²,
+ * 0.05 in (t/ha)²) to three significant figures, so a small one never reads 0.000.
+ *
+ * @example formatVariance(0.004321) // '0.00432'
+ * @example formatVariance(51234.5) // '51,200'
+ * @example formatVariance(0) // '0'
+ */
+export function formatVariance(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '–';
+  if (value === 0) return '0';
+  const magnitude = Math.floor(Math.log10(Math.abs(value)));
+  const decimals = Math.min(8, Math.max(0, 2 - magnitude));
+  // Large values are rounded to their three leading figures; small ones by their decimals.
+  const step = magnitude > 2 ? 10 ** (magnitude - 2) : 1;
+  return formatNumber(magnitude > 2 ? Math.round(value / step) * step : value, decimals);
+}
+
+/**
  * Formats a number with thousands separators and a fixed number of decimals; "–" when missing.
  *
  * @example formatNumber(5124.25, 0) // '5,124'

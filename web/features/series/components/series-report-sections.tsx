@@ -1,5 +1,10 @@
 // The series report's sections: plain words first, each season beside the pool, then the statistics.
-import { decimalsFor, formatNumber, formatP } from '../../../../shared/reports/format-numbers';
+import {
+  decimalsFor,
+  formatNumber,
+  formatP,
+  formatVariance,
+} from '../../../../shared/reports/format-numbers';
 import type { SeriesReport } from '../../../../shared/schemas/series';
 import { SeriesSection, SeriesTable } from './series-table';
 
@@ -128,7 +133,7 @@ export function SeriesStatistics({ report }: { report: SeriesReport }) {
         <SeriesTable
           caption={`Variance components (REML estimates, (${report.unit})²)`}
           head={['Source of variation', 'Variance']}
-          rows={stats.varianceComponents.map((c) => [c.label, formatNumber(c.value, 3)])}
+          rows={stats.varianceComponents.map((c) => [c.label, formatVariance(c.value)])}
         />
       ) : null}
       <SeriesTable
