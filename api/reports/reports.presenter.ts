@@ -29,6 +29,7 @@ import type {
   ReportUnits,
   SiteReport,
 } from '../../shared/schemas/report';
+import type { Trial } from '../../db/entities/trial.entity';
 import type { DerivedValues, ObservationValues } from '../../shared/schemas/observation';
 import type { CropKey, CustomCrop, RateUnit, UnitSystem } from '../../shared/schemas/trial';
 import {
@@ -57,6 +58,26 @@ export interface TrialFacts {
   thousandKernelWeightG: number | null;
   seedPricePerLb: number | null;
   grainPricePerBu: number | null;
+}
+
+/** A trials row's facts for the reports (the site and pooled reports and the series share it). */
+export function trialFactsOf(trial: Trial): TrialFacts {
+  return {
+    id: trial.id,
+    name: trial.name,
+    question: trial.question ?? '',
+    crop: trial.crop,
+    customCrop: trial.customCrop,
+    season: trial.season,
+    unitSystem: trial.unitSystem ?? 'imperial',
+    referenceRate: trial.referenceRate,
+    referenceUnit: trial.referenceUnit,
+    blocksPerSite: trial.blocksPerSite,
+    rowSpacingIn: trial.rowSpacingIn,
+    thousandKernelWeightG: trial.thousandKernelWeightG,
+    seedPricePerLb: trial.seedPricePerLb,
+    grainPricePerBu: trial.grainPricePerBu,
+  };
 }
 
 export interface LevelRow {

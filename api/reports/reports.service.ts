@@ -31,6 +31,7 @@ import {
   type PooledInput,
   type SiteRow,
   type StripRow,
+  trialFactsOf,
   type TrialFacts,
 } from './reports.presenter';
 
@@ -54,21 +55,8 @@ interface TrialRecord extends TrialFacts {
 
 function toTrial(trial: Trial): TrialRecord {
   return {
-    id: trial.id,
+    ...trialFactsOf(trial),
     networkId: trial.networkId,
-    name: trial.name,
-    question: trial.question ?? '',
-    crop: trial.crop,
-    customCrop: trial.customCrop,
-    season: trial.season,
-    unitSystem: trial.unitSystem ?? 'imperial',
-    referenceRate: trial.referenceRate,
-    referenceUnit: trial.referenceUnit,
-    blocksPerSite: trial.blocksPerSite,
-    rowSpacingIn: trial.rowSpacingIn,
-    thousandKernelWeightG: trial.thousandKernelWeightG,
-    seedPricePerLb: trial.seedPricePerLb,
-    grainPricePerBu: trial.grainPricePerBu,
     publicLinkToken: trial.publicLinkToken,
     levels: [...(trial.rateLevels ?? [])]
       .sort((a, b) => a.position - b.position)

@@ -23,7 +23,7 @@ import { Forbidden, NotFound, ValidationError } from '../errors';
 import { siteNameFor } from '../lib/site-names';
 import { observationValues, stripsWithObservations } from '../lib/strip-data';
 import { isCoordinating, type AccessContext } from '../middleware/access';
-import { deriveStrips, METRIC_YIELD_UNIT, type TrialFacts } from '../reports/reports.presenter';
+import { deriveStrips, METRIC_YIELD_UNIT, trialFactsOf } from '../reports/reports.presenter';
 
 /** A site joins the pool with yield on at least this share of its strips (as the pooled report). */
 const MIN_COMPLETE_SHARE = 0.75;
@@ -43,25 +43,6 @@ const toTrialRow = (trial: Trial): SeriesTrial => ({
 
 const bySeason = (a: Trial, b: Trial) =>
   (a.season ?? '').localeCompare(b.season ?? '') || a.name.localeCompare(b.name);
-
-function trialFacts(trial: Trial): TrialFacts {
-  return {
-    id: trial.id,
-    name: trial.name,
-    question: trial.question ?? '',
-    crop: trial.crop,
-    customCrop: trial.customCrop,
-    season: trial.season,
-    unitSystem: trial.unitSystem ?? 'imperial',
-    referenceRate: trial.referenceRate,
-    referenceUnit: trial.referenceUnit,
-    blocksPerSite: trial.blocksPerSite,
-    rowSpacingIn: trial.rowSpacingIn,
-    thousandKernelWeightG: trial.thousandKernelWeightG,
-    seedPricePerLb: trial.seedPricePerLb,
-    grainPricePerBu: trial.grainPricePerBu,
-  };
-}
 
 export function createSeriesService(deps: { dataSource: DataSource }) {
   const { dataSource } = deps;
@@ -281,7 +262,7 @@ export function createSeriesService(deps: { dataSource: DataSource }) {
       }));
       const mine = sites.filter((s) => s.trialId === trial.id);
       const derived = deriveStrips(
-        trialFacts(trial),
+        trialFactsOf(trial),
         levels,
         strips
           .filter((s) => mine.some((site) => site.id === s.siteId))

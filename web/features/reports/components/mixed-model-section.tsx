@@ -7,7 +7,7 @@ import {
   verdictWords,
 } from '../../../../shared/reports/plain-words';
 import { Section } from './report-bits';
-import { DataTable } from './report-tables';
+import { DataTable } from '../../../components/ui/data-table';
 
 const interval = (low: number, high: number, digits: number) =>
   `${signedNumber(low, digits)} to ${signedNumber(high, digits)}`;

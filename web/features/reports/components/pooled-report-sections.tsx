@@ -16,11 +16,11 @@ import {
 import type { PooledReport } from '../../../../shared/schemas/report';
 import { pricesInWords, reportDisplayUnits } from '../../../../shared/units/report-units';
 import { Badge } from '../../../components/ui/badge';
+import { DataTable } from '../../../components/ui/data-table';
 import { cn } from '../../../lib/cn';
 import { ChartCard, DataTableNote, Section } from './report-bits';
 import {
   AnovaTable,
-  DataTable,
   DifferencesDetailTable,
   DifferencesTable,
   EconomicsTable,

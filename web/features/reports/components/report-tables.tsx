@@ -21,68 +21,7 @@ import {
 } from '../../../../shared/reports/plain-words';
 import type { ComponentRow, EconomicsRow } from '../../../../shared/schemas/report';
 import type { UnitConversion } from '../../../../shared/units/design-units';
-import { cn } from '../../../lib/cn';
-
-export function DataTable({
-  caption,
-  head,
-  rows,
-  className,
-}: {
-  caption: ReactNode;
-  head: ReactNode[];
-  rows: ReactNode[][];
-  className?: string;
-}) {
-  return (
-    // A scrolling box takes keyboard focus so a wide table can be scrolled without a mouse.
-    <div
-      className={cn('overflow-x-auto rounded-card border border-line bg-surface', className)}
-      tabIndex={0}
-      role="region"
-      aria-label={typeof caption === 'string' ? caption : 'Table'}
-    >
-      <table className="figures w-full min-w-max border-collapse text-label">
-        <caption className="px-4 pt-3 text-left text-label font-semibold text-ink">
-          {caption}
-        </caption>
-        <thead>
-          <tr>
-            {head.map((cell, i) => (
-              <th
-                key={i}
-                scope="col"
-                className={cn(
-                  'border-b border-line px-4 py-2 font-semibold text-ink-muted',
-                  i === 0 ? 'text-left' : 'text-right',
-                )}
-              >
-                {cell}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((row, r) => (
-            <tr key={r} className="border-b border-line last:border-b-0">
-              {row.map((cell, i) =>
-                i === 0 ? (
-                  <th key={i} scope="row" className="px-4 py-2 text-left font-medium text-ink">
-                    {cell}
-                  </th>
-                ) : (
-                  <td key={i} className="px-4 py-2 text-right text-ink">
-                    {cell}
-                  </td>
-                ),
-              )}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
-}
+import { DataTable } from '../../../components/ui/data-table';
 
 const pValue = (p: number | undefined) =>
   p === undefined ? '' : formatP(p).replace('p = ', '').replace('p < ', '< ');

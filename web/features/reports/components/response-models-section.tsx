@@ -3,7 +3,7 @@ import type { OptimumInterval, ResponseModels } from '../../../../shared/analysi
 import { formatNumber } from '../../../../shared/reports/format-numbers';
 import { KILOGRAMS_PER_TONNE } from '../../../../shared/units/constants';
 import { Section } from './report-bits';
-import { DataTable } from './report-tables';
+import { DataTable } from '../../../components/ui/data-table';
 
 const MODEL_NAMES = {
   quadratic: 'Curved (quadratic)',
