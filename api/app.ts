@@ -258,6 +258,6 @@ function staticHeaders(res: express.Response, filePath: string) {
   }
   if (original.includes(`${path.sep}assets${path.sep}`))
     res.set('Cache-Control', 'public, max-age=31536000, immutable');
-  else if (/(sw\.js|registerSW\.js|manifest\.webmanifest|index\.html)$/.test(original))
+  else if (/(sw\.js|manifest\.webmanifest|index\.html)$/.test(original))
     res.set('Cache-Control', 'no-cache');
 }

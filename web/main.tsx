@@ -16,6 +16,16 @@ z.config({ jitless: true });
 // rather than one round trip after it.
 void queryClient.prefetchQuery(meQueryOptions());
 
+// The service worker (vite-plugin-pwa's build output) keeps the app and the grower's own data for
+// opening without signal; registered at the load event so it never competes with the first page.
+if (import.meta.env.PROD && 'serviceWorker' in navigator) {
+  window.addEventListener('load', () => {
+    navigator.serviceWorker.register('/sw.js', { scope: '/' }).catch(() => {
+      // No worker (a private window, storage off): the app works online as before.
+    });
+  });
+}
+
 const container = document.getElementById('root');
 if (!container) throw new Error('Sheaf needs an element with id "root" in index.html');
 
