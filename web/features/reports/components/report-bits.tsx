@@ -1,6 +1,7 @@
 // Small pieces shared by the report pages: fact lists, section headings, export links.
 import type { ReactNode } from 'react';
 import { buttonClasses } from '../../../components/ui/button';
+import { PageSection, type PageSectionProps } from '../../../components/ui/page-section';
 
 export function Facts({ items }: { items: [string, ReactNode][] }) {
   return (
@@ -17,32 +18,9 @@ export function Facts({ items }: { items: [string, ReactNode][] }) {
   );
 }
 
-export function Section({
-  id,
-  title,
-  intro,
-  children,
-}: {
-  id: string;
-  title: string;
-  intro?: ReactNode;
-  children: ReactNode;
-}) {
-  return (
-    <section
-      id={id}
-      aria-labelledby={`${id}-title`}
-      className="report-section space-y-4 break-inside-avoid-page"
-    >
-      <div>
-        <h2 id={`${id}-title`} className="text-heading text-ink">
-          {title}
-        </h2>
-        {intro ? <p className="mt-1 max-w-prose text-label text-ink-muted">{intro}</p> : null}
-      </div>
-      {children}
-    </section>
-  );
+/** A report section; on paper it is kept whole on one page where it fits. */
+export function Section(props: Omit<PageSectionProps, 'className'>) {
+  return <PageSection {...props} className="report-section break-inside-avoid-page" />;
 }
 
 export function ChartCard({ children, label = 'Chart' }: { children: ReactNode; label?: string }) {
