@@ -29,11 +29,29 @@ describe('collecting strip data in the browser', () => {
         stripId,
       ])
     )[0];
+  /** What the strip sends did, so a failure says why rather than only that it timed out. */
+  const sends: string[] = [];
+  const explained = async (p: Page, wait: Promise<void>) => {
+    try {
+      await wait;
+    } catch (error) {
+      const status = await p
+        .getByTestId('outbox-status')
+        .textContent({ timeout: 1000 })
+        .catch(() => '(no status)');
+      throw new Error(
+        `${String(error)}\nThe page says: ${status}\nStrip sends:\n${sends.slice(-12).join('\n')}`,
+      );
+    }
+  };
   const waitSaved = (p: Page) =>
-    p
-      .getByTestId('outbox-status')
-      .filter({ hasText: 'All changes saved' })
-      .waitFor({ timeout: 15_000 });
+    explained(
+      p,
+      p
+        .getByTestId('outbox-status')
+        .filter({ hasText: 'All changes saved' })
+        .waitFor({ timeout: 15_000 }),
+    );
 
   beforeAll(async () => {
     server = await startTestServer();
@@ -43,6 +61,19 @@ describe('collecting strip data in the browser', () => {
     context = await browser.newContext({ viewport: PHONE, deviceScaleFactor: 1 });
     page = await context.newPage();
     errors = watchErrors(page);
+    page.on('requestfinished', (request) => {
+      if (request.method() !== 'PATCH') return;
+      void request.response().then((response) => {
+        sends.push(`${new Date().toISOString()} PATCH ${response?.status() ?? '?'}`);
+      });
+    });
+    page.on('requestfailed', (request) => {
+      if (request.method() === 'PATCH')
+        sends.push(`${new Date().toISOString()} PATCH failed: ${request.failure()?.errorText}`);
+    });
+    page.on('request', (request) => {
+      if (request.method() === 'PATCH') sends.push(`${new Date().toISOString()} PATCH sent`);
+    });
     await signInThroughUi(page, server.baseUrl, net.emails.grower);
   });
   afterAll(async () => {
@@ -136,9 +167,12 @@ describe('collecting strip data in the browser', () => {
       [strip.id],
     );
     await page.getByLabel('Plants examined').fill('10');
-    await page
-      .getByText('Someone else saved this strip after you opened it')
-      .waitFor({ timeout: 15_000 });
+    await explained(
+      page,
+      page
+        .getByText('Someone else saved this strip after you opened it')
+        .waitFor({ timeout: 15_000 }),
+    );
     await screenshot(page, 'collect-conflict-390');
     await page.getByRole('button', { name: 'Save mine over theirs' }).click();
     await waitSaved(page);
