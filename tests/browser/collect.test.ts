@@ -85,7 +85,12 @@ describe('collecting strip data in the browser', () => {
     await page.goto(`${server.baseUrl}/sites/${site.siteId}`);
     await page.getByRole('heading', { name: 'Ridge field' }).waitFor();
     await expect(page.getByRole('link', { name: /^Plot 101,/ }).count()).resolves.toBe(1);
-    expect(await page.getByText('missing').count()).toBeGreaterThan(0);
+    // The row's name says what is recorded and what is missing, as its pills show it.
+    expect(
+      await page
+        .getByRole('link', { name: /^Plot 101,.*; stand missing, tillers missing/ })
+        .count(),
+    ).toBe(1);
     await screenshot(page, 'collect-site-390');
     const overflow = await page.evaluate(
       () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
@@ -140,8 +145,13 @@ describe('collecting strip data in the browser', () => {
 
   it('loses nothing typed when the page reloads before the edit was sent', async () => {
     const strip = site.strips[0]!;
+    // Sends fail until the flag is lowered. The route stays in place until the edit has arrived:
+    // removing it while a send is paused in it would race with that send.
+    let failSends = true;
     await page.route('**/api/strips/**', (route) =>
-      route.request().method() === 'PATCH' ? route.abort('internetdisconnected') : route.continue(),
+      failSends && route.request().method() === 'PATCH'
+        ? route.abort('internetdisconnected')
+        : route.continue(),
     );
     await page.getByLabel('Test weight').fill('38.5');
     await page.getByTestId('outbox-status').filter({ hasText: '1 change waiting' }).waitFor();
@@ -150,9 +160,10 @@ describe('collecting strip data in the browser', () => {
     // The page may draw the server's values first; the edit appears once the device's queue is read.
     await expect.poll(() => page.getByLabel('Test weight').inputValue()).toBe('38.5');
     await page.getByTestId('outbox-status').filter({ hasText: '1 change waiting' }).waitFor();
-    await page.unroute('**/api/strips/**');
+    failSends = false;
     // The outbox retries on its own every few seconds.
     await waitSaved(page);
+    await page.unroute('**/api/strips/**');
     expect(Number((await observation(strip.id)).test_weight)).toBe(38.5);
   });
 

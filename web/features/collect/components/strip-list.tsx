@@ -61,12 +61,37 @@ export function StripList({ data }: { data: SiteStrips }) {
                 const values = effectiveValues(strip, entry);
                 const recorded = recordedGroups(values);
                 const { derived, warnings } = liveDerived(data.site, strip, values);
+                const yieldText = metric
+                  ? formatNumber(
+                      derived.yieldKilogramsPerHectare === null
+                        ? null
+                        : derived.yieldKilogramsPerHectare / 1000,
+                      2,
+                    )
+                  : formatNumber(derived.yieldBushelsPerAcre);
+                const yieldUnit = metric ? 't/ha' : 'bu/acre';
+                // The link's name carries what the pills show, so a screen reader hears it in one go.
+                const state = MEASUREMENT_GROUPS.map(
+                  (group) =>
+                    `${SHORT[group].toLowerCase()} ${recorded[group] ? 'recorded' : 'missing'}`,
+                ).join(', ');
+                const name = [
+                  `Plot ${strip.plotNumber}, block ${strip.block}, ${strip.label} rate`,
+                  state,
+                  derived.yieldBushelsPerAcre === null ? null : `yield ${yieldText} ${yieldUnit}`,
+                  entry ? 'changes waiting to be sent' : null,
+                  warnings.length > 0
+                    ? `${warnings.length} ${warnings.length === 1 ? 'value' : 'values'} to check`
+                    : null,
+                ]
+                  .filter(Boolean)
+                  .join('; ');
                 return (
                   <li key={strip.stripId}>
                     <Link
                       to={`/sites/${data.site.siteId}/strips/${strip.stripId}`}
                       className="flex items-center gap-3 px-4 py-3 no-underline hover:bg-accent-soft"
-                      aria-label={`Plot ${strip.plotNumber}, block ${strip.block}, ${strip.label} rate`}
+                      aria-label={name}
                     >
                       <span className="figures flex size-11 shrink-0 flex-col items-center justify-center rounded-field bg-straw-100 text-straw-800">
                         <span className="text-caption leading-none">plot</span>
@@ -79,6 +104,7 @@ export function StripList({ data }: { data: SiteStrips }) {
                           {strip.label}{' '}
                           <span className="font-normal text-ink-muted">· {strip.rate}× rate</span>
                         </span>
+                        {/* One element per pill: a site has dozens of strips and a phone lays out every one. */}
                         <span className="mt-1 flex flex-wrap gap-1">
                           {MEASUREMENT_GROUPS.map((group) => (
                             <span
@@ -90,29 +116,15 @@ export function StripList({ data }: { data: SiteStrips }) {
                                   : 'bg-surface text-ink-muted ring-line-strong/50',
                               )}
                             >
-                              <span aria-hidden="true">{recorded[group] ? '✓ ' : '○ '}</span>
+                              {recorded[group] ? '✓ ' : '○ '}
                               {SHORT[group]}
-                              <span className="sr-only">
-                                {recorded[group] ? ' recorded' : ' missing'}
-                              </span>
                             </span>
                           ))}
                         </span>
                       </span>
                       <span className="shrink-0 text-right">
-                        <span className="figures block font-semibold text-ink">
-                          {metric
-                            ? formatNumber(
-                                derived.yieldKilogramsPerHectare === null
-                                  ? null
-                                  : derived.yieldKilogramsPerHectare / 1000,
-                                2,
-                              )
-                            : formatNumber(derived.yieldBushelsPerAcre)}
-                        </span>
-                        <span className="block text-caption text-ink-muted">
-                          {metric ? 't/ha' : 'bu/acre'}
-                        </span>
+                        <span className="figures block font-semibold text-ink">{yieldText}</span>
+                        <span className="block text-caption text-ink-muted">{yieldUnit}</span>
                         {entry ? (
                           <span className="block text-caption font-semibold text-caution">
                             waiting

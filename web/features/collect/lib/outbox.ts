@@ -33,6 +33,11 @@ export interface OutboxEntry {
 }
 
 const RETRY_MS = 5000;
+/**
+ * How long one send may take. On a weak signal a request can hang for minutes before the browser
+ * gives up; until then nothing else in the queue would move. Cut off, it counts as no signal.
+ */
+const SEND_TIMEOUT_MS = 20_000;
 const CHANNEL = 'sheaf-outbox';
 
 /** Whose queue is in memory; null when nobody is signed in. */
@@ -150,7 +155,11 @@ async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'>
   const owner: string | null = userId;
   try {
     const strip = StripSchema.parse(
-      await api.patch(`/api/strips/${entry.stripId}`, { version: entry.baseVersion, values: sent }),
+      await api.patch(
+        `/api/strips/${entry.stripId}`,
+        { version: entry.baseVersion, values: sent },
+        { signal: AbortSignal.timeout(SEND_TIMEOUT_MS) },
+      ),
     );
     storeStrip(queryClient, strip);
     if (userId !== owner) return 'sent';
