@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { buildNetwork, type BuiltNetwork } from '../helpers/app';
 import {
+  CONTEXT_DEFAULTS,
   launchBrowser,
   screenshot,
   signInThroughUi,
@@ -58,7 +59,11 @@ describe('collecting strip data in the browser', () => {
     browser = await launchBrowser();
     net = await buildNetwork(server.testApp.dataSource, 'Browser collect');
     site = await buildCollectSite(server.testApp.dataSource, net, { fieldName: 'Ridge field' });
-    context = await browser.newContext({ viewport: PHONE, deviceScaleFactor: 1 });
+    context = await browser.newContext({
+      viewport: PHONE,
+      deviceScaleFactor: 1,
+      ...CONTEXT_DEFAULTS,
+    });
     page = await context.newPage();
     errors = watchErrors(page);
     page.on('requestfinished', (request) => {
@@ -250,7 +255,10 @@ describe('collecting strip data in the browser', () => {
     await screenshot(page, 'collect-grid-390');
     await waitSaved(page);
 
-    const desk = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const desk = await browser.newContext({
+      viewport: { width: 1280, height: 900 },
+      ...CONTEXT_DEFAULTS,
+    });
     const coordinatorPage = await desk.newPage();
     await signInThroughUi(coordinatorPage, server.baseUrl, net.emails.coordinator);
     await coordinatorPage.goto(`${server.baseUrl}/trials/${site.trialId}/progress`);

@@ -10,7 +10,13 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildNetwork, clientFor, signIn, type BuiltNetwork, type Client } from '../helpers/app';
-import { launchBrowser, screenshot, signInThroughUi, startTestServer } from '../helpers/browser';
+import {
+  CONTEXT_DEFAULTS,
+  launchBrowser,
+  screenshot,
+  signInThroughUi,
+  startTestServer,
+} from '../helpers/browser';
 import { buildActiveTrial } from '../api/trials/builders';
 import { pooledReportHtml, siteReportHtml } from '../../api/reports/reports.pdf';
 
@@ -273,7 +279,10 @@ describe('no user-supplied string reaches HTML unescaped', () => {
     findings: () => Promise<Findings>;
     reset: () => void;
   }> {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser.newContext({
+      viewport: { width: 1280, height: 900 },
+      ...CONTEXT_DEFAULTS,
+    });
     await context.addInitScript(() => {
       const w = window as unknown as { __csp: string[] };
       w.__csp = [];

@@ -52,10 +52,7 @@ export async function openPage(
 ) {
   const context = await browser.newContext({
     viewport: { width, height: width < 500 ? 844 : 900 },
-    // Growers work west of UTC: every page is looked at in Central time unless a test says otherwise.
-    timezoneId: BROWSER_TIMEZONE,
-    // The offline service worker answers some requests itself; tests that check it allow it.
-    serviceWorkers: 'block',
+    ...CONTEXT_DEFAULTS,
     ...options,
   });
   const page = await context.newPage();
@@ -78,6 +75,16 @@ export async function signInThroughUi(
 
 /** The browser's time zone in tests: west of UTC, where date-only values used to shift. */
 export const BROWSER_TIMEZONE = process.env.BROWSER_TIMEZONE ?? 'America/Chicago';
+
+/**
+ * What every test's browser context starts from. Growers work west of UTC: pages are looked at in
+ * Central time unless a test says otherwise. The offline service worker answers some requests
+ * itself and would take them past `page.route`; tests that check it pass `serviceWorkers: 'allow'`.
+ */
+export const CONTEXT_DEFAULTS = {
+  timezoneId: BROWSER_TIMEZONE,
+  serviceWorkers: 'block',
+} as const satisfies BrowserContextOptions;
 
 const axeRuns = new WeakMap<Page, Promise<unknown>>();
 
