@@ -153,12 +153,18 @@ function scheduleRetry() {
 async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'> {
   const sent = entry.values;
   const owner: string | null = userId;
+  // A timer and a controller rather than AbortSignal.timeout, which phones from before 2022 lack.
+  const controller = new AbortController();
+  const cutOff = setTimeout(
+    () => controller.abort(new DOMException('No answer in time', 'TimeoutError')),
+    SEND_TIMEOUT_MS,
+  );
   try {
     const strip = StripSchema.parse(
       await api.patch(
         `/api/strips/${entry.stripId}`,
         { version: entry.baseVersion, values: sent },
-        { signal: AbortSignal.timeout(SEND_TIMEOUT_MS) },
+        { signal: controller.signal },
       ),
     );
     storeStrip(queryClient, strip);
@@ -213,6 +219,8 @@ async function sendOne(entry: OutboxEntry): Promise<'sent' | 'offline' | 'held'>
       });
     }
     return 'held';
+  } finally {
+    clearTimeout(cutOff);
   }
 }
 
