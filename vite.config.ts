@@ -7,11 +7,20 @@ import zlib from 'node:zlib';
 import tailwindcss from '@tailwindcss/vite';
 import react from '@vitejs/plugin-react';
 import type * as TS from 'typescript';
-import { defineConfig, type Plugin } from 'vite';
+import { defineConfig, type Plugin, type Rollup } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
 
 /** Charting libraries are large and only report pages need them: keep them in their own chunk. */
 const chartModules = /[\\/]node_modules[\\/](vega|vega-[^\\/]+|vega-lite|d3-[^\\/]+)[\\/]/;
+
+/**
+ * The first start-up stage, loaded with the entry (web/main.tsx): React, and Vite's helper for
+ * preloading a chunk's imports (the entry uses it, so it must not land in a later stage's file).
+ */
+const reactModules = /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]|preload-helper/;
+
+/** The second stage: the app's start module (and so what it imports: router, queries, schemas). */
+const appModules = /[\\/]web[\\/]app[\\/]start\.tsx$/;
 
 /** Text files worth compressing; the server sends the .br or .gz copy when the browser takes it. */
 const COMPRESSIBLE = /\.(js|mjs|css|html|svg|json|webmanifest|txt)$/;
@@ -148,6 +157,67 @@ function readRouteTable(ts: typeof TS, file: string): RouteLeaf[] {
   return leaves;
 }
 
+type OutputBundle = Rollup.OutputBundle;
+type OutputChunk = Rollup.OutputChunk;
+
+/** Every chunk file reachable from `start` through static imports. */
+function staticClosure(byFile: Map<string, OutputChunk>, start: string[]): Set<string> {
+  const seen = new Set<string>();
+  const stack = [...start];
+  while (stack.length > 0) {
+    const file = stack.pop()!;
+    if (seen.has(file)) continue;
+    seen.add(file);
+    stack.push(...(byFile.get(file)?.imports ?? []));
+  }
+  return seen;
+}
+
+/**
+ * The files every page runs at start: the entry, and the stages web/main.tsx imports itself (React,
+ * then the app with its router). The pages' own chunks are imported by the router, not the entry.
+ */
+function startupFiles(bundle: OutputBundle): Set<string> {
+  const chunks = Object.values(bundle).filter((item) => item.type === 'chunk');
+  const byFile = new Map(chunks.map((chunk) => [chunk.fileName, chunk]));
+  const entries = chunks.filter((chunk) => chunk.isEntry);
+  return staticClosure(byFile, [
+    ...entries.map((chunk) => chunk.fileName),
+    ...entries.flatMap((chunk) => chunk.dynamicImports),
+  ]);
+}
+
+/**
+ * Adds a <link rel="modulepreload"> to index.html for each start-up file the entry imports as a
+ * later stage, so they download with the entry rather than one round trip after it has run.
+ */
+function startupPreloads(): Plugin {
+  return {
+    name: 'sheaf-startup-preloads',
+    apply: 'build',
+    transformIndexHtml: {
+      order: 'post',
+      handler(_html, context) {
+        if (!context.bundle) return [];
+        const chunks = Object.values(context.bundle).filter((item) => item.type === 'chunk');
+        // Vite itself preloads what the entry imports statically.
+        const preloaded = staticClosure(
+          new Map(chunks.map((chunk) => [chunk.fileName, chunk])),
+          chunks.filter((chunk) => chunk.isEntry).map((chunk) => chunk.fileName),
+        );
+        return [...startupFiles(context.bundle)]
+          .filter((file) => !preloaded.has(file))
+          .sort()
+          .map((file) => ({
+            tag: 'link',
+            attrs: { rel: 'modulepreload', crossorigin: true, href: `/${file}` },
+            injectTo: 'head' as const,
+          }));
+      },
+    },
+  };
+}
+
 /** The plugin: writes ROUTE_PRELOADS_FILE for the route table in `routerFile`. */
 function routePreloads(routerFile: string): Plugin {
   return {
@@ -164,19 +234,9 @@ function routePreloads(routerFile: string): Plugin {
         for (const id of chunk.moduleIds) byModule.set(moduleKey(id), chunk.fileName);
       for (const chunk of chunks)
         if (chunk.facadeModuleId) byModule.set(moduleKey(chunk.facadeModuleId), chunk.fileName);
-      const closure = (start: string[]) => {
-        const seen = new Set<string>();
-        const stack = [...start];
-        while (stack.length > 0) {
-          const file = stack.pop()!;
-          if (seen.has(file)) continue;
-          seen.add(file);
-          stack.push(...(byFile.get(file)?.imports ?? []));
-        }
-        return seen;
-      };
-      // The entry's own imports are in index.html already.
-      const inShell = closure(chunks.filter((chunk) => chunk.isEntry).map((c) => c.fileName));
+      const closure = (start: string[]) => staticClosure(byFile, start);
+      // The start-up files are in index.html already.
+      const inShell = startupFiles(bundle);
       const table = readRouteTable(ts, path.resolve(routerFile)).map((leaf) => {
         const own = leaf.modules.map((module) => byModule.get(moduleKey(module)));
         if (own.some((file) => !file))
@@ -289,6 +349,7 @@ export default defineConfig({
         ],
       },
     }),
+    startupPreloads(),
     routePreloads('web/app/router.tsx'),
     precompress(),
   ],
@@ -304,9 +365,12 @@ export default defineConfig({
         codeSplitting: {
           groups: [
             { name: 'vega', test: chartModules, priority: 3 },
-            // Everything the entry needs at start in one file rather than eight: on a phone's
-            // HTTP/1.1 connection (six at a time) the page's own code then does not queue behind them.
-            { name: 'app', tags: ['$initial'], priority: 2 },
+            // The two start-up stages of web/main.tsx in one file each rather than many: on a
+            // phone's HTTP/1.1 connection (six at a time) the page's own code then does not queue
+            // behind them. React first, then the app's start (router, queries, schemas, shell).
+            { name: 'react', test: reactModules, priority: 3 },
+            // The app's start module takes the modules it imports into its group with it.
+            { name: 'app', test: appModules, priority: 2 },
           ],
         },
       },

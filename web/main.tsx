@@ -1,20 +1,7 @@
-// Browser entry: self-hosted font, global styles, providers and the router.
+// Browser entry: self-hosted font and global styles, the service worker, then the app in stages.
 import '@fontsource-variable/inter';
 import './styles/app.css';
-import { startTransition, StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
-import { z } from 'zod';
-import { AppProvider } from './app/provider';
-import { AppRouter } from './app/router';
-import { meQueryOptions } from './features/auth/api/get-me';
-import { queryClient } from './lib/query-client';
-
-// zod probes for eval support once at start-up; the CSP forbids eval, so tell zod not to try.
-z.config({ jitless: true });
-
-// Every page's loader asks who is signed in: ask now, while the page's own code is still loading,
-// rather than one round trip after it.
-void queryClient.prefetchQuery(meQueryOptions());
 
 // The service worker (vite-plugin-pwa's build output) keeps the app and the grower's own data for
 // opening without signal; registered at the load event so it never competes with the first page.
@@ -26,18 +13,21 @@ if (import.meta.env.PROD && 'serviceWorker' in navigator) {
   });
 }
 
-const container = document.getElementById('root');
-if (!container) throw new Error('Sheaf needs an element with id "root" in index.html');
+const root = document.getElementById('root');
+if (!root) throw new Error('Sheaf needs an element with id "root" in index.html');
 
-// The first render as a transition: React then renders in slices and lets the browser in between,
-// rather than in one long task that a tap on a slow phone would have to wait out.
-const root = createRoot(container);
-startTransition(() => {
-  root.render(
-    <StrictMode>
-      <AppProvider>
-        <AppRouter />
-      </AppProvider>
-    </StrictMode>,
-  );
-});
+/** Resolves in a later task of the browser's, so it can paint and take a tap in between. */
+const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
+
+// The app starts in two steps, each in a task of its own: React with this file, then the app
+// (router, queries, schemas). On a slow phone one task for all of it held the page for a third
+// of a second. index.html preloads the app's file too (vite.config.ts), so the split costs no
+// round trip.
+async function start(container: HTMLElement) {
+  await nextTask();
+  const { startApp } = await import('./app/start');
+  await nextTask();
+  startApp(createRoot(container));
+}
+
+void start(root);
