@@ -47,7 +47,7 @@ function readPreloads(webRoot: string): RoutePreload[] {
 
 const escapeAttribute = (value: string) => value.replace(/&/g, '&amp;').replace(/"/g, '&quot;');
 
-/** Who is signed in: every page asks first (web/main.tsx). */
+/** Who is signed in: every page asks first (web/app/start.tsx). */
 const SIGNED_IN_CHECK = '/api/auth/me';
 
 /**
