@@ -60,6 +60,20 @@ describe('first visit', () => {
       expect(site.html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/site-/);
       expect(site.scripts.filter((file) => OTHER_PAGES.test(file))).toEqual([]);
       expect(site.scripts.filter((file) => !site.html.includes(`"${file}"`))).toEqual([]);
+      // The first block is built first and the others a moment later: in the end every strip is
+      // listed, each once, in plot order.
+      const strips = await (
+        await tab.request.get(`${server.baseUrl}/api/sites/${siteId}/strips`)
+      ).json();
+      const plots = (strips.strips as { plotNumber: number }[])
+        .map((strip) => `Plot ${strip.plotNumber},`)
+        .sort();
+      const links = tab.getByRole('link', { name: /^Plot \d+,/ });
+      await expect.poll(() => links.count()).toBe(plots.length);
+      const names = await links.evaluateAll((all) =>
+        all.map((link) => /^Plot \d+,/.exec(link.getAttribute('aria-label') ?? '')?.[0]),
+      );
+      expect(names).toEqual(plots);
       expect(errors).toEqual([]);
     } finally {
       await close();

@@ -1,4 +1,5 @@
 // Every strip of a site by block and position, with what is recorded, what is missing and the yield.
+import { startTransition, useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import {
   MEASUREMENT_GROUPS,
@@ -17,10 +18,29 @@ const SHORT: Record<(typeof MEASUREMENT_GROUPS)[number], string> = {
   yield: 'Yield',
 };
 
+/**
+ * Blocks built in the page's first render. The others follow in a render of their own a moment
+ * later, so a slow phone shows the top of the list without first building every strip of the site.
+ */
+const FIRST_BLOCKS = 1;
+
+/** False for the first render, true from a moment after it. */
+function useRestShown(): boolean {
+  const [shown, setShown] = useState(false);
+  useEffect(() => {
+    // A timer rather than the effect itself, so the browser paints the first blocks in between.
+    const timer = setTimeout(() => startTransition(() => setShown(true)), 0);
+    return () => clearTimeout(timer);
+  }, []);
+  return shown;
+}
+
 export function StripList({ data }: { data: SiteStrips }) {
   const outbox = useOutbox();
+  const restShown = useRestShown();
   const metric = data.site.unitSystem === 'metric';
-  const blocks = [...new Set(data.strips.map((s) => s.block))].sort((a, b) => a - b);
+  const allBlocks = [...new Set(data.strips.map((s) => s.block))].sort((a, b) => a - b);
+  const blocks = restShown ? allBlocks : allBlocks.slice(0, FIRST_BLOCKS);
   const totals = Object.fromEntries(
     MEASUREMENT_GROUPS.map((g) => [
       g,
