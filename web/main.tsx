@@ -30,4 +30,13 @@ async function start(container: HTMLElement) {
   startApp(createRoot(container));
 }
 
-void start(root);
+// The app's file can fail to arrive when the signal drops mid-load (with the app installed it
+// comes from the phone). Say so in place of the loading view rather than spin for ever.
+start(root).catch(() => {
+  const note = document.createElement('p');
+  note.setAttribute('role', 'alert');
+  note.className = 'p-6 text-ink';
+  note.textContent =
+    'Sheaf could not load all of its files, probably because the signal dropped. Reload the page when there is signal.';
+  root.replaceChildren(note);
+});

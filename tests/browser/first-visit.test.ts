@@ -79,4 +79,19 @@ describe('first visit', () => {
       await close();
     }
   });
+
+  it('says the app could not load, instead of its loading view, when the app’s file does not arrive', async () => {
+    const { page, close } = await openPage(browser, 390);
+    try {
+      // The signal drops after the page and the entry code have arrived.
+      await page.route('**/assets/app-*.js', (route) => route.abort('internetdisconnected'));
+      await page.goto(`${server.baseUrl}/sign-in`);
+      await expect
+        .poll(() => page.getByRole('alert').textContent())
+        .toContain('Sheaf could not load all of its files');
+      expect(await page.getByText('Opening Sheaf…').count()).toBe(0);
+    } finally {
+      await close();
+    }
+  });
 });
