@@ -17,7 +17,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { ensureNodeModules } from './lib/deps.mjs';
+import { ensureDebianPackage, ensureNodeModules } from './lib/deps.mjs';
 import { DATA_DIR, buildWeb } from './lib/env.mjs';
 import { runAnalysis } from './bench/analysis.mjs';
 import { runBundle } from './bench/bundle.mjs';
@@ -76,6 +76,9 @@ const results = {
 };
 
 ensureNodeModules();
+// Lighthouse drives Debian's Chromium, as the browser tests do.
+if (options.runs('lighthouse') && !ensureDebianPackage('/usr/bin/chromium', 'chromium'))
+  process.exit(1);
 const { default: autocannon } = await import('autocannon');
 
 let stopEverything = async () => {};

@@ -1,6 +1,5 @@
 // Bench part "http": each endpoint at its fixed arrival rate against its p99 budget, then at
 // saturation (closed loop), against a running server. BENCH_ONLY keys: site, pooled, patch.
-import pg from 'pg';
 import { fixedRate, saturate } from './load.mjs';
 
 /**
@@ -44,6 +43,8 @@ export const ENDPOINTS = [
  * versions, for after a run whose last answers were cut off.
  */
 async function prepareStripPatches({ base, ids, headers, databaseUrl }) {
+  // Imported here, not at the top: bench.mjs installs the npm packages after its own imports load.
+  const { default: pg } = await import('pg');
   const readStrips = async () => {
     const db = new pg.Client({ connectionString: databaseUrl });
     await db.connect();
