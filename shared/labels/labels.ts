@@ -3,6 +3,7 @@
 import type { CalcUnit } from '../schemas/calc';
 import type { CropKey, RateUnit } from '../schemas/trial';
 import { CROPS } from '../units/crops';
+import { groupedDecimal, onFirstUse } from './decimal-text';
 
 /** Crop names as a coordinator chooses them; the six built-in crops use the crop table's name. */
 export const CROP_LABELS: Readonly<Record<CropKey, string>> = {
@@ -38,22 +39,19 @@ export function rateUnitLabel(unit: RateUnit | CalcUnit | null | undefined): str
   return RATE_UNIT_LABELS[unit ?? 'lb/acre'];
 }
 
-const multiplierFormat = new Intl.NumberFormat('en', { maximumFractionDigits: 3 });
+const multiplierFormat = onFirstUse(
+  () => new Intl.NumberFormat('en', { maximumFractionDigits: 3 }),
+);
 
 /** A rate level as the map and tables show it: "half (0.5 × full rate)". */
 export function rateLevelLabel(level: { label: string; multiplier: number }): string {
-  return `${level.label} (${multiplierFormat.format(level.multiplier)} × full rate)`;
+  return `${level.label} (${multiplierFormat().format(level.multiplier)} × full rate)`;
 }
 
 /** The short form for tight places (map cells, chart axes): "half · 0.5×". */
 export function rateLevelShort(level: { label: string; multiplier: number }): string {
-  return `${level.label} · ${multiplierFormat.format(level.multiplier)}×`;
+  return `${level.label} · ${multiplierFormat().format(level.multiplier)}×`;
 }
-
-const seedGramFormat = new Intl.NumberFormat('en', {
-  minimumFractionDigits: 1,
-  maximumFractionDigits: 1,
-});
 
 /**
  * Seed to weigh for a strip, the same on the map, the weighing table and the calculator:
@@ -62,22 +60,25 @@ const seedGramFormat = new Intl.NumberFormat('en', {
 export function seedGrams(grams: number | null | undefined): string {
   return grams === null || grams === undefined || !(grams > 0)
     ? '—'
-    : `${seedGramFormat.format(grams)} g`;
+    : `${groupedDecimal(grams, 1)} g`;
 }
 
-const moneyFormat = new Intl.NumberFormat('en', {
-  style: 'currency',
-  currency: 'USD',
-  minimumFractionDigits: 2,
-  maximumFractionDigits: 2,
-});
+const moneyFormat = onFirstUse(
+  () =>
+    new Intl.NumberFormat('en', {
+      style: 'currency',
+      currency: 'USD',
+      minimumFractionDigits: 2,
+      maximumFractionDigits: 2,
+    }),
+);
 
 /** A price per unit with cents: "$0.90/lb". */
 export function pricePer(value: number | null | undefined, unit: string): string {
-  return value === null || value === undefined ? '—' : `${moneyFormat.format(value)}/${unit}`;
+  return value === null || value === undefined ? '—' : `${moneyFormat().format(value)}/${unit}`;
 }
 
 /** "1 check", "3 checks". */
 export function countOf(count: number, one: string, many = `${one}s`): string {
-  return `${count.toLocaleString('en')} ${count === 1 ? one : many}`;
+  return `${groupedDecimal(count, 0)} ${count === 1 ? one : many}`;
 }

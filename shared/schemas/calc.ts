@@ -1,5 +1,6 @@
 // Seed calculator and seeder-calibration contracts (public: no sign-in needed).
 import { z } from 'zod';
+import { groupedDecimal } from '../labels/decimal-text';
 import { RATE_UNITS } from './trial';
 
 /** A target stand instead of a seeding rate: seeds are plants ÷ (germination × emergence). */
@@ -12,7 +13,7 @@ const optionalPositive = (max: number, unit: string) =>
   z
     .number()
     .positive('Must be above 0')
-    .max(max, `At most ${max.toLocaleString('en')} ${unit}`)
+    .max(max, `At most ${groupedDecimal(max, 0)} ${unit}`)
     .optional();
 
 export const SeedingCalcInputSchema = z

@@ -1,6 +1,7 @@
 // Display wording for values from the API: crop names, statuses, dates and counts.
 import type { CropKey, TrialStatus } from '../../shared/schemas/trial';
 import type { Role } from '../../shared/schemas/common';
+import { onFirstUse } from '../../shared/labels/decimal-text';
 import { cropLabel } from '../../shared/labels/labels';
 
 /** A crop's display name; the words live in shared/labels/labels.ts. */
@@ -34,18 +35,20 @@ export function plural(count: number, one: string, many = `${one}s`): string {
   return `${count} ${count === 1 ? one : many}`;
 }
 
-const dateFormat = new Intl.DateTimeFormat('en', {
-  day: 'numeric',
-  month: 'short',
-  year: 'numeric',
-});
-const dateTimeFormat = new Intl.DateTimeFormat('en', {
-  day: 'numeric',
-  month: 'short',
-  year: 'numeric',
-  hour: 'numeric',
-  minute: '2-digit',
-});
+// Made on first use: the first Intl formatter loads the browser's locale data (decimal-text.ts).
+const dateFormat = onFirstUse(
+  () => new Intl.DateTimeFormat('en', { day: 'numeric', month: 'short', year: 'numeric' }),
+);
+const dateTimeFormat = onFirstUse(
+  () =>
+    new Intl.DateTimeFormat('en', {
+      day: 'numeric',
+      month: 'short',
+      year: 'numeric',
+      hour: 'numeric',
+      minute: '2-digit',
+    }),
+);
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 const DATE_ONLY = /^(\d{4})-(\d{2})-(\d{2})$/;
@@ -63,11 +66,11 @@ export function formatDate(iso: string | null | undefined): string {
     return month ? `${month} ${Number(parts[3])}, ${parts[1]}` : iso;
   }
   const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
+  return Number.isNaN(date.getTime()) ? iso : dateFormat().format(date);
 }
 
 export function formatDateTime(iso: string | null | undefined): string {
   if (!iso) return '';
   const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateTimeFormat.format(date);
+  return Number.isNaN(date.getTime()) ? iso : dateTimeFormat().format(date);
 }

@@ -6,6 +6,7 @@ import {
 } from '../../../../shared/schemas/observation';
 import type { SiteContext, StripDto, StripValuesPatch } from '../../../../shared/schemas/strip';
 import type { ValueColumn } from '../../../../shared/import/columns';
+import { groupedDecimal } from '../../../../shared/labels/decimal-text';
 import { parseDecimal } from '../../../../shared/units/parse-decimal';
 import {
   cropFacts,
@@ -127,10 +128,8 @@ export const FIELD_LABELS: Record<keyof ObservationValues, string> = {
 
 export function formatNumber(value: number | null | undefined, digits = 1): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return value.toLocaleString('en', {
-    maximumFractionDigits: digits,
-    minimumFractionDigits: digits,
-  });
+  // Without the locale data: the site page lists these first (shared/labels/decimal-text.ts).
+  return groupedDecimal(value, digits);
 }
 
 export function rateText(strip: Pick<StripDto, 'label' | 'rate'>): string {
