@@ -20,16 +20,14 @@ const chartModules = /[\\/]node_modules[\\/](vega|vega-[^\\/]+|vega-lite|d3-[^\\
 const reactModules = /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]|preload-helper/;
 
 /**
- * Libraries the app's start imports, each run in a start-up task of its own before the app
- * (web/main.tsx): zod with Sheaf's settings, TanStack Query, React Router. With the app they took
- * one task of about a tenth of a second on a fast machine, four times that on a phone.
+ * Two libraries the app's start imports, each run in a start-up task of its own before the app
+ * (web/main.tsx): zod with Sheaf's settings, and TanStack Query. Together with the router and the
+ * app they took one task of about a tenth of a second on a fast machine, four times that on a phone.
  */
 const zodModules = /[\\/]node_modules[\\/]zod[\\/]|[\\/]web[\\/]lib[\\/]zod-setup\.ts$/;
 const queryModules = /[\\/]node_modules[\\/]@tanstack[\\/](query-core|react-query)[\\/]/;
-const routerModules =
-  /[\\/]node_modules[\\/](react-router|react-router-dom|cookie|set-cookie-parser)[\\/]/;
 
-/** The last stage: the app's start module (and so what it imports: schemas, shell, routes). */
+/** The last stage: the app's start module (and so what it imports: router, schemas, shell). */
 const appModules = /[\\/]web[\\/]app[\\/]start\.tsx$/;
 
 /** Text files worth compressing; the server sends the .br or .gz copy when the browser takes it. */
@@ -381,7 +379,6 @@ export default defineConfig({
             { name: 'react', test: reactModules, priority: 3 },
             { name: 'zod', test: zodModules, priority: 3 },
             { name: 'query', test: queryModules, priority: 3 },
-            { name: 'router', test: routerModules, priority: 3 },
             // The app's start module takes the modules it imports into its group with it.
             { name: 'app', test: appModules, priority: 2 },
           ],

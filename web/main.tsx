@@ -19,17 +19,11 @@ if (!root) throw new Error('Sheaf needs an element with id "root" in index.html'
 /** Resolves in a later task of the browser's, so it can paint and take a tap in between. */
 const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
-// The app starts in steps, each in a task of its own: React with this file, then zod (with
-// Sheaf's settings), TanStack Query and React Router, then the app (schemas, shell, routes). On a
-// slow phone one task for all of it held the page for a third of a second, and a tap waits out a
-// whole task. index.html preloads every step's file (vite.config.ts), so the steps cost no round
-// trip. `.then(() => undefined)` leaves the library's exports unused here, so the build still
-// drops the parts the app never imports.
-const librarySteps = [
-  () => import('./lib/zod-setup'),
-  () => import('@tanstack/react-query').then(() => undefined),
-  () => import('react-router-dom').then(() => undefined),
-];
+// The app starts in steps, each in a task of its own: React with this file, zod (with Sheaf's
+// settings), TanStack Query, then the app (router, schemas, shell). On a slow phone one task for
+// all of it held the page for a third of a second, and a tap waits out a whole task. index.html
+// preloads every step's file (vite.config.ts), so the steps cost no round trip.
+const librarySteps = [() => import('./lib/zod-setup'), () => import('@tanstack/react-query')];
 
 async function start(container: HTMLElement) {
   for (const loadLibrary of librarySteps) {
