@@ -19,15 +19,7 @@ const chartModules = /[\\/]node_modules[\\/](vega|vega-[^\\/]+|vega-lite|d3-[^\\
  */
 const reactModules = /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]|preload-helper/;
 
-/**
- * Two libraries the app's start imports, each run in a start-up task of its own before the app
- * (web/main.tsx): zod with Sheaf's settings, and TanStack Query. Together with the router and the
- * app they took one task of about a tenth of a second on a fast machine, four times that on a phone.
- */
-const zodModules = /[\\/]node_modules[\\/]zod[\\/]|[\\/]web[\\/]lib[\\/]zod-setup\.ts$/;
-const queryModules = /[\\/]node_modules[\\/]@tanstack[\\/](query-core|react-query)[\\/]/;
-
-/** The last stage: the app's start module (and so what it imports: router, schemas, shell). */
+/** The second stage: the app's start module (and so what it imports: router, queries, schemas). */
 const appModules = /[\\/]web[\\/]app[\\/]start\.tsx$/;
 
 /** Text files worth compressing; the server sends the .br or .gz copy when the browser takes it. */
@@ -373,12 +365,10 @@ export default defineConfig({
         codeSplitting: {
           groups: [
             { name: 'vega', test: chartModules, priority: 3 },
-            // The start-up stages of web/main.tsx in one file each rather than many: on a
+            // The two start-up stages of web/main.tsx in one file each rather than many: on a
             // phone's HTTP/1.1 connection (six at a time) the page's own code then does not queue
             // behind them. React first, then the app's start (router, queries, schemas, shell).
             { name: 'react', test: reactModules, priority: 3 },
-            { name: 'zod', test: zodModules, priority: 3 },
-            { name: 'query', test: queryModules, priority: 3 },
             // The app's start module takes the modules it imports into its group with it.
             { name: 'app', test: appModules, priority: 2 },
           ],

@@ -19,17 +19,11 @@ if (!root) throw new Error('Sheaf needs an element with id "root" in index.html'
 /** Resolves in a later task of the browser's, so it can paint and take a tap in between. */
 const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
-// The app starts in steps, each in a task of its own: React with this file, zod (with Sheaf's
-// settings), TanStack Query, then the app (router, schemas, shell). On a slow phone one task for
-// all of it held the page for a third of a second, and a tap waits out a whole task. index.html
-// preloads every step's file (vite.config.ts), so the steps cost no round trip.
-const librarySteps = [() => import('./lib/zod-setup'), () => import('@tanstack/react-query')];
-
+// The app starts in two steps, each in a task of its own: React with this file, then the app
+// (router, queries, schemas). On a slow phone one task for all of it held the page for a third
+// of a second. index.html preloads the app's file too (vite.config.ts), so the split costs no
+// round trip.
 async function start(container: HTMLElement) {
-  for (const loadLibrary of librarySteps) {
-    await nextTask();
-    await loadLibrary();
-  }
   await nextTask();
   const { startApp } = await import('./app/start');
   await nextTask();
