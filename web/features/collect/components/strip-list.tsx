@@ -1,5 +1,4 @@
 // Every strip of a site by block and position, with what is recorded, what is missing and the yield.
-import { startTransition, useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import {
   MEASUREMENT_GROUPS,
@@ -8,6 +7,7 @@ import {
 } from '../../../../shared/schemas/strip';
 import { recordedGroups } from '../../../../shared/units/strip-derived';
 import { cn } from '../../../lib/cn';
+import { useAfterFirstPaint } from '../../../lib/use-after-first-paint';
 import { useOutbox } from '../lib/outbox';
 import { effectiveValues, formatNumber, liveDerived } from '../lib/strip-values';
 
@@ -24,20 +24,9 @@ const SHORT: Record<(typeof MEASUREMENT_GROUPS)[number], string> = {
  */
 const FIRST_BLOCKS = 1;
 
-/** False for the first render, true from a moment after it. */
-function useRestShown(): boolean {
-  const [shown, setShown] = useState(false);
-  useEffect(() => {
-    // A timer rather than the effect itself, so the browser paints the first blocks in between.
-    const timer = setTimeout(() => startTransition(() => setShown(true)), 0);
-    return () => clearTimeout(timer);
-  }, []);
-  return shown;
-}
-
 export function StripList({ data }: { data: SiteStrips }) {
   const outbox = useOutbox();
-  const restShown = useRestShown();
+  const restShown = useAfterFirstPaint();
   const metric = data.site.unitSystem === 'metric';
   const allBlocks = [...new Set(data.strips.map((s) => s.block))].sort((a, b) => a - b);
   const blocks = restShown ? allBlocks : allBlocks.slice(0, FIRST_BLOCKS);
