@@ -6,6 +6,7 @@ import { SiteHeading } from '../../../features/collect/components/site-heading';
 import { StripList } from '../../../features/collect/components/strip-list';
 import { NamingChoice } from '../../../features/sites/components/naming-choice';
 import { useAfterFirstPaint } from '../../../lib/use-after-first-paint';
+import type { SiteContext } from '../../../../shared/schemas/strip';
 import { CollectErrorBoundary, siteStripsLoader, WithSiteStrips } from './collect-route';
 
 export const clientLoader = siteStripsLoader;
@@ -29,46 +30,51 @@ export default function SitePage() {
           />
           <div className="grid gap-6 lg:grid-cols-[1fr_20rem]">
             <StripList data={data} />
-            {sideShown ? (
-              <div className="space-y-4">
-                <Card>
-                  <SiteDatesForm key={data.site.dataVersion} site={data.site} />
-                </Card>
-                <NamingChoice siteId={data.site.siteId} />
-                <Card>
-                  <h2 className="text-heading text-ink">This site</h2>
-                  <ul className="mt-2 flex flex-col">
-                    {[
-                      { to: `/sites/${data.site.siteId}/map`, label: 'Strip map' },
-                      { to: `/sites/${data.site.siteId}/packet`, label: 'Field packet' },
-                      { to: `/sites/${data.site.siteId}/report`, label: 'Site report' },
-                      { to: `/sites/${data.site.siteId}/history`, label: 'What changed, and who' },
-                      { to: '/calibrate?site=' + data.site.siteId, label: 'Calibrate the seeder' },
-                      ...(data.site.isCoordinator
-                        ? [
-                            {
-                              to: `/trials/${data.site.trialId}/progress`,
-                              label: 'Progress across the trial',
-                            },
-                          ]
-                        : []),
-                    ].map((item) => (
-                      <li key={item.to}>
-                        <Link
-                          to={item.to}
-                          className="inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent no-underline hover:bg-accent-soft"
-                        >
-                          {item.label}
-                        </Link>
-                      </li>
-                    ))}
-                  </ul>
-                </Card>
-              </div>
-            ) : null}
+            {sideShown ? <SiteSideColumn site={data.site} /> : null}
           </div>
         </>
       )}
     </WithSiteStrips>
+  );
+}
+
+/** The site's dates, how reports name the farm, and links to the site's other pages. */
+function SiteSideColumn({ site }: { site: SiteContext }) {
+  return (
+    <div className="space-y-4">
+      <Card>
+        <SiteDatesForm key={site.dataVersion} site={site} />
+      </Card>
+      <NamingChoice siteId={site.siteId} />
+      <Card>
+        <h2 className="text-heading text-ink">This site</h2>
+        <ul className="mt-2 flex flex-col">
+          {[
+            { to: `/sites/${site.siteId}/map`, label: 'Strip map' },
+            { to: `/sites/${site.siteId}/packet`, label: 'Field packet' },
+            { to: `/sites/${site.siteId}/report`, label: 'Site report' },
+            { to: `/sites/${site.siteId}/history`, label: 'What changed, and who' },
+            { to: '/calibrate?site=' + site.siteId, label: 'Calibrate the seeder' },
+            ...(site.isCoordinator
+              ? [
+                  {
+                    to: `/trials/${site.trialId}/progress`,
+                    label: 'Progress across the trial',
+                  },
+                ]
+              : []),
+          ].map((item) => (
+            <li key={item.to}>
+              <Link
+                to={item.to}
+                className="inline-flex min-h-11 items-center rounded-field px-3 text-label font-semibold text-accent no-underline hover:bg-accent-soft"
+              >
+                {item.label}
+              </Link>
+            </li>
+          ))}
+        </ul>
+      </Card>
+    </div>
   );
 }
