@@ -78,7 +78,9 @@ export function pricePer(value: number | null | undefined, unit: string): string
   return value === null || value === undefined ? '—' : `${moneyFormat().format(value)}/${unit}`;
 }
 
-/** "1 check", "3 checks". */
+/** "1 check", "3 checks", "12.5 turns". */
 export function countOf(count: number, one: string, many = `${one}s`): string {
-  return `${groupedDecimal(count, 0)} ${count === 1 ? one : many}`;
+  // Whole counts without the locale data (decimal-text.ts); a fraction keeps up to 3 decimals.
+  const shown = Number.isInteger(count) ? groupedDecimal(count, 0) : count.toLocaleString('en');
+  return `${shown} ${count === 1 ? one : many}`;
 }

@@ -1,6 +1,7 @@
 // groupedDecimal writes numbers as Intl.NumberFormat('en') does, without loading locale data.
 import { describe, expect, it } from 'vitest';
 import { groupedDecimal, onFirstUse } from '../../../shared/labels/decimal-text';
+import { countOf } from '../../../shared/labels/labels';
 
 // Source: ECMA-402 (Intl.NumberFormat, rounding mode "halfExpand" on the number's shortest decimal
 // form), as implemented by the ICU library that Node ships: the text the app showed before.
@@ -36,5 +37,16 @@ describe('onFirstUse', () => {
     expect(made).toBe(0);
     expect(formatter()).toBe(formatter());
     expect(made).toBe(1);
+  });
+});
+
+describe('countOf', () => {
+  it('writes a count as toLocaleString does, whole or with a fraction, and picks the word', () => {
+    // Source: ECMA-402 Number.prototype.toLocaleString('en') (up to 3 decimals), via Node's ICU.
+    for (const count of [0, 1, 2, 12.5, 1234, 1_234_567, 10.125])
+      expect(countOf(count, 'turn')).toBe(
+        `${count.toLocaleString('en')} ${count === 1 ? 'turn' : 'turns'}`,
+      );
+    expect(countOf(1, 'check')).toBe('1 check');
   });
 });
