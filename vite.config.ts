@@ -14,10 +14,12 @@ import { VitePWA } from 'vite-plugin-pwa';
 const chartModules = /[\\/]node_modules[\\/](vega|vega-[^\\/]+|vega-lite|d3-[^\\/]+)[\\/]/;
 
 /**
- * The first start-up stage, loaded with the entry (web/main.tsx): React, and Vite's helper for
- * preloading a chunk's imports (the entry uses it, so it must not land in a later stage's file).
+ * The first start-up stage, loaded with the entry (web/main.tsx): React, Vite's helper for
+ * preloading a chunk's imports, and the web font's loader (the entry uses both, so they must not
+ * land in a later stage's file: the entry would then run that whole stage in its own task).
  */
-const reactModules = /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]|preload-helper/;
+const reactModules =
+  /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]|preload-helper|[\\/]web[\\/]lib[\\/]web-font\.ts$/;
 
 /** The second stage: the app's start module (and so what it imports: router, queries, schemas). */
 const appModules = /[\\/]web[\\/]app[\\/]start\.tsx$/;

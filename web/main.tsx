@@ -1,7 +1,11 @@
-// Browser entry: self-hosted font and global styles, the service worker, then the app in stages.
-import '@fontsource-variable/inter';
+// Browser entry: global styles, the service worker, then the app in stages.
 import './styles/app.css';
 import { createRoot } from 'react-dom/client';
+import { loadWebFont } from './lib/web-font';
+
+// The web font: with the app installed (a service worker answers from the phone) at once; on a
+// first visit once the first page has painted (web/lib/web-font.ts, web/app/routes/root.tsx).
+if (navigator.serviceWorker?.controller) void loadWebFont();
 
 // The service worker (vite-plugin-pwa's build output) keeps the app and the grower's own data for
 // opening without signal; registered at the load event so it never competes with the first page.

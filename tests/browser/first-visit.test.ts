@@ -80,6 +80,60 @@ describe('first visit', () => {
     }
   });
 
+  it('asks for the web font only once the first page has painted, and then uses it', async () => {
+    const { page, errors, close } = await openPage(browser, 390);
+    try {
+      await page.addInitScript(() => {
+        // The paints of the page's largest text, with what they showed.
+        const w = window as unknown as { largestPaints: { at: number; text: string }[] };
+        w.largestPaints = [];
+        new PerformanceObserver((list) => {
+          for (const entry of list.getEntries() as (PerformanceEntry & { element?: Element })[])
+            w.largestPaints.push({ at: entry.startTime, text: entry.element?.textContent ?? '' });
+        }).observe({ type: 'largest-contentful-paint', buffered: true });
+      });
+      await page.goto(`${server.baseUrl}/sign-in`);
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      const fontFile = /\/assets\/inter-latin-wght-normal-[\w-]+\.woff2$/;
+      await expect
+        .poll(() =>
+          page.evaluate(
+            (source) =>
+              performance
+                .getEntriesByType('resource')
+                .some((entry) => new RegExp(source).test(new URL(entry.name).pathname)),
+            fontFile.source,
+          ),
+        )
+        .toBe(true);
+      const { fontAskedAt, pagePaints } = await page.evaluate((source) => {
+        const font = performance
+          .getEntriesByType('resource')
+          .find((entry) => new RegExp(source).test(new URL(entry.name).pathname));
+        const w = window as unknown as { largestPaints: { at: number; text: string }[] };
+        return {
+          fontAskedAt: font?.startTime ?? 0,
+          // The page itself, not index.html's loading view.
+          pagePaints: w.largestPaints.filter((p) => !p.text.includes('Opening Sheaf')),
+        };
+      }, fontFile.source);
+      expect(pagePaints.length).toBeGreaterThan(0);
+      expect(fontAskedAt).toBeGreaterThan(pagePaints[0]!.at);
+      // And the text then shows in it.
+      await expect
+        .poll(() => page.evaluate(() => document.fonts.check('16px "Inter Variable"')))
+        .toBe(true);
+      expect(
+        await page
+          .getByRole('button', { name: 'Sign in' })
+          .evaluate((button) => getComputedStyle(button).fontFamily),
+      ).toMatch(/^"?Inter Variable/);
+      expect(errors).toEqual([]);
+    } finally {
+      await close();
+    }
+  });
+
   it('says the app could not load, instead of its loading view, when the app’s file does not arrive', async () => {
     const { page, close } = await openPage(browser, 390);
     try {

@@ -56,4 +56,28 @@ describe('outbox sender', () => {
     expect(patches).toHaveLength(2);
     expect(renderHook(() => useOutbox()).result.current).toEqual([]);
   });
+
+  it('keeps the same list while the queue is empty, so the strips on the page are not rendered again', async () => {
+    let renders = 0;
+    const { result } = renderHook(() => {
+      renders += 1;
+      return useOutbox();
+    });
+    const before = result.current;
+    const rendersBefore = renders;
+    // Signing in reads the device's queue (none here: IndexedDB is missing in this test's
+    // browser, so the queue is in memory) and empties the list in memory twice over.
+    setOutboxUser('88888888-8888-4888-8888-888888888888');
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    expect(result.current).toBe(before);
+    expect(renders).toBe(rendersBefore);
+
+    // An edit is a new list, and renders.
+    globalThis.fetch = (async () => new Promise<Response>(() => undefined)) as typeof fetch;
+    queueEdit(strip, { moisturePct: 13 });
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    expect(result.current).not.toBe(before);
+    expect(result.current.map((entry) => entry.stripId)).toEqual([strip.stripId]);
+    expect(renders).toBeGreaterThan(rendersBefore);
+  });
 });

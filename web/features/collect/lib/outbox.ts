@@ -61,7 +61,12 @@ function notify() {
 
 function setEntries(next: Record<string, OutboxEntry>) {
   entries = next;
-  snapshot = Object.values(entries).sort((a, b) => a.updatedAt - b.updatedAt);
+  const list = Object.values(entries).sort((a, b) => a.updatedAt - b.updatedAt);
+  // The same edits as before (an empty queue read from the device, most often): keep the list
+  // React already has, so every strip on the page is not rendered again for nothing.
+  if (list.length !== snapshot.length || list.some((entry, i) => entry !== snapshot[i])) {
+    snapshot = list;
+  }
   notify();
 }
 
