@@ -69,7 +69,11 @@ describe('ready for the field', () => {
         expect(await page.evaluate(() => Intl.DateTimeFormat().resolvedOptions().timeZone)).toBe(
           timezoneId,
         );
-        await page.getByLabel('Sowing', { exact: true }).waitFor();
+        // Read as text, and in the date box once the dates are opened for changing.
+        const dates = page.getByRole('form', { name: 'Site dates' });
+        await dates.getByText('Apr 15, 2027').waitFor();
+        expect(await dates.getByText('Apr 14, 2027').count()).toBe(0);
+        await dates.getByRole('button', { name: 'Change dates' }).click();
         expect(await page.getByLabel('Sowing', { exact: true }).inputValue()).toBe('2027-04-15');
         await page.goto(`${server.baseUrl}/sites/${site.siteId}/report`);
         await page.getByText('Apr 15, 2027').first().waitFor();
@@ -85,6 +89,32 @@ describe('ready for the field', () => {
       }
     },
   );
+
+  it('changes a site date from the site page on a phone: the boxes open on demand', async () => {
+    const { page, errors, close } = await openPage(browser, PHONE);
+    try {
+      await signInThroughUi(page, server.baseUrl, net.emails.grower);
+      await page.goto(`${server.baseUrl}/sites/${site.siteId}`);
+      const dates = page.getByRole('form', { name: 'Site dates' });
+      await dates.getByText('Apr 15, 2027').waitFor();
+      // No date box until the grower asks to change the dates.
+      expect(await dates.locator('input[type="date"]').count()).toBe(0);
+      await dates.getByRole('button', { name: 'Change dates' }).click();
+      await dates.getByLabel('Heading', { exact: true }).fill('2027-06-20');
+      await dates.getByRole('button', { name: 'Save dates' }).click();
+      await dates.getByText('Jun 20, 2027').waitFor();
+      expect(await dates.locator('input[type="date"]').count()).toBe(0);
+      const [row] = await server.testApp.dataSource.query(
+        `SELECT to_char(heading_date, 'YYYY-MM-DD') AS heading FROM sites WHERE id = $1`,
+        [site.siteId],
+      );
+      expect(row.heading).toBe('2027-06-20');
+      await expectAccessible(page);
+      expect(errors).toEqual([]);
+    } finally {
+      await close();
+    }
+  });
 
   it('says which box is not saved and why, reads a decimal comma, and asks before leaving', async () => {
     const strip = site.strips[1]!;

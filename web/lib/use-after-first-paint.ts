@@ -1,14 +1,23 @@
-// Parts of a page below its first screen on a phone, built in a render of their own just after the
+// Parts of a page below its first screen on a phone, built in renders of their own just after the
 // first paint, so a slow phone shows the top of the page without first building all of it.
 import { startTransition, useEffect, useState } from 'react';
 
+/**
+ * 0 for the first render, then 1, 2 … up to `stages`: each step a render (and commit) of its own,
+ * started once the one before has been committed, so no single task builds all the later parts.
+ */
+export function useStagesAfterFirstPaint(stages: number): number {
+  const [shown, setShown] = useState(0);
+  useEffect(() => {
+    if (shown >= stages) return;
+    // A timer rather than the effect itself, so the browser paints the render before in between.
+    const timer = setTimeout(() => startTransition(() => setShown((step) => step + 1)), 0);
+    return () => clearTimeout(timer);
+  }, [shown, stages]);
+  return shown;
+}
+
 /** False for the first render, true from a moment after it. */
 export function useAfterFirstPaint(): boolean {
-  const [shown, setShown] = useState(false);
-  useEffect(() => {
-    // A timer rather than the effect itself, so the browser paints the first render in between.
-    const timer = setTimeout(() => startTransition(() => setShown(true)), 0);
-    return () => clearTimeout(timer);
-  }, []);
-  return shown;
+  return useStagesAfterFirstPaint(1) >= 1;
 }

@@ -5,7 +5,7 @@ import { SiteDatesForm } from '../../../features/collect/components/site-dates-f
 import { SiteHeading } from '../../../features/collect/components/site-heading';
 import { StripList } from '../../../features/collect/components/strip-list';
 import { NamingChoice } from '../../../features/sites/components/naming-choice';
-import { useAfterFirstPaint } from '../../../lib/use-after-first-paint';
+import { useStagesAfterFirstPaint } from '../../../lib/use-after-first-paint';
 import type { SiteContext } from '../../../../shared/schemas/strip';
 import { CollectErrorBoundary, siteStripsLoader, WithSiteStrips } from './collect-route';
 
@@ -13,9 +13,11 @@ export const clientLoader = siteStripsLoader;
 export const ErrorBoundary = CollectErrorBoundary;
 
 export default function SitePage() {
-  // The dates, naming and links column comes a moment after the strips: below the list on a
-  // phone, and its four date boxes alone took about a fifth of the page's first render.
-  const sideShown = useAfterFirstPaint();
+  // The page is built in three renders: the first block of strips; then the other blocks; then
+  // the dates, naming and links column (below the list on a phone). Its four date boxes alone
+  // took about a fifth of the page's first render, and most of the other blocks' render when the
+  // two came together.
+  const stage = useStagesAfterFirstPaint(2);
   return (
     <WithSiteStrips>
       {(data) => (
@@ -29,8 +31,8 @@ export default function SitePage() {
             }
           />
           <div className="grid gap-6 lg:grid-cols-[1fr_20rem]">
-            <StripList data={data} />
-            {sideShown ? <SiteSideColumn site={data.site} /> : null}
+            <StripList data={data} restShown={stage >= 1} />
+            {stage >= 2 ? <SiteSideColumn site={data.site} /> : null}
           </div>
         </>
       )}

@@ -7,7 +7,6 @@ import {
 } from '../../../../shared/schemas/strip';
 import { recordedGroups } from '../../../../shared/units/strip-derived';
 import { cn } from '../../../lib/cn';
-import { useAfterFirstPaint } from '../../../lib/use-after-first-paint';
 import { useOutbox } from '../lib/outbox';
 import { effectiveValues, formatNumber, liveDerived } from '../lib/strip-values';
 
@@ -24,9 +23,9 @@ const SHORT: Record<(typeof MEASUREMENT_GROUPS)[number], string> = {
  */
 const FIRST_BLOCKS = 1;
 
-export function StripList({ data }: { data: SiteStrips }) {
+/** `restShown`: whether the blocks after the first are built yet (the page decides when). */
+export function StripList({ data, restShown }: { data: SiteStrips; restShown: boolean }) {
   const outbox = useOutbox();
-  const restShown = useAfterFirstPaint();
   const metric = data.site.unitSystem === 'metric';
   const allBlocks = [...new Set(data.strips.map((s) => s.block))].sort((a, b) => a - b);
   const blocks = restShown ? allBlocks : allBlocks.slice(0, FIRST_BLOCKS);
