@@ -2,7 +2,7 @@
 // changed in a form opened on demand. A phone builds a date box slowly (its calendar and local
 // date format): the first one took about 50 ms at a slow phone's speed, longer than anything else
 // the site page builds, so the boxes exist only while someone is changing the dates.
-import { useState, type FormEvent } from 'react';
+import { useEffect, useRef, useState, type FormEvent } from 'react';
 import type { SiteContext, SiteDates } from '../../../../shared/schemas/strip';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -27,6 +27,11 @@ const datesOf = (site: SiteContext): SiteDates => ({
 
 export function SiteDatesForm({ site }: { site: SiteContext }) {
   const [editing, setEditing] = useState(false);
+  const firstBox = useRef<HTMLInputElement>(null);
+  // Opened for changing: the first date box takes the focus, for a keyboard or a screen reader.
+  useEffect(() => {
+    if (editing) firstBox.current?.focus();
+  }, [editing]);
   const [dates, setDates] = useState<SiteDates>(() => datesOf(site));
   const update = useUpdateSiteData(site.siteId);
   const fields = apiFieldErrors(update.error);
@@ -50,9 +55,10 @@ export function SiteDatesForm({ site }: { site: SiteContext }) {
       </p>
       {editing ? (
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-1">
-          {DATE_FIELDS.map(({ key, label }) => (
+          {DATE_FIELDS.map(({ key, label }, index) => (
             <TextField
               key={key}
+              ref={index === 0 ? firstBox : undefined}
               type="date"
               label={label}
               value={dates[key] ?? ''}
