@@ -16,8 +16,3 @@ export function useStagesAfterFirstPaint(stages: number): number {
   }, [shown, stages]);
   return shown;
 }
-
-/** False for the first render, true from a moment after it. */
-export function useAfterFirstPaint(): boolean {
-  return useStagesAfterFirstPaint(1) >= 1;
-}

@@ -13,10 +13,9 @@ export const clientLoader = siteStripsLoader;
 export const ErrorBoundary = CollectErrorBoundary;
 
 export default function SitePage() {
-  // The page is built in three renders: the first block of strips; then the other blocks; then
-  // the dates, naming and links column (below the list on a phone). Its four date boxes alone
-  // took about a fifth of the page's first render, and most of the other blocks' render when the
-  // two came together.
+  // The page is built in three renders, so no single task on a slow phone builds all of it: the
+  // first block of strips; then the other blocks; then the dates, naming and links column (below
+  // the list on a phone).
   const stage = useStagesAfterFirstPaint(2);
   return (
     <WithSiteStrips>
