@@ -1,7 +1,6 @@
 // Vite build for the Sheaf web app: React, Tailwind (theme from tailwind.config.ts), the offline
 // app (web app manifest and a Workbox service worker), brotli and gzip copies of text assets,
-// the list of chunks each page needs (for the server's modulepreload hints), V8's compile hint on
-// the page code, and the /api proxy in dev.
+// the list of chunks each page needs (for the server's modulepreload hints), and the /api proxy in dev.
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
@@ -61,41 +60,6 @@ function precompress(): Plugin {
             }),
           );
           fs.writeFileSync(`${file}.gz`, zlib.gzipSync(body, { level: 9 }));
-        }
-      },
-    },
-  };
-}
-
-/** V8's explicit compile hint: every function in the file is expected to run while the page loads. */
-const COMPILE_HINT = '//# allFunctionsCalledOnLoad';
-
-/**
- * Puts V8's compile hint (Chrome 136 and later) at the top of every chunk but the charts': a page
- * runs nearly all of the code it loads, so Chrome then compiles those functions on the background
- * thread that streams the file, instead of one at a time on the main thread when each is first
- * called (in a Chromium trace of the site page: about 70 ms of main-thread compiling became 15).
- * The charting library is large and a report uses a small part of it, so it stays lazily compiled.
- * Other browsers read the line as a comment.
- */
-function compileHints(): Plugin {
-  return {
-    name: 'sheaf-compile-hints',
-    apply: 'build',
-    generateBundle: {
-      order: 'post',
-      handler(_options, bundle) {
-        for (const chunk of Object.values(bundle)) {
-          if (chunk.type !== 'chunk' || chunk.name === 'vega') continue;
-          chunk.code = `${COMPILE_HINT}\n${chunk.code}`;
-          // One line more at the top: a source map's generated lines move down by one.
-          if (chunk.map) chunk.map.mappings = `;${chunk.map.mappings}`;
-          const mapFile = bundle[`${chunk.fileName}.map`];
-          if (mapFile?.type === 'asset' && typeof mapFile.source === 'string') {
-            const map = JSON.parse(mapFile.source) as { mappings: string };
-            map.mappings = `;${map.mappings}`;
-            mapFile.source = JSON.stringify(map);
-          }
         }
       },
     },
@@ -389,7 +353,6 @@ export default defineConfig({
     }),
     startupPreloads(),
     routePreloads('web/app/router.tsx'),
-    compileHints(),
     precompress(),
   ],
   build: {

@@ -1,7 +1,5 @@
 // A first visit on a phone loads only the code of the page asked for, and the page the server sends
 // names all of it, so the browser fetches it at once rather than after the entry code has run.
-import fs from 'node:fs';
-import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, openPage, signInThroughUi, startTestServer } from '../helpers/browser';
@@ -62,18 +60,6 @@ describe('first visit', () => {
       expect(site.html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/site-/);
       expect(site.scripts.filter((file) => OTHER_PAGES.test(file))).toEqual([]);
       expect(site.scripts.filter((file) => !site.html.includes(`"${file}"`))).toEqual([]);
-      // Each file the page runs asks Chrome to compile it on the background thread that streams
-      // it (V8's explicit compile hint, vite.config.ts); the charting library, mostly unused on a
-      // page, does not.
-      for (const file of site.scripts) {
-        const text = await (await tab.request.get(`${server.baseUrl}${file}`)).text();
-        expect(text.startsWith('//# allFunctionsCalledOnLoad\n'), file).toBe(true);
-      }
-      const assets = path.join(process.env.WEB_DIST ?? 'dist/web', 'assets');
-      const charts = fs.readdirSync(assets).filter((name) => /^vega-[\w-]+\.js$/.test(name));
-      expect(charts.length).toBeGreaterThan(0);
-      for (const name of charts)
-        expect(fs.readFileSync(path.join(assets, name), 'utf8')).not.toMatch(/^\/\/# allFunctions/);
       // The first block is built first and the others a moment later: in the end every strip is
       // listed, each once, in plot order.
       const strips = await (
