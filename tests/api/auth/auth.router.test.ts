@@ -103,20 +103,7 @@ describe('sign-in, sessions and CSRF', () => {
     expect((await client.get('/api/auth/me')).status).toBe(200);
   });
 
-  it('keeps a signed-in session across a restart of the API server', async () => {
-    const first = await createTestApp({}, { ownServer: true });
-    const client = await signIn(first.app, net.emails.grower);
-    const cookie = (await client.get('/api/auth/me')).request.cookies;
-    await first.close();
-    const second = await createTestApp({}, { ownServer: true });
-    try {
-      const res = await request(second.app).get('/api/auth/me').set('Cookie', cookie);
-      expect(res.status).toBe(200);
-      expect(res.body.email).toBe(net.emails.grower);
-    } finally {
-      await second.close();
-    }
-  });
+  // A session surviving a restart of the server process: tests/faults/server-process.test.ts.
 
   it('never leaks a stack trace in an error body', async () => {
     const res = await request(t.app)

@@ -38,8 +38,11 @@ describe('sign-in limiter', () => {
   let second: TestApp;
   let net: BuiltNetwork;
   beforeAll(async () => {
-    t = await createTestApp({ RATE_LIMIT_LOGIN: '3', TRUST_PROXY: 'on' });
-    second = await createTestApp({ RATE_LIMIT_LOGIN: '3', TRUST_PROXY: 'on' });
+    // Two API processes with the same settings, started side by side.
+    [t, second] = await Promise.all([
+      createTestApp({ RATE_LIMIT_LOGIN: '3', TRUST_PROXY: 'on' }),
+      createTestApp({ RATE_LIMIT_LOGIN: '3', TRUST_PROXY: 'on' }),
+    ]);
     net = await buildNetwork(t.dataSource, 'Limiter');
   });
   afterAll(async () => {
