@@ -99,7 +99,7 @@ try {
   if (extraArgs.length > 0) {
     // A chosen set that includes fault tests runs one file at a time, like the full run.
     const serial = extraArgs.some((arg) => arg.replace(/^\.\//, '').startsWith('tests/faults'))
-      ? ['--no-file-parallelism']
+      ? ['--no-file-parallelism', '--isolate']
       : [];
     code = await runChild(process.execPath, [vitest, 'run', ...serial, ...extraArgs], env);
   } else {
@@ -113,7 +113,7 @@ try {
     const faults = fs.existsSync('tests/faults')
       ? await runChild(
           process.execPath,
-          [vitest, 'run', '--no-file-parallelism', 'tests/faults'],
+          [vitest, 'run', '--no-file-parallelism', '--isolate', 'tests/faults'],
           env,
         )
       : 0;
