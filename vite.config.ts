@@ -21,7 +21,12 @@ const chartModules = /[\\/]node_modules[\\/](vega|vega-[^\\/]+|vega-lite|d3-[^\\
 const reactModules =
   /[\\/]node_modules[\\/](react|react-dom|scheduler)[\\/]|preload-helper|[\\/]web[\\/]lib[\\/]web-font\.ts$/;
 
-/** The second stage: the app's start module (and so what it imports: router, queries, schemas). */
+/** The second and third stages: zod with Sheaf's settings for it, and React Router. */
+const zodModules = /[\\/]node_modules[\\/]zod[\\/]|[\\/]web[\\/]lib[\\/]zod-setup\.ts$/;
+const routerModules =
+  /[\\/]node_modules[\\/]react-router[\\/]|[\\/]web[\\/]app[\\/]router-library\.ts$/;
+
+/** The last stage: the app's start module (and so what it imports: queries, schemas, the shell). */
 const appModules = /[\\/]web[\\/]app[\\/]start\.tsx$/;
 
 /** Text files worth compressing; the server sends the .br or .gz copy when the browser takes it. */
@@ -367,10 +372,13 @@ export default defineConfig({
         codeSplitting: {
           groups: [
             { name: 'vega', test: chartModules, priority: 3 },
-            // The two start-up stages of web/main.tsx in one file each rather than many: on a
-            // phone's HTTP/1.1 connection (six at a time) the page's own code then does not queue
-            // behind them. React first, then the app's start (router, queries, schemas, shell).
+            // The start-up stages of web/main.tsx in one file each rather than many: on a phone's
+            // HTTP/1.1 connection (six at a time) the page's own code then does not queue behind
+            // them. React first, then zod, React Router, and the app's start (queries, schemas,
+            // shell), each run in a task of its own.
             { name: 'react', test: reactModules, priority: 3 },
+            { name: 'zod', test: zodModules, priority: 3 },
+            { name: 'router', test: routerModules, priority: 3 },
             // The app's start module takes the modules it imports into its group with it.
             { name: 'app', test: appModules, priority: 2 },
           ],

@@ -10,12 +10,10 @@ import { meQueryKey } from '../../features/auth/api/get-me';
 import { isApiError } from '../../lib/api-client';
 import { errorSummary } from '../../lib/form-errors';
 import { signInPath } from '../../lib/redirects';
-import { useWebFontAfterPaint } from '../../lib/web-font';
 import { AppShell } from '../layout/app-shell';
 import { isNotFound, NotFoundPanel } from '../route-errors';
 
 export function RootLayout() {
-  useWebFontAfterPaint();
   return (
     <>
       <Outlet />
@@ -42,7 +40,6 @@ function SessionEnded() {
 }
 
 export function RootErrorBoundary() {
-  useWebFontAfterPaint();
   const error = useRouteError();
   const queryClient = useQueryClient();
   const user = queryClient.getQueryData<SessionUser | null>(meQueryKey) ?? null;
