@@ -128,7 +128,11 @@ export function MeetingSlides({ report, backTo }: { report: PooledReport; backTo
           </span>
         </span>
       </div>
+      {/* A long slide scrolls (a small screen, a wide font): the slide area takes the keyboard's
+          focus so that the up and down arrows scroll it; the other keys still turn slides. */}
       <main
+        tabIndex={0}
+        aria-label="Slides"
         className="relative flex min-h-0 flex-1 cursor-pointer flex-col overflow-y-auto px-[6vw] pb-10 pt-4"
         onClick={(event) => {
           if ((event.target as HTMLElement).closest('button, a')) return;
