@@ -1,7 +1,27 @@
-// Shared building blocks for the API contract: ids, roles and the error body.
+// Shared building blocks for the API contract: ids, roles, dates, crops, unit systems and the
+// error body. Kept small: every page builds these at start-up.
 import { z } from 'zod';
 
 export const IdSchema = z.uuid();
+
+/** A date without a time (sowing, emergence, heading, harvest): never converted through a `Date`. */
+export const IsoDateSchema = z.iso.date('Use a date like 2027-04-15');
+
+export const CROP_KEYS = [
+  'wheat',
+  'springWheat',
+  'oats',
+  'hullessOats',
+  'barley',
+  'rye',
+  'custom',
+] as const;
+export const CropKeySchema = z.enum(CROP_KEYS);
+export type CropKey = z.infer<typeof CropKeySchema>;
+
+export const UNIT_SYSTEMS = ['imperial', 'metric'] as const;
+export const UnitSystemSchema = z.enum(UNIT_SYSTEMS);
+export type UnitSystem = z.infer<typeof UnitSystemSchema>;
 
 export const ROLES = ['admin', 'coordinator', 'grower', 'member'] as const;
 export const RoleSchema = z.enum(ROLES);

@@ -1,7 +1,7 @@
 // What a grower records on one strip, in the trial's unit system (imperial: ft, lb, ft²;
 // metric: m, kg, m²), plus the derived values shown beside it.
 import { z } from 'zod';
-import { IsoDateSchema } from './site';
+import { IsoDateSchema } from './common';
 
 const count = z
   .number()

@@ -1,8 +1,9 @@
 // Site contract: one grower's field in one season, enrolled in a trial.
 import { z } from 'zod';
 import { EmailSchema } from './auth';
+import { IsoDateSchema } from './common';
 
-export const IsoDateSchema = z.iso.date('Use a date like 2027-04-15');
+export { IsoDateSchema } from './common';
 
 export const CreateSiteInputSchema = z
   .object({

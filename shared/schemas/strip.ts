@@ -1,9 +1,8 @@
 // Strip contract for data collection: a site's strips with their values, derived numbers and
 // warnings; the partial update a form or grid sends; site dates; audit and progress rows.
 import { z } from 'zod';
-import { IsoDateSchema } from './site';
+import { CropKeySchema, IsoDateSchema, UnitSystemSchema } from './common';
 import { DerivedValuesSchema, ObservationValuesSchema } from './observation';
-import { CropKeySchema, UnitSystemSchema } from './trial';
 
 /** Groups of measurements a strip can have "in"; each is complete or missing. */
 export const MEASUREMENT_GROUPS = ['stand', 'tillers', 'heads', 'yield'] as const;

@@ -1,25 +1,14 @@
 // Trial design contract: crop, reference rate, rate levels, strip layout, seed lot and prices.
 import { z } from 'zod';
+import { CropKeySchema, UnitSystemSchema } from './common';
 
-export const CROP_KEYS = [
-  'wheat',
-  'springWheat',
-  'oats',
-  'hullessOats',
-  'barley',
-  'rye',
-  'custom',
-] as const;
-export const CropKeySchema = z.enum(CROP_KEYS);
-export type CropKey = z.infer<typeof CropKeySchema>;
+// Defined with the building blocks (pages that only need these do not build the trial schemas).
+export { CROP_KEYS, CropKeySchema, UNIT_SYSTEMS, UnitSystemSchema } from './common';
+export type { CropKey, UnitSystem } from './common';
 
 export const RATE_UNITS = ['lb/acre', 'kg/ha', 'seeds/ft2', 'seeds/m2', 'seeds/ft-row'] as const;
 export const RateUnitSchema = z.enum(RATE_UNITS);
 export type RateUnit = z.infer<typeof RateUnitSchema>;
-
-export const UNIT_SYSTEMS = ['imperial', 'metric'] as const;
-export const UnitSystemSchema = z.enum(UNIT_SYSTEMS);
-export type UnitSystem = z.infer<typeof UnitSystemSchema>;
 
 export const TRIAL_STATUSES = ['draft', 'in-field', 'harvest-in', 'closed'] as const;
 export const TrialStatusSchema = z.enum(TRIAL_STATUSES);
