@@ -11,6 +11,8 @@ import { freePort } from '../lib/postgres.mjs';
 import { signIn } from './environment.mjs';
 
 const RUNS = Math.max(1, Number(process.env.BENCH_LIGHTHOUSE_RUNS ?? 3) || 3);
+/** The pause before each run, in milliseconds (see the loop below). */
+const SETTLE_MS = 3000;
 
 const median = (values) => {
   const sorted = [...values].sort((a, b) => a - b);
@@ -104,6 +106,9 @@ export async function runLighthouse({ base }) {
   try {
     for (let run = 1; run <= RUNS; run++) {
       for (const page of pages) {
+        // A pause first, so the run before (Chromium closing its tab, the service worker
+        // installing, Lighthouse's own clean-up) does not share the two cores with this one.
+        await new Promise((resolve) => setTimeout(resolve, SETTLE_MS));
         const load = os.loadavg()[0];
         const { lhr } = await lighthouse(page.url, {
           port: debugPort,
