@@ -49,18 +49,25 @@ const APP_LAYOUT_MODULE = 'web/app/routes/app/layout';
 
 type ModuleGraph = { getModuleInfo(id: string): { importedIds: readonly string[] } | null };
 
-/** The modules `roots` import statically, directly or through others, the roots included. */
-function staticImports(graph: ModuleGraph, roots: string[]): Set<string> {
+/** Everything reachable from `start` by following `next`, the start included. */
+function reachable(
+  start: string[],
+  next: (item: string) => readonly string[] | undefined,
+): Set<string> {
   const seen = new Set<string>();
-  const stack = [...roots];
+  const stack = [...start];
   while (stack.length > 0) {
-    const id = stack.pop()!;
-    if (seen.has(id)) continue;
-    seen.add(id);
-    stack.push(...(graph.getModuleInfo(id)?.importedIds ?? []));
+    const item = stack.pop()!;
+    if (seen.has(item)) continue;
+    seen.add(item);
+    stack.push(...(next(item) ?? []));
   }
   return seen;
 }
+
+/** The modules `roots` import statically, directly or through others, the roots included. */
+const staticImports = (graph: ModuleGraph, roots: string[]) =>
+  reachable(roots, (id) => graph.getModuleInfo(id)?.importedIds);
 
 /** A route module's id (its file), from the extension-less path of its import in the route table. */
 const moduleFile = (module: string) =>
@@ -241,17 +248,8 @@ type OutputBundle = Rollup.OutputBundle;
 type OutputChunk = Rollup.OutputChunk;
 
 /** Every chunk file reachable from `start` through static imports. */
-function staticClosure(byFile: Map<string, OutputChunk>, start: string[]): Set<string> {
-  const seen = new Set<string>();
-  const stack = [...start];
-  while (stack.length > 0) {
-    const file = stack.pop()!;
-    if (seen.has(file)) continue;
-    seen.add(file);
-    stack.push(...(byFile.get(file)?.imports ?? []));
-  }
-  return seen;
-}
+const staticClosure = (byFile: Map<string, OutputChunk>, start: string[]) =>
+  reachable(start, (file) => byFile.get(file)?.imports);
 
 /**
  * The files every page runs at start: the entry, and the stages web/main.tsx imports itself (React,
