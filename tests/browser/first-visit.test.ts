@@ -133,6 +133,36 @@ describe('first visit', () => {
     }
   });
 
+  it('shows a loading view that paints, is named for screen readers and has no words, until the page shows', async () => {
+    const { page, errors, close } = await openPage(browser, 390);
+    try {
+      // The app's file is slow to arrive, as over a weak signal.
+      let release = () => {};
+      const held = new Promise<void>((resolve) => (release = resolve));
+      await page.route('**/assets/app-*.js', async (route) => {
+        await held;
+        await route.continue();
+      });
+      await page.goto(`${server.baseUrl}/sign-in`);
+      await page.getByRole('status', { name: 'Opening Sheaf…' }).waitFor();
+      const paints = () =>
+        page.evaluate(() => performance.getEntriesByType('paint').map((entry) => entry.name));
+      // The ring has painted, but nothing the browser counts as content: the first contentful
+      // paint is the page itself, so blocking time is counted from when there is something to tap.
+      await expect.poll(paints).toContain('first-paint');
+      expect(await paints()).not.toContain('first-contentful-paint');
+      expect(await page.locator('#root').innerText()).toBe('');
+
+      release();
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      await expect.poll(paints).toContain('first-contentful-paint');
+      expect(await page.getByRole('status', { name: 'Opening Sheaf…' }).count()).toBe(0);
+      expect(errors).toEqual([]);
+    } finally {
+      await close();
+    }
+  });
+
   it('says the app could not load, instead of its loading view, when the app’s file does not arrive', async () => {
     const { page, close } = await openPage(browser, 390);
     try {
@@ -142,7 +172,7 @@ describe('first visit', () => {
       await expect
         .poll(() => page.getByRole('alert').textContent())
         .toContain('Sheaf could not load all of its files');
-      expect(await page.getByText('Opening Sheaf…').count()).toBe(0);
+      expect(await page.getByRole('status', { name: 'Opening Sheaf…' }).count()).toBe(0);
     } finally {
       await close();
     }

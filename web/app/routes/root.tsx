@@ -5,7 +5,7 @@ import { Navigate, Outlet, ScrollRestoration, useLocation, useRouteError } from 
 import type { SessionUser } from '../../../shared/schemas/auth';
 import { Alert } from '../../components/ui/alert';
 import { Button } from '../../components/ui/button';
-import { LoadingBlock } from '../../components/ui/spinner';
+import { Spinner } from '../../components/ui/spinner';
 import { meQueryKey } from '../../features/auth/api/get-me';
 import { isApiError } from '../../lib/api-client';
 import { errorSummary } from '../../lib/form-errors';
@@ -22,10 +22,13 @@ export function RootLayout() {
   );
 }
 
+/** The same as index.html's loading view: a ring named for screen readers, no painted words. */
 export function RootHydrateFallback() {
   return (
     <div className="flex min-h-dvh items-center justify-center">
-      <LoadingBlock label="Opening Sheaf…" />
+      <div role="status" aria-label="Opening Sheaf…" className="py-12 text-accent">
+        <Spinner size="md" label="" />
+      </div>
     </div>
   );
 }
